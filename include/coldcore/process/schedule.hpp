@@ -1,0 +1,66 @@
+#pragma once
+/// A product and the process it goes through: stages, each with a medium temperature profile,
+/// a surface heat-transfer coefficient and an end condition. All values SI (s, m, °C, W/m²K);
+/// unit conversion happens once, in io/.
+#include <string>
+#include <vector>
+
+#include "coldcore/conduction/shape.hpp"
+#include "coldcore/properties/thermal.hpp"
+
+namespace coldcore {
+
+/// Outer dimensions of the product (full sizes, not halves).
+/// sphere, cylinder: diameter_m. finite-cylinder: diameter_m and length_m. slab: thickness_m.
+/// brick: size_m[0..2]. Unused fields stay 0.
+struct Dimensions {
+  double diameter_m = 0;
+  double length_m = 0;
+  double thickness_m = 0;
+  double size_m[3] = {0, 0, 0};
+};
+
+struct Product {
+  std::string name;
+  Shape shape = Shape::sphere;
+  Dimensions dims;
+  double initial_C = 0;          ///< uniform initial temperature
+  ThermalProperties properties;
+};
+
+/// One point of a medium schedule; time from the stage's start.
+struct MediumPoint {
+  double time_s = 0;
+  double temp_C = 0;
+};
+
+/// Medium temperature of a stage: piecewise-linear through points (strictly increasing times,
+/// first at t = 0), held constant after the last point. A constant medium is one point.
+struct MediumProfile {
+  std::vector<MediumPoint> points;
+  std::string description;       ///< "constant", "points", or "log <file> (sha256 ...)"
+  double at(double time_s) const;  ///< REQUIRES: !points.empty()
+};
+
+enum class StageEndKind {
+  duration,        ///< runs for duration_s
+  until_centre,    ///< until the centre reaches target_C (rising or falling), capped at max_duration_s
+  until_mean,      ///< until the mass-average reaches target_C, capped at max_duration_s
+};
+
+struct StageEnd {
+  StageEndKind kind = StageEndKind::duration;
+  double duration_s = 0;      ///< kind == duration
+  double target_C = 0;        ///< until_*: the temperature to reach
+  double max_duration_s = 0;  ///< until_*: the cap; reaching it is reported, never silently accepted
+};
+
+struct Stage {
+  std::string name;
+  MediumProfile medium;
+  double h_W_m2K = 0;          ///< > 0; surface heat-transfer coefficient
+  bool h_infinite = false;     ///< true: surface held at the medium temperature (Bi = ∞)
+  StageEnd end;
+};
+
+}  // namespace coldcore

@@ -1,0 +1,50 @@
+// coldcore command line: parse, dispatch to a verb, turn errors into one stderr line.
+#include <iostream>
+
+#include "cli/verbs.hpp"
+#include "coldcore/error.hpp"
+#include "coldcore/version.hpp"
+
+namespace {
+
+int real_main(int argc, char** argv) {
+  using namespace coldcore::cli;
+  CLI::App app{"coldcore: cold-spot temperature, lethality and cooling checks for conduction-heated foods"};
+  app.set_version_flag("--version", std::string("coldcore ") + coldcore::kVersion);
+  app.require_subcommand(1);
+  app.footer(
+      "Exit status: 0 every target met (or none given), 1 a target not demonstrated or no\n"
+      "solution, 2 bad input or usage.\n"
+      "Results are engineering estimates; a qualified process authority and the local regulator decide.");
+  VerbContext ctx;
+  add_modes_verb(app, ctx);
+  add_pending_verbs(app, ctx);
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    const int code = app.exit(e);
+    return code == 0 ? 0 : kBadInput;
+  }
+  if (!ctx.run) return kBadInput;
+  return ctx.run();
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+  try {
+    return real_main(argc, argv);
+  } catch (const coldcore::InputError& e) {
+    std::cerr << "coldcore: " << e.what() << "\n";
+    return coldcore::cli::kBadInput;
+  } catch (const coldcore::NoSolution& e) {
+    std::cerr << "coldcore: no solution: " << e.what() << "\n";
+    return coldcore::cli::kNotDemonstrated;
+  } catch (const coldcore::Error& e) {
+    std::cerr << "coldcore: " << e.what() << "\n";
+    return coldcore::cli::kBadInput;
+  } catch (const std::exception& e) {
+    std::cerr << "coldcore: internal error: " << e.what() << "\n";
+    return 70;
+  }
+}

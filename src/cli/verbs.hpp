@@ -1,0 +1,26 @@
+#pragma once
+// The verb table: each verb file adds its subcommand to the app and sets `run`, which returns
+// the exit code. main() only parses, dispatches and turns coldcore::Error into one stderr line.
+#include <functional>
+#include <iosfwd>
+#include <string>
+
+#include <CLI/CLI.hpp>
+
+namespace coldcore::cli {
+
+/// Exit codes scripts can rely on.
+enum ExitCode : int {
+  kAllMet = 0,          ///< success; every target met, or there are none
+  kNotDemonstrated = 1, ///< at least one target not demonstrated (or an inverse question has no answer)
+  kBadInput = 2,        ///< bad input or usage
+};
+
+struct VerbContext {
+  std::function<int()> run;  ///< set by the chosen verb's callback
+};
+
+void add_modes_verb(CLI::App& app, VerbContext& ctx);
+void add_pending_verbs(CLI::App& app, VerbContext& ctx);
+
+}  // namespace coldcore::cli

@@ -1,0 +1,19 @@
+#include "coldcore/report/cautions.hpp"
+
+namespace coldcore {
+
+const std::vector<std::string>& cautions() {
+  static const std::vector<std::string> kCautions = {
+      "These results are engineering estimates from a conduction model, not a validated process.",
+      "They must be confirmed by heat-penetration studies on the real product and "
+      "temperature-distribution studies on the real equipment.",
+      "A qualified process authority and the local regulator decide whether a process or a "
+      "product lot is acceptable; this tool does not release product.",
+      "Follow the local food codes and regulations that apply, in their current edition.",
+      "Model assumptions: conduction only, uniform initial temperature, constant thermal "
+      "properties unless stated, no phase change; the cold spot is taken at the geometric centre.",
+  };
+  return kCautions;
+}
+
+}  // namespace coldcore
