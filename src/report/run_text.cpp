@@ -1,0 +1,93 @@
+// Plain-text run report: what a QA engineer reads in a terminal or prints.
+#include <algorithm>
+#include <ostream>
+
+#include "coldcore/report/run_report.hpp"
+
+namespace coldcore {
+
+std::string_view verdict_word(bool met) { return met ? "met" : "not demonstrated"; }
+
+namespace {
+
+std::string pad(std::string s, size_t width) {
+  // Pads by code points, not bytes, so °C columns stay aligned.
+  size_t cps = 0;
+  for (unsigned char c : s) cps += (c & 0xC0) != 0x80;
+  if (cps < width) s.append(width - cps, ' ');
+  return s;
+}
+
+void print_table(std::ostream& out, const std::vector<std::vector<std::string>>& rows) {
+  std::vector<size_t> width;
+  for (const auto& row : rows)
+    for (size_t i = 0; i < row.size(); ++i) {
+      size_t cps = 0;
+      for (unsigned char c : row[i]) cps += (c & 0xC0) != 0x80;
+      if (width.size() <= i) width.push_back(0);
+      width[i] = std::max(width[i], cps);
+    }
+  for (const auto& row : rows) {
+    std::string line = " ";
+    for (size_t i = 0; i < row.size(); ++i) line += " " + pad(row[i], i + 1 < row.size() ? width[i] : 0);
+    out << line << "\n";
+  }
+}
+
+std::string h_text(const StageRow& s) { return s.h_infinite ? "inf" : fixed(s.h_W_m2K, 1); }
+
+}  // namespace
+
+void write_run_text(const RunReport& r, std::ostream& out, TempUnit u) {
+  const std::string us(unit_symbol(u));
+  out << r.title << "\n\n";
+  if (!r.product.empty()) {
+    out << "Product\n";
+    for (const auto& kv : r.product) out << "  " << kv.key << ": " << kv.value << "\n";
+    out << "\n";
+  }
+  if (!r.stages.empty()) {
+    out << "Stages (temperatures at each stage's end, " << us << ")\n";
+    std::vector<std::vector<std::string>> rows = {
+        {"stage", "start", "end", "ended by", "h W/m²K", "Bi", "centre", "surface", "mean"}};
+    for (const auto& s : r.stages)
+      rows.push_back({s.name, duration_text(s.start_s), duration_text(s.end_s), s.ended_by, h_text(s),
+                      s.h_infinite ? "inf" : fixed(s.biot, 3), fixed(display_temp(s.centre_C, u), 2),
+                      fixed(display_temp(s.surface_C, u), 2), fixed(display_temp(s.mean_C, u), 2)});
+    print_table(out, rows);
+    out << "\n  Media:\n";
+    for (const auto& s : r.stages) out << "    " << s.name << ": " << s.medium << "\n";
+    out << "\n  What the Biot number says:\n";
+    for (const auto& s : r.stages) out << "    " << s.name << ": " << s.biot_note << "\n";
+    out << "\n";
+  }
+  if (!r.verdicts.empty()) {
+    out << "Assessment\n";
+    std::vector<std::vector<std::string>> rows = {{"target", "required", "achieved", "margin", "verdict"}};
+    for (const auto& v : r.verdicts)
+      rows.push_back({v.name, v.required, v.achieved, v.margin, std::string(verdict_word(v.met))});
+    print_table(out, rows);
+    for (const auto& v : r.verdicts)
+      for (const auto& d : v.details) out << "    " << v.name << ": " << d << "\n";
+    out << "\n";
+  }
+  if (!r.warnings.empty()) {
+    out << "Warnings\n";
+    for (const auto& w : r.warnings) out << "  ! " << w << "\n";
+    out << "\n";
+  }
+  if (!r.assumptions.empty()) {
+    out << "Assumptions\n";
+    for (const auto& a : r.assumptions) out << "  - " << a << "\n";
+    out << "\n";
+  }
+  if (!r.provenance.empty()) {
+    out << "Provenance\n";
+    for (const auto& kv : r.provenance) out << "  " << kv.key << ": " << kv.value << "\n";
+    out << "\n";
+  }
+  out << "CAUTIONS\n";
+  for (const auto& c : r.cautions) out << "  * " << c << "\n";
+}
+
+}  // namespace coldcore
