@@ -92,6 +92,7 @@ std::string format_value(const toml::node& n) {
     return out + "]";
   }
   if (auto t = n.as_table()) {
+    // Inline when short; a whole [[stage]] table in a message would hide the point.
     std::string out = "{";
     bool first = true;
     for (auto&& [k, v] : *t) {
@@ -99,7 +100,8 @@ std::string format_value(const toml::node& n) {
       out += std::string(k.str()) + " = " + format_value(v);
       first = false;
     }
-    return out + (first ? "}" : " }");
+    out += first ? "}" : " }";
+    return out.size() <= 80 ? out : "{ ... }";
   }
   std::ostringstream os;
   n.visit([&](auto&& x) { os << x; });
@@ -126,11 +128,19 @@ Fields::Fields(const toml::table& table, std::string origin, std::string path, s
       const bool ok = base->form == KeyForm::quantity ? accepts(base->quantity, suffix)
                                                       : medium_units(suffix).has_value();
       if (!ok) {
-        std::string msg = "unknown unit suffix '_" + suffix + "'";
-        if (auto near = did_you_mean(key, all_spellings(*base))) msg += "; did you mean '" + *near + "'?";
+        std::string msg = "unknown unit suffix '_" + suffix + "'; ";
+        // Suggest only a change of letter case or a dropped plural 's' ("_MM", "_mins"): nudging
+        // "_in" towards "_m" would turn inches into metres.
+        for (const auto& sp : all_spellings(*base)) {
+          const std::string sp_suffix = sp.substr(base->name.size() + 1);
+          if (edit_distance(suffix, sp_suffix) == 0 || suffix == sp_suffix + "s") {
+            msg += "did you mean '" + sp + "'? ";
+            break;
+          }
+        }
         msg += base->form == KeyForm::quantity
-                   ? " accepted: " + spellings(base->name, base->quantity)
-                   : " accepted: " + base->name + "_C or " + base->name + "_F (points may name the time unit: " +
+                   ? "accepted: " + spellings(base->name, base->quantity)
+                   : "accepted: " + base->name + "_C or " + base->name + "_F (points may name the time unit: " +
                          base->name + "_min_C)";
         fail(key, msg);
       }

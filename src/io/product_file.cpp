@@ -51,9 +51,9 @@ Shape parse_shape(const Fields& f) {
     if (sn.name == *s) return sn.shape;
   std::vector<std::string> names;
   for (const auto& sn : kShapes) names.emplace_back(sn.name);
-  std::string msg = "unknown shape";
-  if (auto near = did_you_mean(*s, names)) msg += "; did you mean " + quote(*near) + "?";
-  f.fail("shape", msg + " accepted: sphere, cylinder, finite-cylinder, slab, brick");
+  std::string msg = "unknown shape; ";
+  if (auto near = did_you_mean(*s, names)) msg += "did you mean " + quote(*near) + "? ";
+  f.fail("shape", msg + "accepted: sphere, cylinder, finite-cylinder, slab, brick");
 }
 
 ThermalProperties parse_properties(const toml::table& t, const std::string& origin) {

@@ -198,17 +198,17 @@ void parse_targets(const Fields& root, ProductFile& out) {
     const toml::node* kind_node = tbl.get("kind");
     std::vector<std::string> kind_names;
     for (const auto& k : kKinds) kind_names.emplace_back(k.name);
-    const std::string accepted = " accepted: log-reduction, F-value, cooling-rule, centre-min-temperature";
+    const std::string accepted = "accepted: log-reduction, F-value, cooling-rule, centre-min-temperature";
     const std::string where = root.origin() + ": " + path + ".kind";
-    if (kind_node == nullptr) throw InputError(where + ": missing:" + accepted);
+    if (kind_node == nullptr) throw InputError(where + ": missing: " + accepted);
     const auto* ks = kind_node->as_string();
-    if (ks == nullptr) throw InputError(where + " = " + format_value(*kind_node) + ": must be a string;" + accepted);
+    if (ks == nullptr) throw InputError(where + " = " + format_value(*kind_node) + ": must be a string; " + accepted);
     std::optional<TargetKind> kind;
     for (const auto& k : kKinds)
       if (k.name == ks->get()) kind = k.kind;
     if (!kind) {
-      std::string msg = where + " = " + quote(ks->get()) + ": unknown kind";
-      if (auto near = did_you_mean(ks->get(), kind_names)) msg += "; did you mean " + quote(*near) + "?";
+      std::string msg = where + " = " + quote(ks->get()) + ": unknown kind; ";
+      if (auto near = did_you_mean(ks->get(), kind_names)) msg += "did you mean " + quote(*near) + "? ";
       throw InputError(msg + accepted);
     }
     Fields f(tbl, root.origin(), path, specs_for(*kind));
