@@ -1,0 +1,50 @@
+#pragma once
+/// Temperature logs (CSV) from a data logger: a medium (oven, water, chiller air) or a probe.
+///
+/// Format: a header row naming the columns with their units, then one row per reading.
+///   time column (the first):  time_s | time_min | time_h  (numbers), or
+///                             timestamp  (ISO-8601 `YYYY-MM-DDTHH:MM:SS[.fff][Z|±HH:MM]`, or a
+///                             space instead of the `T`)
+///   temperature column:       any name ending in _C or _F (`medium_C`, `temp_F`, `probe1_C`)
+/// Other columns without a temperature suffix are ignored. With several temperature columns,
+/// LogOptions::temp_column picks one. Cells are comma-separated, surrounding blanks ignored;
+/// blank lines and lines starting with '#' are skipped; CRLF line ends are accepted.
+/// A header is required: a log without one cannot say its units, so it is refused.
+///
+/// Errors (coldcore::InputError) name `<origin>:<line>`, the column, the value and the
+/// requirement, e.g. `oven.csv:5: time_s = 120: must be after the previous row (130 at line 4)`.
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace coldcore::io {
+
+/// A log in SI units, time rebased so that the first row is at t = 0.
+struct TimeSeries {
+  std::vector<double> time_s;          ///< strictly increasing, time_s[0] == 0
+  std::vector<double> temp_C;
+  std::vector<std::string> warnings;   ///< e.g. gaps longer than LogOptions::max_gap_s
+  std::string time_column;             ///< header name of the time column as read
+  std::string temp_column;             ///< header name of the temperature column as read
+};
+
+struct LogOptions {
+  /// Gap between consecutive readings above which a warning is added (not an error): a logger
+  /// that stopped says nothing about the medium meanwhile, and the schedule interpolates across.
+  double max_gap_s = 60;
+  /// Name of the temperature column to read when there are several; empty = the only one.
+  std::string temp_column;
+};
+
+/// Parses a log. REQUIRES: nothing; every malformed input throws InputError naming origin:line.
+/// Refused: no header, unknown time column, no temperature column, non-numeric or non-finite
+/// cells, temperatures below -273.15 C, times not strictly increasing, no data rows.
+TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const LogOptions& = {});
+
+/// Seconds since 1970-01-01T00:00:00Z of an ISO-8601 timestamp as described above; a time
+/// without zone is read as UTC (only differences matter for a log). nullopt if malformed.
+/// Exposed for tests.
+std::optional<double> parse_iso8601_s(std::string_view text);
+
+}  // namespace coldcore::io

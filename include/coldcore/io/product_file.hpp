@@ -1,0 +1,67 @@
+#pragma once
+/// Loader of product files (TOML, schema 1 of DESIGN.md): product, stages, targets, converted
+/// once to SI (°C, m, s). Everything here validates; nothing simulates.
+///
+/// Error messages (coldcore::InputError), one line each:
+///   <origin>: <key path> = <value>: <requirement>      a value is wrong
+///   <origin>: <key path>: missing: <requirement>        a required key is absent
+///   <origin>:<line>:<column>: not valid TOML: <why>     the text does not parse
+/// Key paths are `schema`, `product.diameter_mm`, `product.properties.conductivity_W_mK`,
+/// `stage[2].h_W_m2K`, `target[1].z_C` (stages and targets numbered from 1, in file order).
+/// Values are written as TOML would: numbers bare (shortest form that reads back), strings in
+/// double quotes, arrays as [a, b]. Unknown keys get "did you mean" when a key is close:
+///   t.toml: product.diamter_mm = 42: unknown key; did you mean 'diameter_mm'?
+/// Errors inside a medium log are those of parse_log_csv (`<log path>:<line>: ...`).
+///
+/// Quantity keys carry their unit as a suffix (io/quantity.hpp): temperatures _C/_F, lengths
+/// _m/_mm, times _s/_min/_h; a key given with two suffixes at once is refused.
+#include <filesystem>
+#include <functional>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "coldcore/io/logger_csv.hpp"
+#include "coldcore/process/schedule.hpp"
+#include "coldcore/process/targets.hpp"
+
+namespace coldcore::io {
+
+/// Mass fractions of [product.composition] (each in [0, 1], summing to 1 within 0.01). When a
+/// file gives these instead of [product.properties], Product::properties stays zero and the
+/// properties module derives temperature-dependent values from the composition.
+struct MassFractions {
+  double water = 0, protein = 0, fat = 0, carbohydrate = 0, fiber = 0, ash = 0;
+};
+
+struct ProductFile {
+  Product product;
+  std::optional<MassFractions> composition;  ///< set when [product.composition] was given
+  std::vector<Stage> stages;                 ///< at least one, in file order, names unique
+  std::vector<Target> targets;               ///< may be empty
+  std::vector<std::string> warnings;         ///< e.g. gaps in a medium log; never fatal
+  std::string origin;                        ///< as passed to parse_product
+  std::string sha256_hex;                    ///< of the TOML text, for provenance
+};
+
+/// Reads a medium log for parse_product. Returns the file's bytes, or nullopt when it cannot
+/// be read (the loader then raises an error naming the stage key and the path).
+/// Tests pass a lambda over an in-memory map; load_product passes a disk reader.
+using LogReader = std::function<std::optional<std::string>(const std::filesystem::path&)>;
+
+/// Parses schema-1 text. `origin` names the file in messages. A stage's `medium_log` is
+/// resolved as base_dir / value and read through `read_log`; an empty `read_log` makes any
+/// medium_log an error. Throws InputError on the first problem found.
+ProductFile parse_product(std::string_view toml_text, std::string_view origin,
+                          const std::filesystem::path& base_dir = {}, const LogReader& read_log = {});
+
+/// Reads `path` and its medium logs from disk, then parse_product with origin = path as given
+/// and base_dir = its parent folder. The only function of io/ that touches the disk, together
+/// with read_text_file.
+ProductFile load_product(const std::filesystem::path& path);
+
+/// The bytes of a file; InputError `<path>: cannot read file` when it cannot be opened.
+std::string read_text_file(const std::filesystem::path& path);
+
+}  // namespace coldcore::io

@@ -1,0 +1,45 @@
+#pragma once
+/// Unit-suffixed keys of the product file (`diameter_mm`, `initial_F`, `duration_min`) and their
+/// conversion to SI, done once at the input edge. Also the "did you mean" helper for names.
+///
+/// Accepted suffixes (DESIGN.md, "Product file (TOML), schema 1"):
+///   temperature             _C, _F       °F → °C: (F − 32) / 1.8
+///   temperature difference  _C, _F       °F → °C: ΔF / 1.8 (z-values; no 32 offset)
+///   length                  _m, _mm
+///   time                    _s, _min, _h
+#include <optional>
+#include <span>
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace coldcore::io {
+
+enum class Quantity { temperature, temperature_difference, length, time };
+
+/// The suffixes accepted for a quantity, without the underscore, preferred first
+/// (e.g. {"C", "F"}).
+std::span<const std::string_view> unit_suffixes(Quantity q);
+
+/// `value` given in `unit` (a suffix of unit_suffixes(q), no underscore) in SI: °C, K (for a
+/// temperature difference), m or s. Returns nullopt for a unit the quantity does not accept.
+/// Exact arithmetic: one multiply and/or subtract, no rounding beyond the double operations.
+std::optional<double> to_si(Quantity q, double value, std::string_view unit);
+
+/// A human name of the quantity for messages: "temperature", "temperature difference", ...
+std::string_view quantity_name(Quantity q);
+
+/// The unit written in messages after conversion, ASCII: "C" (temperatures and temperature
+/// differences), "m", "s".
+std::string_view si_unit(Quantity q);
+
+/// Optimal-string-alignment edit distance (insert, delete, substitute, swap two neighbours:
+/// each costs 1), compared case-insensitively in ASCII.
+std::size_t edit_distance(std::string_view a, std::string_view b);
+
+/// The candidate nearest to `word` when it is close enough to be a likely typo
+/// (distance <= max(2, word.size() / 3)); nullopt otherwise. Ties: the first listed wins.
+std::optional<std::string> did_you_mean(std::string_view word,
+                                        const std::vector<std::string>& candidates);
+
+}  // namespace coldcore::io

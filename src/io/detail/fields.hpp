@@ -1,0 +1,83 @@
+#pragma once
+// Checked access to one TOML table of a product file: the table's accepted keys are declared up
+// front, so misspelt keys and unknown unit suffixes are refused before any value is used (a
+// typo must never silently become "missing" or "default").
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include <toml++/toml.h>
+
+#include "coldcore/io/quantity.hpp"
+
+namespace coldcore::io::detail {
+
+/// How a declared key is spelt in the file.
+enum class KeyForm {
+  plain,     ///< exactly `name`
+  quantity,  ///< `name_<unit>` with a unit of `quantity`
+  medium,    ///< `name_<temp unit>` or `name_<time unit>_<temp unit>` (points with time unit)
+};
+
+struct KeySpec {
+  std::string name;
+  KeyForm form = KeyForm::plain;
+  Quantity quantity = Quantity::temperature;  ///< KeyForm::quantity only
+};
+
+inline KeySpec plain(std::string name) { return {std::move(name), KeyForm::plain, Quantity::temperature}; }
+inline KeySpec quantity(std::string base, Quantity q) { return {std::move(base), KeyForm::quantity, q}; }
+
+/// A TOML value as it would be written in the file (numbers bare, strings quoted, [a, b]).
+std::string format_value(const toml::node& n);
+
+/// A quantity key found in a table: its spelling, its value as written and in SI.
+struct Found {
+  std::string key;       ///< e.g. "diameter_mm"
+  std::string unit;      ///< e.g. "mm" (for medium keys: the temperature unit)
+  std::string time_unit; ///< medium keys only: "s" unless given as name_<time>_<temp>
+  const toml::node* node = nullptr;
+};
+
+class Fields {
+ public:
+  /// Validates every key of `table` against `specs`. `path` is the table's key path for
+  /// messages ("product", "stage[2]"; empty for the document root).
+  Fields(const toml::table& table, std::string origin, std::string path, std::vector<KeySpec> specs);
+
+  std::string key_path(std::string_view key) const;
+  /// `<origin>: <path.key> = <value>: <requirement>`
+  [[noreturn]] void fail(std::string_view key, const std::string& requirement) const;
+  /// `<origin>: <path.key>: missing: <requirement>`
+  [[noreturn]] void missing(std::string_view key, const std::string& requirement) const;
+
+  const toml::node* node(std::string_view plain_key) const;
+  /// The one spelling of a quantity or medium key present, if any.
+  std::optional<Found> find(std::string_view base) const;
+
+  /// Plain string key; fails when present but not a string.
+  std::optional<std::string> string(std::string_view key) const;
+  /// Plain or quantity node as a number (integers accepted); fails with "must be a number ..."
+  /// when present but not a number and, unless allow_inf, when not finite.
+  /// `what` is added to the type message: "must be a number (length in mm)".
+  double number_of(std::string_view key, const toml::node& n, bool allow_inf = false,
+                   std::string_view what = {}) const;
+  /// A quantity key converted to SI; `found`, when given, receives the key as spelt.
+  std::optional<double> quantity_si(std::string_view base, Found* found = nullptr) const;
+
+  const std::string& origin() const { return origin_; }
+  const std::string& path() const { return path_; }
+  const toml::table& table() const { return table_; }
+
+ private:
+  const toml::table& table_;
+  std::string origin_;
+  std::string path_;
+  std::vector<KeySpec> specs_;
+};
+
+/// "diameter_m or diameter_mm" for messages.
+std::string spellings(std::string_view base, Quantity q);
+
+}  // namespace coldcore::io::detail

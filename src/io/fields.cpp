@@ -1,0 +1,229 @@
+#include "io/detail/fields.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+#include <sstream>
+
+#include "coldcore/error.hpp"
+#include "io/detail/text.hpp"
+
+namespace coldcore::io::detail {
+
+namespace {
+
+bool starts_with(std::string_view s, std::string_view prefix) {
+  return s.size() > prefix.size() && s.substr(0, prefix.size()) == prefix;
+}
+
+bool accepts(Quantity q, std::string_view unit) {
+  for (auto u : unit_suffixes(q))
+    if (u == unit) return true;
+  return false;
+}
+
+/// For a medium key's suffix: (time unit, temperature unit), or nullopt.
+std::optional<std::pair<std::string, std::string>> medium_units(std::string_view suffix) {
+  if (accepts(Quantity::temperature, suffix)) return std::pair<std::string, std::string>{"s", std::string(suffix)};
+  const auto us = suffix.find('_');
+  if (us == std::string_view::npos) return std::nullopt;
+  const auto tu = suffix.substr(0, us), temp = suffix.substr(us + 1);
+  if (accepts(Quantity::time, tu) && accepts(Quantity::temperature, temp))
+    return std::pair<std::string, std::string>{std::string(tu), std::string(temp)};
+  return std::nullopt;
+}
+
+/// Every accepted spelling of a spec, for "did you mean".
+std::vector<std::string> all_spellings(const KeySpec& s) {
+  std::vector<std::string> out;
+  switch (s.form) {
+    case KeyForm::plain: out.push_back(s.name); break;
+    case KeyForm::quantity:
+      for (auto u : unit_suffixes(s.quantity)) out.push_back(s.name + "_" + std::string(u));
+      break;
+    case KeyForm::medium:
+      for (auto t : unit_suffixes(Quantity::temperature)) {
+        out.push_back(s.name + "_" + std::string(t));
+        for (auto tu : unit_suffixes(Quantity::time))
+          out.push_back(s.name + "_" + std::string(tu) + "_" + std::string(t));
+      }
+      break;
+  }
+  return out;
+}
+
+/// Short form for an "accepted keys" list: "diameter_m|mm", "medium_C|F".
+std::string short_form(const KeySpec& s) {
+  if (s.form == KeyForm::plain) return s.name;
+  const Quantity q = s.form == KeyForm::medium ? Quantity::temperature : s.quantity;
+  std::string out = s.name + "_";
+  bool first = true;
+  for (auto u : unit_suffixes(q)) {
+    if (!first) out += "|";
+    out += u;
+    first = false;
+  }
+  return out;
+}
+
+}  // namespace
+
+std::string spellings(std::string_view base, Quantity q) {
+  std::string out;
+  const auto units = unit_suffixes(q);
+  for (std::size_t i = 0; i < units.size(); ++i) {
+    if (i > 0) out += i + 1 == units.size() ? " or " : ", ";
+    out += std::string(base) + "_" + std::string(units[i]);
+  }
+  return out;
+}
+
+std::string format_value(const toml::node& n) {
+  if (auto v = n.as_integer()) return std::to_string(v->get());
+  if (auto v = n.as_floating_point()) return format_number(v->get());
+  if (auto v = n.as_string()) return quote(v->get());
+  if (auto v = n.as_boolean()) return v->get() ? "true" : "false";
+  if (auto a = n.as_array()) {
+    std::string out = "[";
+    for (std::size_t i = 0; i < a->size(); ++i) {
+      if (i > 0) out += ", ";
+      out += format_value(*a->get(i));
+    }
+    return out + "]";
+  }
+  if (auto t = n.as_table()) {
+    // Inline when short; a whole [[stage]] table in a message would hide the point.
+    std::string out = "{";
+    bool first = true;
+    for (auto&& [k, v] : *t) {
+      out += first ? " " : ", ";
+      out += std::string(k.str()) + " = " + format_value(v);
+      first = false;
+    }
+    out += first ? "}" : " }";
+    return out.size() <= 80 ? out : "{ ... }";
+  }
+  std::ostringstream os;
+  n.visit([&](auto&& x) { os << x; });
+  return os.str();
+}
+
+Fields::Fields(const toml::table& table, std::string origin, std::string path, std::vector<KeySpec> specs)
+    : table_(table), origin_(std::move(origin)), path_(std::move(path)), specs_(std::move(specs)) {
+  std::map<std::string, std::string> seen_base;  // base -> first spelling seen
+  for (auto&& [k, v] : table_) {
+    const std::string key(k.str());
+    bool plain_match = false;
+    for (const auto& s : specs_)
+      if (s.form == KeyForm::plain && s.name == key) plain_match = true;
+    if (plain_match) continue;
+
+    const KeySpec* base = nullptr;
+    for (const auto& s : specs_)
+      if (s.form != KeyForm::plain && starts_with(key, s.name + "_") &&
+          (base == nullptr || s.name.size() > base->name.size()))
+        base = &s;
+    if (base != nullptr) {
+      const std::string suffix = key.substr(base->name.size() + 1);
+      const bool ok = base->form == KeyForm::quantity ? accepts(base->quantity, suffix)
+                                                      : medium_units(suffix).has_value();
+      if (!ok) {
+        std::string msg = "unknown unit suffix '_" + suffix + "'; ";
+        // Suggest only a change of letter case or a dropped plural 's' ("_MM", "_mins"): nudging
+        // "_in" towards "_m" would turn inches into metres.
+        for (const auto& sp : all_spellings(*base)) {
+          const std::string sp_suffix = sp.substr(base->name.size() + 1);
+          if (edit_distance(suffix, sp_suffix) == 0 || suffix == sp_suffix + "s") {
+            msg += "did you mean '" + sp + "'? ";
+            break;
+          }
+        }
+        msg += base->form == KeyForm::quantity
+                   ? "accepted: " + spellings(base->name, base->quantity)
+                   : "accepted: " + base->name + "_C or " + base->name + "_F (points may name the time unit: " +
+                         base->name + "_min_C)";
+        fail(key, msg);
+      }
+      auto [it, inserted] = seen_base.emplace(base->name, key);
+      if (!inserted) fail(key, "given together with " + it->second + "; give one");
+      continue;
+    }
+
+    std::vector<std::string> candidates;
+    for (const auto& s : specs_)
+      for (auto& c : all_spellings(s)) candidates.push_back(c);
+    if (auto near = did_you_mean(key, candidates)) fail(key, "unknown key; did you mean '" + *near + "'?");
+    std::string list;
+    for (const auto& s : specs_) list += (list.empty() ? "" : ", ") + short_form(s);
+    fail(key, "unknown key; accepted keys here: " + list);
+  }
+}
+
+std::string Fields::key_path(std::string_view key) const {
+  return path_.empty() ? std::string(key) : path_ + "." + std::string(key);
+}
+
+void Fields::fail(std::string_view key, const std::string& requirement) const {
+  const toml::node* n = table_.get(key);
+  std::string msg = origin_ + ": " + key_path(key);
+  if (n != nullptr) msg += " = " + format_value(*n);
+  throw InputError(msg + ": " + requirement);
+}
+
+void Fields::missing(std::string_view key, const std::string& requirement) const {
+  throw InputError(origin_ + ": " + key_path(key) + ": missing: " + requirement);
+}
+
+const toml::node* Fields::node(std::string_view plain_key) const { return table_.get(plain_key); }
+
+std::optional<Found> Fields::find(std::string_view base) const {
+  const KeySpec* spec = nullptr;
+  for (const auto& s : specs_)
+    if (s.form != KeyForm::plain && s.name == base) spec = &s;
+  if (spec == nullptr) return std::nullopt;
+  for (auto&& [k, v] : table_) {
+    const std::string key(k.str());
+    if (!starts_with(key, spec->name + "_")) continue;
+    const std::string suffix = key.substr(spec->name.size() + 1);
+    if (spec->form == KeyForm::quantity && accepts(spec->quantity, suffix))
+      return Found{key, suffix, "", &v};
+    if (spec->form == KeyForm::medium)
+      if (auto units = medium_units(suffix)) return Found{key, units->second, units->first, &v};
+  }
+  return std::nullopt;
+}
+
+std::optional<std::string> Fields::string(std::string_view key) const {
+  const toml::node* n = node(key);
+  if (n == nullptr) return std::nullopt;
+  if (auto s = n->as_string()) return s->get();
+  fail(key, "must be a string, in double quotes");
+}
+
+double Fields::number_of(std::string_view key, const toml::node& n, bool allow_inf,
+                         std::string_view what) const {
+  double v = 0;
+  if (auto i = n.as_integer()) {
+    v = static_cast<double>(i->get());
+  } else if (auto f = n.as_floating_point()) {
+    v = f->get();
+  } else {
+    fail(key, what.empty() ? std::string("must be a number") : "must be a number (" + std::string(what) + ")");
+  }
+  if (std::isnan(v) || (!allow_inf && std::isinf(v))) fail(key, "must be a finite number");
+  return v;
+}
+
+std::optional<double> Fields::quantity_si(std::string_view base, Found* found) const {
+  auto f = find(base);
+  if (!f) return std::nullopt;
+  const KeySpec* spec = nullptr;
+  for (const auto& s : specs_)
+    if (s.name == base) spec = &s;
+  const std::string what = std::string(quantity_name(spec->quantity)) + " in " + f->unit;
+  const double raw = number_of(f->key, *f->node, false, what);
+  if (found != nullptr) *found = *f;
+  return *to_si(spec->quantity, raw, f->unit);
+}
+
+}  // namespace coldcore::io::detail

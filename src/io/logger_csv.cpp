@@ -1,0 +1,283 @@
+#include "coldcore/io/logger_csv.hpp"
+
+#include <charconv>
+#include <cmath>
+
+#include "coldcore/error.hpp"
+#include "coldcore/io/quantity.hpp"
+#include "io/detail/text.hpp"
+
+namespace coldcore::io {
+
+namespace {
+
+using detail::format_number;
+using detail::quote;
+using detail::trim;
+
+std::vector<std::string_view> split_cells(std::string_view line) {
+  std::vector<std::string_view> cells;
+  std::size_t start = 0;
+  for (;;) {
+    const std::size_t comma = line.find(',', start);
+    cells.push_back(trim(line.substr(start, comma == std::string_view::npos ? comma : comma - start)));
+    if (comma == std::string_view::npos) break;
+    start = comma + 1;
+  }
+  return cells;
+}
+
+/// The whole cell as a double, or nullopt (a partial parse such as "12abc" is not a number).
+std::optional<double> parse_number(std::string_view cell) {
+  if (!cell.empty() && cell.front() == '+') cell.remove_prefix(1);
+  if (cell.empty()) return std::nullopt;
+  double v = 0;
+  auto res = std::from_chars(cell.data(), cell.data() + cell.size(), v);
+  if (res.ec != std::errc() || res.ptr != cell.data() + cell.size()) return std::nullopt;
+  return v;
+}
+
+bool ends_with(std::string_view s, std::string_view suffix) {
+  return s.size() > suffix.size() && s.substr(s.size() - suffix.size()) == suffix;
+}
+
+/// "_C"/"_F" suffix of a temperature column name, or empty.
+std::string_view temperature_unit(std::string_view name) {
+  if (ends_with(name, "_C")) return "C";
+  if (ends_with(name, "_F")) return "F";
+  return {};
+}
+
+bool is_timestamp_name(std::string_view name) {
+  return name == "timestamp" || name == "datetime" || name == "date_time" || name == "time_iso";
+}
+
+/// "s"/"min"/"h" suffix of a numeric time column name, or empty.
+std::string_view time_unit(std::string_view name) {
+  if (ends_with(name, "_min")) return "min";
+  if (ends_with(name, "_s")) return "s";
+  if (ends_with(name, "_h")) return "h";
+  return {};
+}
+
+std::string where(std::string_view origin, std::size_t line) {
+  return std::string(origin) + ":" + std::to_string(line);
+}
+
+/// A cell as written in a message: numbers bare, anything else quoted.
+std::string show_cell(std::string_view cell) {
+  return parse_number(cell) ? std::string(cell) : quote(cell);
+}
+
+// Days since 1970-01-01 of a proleptic Gregorian date (H. Hinnant's days_from_civil).
+long long days_from_civil(long long y, unsigned m, unsigned d) {
+  y -= m <= 2;
+  const long long era = (y >= 0 ? y : y - 399) / 400;
+  const unsigned yoe = static_cast<unsigned>(y - era * 400);
+  const unsigned doy = (153 * (m + (m > 2 ? -3 : 9)) + 2) / 5 + d - 1;
+  const unsigned doe = yoe * 365 + yoe / 4 - yoe / 100 + doy;
+  return era * 146097 + static_cast<long long>(doe) - 719468;
+}
+
+bool leap(long long y) { return (y % 4 == 0 && y % 100 != 0) || y % 400 == 0; }
+
+}  // namespace
+
+std::optional<double> parse_iso8601_s(std::string_view s) {
+  s = trim(s);
+  std::size_t pos = 0;
+  auto digits = [&](std::size_t n) -> std::optional<int> {
+    if (pos + n > s.size()) return std::nullopt;
+    int v = 0;
+    for (std::size_t i = 0; i < n; ++i) {
+      const char c = s[pos + i];
+      if (c < '0' || c > '9') return std::nullopt;
+      v = v * 10 + (c - '0');
+    }
+    pos += n;
+    return v;
+  };
+  auto expect = [&](char c) {
+    if (pos < s.size() && s[pos] == c) {
+      ++pos;
+      return true;
+    }
+    return false;
+  };
+  const auto year = digits(4);
+  if (!year || !expect('-')) return std::nullopt;
+  const auto month = digits(2);
+  if (!month || !expect('-')) return std::nullopt;
+  const auto day = digits(2);
+  if (!day || !(expect('T') || expect(' '))) return std::nullopt;
+  const auto hour = digits(2);
+  if (!hour || !expect(':')) return std::nullopt;
+  const auto minute = digits(2);
+  if (!minute) return std::nullopt;
+  double second = 0;
+  if (expect(':')) {
+    const auto sec = digits(2);
+    if (!sec) return std::nullopt;
+    second = *sec;
+    if (expect('.')) {
+      double scale = 0.1;
+      const std::size_t start = pos;
+      while (pos < s.size() && s[pos] >= '0' && s[pos] <= '9') {
+        second += scale * (s[pos] - '0');
+        scale /= 10;
+        ++pos;
+      }
+      if (pos == start) return std::nullopt;
+    }
+  }
+  double offset_s = 0;
+  if (expect('Z')) {
+  } else if (pos < s.size() && (s[pos] == '+' || s[pos] == '-')) {
+    const int sign = s[pos] == '+' ? 1 : -1;
+    ++pos;
+    const auto oh = digits(2);
+    if (!oh) return std::nullopt;
+    expect(':');
+    const auto om = digits(2);
+    if (!om || *oh > 23 || *om > 59) return std::nullopt;
+    offset_s = sign * (*oh * 3600.0 + *om * 60.0);
+  }
+  if (pos != s.size()) return std::nullopt;
+  static constexpr int kDays[] = {31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31};
+  if (*month < 1 || *month > 12) return std::nullopt;
+  const int month_days = kDays[*month - 1] + (*month == 2 && leap(*year) ? 1 : 0);
+  if (*day < 1 || *day > month_days || *hour > 23 || *minute > 59 || second >= 61) return std::nullopt;
+  const long long days = days_from_civil(*year, static_cast<unsigned>(*month), static_cast<unsigned>(*day));
+  return static_cast<double>(days) * 86400.0 + *hour * 3600.0 + *minute * 60.0 + second - offset_s;
+}
+
+TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const LogOptions& opts) {
+  if (text.substr(0, 3) == "\xEF\xBB\xBF") text.remove_prefix(3);  // UTF-8 byte-order mark
+
+  TimeSeries out;
+  std::vector<std::string> header;
+  std::size_t header_line = 0;
+  bool iso_time = false;
+  std::string_view time_unit_name;
+  std::size_t temp_index = 0;
+  std::string_view temp_unit;
+  std::string prev_time_cell;
+  std::size_t prev_line = 0;
+  double prev_time_abs = 0;
+  double first_time_abs = 0;
+
+  std::size_t line_no = 0;
+  std::size_t pos = 0;
+  while (pos <= text.size()) {
+    const std::size_t nl = text.find('\n', pos);
+    const std::string_view raw = text.substr(pos, nl == std::string_view::npos ? text.size() - pos : nl - pos);
+    pos = nl == std::string_view::npos ? text.size() + 1 : nl + 1;
+    ++line_no;
+    const std::string_view line = trim(raw);
+    if (line.empty() || line.front() == '#') continue;
+    const auto cells = split_cells(line);
+
+    if (header.empty()) {
+      header_line = line_no;
+      if (parse_number(cells[0]) || parse_iso8601_s(cells[0]))
+        throw InputError(where(origin, line_no) + ": no header row: the first row must name the columns " +
+                         "with their units, e.g. time_s,medium_C");
+      for (auto c : cells) header.emplace_back(c);
+      const std::string& tname = header[0];
+      if (is_timestamp_name(tname)) {
+        iso_time = true;
+      } else {
+        time_unit_name = time_unit(tname);
+        if (time_unit_name.empty())
+          throw InputError(where(origin, line_no) + ": time column = " + quote(tname) +
+                           ": must be time_s, time_min, time_h (numbers) or timestamp (ISO-8601)");
+      }
+      std::vector<std::size_t> temps;
+      for (std::size_t i = 1; i < header.size(); ++i)
+        if (!temperature_unit(header[i]).empty()) temps.push_back(i);
+      if (!opts.temp_column.empty()) {
+        bool found = false;
+        for (std::size_t i : temps)
+          if (header[i] == opts.temp_column) {
+            temp_index = i;
+            found = true;
+          }
+        if (!found) {
+          std::vector<std::string> names;
+          for (std::size_t i : temps) names.push_back(header[i]);
+          std::string msg = where(origin, line_no) + ": temperature column = " + quote(opts.temp_column) +
+                            ": not in the header";
+          if (auto near = did_you_mean(opts.temp_column, names)) msg += "; did you mean " + quote(*near) + "?";
+          throw InputError(msg);
+        }
+      } else if (temps.empty()) {
+        throw InputError(where(origin, line_no) + ": header = " + quote(line) +
+                         ": no temperature column: name one with a _C or _F suffix, e.g. medium_C");
+      } else if (temps.size() > 1) {
+        std::string names;
+        for (std::size_t i : temps) names += (names.empty() ? "" : ", ") + header[i];
+        throw InputError(where(origin, line_no) + ": header = " + quote(line) +
+                         ": several temperature columns (" + names + "): choose one");
+      } else {
+        temp_index = temps.front();
+      }
+      out.time_column = tname;
+      out.temp_column = header[temp_index];
+      temp_unit = temperature_unit(out.temp_column);
+      continue;
+    }
+
+    const std::string at = where(origin, line_no);
+    if (cells.size() != header.size())
+      throw InputError(at + ": " + std::to_string(cells.size()) + " cell(s), the header has " +
+                       std::to_string(header.size()) + ": every row needs one cell per column");
+
+    double time_abs = 0;
+    if (iso_time) {
+      const auto t = parse_iso8601_s(cells[0]);
+      if (!t)
+        throw InputError(at + ": " + header[0] + " = " + quote(cells[0]) +
+                         ": not an ISO-8601 timestamp (YYYY-MM-DDTHH:MM:SS, optional .fff and Z or +HH:MM)");
+      time_abs = *t;
+    } else {
+      const auto t = parse_number(cells[0]);
+      if (!t) throw InputError(at + ": " + header[0] + " = " + quote(cells[0]) + ": not a number");
+      if (!std::isfinite(*t)) throw InputError(at + ": " + header[0] + " = " + std::string(cells[0]) + ": must be finite");
+      time_abs = *to_si(Quantity::time, *t, time_unit_name);
+    }
+
+    const std::string_view temp_cell = cells[temp_index];
+    const auto temp = parse_number(temp_cell);
+    const std::string& temp_name = header[temp_index];
+    if (!temp) throw InputError(at + ": " + temp_name + " = " + quote(temp_cell) + ": not a number");
+    if (!std::isfinite(*temp)) throw InputError(at + ": " + temp_name + " = " + std::string(temp_cell) + ": must be finite");
+    const double temp_C = *to_si(Quantity::temperature, *temp, temp_unit);
+    if (temp_C < -273.15)
+      throw InputError(at + ": " + temp_name + " = " + std::string(temp_cell) + ": below absolute zero (-273.15 C)");
+
+    if (!out.time_s.empty()) {
+      if (!(time_abs > prev_time_abs))
+        throw InputError(at + ": " + header[0] + " = " + show_cell(cells[0]) + ": must be after the previous row (" +
+                         show_cell(prev_time_cell) + " at line " + std::to_string(prev_line) + ")");
+      const double gap_s = time_abs - prev_time_abs;
+      if (gap_s > opts.max_gap_s)
+        out.warnings.push_back(at + ": gap of " + format_number(gap_s) + " s since the previous row (line " +
+                               std::to_string(prev_line) + ") exceeds " + format_number(opts.max_gap_s) +
+                               " s; values in between are interpolated");
+    } else {
+      first_time_abs = time_abs;
+    }
+    out.time_s.push_back(time_abs - first_time_abs);
+    out.temp_C.push_back(temp_C);
+    prev_time_abs = time_abs;
+    prev_time_cell = std::string(cells[0]);
+    prev_line = line_no;
+  }
+
+  if (header.empty()) throw InputError(where(origin, 1) + ": empty log: no header and no data rows");
+  if (out.time_s.empty())
+    throw InputError(where(origin, header_line) + ": empty log: a header but no data rows");
+  return out;
+}
+
+}  // namespace coldcore::io

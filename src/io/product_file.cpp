@@ -1,0 +1,240 @@
+#include "coldcore/io/product_file.hpp"
+
+#include <array>
+#include <cmath>
+#include <fstream>
+#include <limits>
+#include <sstream>
+
+#include "coldcore/error.hpp"
+#include "coldcore/io/sha256.hpp"
+#include "io/detail/fields.hpp"
+#include "io/detail/product_parts.hpp"
+#include "io/detail/text.hpp"
+
+namespace coldcore::io {
+
+namespace {
+
+using detail::Fields;
+using detail::Found;
+using detail::format_number;
+using detail::plain;
+using detail::quantity;
+using detail::quote;
+
+constexpr double kAbsoluteZero_C = -273.15;
+
+struct ShapeName {
+  std::string_view name;
+  Shape shape;
+};
+constexpr std::array<ShapeName, 5> kShapes = {{{"sphere", Shape::sphere},
+                                               {"cylinder", Shape::cylinder},
+                                               {"finite-cylinder", Shape::finite_cylinder},
+                                               {"slab", Shape::slab},
+                                               {"brick", Shape::brick}}};
+
+/// A required positive length.
+double positive_length(const Fields& f, std::string_view base, const std::string& why) {
+  Found found;
+  const auto v = f.quantity_si(base, &found);
+  if (!v) f.missing(std::string(base) + "_*", why + " (" + detail::spellings(base, Quantity::length) + ", > 0)");
+  if (!(*v > 0)) f.fail(found.key, "must be > 0");
+  return *v;
+}
+
+Shape parse_shape(const Fields& f) {
+  const auto s = f.string("shape");
+  if (!s) f.missing("shape", "one of sphere, cylinder, finite-cylinder, slab, brick");
+  for (const auto& sn : kShapes)
+    if (sn.name == *s) return sn.shape;
+  std::vector<std::string> names;
+  for (const auto& sn : kShapes) names.emplace_back(sn.name);
+  std::string msg = "unknown shape; ";
+  if (auto near = did_you_mean(*s, names)) msg += "did you mean " + quote(*near) + "? ";
+  f.fail("shape", msg + "accepted: sphere, cylinder, finite-cylinder, slab, brick");
+}
+
+ThermalProperties parse_properties(const toml::table& t, const std::string& origin) {
+  Fields f(t, origin, "product.properties",
+           {plain("conductivity_W_mK"), plain("density_kg_m3"), plain("specific_heat_J_kgK")});
+  ThermalProperties p;
+  const auto get = [&](std::string_view key, const char* what) {
+    const toml::node* n = f.node(key);
+    if (n == nullptr) f.missing(key, std::string(what) + ", > 0");
+    const double v = f.number_of(key, *n, false, what);
+    if (!(v > 0)) f.fail(key, "must be > 0");
+    return v;
+  };
+  p.conductivity_W_mK = get("conductivity_W_mK", "thermal conductivity in W/(m K)");
+  p.density_kg_m3 = get("density_kg_m3", "density in kg/m3");
+  p.specific_heat_J_kgK = get("specific_heat_J_kgK", "specific heat in J/(kg K)");
+  return p;
+}
+
+MassFractions parse_composition(const toml::table& t, const std::string& origin) {
+  Fields f(t, origin, "product.composition",
+           {plain("water"), plain("protein"), plain("fat"), plain("carbohydrate"), plain("fiber"), plain("ash")});
+  MassFractions m;
+  double sum = 0;
+  const auto get = [&](std::string_view key, double& out) {
+    const toml::node* n = f.node(key);
+    if (n == nullptr) return;
+    out = f.number_of(key, *n, false, "mass fraction");
+    if (!(out >= 0 && out <= 1)) f.fail(key, "must be a mass fraction in [0, 1]");
+    sum += out;
+  };
+  if (f.node("water") == nullptr) f.missing("water", "a mass fraction in [0, 1]");
+  get("water", m.water);
+  get("protein", m.protein);
+  get("fat", m.fat);
+  get("carbohydrate", m.carbohydrate);
+  get("fiber", m.fiber);
+  get("ash", m.ash);
+  if (std::abs(sum - 1.0) > 0.01)
+    throw InputError(origin + ": product.composition = " + detail::format_value(t) +
+                     ": the mass fractions must sum to 1 (within 0.01); they sum to " + format_number(sum));
+  return m;
+}
+
+Product parse_product_table(const toml::table& t, const std::string& origin, std::optional<MassFractions>& comp) {
+  Fields f(t, origin, "product",
+           {plain("name"), plain("shape"), quantity("diameter", Quantity::length),
+            quantity("length", Quantity::length), quantity("thickness", Quantity::length),
+            quantity("size", Quantity::length), quantity("initial", Quantity::temperature), plain("properties"),
+            plain("composition")});
+  Product p;
+  const auto name = f.string("name");
+  if (!name) f.missing("name", "a name for reports, in double quotes");
+  if (name->empty()) f.fail("name", "must not be empty");
+  p.name = *name;
+  p.shape = parse_shape(f);
+  const std::string shape_text = "shape = " + quote(to_string(p.shape));
+
+  // Dimensions a shape does not use are refused, not ignored: a slab given a diameter is
+  // most likely the wrong shape.
+  const auto refuse_unused = [&](std::string_view base, const std::string& hint) {
+    if (auto fd = f.find(base)) f.fail(fd->key, "not used by " + shape_text + hint);
+  };
+  switch (p.shape) {
+    case Shape::sphere:
+    case Shape::cylinder:
+      p.dims.diameter_m = positive_length(f, "diameter", shape_text + " needs a diameter");
+      refuse_unused("length", p.shape == Shape::cylinder
+                                  ? " (an infinite cylinder has no length; use shape = \"finite-cylinder\")"
+                                  : "");
+      refuse_unused("thickness", "");
+      refuse_unused("size", "");
+      break;
+    case Shape::finite_cylinder:
+      p.dims.diameter_m = positive_length(f, "diameter", shape_text + " needs a diameter");
+      p.dims.length_m = positive_length(f, "length", shape_text + " needs a length");
+      refuse_unused("thickness", "");
+      refuse_unused("size", "");
+      break;
+    case Shape::slab:
+      p.dims.thickness_m = positive_length(f, "thickness", shape_text + " needs a full thickness");
+      refuse_unused("diameter", "");
+      refuse_unused("length", "");
+      refuse_unused("size", "");
+      break;
+    case Shape::brick: {
+      const auto fd = f.find("size");
+      if (!fd) f.missing("size_*", shape_text + " needs size_mm = [a, b, c] or size_m = [a, b, c], each > 0");
+      const std::string need = "must be 3 numbers [a, b, c] (full edge lengths in " + fd->unit + "), each > 0";
+      const toml::array* a = fd->node->as_array();
+      if (a == nullptr || a->size() != 3) f.fail(fd->key, need);
+      for (std::size_t i = 0; i < 3; ++i) {
+        const toml::node& el = *a->get(i);
+        if (!el.is_number()) f.fail(fd->key, need);
+        const double v = el.value<double>().value_or(0);
+        if (!(v > 0) || !std::isfinite(v)) f.fail(fd->key, need);
+        p.dims.size_m[i] = *to_si(Quantity::length, v, fd->unit);
+      }
+      refuse_unused("diameter", "");
+      refuse_unused("length", "");
+      refuse_unused("thickness", "");
+      break;
+    }
+  }
+
+  Found fi;
+  const auto initial = f.quantity_si("initial", &fi);
+  if (!initial) f.missing("initial_*", "the uniform initial temperature (initial_C or initial_F)");
+  if (*initial < kAbsoluteZero_C) f.fail(fi.key, "below absolute zero (-273.15 C, -459.67 F)");
+  p.initial_C = *initial;
+
+  const toml::node* props = f.node("properties");
+  const toml::node* compo = f.node("composition");
+  if (props != nullptr && compo != nullptr) f.fail("composition", "given together with [product.properties]; give one");
+  if (props == nullptr && compo == nullptr)
+    f.missing("properties", "give [product.properties] (conductivity_W_mK, density_kg_m3, specific_heat_J_kgK) "
+                            "or [product.composition] (mass fractions)");
+  if (props != nullptr) {
+    if (!props->is_table()) f.fail("properties", "must be a table [product.properties]");
+    p.properties = parse_properties(*props->as_table(), origin);
+  } else {
+    if (!compo->is_table()) f.fail("composition", "must be a table [product.composition]");
+    comp = parse_composition(*compo->as_table(), origin);
+  }
+  return p;
+}
+
+}  // namespace
+
+ProductFile parse_product(std::string_view toml_text, std::string_view origin_sv,
+                          const std::filesystem::path& base_dir, const LogReader& read_log) {
+  const std::string origin(origin_sv);
+  toml::table doc;
+  try {
+    doc = toml::parse(toml_text, origin_sv);
+  } catch (const toml::parse_error& e) {
+    throw InputError(origin + ":" + std::to_string(e.source().begin.line) + ":" +
+                     std::to_string(e.source().begin.column) + ": not valid TOML: " + std::string(e.description()));
+  }
+
+  ProductFile out;
+  out.origin = origin;
+  out.sha256_hex = sha256_hex(toml_text);
+
+  // The schema first: keys of another schema would only produce confusing messages.
+  const toml::node* schema = doc.get("schema");
+  if (schema == nullptr) throw InputError(origin + ": schema: missing: must be 1 (write schema = 1 at the top)");
+  if (!schema->is_integer() || schema->as_integer()->get() != 1)
+    throw InputError(origin + ": schema = " + detail::format_value(*schema) +
+                     ": must be 1 (the only product-file schema this coldcore reads)");
+
+  Fields root(doc, origin, "", {plain("schema"), plain("product"), plain("stage"), plain("target")});
+  const toml::node* product = root.node("product");
+  if (product == nullptr) root.missing("product", "a [product] table (name, shape, size, initial temperature, properties)");
+  if (!product->is_table()) root.fail("product", "must be a table [product]");
+  out.product = parse_product_table(*product->as_table(), origin, out.composition);
+
+  detail::parse_stages(root, base_dir, read_log, out);
+  detail::parse_targets(root, out);
+  return out;
+}
+
+std::string read_text_file(const std::filesystem::path& path) {
+  std::ifstream in(path, std::ios::binary);
+  if (!in) throw InputError(path.generic_string() + ": cannot read file");
+  std::ostringstream ss;
+  ss << in.rdbuf();
+  if (in.bad()) throw InputError(path.generic_string() + ": cannot read file");
+  return ss.str();
+}
+
+ProductFile load_product(const std::filesystem::path& path) {
+  const std::string text = read_text_file(path);
+  const LogReader disk = [](const std::filesystem::path& p) -> std::optional<std::string> {
+    std::ifstream in(p, std::ios::binary);
+    if (!in) return std::nullopt;
+    std::ostringstream ss;
+    ss << in.rdbuf();
+    return ss.str();
+  };
+  return parse_product(text, path.generic_string(), path.parent_path(), disk);
+}
+
+}  // namespace coldcore::io

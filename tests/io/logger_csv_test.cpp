@@ -1,0 +1,139 @@
+// Logger CSV reader: units from the header, rebasing, refusals with file:line.
+#include <doctest/doctest.h>
+
+#include "coldcore/error.hpp"
+#include "coldcore/io/logger_csv.hpp"
+
+using coldcore::InputError;
+using coldcore::io::LogOptions;
+using coldcore::io::parse_iso8601_s;
+using coldcore::io::parse_log_csv;
+
+TEST_CASE("log in seconds and C is read as written") {
+  const auto ts = parse_log_csv("time_s,medium_C\n0,20\n30,50.5\n60,80\n", "oven.csv");
+  CHECK(ts.time_s == std::vector<double>{0, 30, 60});
+  CHECK(ts.temp_C == std::vector<double>{20, 50.5, 80});
+  CHECK(ts.warnings.empty());
+  CHECK(ts.time_column == "time_s");
+  CHECK(ts.temp_column == "medium_C");
+}
+
+TEST_CASE("log in minutes and F: converted, rebased so the first row is t = 0") {
+  // 32 F = 0 C and 212 F = 100 C (definition of the scales).
+  const auto ts = parse_log_csv("time_min,temp_F\n10,32\n11,212\n12.5,122\n", "chill.csv");
+  REQUIRE(ts.time_s.size() == 3);
+  CHECK(ts.time_s[0] == 0);
+  CHECK(ts.time_s[1] == doctest::Approx(60));
+  CHECK(ts.time_s[2] == doctest::Approx(150));
+  CHECK(ts.temp_C[0] == doctest::Approx(0));
+  CHECK(ts.temp_C[1] == doctest::Approx(100));
+  CHECK(ts.temp_C[2] == doctest::Approx(50));
+}
+
+TEST_CASE("log with ISO-8601 timestamps, T or space, Z or none, fractions") {
+  const auto ts = parse_log_csv(
+      "timestamp,medium_C\n2026-03-01T08:00:00Z,20\n2026-03-01 08:00:30,25\n2026-03-01T08:01:00.5Z,30\n", "o.csv");
+  REQUIRE(ts.time_s.size() == 3);
+  CHECK(ts.time_s[1] == doctest::Approx(30).epsilon(1e-12));
+  CHECK(ts.time_s[2] == doctest::Approx(60.5).epsilon(1e-12));
+}
+
+TEST_CASE("ISO-8601 timestamps against Unix time") {
+  // Unix times of these instants (POSIX definition; checked with Python datetime.timestamp()).
+  CHECK(*parse_iso8601_s("1970-01-01T00:00:00Z") == 0);
+  CHECK(*parse_iso8601_s("2000-01-01T00:00:00Z") == 946684800.0);
+  CHECK(*parse_iso8601_s("2026-03-01 08:00:00") == 1772352000.0);
+  CHECK(*parse_iso8601_s("1970-01-01T00:00:00+01:00") == -3600.0);
+  // Leap day and year end: differences across them.
+  CHECK(*parse_iso8601_s("2024-02-29T00:00:30Z") - *parse_iso8601_s("2024-02-28T23:59:30Z") == 60.0);
+  CHECK(*parse_iso8601_s("2025-01-01T00:00:00Z") - *parse_iso8601_s("2024-12-31T23:59:59Z") == 1.0);
+  CHECK_FALSE(parse_iso8601_s("2023-02-29T00:00:00"));  // not a leap year
+  CHECK_FALSE(parse_iso8601_s("2026-13-01T00:00:00"));
+  CHECK_FALSE(parse_iso8601_s("2026-03-01T25:00:00"));
+  CHECK_FALSE(parse_iso8601_s("2026-03-01"));
+  CHECK_FALSE(parse_iso8601_s("08:00:00"));
+  CHECK_FALSE(parse_iso8601_s("2026-03-01T08:00:00Zjunk"));
+}
+
+TEST_CASE("log tolerates comments, blank lines, CRLF, a byte-order mark and extra columns") {
+  const auto ts = parse_log_csv("\xEF\xBB\xBF# oven 3, logger 17\r\ntime_s, channel, medium_C\r\n\r\n0, a, 20\r\n"
+                                "10, a, 21\r\n",
+                                "o.csv");
+  CHECK(ts.time_s == std::vector<double>{0, 10});
+  CHECK(ts.temp_C == std::vector<double>{20, 21});
+}
+
+TEST_CASE("several temperature columns: the option picks one, else refused") {
+  const std::string text = "time_s,air_C,probe_C\n0,90,4\n10,91,5\n";
+  LogOptions o;
+  o.temp_column = "probe_C";
+  CHECK(parse_log_csv(text, "two.csv", o).temp_C == std::vector<double>{4, 5});
+  CHECK_THROWS_WITH_AS(parse_log_csv(text, "two.csv"),
+                       "two.csv:1: header = \"time_s,air_C,probe_C\": several temperature columns (air_C, probe_C): "
+                       "choose one",
+                       InputError);
+  o.temp_column = "prob_C";
+  CHECK_THROWS_WITH_AS(parse_log_csv(text, "two.csv", o),
+                       "two.csv:1: temperature column = \"prob_C\": not in the header; did you mean \"probe_C\"?",
+                       InputError);
+}
+
+TEST_CASE("gaps longer than the limit are warnings with file:line, not errors") {
+  const auto ts = parse_log_csv("time_s,medium_C\n0,20\n30,21\n120,22\n150,23\n", "gap.csv");
+  CHECK(ts.time_s.size() == 4);
+  REQUIRE(ts.warnings.size() == 1);
+  CHECK(ts.warnings[0] ==
+        "gap.csv:4: gap of 90 s since the previous row (line 3) exceeds 60 s; values in between are interpolated");
+  LogOptions o;
+  o.max_gap_s = 90;  // a gap equal to the limit is accepted
+  CHECK(parse_log_csv("time_s,medium_C\n0,20\n30,21\n120,22\n150,23\n", "gap.csv", o).warnings.empty());
+}
+
+TEST_CASE("logs refused with file:line, column, value and requirement") {
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s,medium_C\n0,20\n60,21\n30,22\n", "oven.csv"),
+                       "oven.csv:4: time_s = 30: must be after the previous row (60 at line 3)", InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s,medium_C\n0,20\n0,21\n", "oven.csv"),
+                       "oven.csv:3: time_s = 0: must be after the previous row (0 at line 2)", InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("timestamp,medium_C\n2026-03-01T08:00:10Z,20\n2026-03-01T08:00:00Z,21\n",
+                                     "oven.csv"),
+                       "oven.csv:3: timestamp = \"2026-03-01T08:00:00Z\": must be after the previous row "
+                       "(\"2026-03-01T08:00:10Z\" at line 2)",
+                       InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s,medium_C\n0,20\n10,abc\n", "oven.csv"),
+                       "oven.csv:3: medium_C = \"abc\": not a number", InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s,medium_C\n0,20\n10,\n", "oven.csv"),
+                       "oven.csv:3: medium_C = \"\": not a number", InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s,medium_C\n0,20\n1O,21\n", "oven.csv"),
+                       "oven.csv:3: time_s = \"1O\": not a number", InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s,medium_C\n0,20\n10,nan\n", "oven.csv"),
+                       "oven.csv:3: medium_C = nan: must be finite", InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("timestamp,medium_C\n2026-03-01 8:00,20\n", "oven.csv"),
+                       "oven.csv:2: timestamp = \"2026-03-01 8:00\": not an ISO-8601 timestamp "
+                       "(YYYY-MM-DDTHH:MM:SS, optional .fff and Z or +HH:MM)",
+                       InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s,medium_F\n0,-500\n", "oven.csv"),
+                       "oven.csv:2: medium_F = -500: below absolute zero (-273.15 C)", InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s,medium_C\n0,20\n10\n", "oven.csv"),
+                       "oven.csv:3: 1 cell(s), the header has 2: every row needs one cell per column", InputError);
+}
+
+TEST_CASE("logs refused for their header or for being empty") {
+  CHECK_THROWS_WITH_AS(parse_log_csv("", "empty.csv"), "empty.csv:1: empty log: no header and no data rows",
+                       InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("# nothing logged\n\n", "empty.csv"),
+                       "empty.csv:1: empty log: no header and no data rows", InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("# logger 17\ntime_s,medium_C\n\n", "empty.csv"),
+                       "empty.csv:2: empty log: a header but no data rows", InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("0,20\n10,21\n", "bare.csv"),
+                       "bare.csv:1: no header row: the first row must name the columns with their units, "
+                       "e.g. time_s,medium_C",
+                       InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("Time,medium_C\n0,20\n", "h.csv"),
+                       "h.csv:1: time column = \"Time\": must be time_s, time_min, time_h (numbers) or timestamp "
+                       "(ISO-8601)",
+                       InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s,temp\n0,20\n", "h.csv"),
+                       "h.csv:1: header = \"time_s,temp\": no temperature column: name one with a _C or _F suffix, "
+                       "e.g. medium_C",
+                       InputError);
+}

@@ -1,0 +1,56 @@
+// Unit-suffix conversion and did-you-mean.
+#include <doctest/doctest.h>
+
+#include "coldcore/io/quantity.hpp"
+
+using coldcore::io::Quantity;
+using coldcore::io::to_si;
+
+TEST_CASE("temperature suffixes: F converts with the 32 offset, C is unchanged") {
+  // REFERENCES.md conventions: C = (F - 32) / 1.8; 250 F = 121.11 C (F0 reference row).
+  CHECK(*to_si(Quantity::temperature, 250, "F") == doctest::Approx(121.1111111111).epsilon(1e-12));
+  CHECK(*to_si(Quantity::temperature, 32, "F") == 0.0);
+  CHECK(*to_si(Quantity::temperature, 212, "F") == doctest::Approx(100.0).epsilon(1e-15));
+  CHECK(*to_si(Quantity::temperature, -40, "F") == doctest::Approx(-40.0).epsilon(1e-15));
+  CHECK(*to_si(Quantity::temperature, 72, "C") == 72.0);
+  CHECK_FALSE(to_si(Quantity::temperature, 300, "K"));
+}
+
+TEST_CASE("temperature differences (z-values) convert without the offset") {
+  // REFERENCES.md conventions and C. botulinum row: z = 10 C = 18 F.
+  CHECK(*to_si(Quantity::temperature_difference, 18, "F") == doctest::Approx(10.0).epsilon(1e-15));
+  CHECK(*to_si(Quantity::temperature_difference, 7.5, "C") == 7.5);
+  // The trap: treating z_F as a temperature would give (18 - 32) / 1.8 = -7.8.
+  CHECK(*to_si(Quantity::temperature_difference, 18, "F") != *to_si(Quantity::temperature, 18, "F"));
+}
+
+TEST_CASE("length and time suffixes") {
+  CHECK(*to_si(Quantity::length, 42, "mm") == doctest::Approx(0.042).epsilon(1e-15));
+  CHECK(*to_si(Quantity::length, 0.5, "m") == 0.5);
+  CHECK_FALSE(to_si(Quantity::length, 1, "in"));
+  CHECK_FALSE(to_si(Quantity::length, 1, "cm"));
+  CHECK(*to_si(Quantity::time, 22, "min") == 1320.0);
+  CHECK(*to_si(Quantity::time, 8, "h") == 28800.0);
+  CHECK(*to_si(Quantity::time, 90, "s") == 90.0);
+  CHECK_FALSE(to_si(Quantity::time, 1, "d"));
+  CHECK_FALSE(to_si(Quantity::time, 1, "C"));
+}
+
+TEST_CASE("edit distance counts insertions, deletions, substitutions and swaps") {
+  using coldcore::io::edit_distance;
+  CHECK(edit_distance("", "") == 0);
+  CHECK(edit_distance("abc", "") == 3);
+  CHECK(edit_distance("kitten", "sitting") == 3);  // the textbook Levenshtein example
+  CHECK(edit_distance("diamter_mm", "diameter_mm") == 1);
+  CHECK(edit_distance("shpere", "sphere") == 1);   // one swap
+  CHECK(edit_distance("Sphere", "sphere") == 0);   // case-insensitive
+}
+
+TEST_CASE("did you mean: the nearest close candidate, or nothing") {
+  using coldcore::io::did_you_mean;
+  const std::vector<std::string> keys = {"diameter_mm", "diameter_m", "length_mm", "initial_C"};
+  CHECK(did_you_mean("diamter_mm", keys) == "diameter_mm");
+  CHECK(did_you_mean("inital_C", keys) == "initial_C");
+  CHECK_FALSE(did_you_mean("colour", keys));
+  CHECK_FALSE(did_you_mean("x", {}));
+}
