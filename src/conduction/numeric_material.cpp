@@ -2,6 +2,7 @@
 #include <memory>
 
 #include "coldcore/conduction/numeric.hpp"
+#include "properties/detail/mixing.hpp"
 
 namespace coldcore {
 
@@ -15,9 +16,15 @@ NumericMaterial composition_material(const Composition& c, std::string origin) {
   validate_composition(c, origin);
   // Shared so the two callables (and their copies) keep one origin string alive.
   auto where = std::make_shared<const std::string>(std::move(origin));
-  return {[c, where](double t) { return composition_properties(c, t, *where).conductivity_W_mK; },
-          [c, where](double t) {
-            const ThermalProperties p = composition_properties(c, t, *where);
+  // The composition is checked once here; per call only the temperature range is checked (via
+  // composition_properties on the rare out-of-range path, so the message is the same).
+  auto props = [c, where](double t) {
+    if (!(t >= 0.0 && t <= choi_okos_max_C)) return composition_properties(c, t, *where);
+    return detail::mix_unchecked(c, t);
+  };
+  return {[props](double t) { return props(t).conductivity_W_mK; },
+          [props](double t) {
+            const ThermalProperties p = props(t);
             return p.density_kg_m3 * p.specific_heat_J_kgK;
           }};
 }

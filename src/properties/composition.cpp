@@ -5,6 +5,7 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/properties/composition.hpp"
+#include "properties/detail/mixing.hpp"
 
 namespace coldcore {
 namespace {
@@ -46,10 +47,7 @@ void validate_composition(const Composition& c, std::string_view origin) {
                      ": must be 1 within 0.005");
 }
 
-ThermalProperties composition_properties(const Composition& c, double temp_C,
-                                         std::string_view origin) {
-  validate_composition(c, origin);
-  check_mixture_temperature(temp_C, origin);
+ThermalProperties detail::mix_unchecked(const Composition& c, double temp_C) {
   const struct {
     FoodComponent comp;
     double x;
@@ -59,7 +57,7 @@ ThermalProperties composition_properties(const Composition& c, double temp_C,
   double cp = 0, specific_volume = 0, k_times_volume = 0;
   for (const auto& part : parts) {
     if (part.x == 0.0) continue;
-    const ThermalProperties p = choi_okos_component(part.comp, temp_C, origin);
+    const ThermalProperties p = choi_okos_component(part.comp, temp_C);
     cp += part.x * p.specific_heat_J_kgK;
     const double v = part.x / p.density_kg_m3;  // m³ of this component per kg of food
     specific_volume += v;
@@ -70,6 +68,13 @@ ThermalProperties composition_properties(const Composition& c, double temp_C,
   out.density_kg_m3 = 1.0 / specific_volume;
   out.conductivity_W_mK = k_times_volume / specific_volume;  // volume-fraction weights
   return out;
+}
+
+ThermalProperties composition_properties(const Composition& c, double temp_C,
+                                         std::string_view origin) {
+  validate_composition(c, origin);
+  check_mixture_temperature(temp_C, origin);
+  return detail::mix_unchecked(c, temp_C);
 }
 
 std::vector<PropertyRow> composition_table(const Composition& c, double from_C, double to_C,

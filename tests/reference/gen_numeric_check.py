@@ -14,7 +14,8 @@ bracket; terms summed until the next term's bound is below 1e-25 (printed values
 the 10 decimals shown). Self-checks against REFERENCES.md section 3.4 values are asserted.
 Product: 40 mm sphere / 40 mm diameter cylinder / 40 mm thick slab (half-size 0.02 m),
 k 0.5 W/mK, rho 1050 kg/m3, cp 3600 J/kgK, initially 5 C, in 90 C medium; h chosen for
-Bi = 0.5, 5, 50 (h = 12.5, 125, 1250 W/m2K) and h = 500 W/m2K (Bi = 20).
+Bi = 0.5, 5, 50 (h = 12.5, 125, 1250 W/m2K), h = 500 W/m2K (Bi = 20) and h = inf (surface held
+at the medium temperature; at x = 1 the series is not used and the surface is the medium, 90 C).
 rerun: /usr/bin/python3 tests/reference/gen_numeric_check.py > tests/reference/numeric_check.csv
 """
 import mpmath as mp
@@ -37,6 +38,12 @@ def bisect(g, a, b):
 
 
 def roots(geometry, bi, count):
+    if bi == mp.inf:  # surface held at the medium temperature
+        if geometry == "slab":
+            return [(n - mp.mpf(0.5)) * mp.pi for n in range(1, count + 1)]
+        if geometry == "cylinder":
+            return [mp.besseljzero(0, n) for n in range(1, count + 1)]
+        return [n * mp.pi for n in range(1, count + 1)]
     bi = mp.mpf(bi)
     out = []
     for n in range(1, count + 1):
@@ -104,6 +111,9 @@ assert abs(theta("cylinder", 10, "0.5", 0) - mp.mpf("0.145800")) < 6e-7
 assert abs(theta("slab", 1, "0.2", 0) - mp.mpf("0.950642")) < 6e-7
 assert abs(theta("sphere", 1, "0.3", 0) - mp.mpf("0.606804")) < 6e-7
 assert abs(theta("sphere", "0.1", "1.0", 0) - mp.mpf("0.767431")) < 6e-7
+assert abs(theta("sphere", mp.inf, "0.2", 0) - mp.mpf("0.277078")) < 6e-7
+assert abs(theta("cylinder", mp.inf, "0.2", 0) - mp.mpf("0.501487")) < 6e-7
+assert abs(theta("slab", mp.inf, "0.2", 0) - mp.mpf("0.772312")) < 6e-7
 
 R = mp.mpf("0.02")
 k, rho, cp = mp.mpf("0.5"), mp.mpf(1050), mp.mpf(3600)
@@ -116,13 +126,14 @@ print("# rerun: /usr/bin/python3 tests/reference/gen_numeric_check.py > tests/re
 print("geometry,biot,h_W_m2K,half_size_m,k_W_mK,rho_kg_m3,cp_J_kgK,initial_C,medium_C,"
       "time_s,fourier,centre_C,surface_C,mean_C")
 for geometry in ("sphere", "cylinder", "slab"):
-    for h in ("12.5", "125", "500", "1250"):
+    for h in ("12.5", "125", "500", "1250", "inf"):
         h = mp.mpf(h)
-        bi = h * R / k
+        bi = h * R / k if h != mp.inf else mp.inf
         for t in times:
             fo = alpha * t / R**2
+            surf = mp.mpf(0) if bi == mp.inf else theta(geometry, bi, fo, 1)
             vals = [T0 * th + Tm * (1 - th) for th in
-                    (theta(geometry, bi, fo, 0), theta(geometry, bi, fo, 1), theta(geometry, bi, fo))]
+                    (theta(geometry, bi, fo, 0), surf, theta(geometry, bi, fo))]
             print("%s,%s,%s,%s,%s,%s,%s,%s,%s,%d,%s,%s,%s,%s" % (
                 geometry, mp.nstr(bi, 6), mp.nstr(h, 6), mp.nstr(R, 6), mp.nstr(k, 6),
                 mp.nstr(rho, 6), mp.nstr(cp, 6), mp.nstr(T0, 6), mp.nstr(Tm, 6), t,
