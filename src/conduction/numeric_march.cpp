@@ -61,6 +61,15 @@ Grid make_grid(Geometry g, double R, int cells) {
 double chord_capacity(const NumericMaterial& mat, double a, double b) {
   static const double x = 0.5 * std::sqrt(0.6);
   const double d = b - a;
+  if (mat.volumetric_enthalpy_J_m3 && std::fabs(d) > 1e-6) {
+    // Exact chord of the given enthalpy; below 1e-6 K the difference of two H values of order
+    // 1e8 J/m³ would lose digits, and the midpoint capacity is then the chord to O(d²).
+    const double ha = mat.volumetric_enthalpy_J_m3(a), hb = mat.volumetric_enthalpy_J_m3(b);
+    return checked((hb - ha) / d, "volumetric_enthalpy_J_m3 chord", a);
+  }
+  if (mat.volumetric_enthalpy_J_m3)
+    return checked(mat.volumetric_heat_capacity_J_m3K(a + 0.5 * d), "volumetric_heat_capacity_J_m3K",
+                   a + 0.5 * d);
   const double c1 = checked(mat.volumetric_heat_capacity_J_m3K(a + (0.5 - x) * d),
                             "volumetric_heat_capacity_J_m3K", a + (0.5 - x) * d);
   const double c2 = checked(mat.volumetric_heat_capacity_J_m3K(a + 0.5 * d),
@@ -102,6 +111,83 @@ double volume_mean(const Grid& grid, const std::vector<double>& T) {
   return s / v;
 }
 
+
+/// The equations of one time step in energy form (phase change).
+struct StepEquations {
+  const Grid& grid;
+  const NumericMaterial& mat;
+  const std::vector<double>& T_old;
+  const std::vector<double>& H_old;
+  const std::vector<double>& flux_old;
+  double theta, dt, hA, Tm_b, surf_old;
+  bool held;
+};
+
+/// Enthalpy iteration of Swaminathan & Voller (1992), "A general enthalpy method for modeling
+/// solidification processes", Metall. Trans. B 23:651–664: linearise H about the iterate with
+/// the apparent capacity, solve for T, apply the predicted change in H-space and map back
+/// through T(H). Unlike Picard on the chord capacity or plain Newton in T, it does not cycle or
+/// stall at the kinks of H(T) where a node enters or leaves the latent band.
+/// On return G holds the conductances used in the last solve.
+void enthalpy_solve(const StepEquations& e, std::vector<double>& T, std::vector<double>& G,
+                    const NumericOptions& options, double time_s) {
+  const std::size_t size = T.size();
+  const int n = e.grid.n;
+  std::vector<double> H(size), C(size), a(size), b(size), c(size), d(size);
+  for (std::size_t i = 0; i < size; ++i) H[i] = e.mat.volumetric_enthalpy_J_m3(T[i]);
+  for (int it = 1;; ++it) {
+    conductances(e.grid, e.mat, T, G);
+    for (int i = 0; i <= n; ++i) {
+      C[i] = checked(e.mat.volumetric_heat_capacity_J_m3K(T[i]), "volumetric_heat_capacity_J_m3K", T[i]);
+      const double m = e.grid.volume[i] / e.dt;
+      const double gl = i > 0 ? G[i - 1] : 0.0;
+      const double gr = i < n ? G[i] : 0.0;
+      a[i] = -e.theta * gl;
+      c[i] = -e.theta * gr;
+      b[i] = m * C[i] + e.theta * (gl + gr);
+      d[i] = m * (C[i] * T[i] - H[i] + e.H_old[i]) + (1.0 - e.theta) * e.flux_old[i];
+    }
+    if (e.held) {
+      a[n] = 0.0;
+      b[n] = 1.0;
+      d[n] = e.Tm_b;
+    } else {
+      b[n] += e.theta * e.hA;
+      d[n] += e.theta * e.hA * e.Tm_b + (1.0 - e.theta) * e.surf_old;
+    }
+    thomas(a, b, c, d);
+    double change = 0;
+    for (int i = 0; i <= n; ++i) {
+      double t_new = d[i];
+      if (!(e.held && i == n)) {
+        const double h_pred = H[i] + C[i] * (d[i] - T[i]);
+        const double t_mapped = e.mat.temperature_from_enthalpy_C(h_pred);
+        if (!std::isfinite(t_mapped))
+          throw InputError("numeric: temperature_from_enthalpy_C(H = " + fmt(h_pred) + ") = " +
+                           fmt(t_mapped) + ": must be finite");
+        // Safeguard: take the smaller of the two moves (both point the same way, H being
+        // monotone). Mapping back through T(H) overshoots when a node leaves the latent band
+        // (the capacity drops along the way) and the linear prediction overshoots when it
+        // enters it; the smaller move never crosses into a piece it has not seen yet.
+        if (std::fabs(t_mapped - T[i]) <= std::fabs(d[i] - T[i])) {
+          t_new = t_mapped;
+          H[i] = h_pred;
+        } else {
+          t_new = d[i];
+          H[i] = e.mat.volumetric_enthalpy_J_m3(t_new);
+        }
+      }
+      change = std::max(change, std::fabs(t_new - T[i]));
+      T[i] = t_new;
+    }
+    if (change <= options.picard_tol_K) return;
+    if (it >= options.enthalpy_max_iter)
+      throw NotConverged("numeric: enthalpy iteration at t = " + fmt(time_s) + " s changed " +
+                         fmt(change) + " K after " + std::to_string(it) +
+                         " iterations: above picard_tol_K = " + fmt(options.picard_tol_K));
+  }
+}
+
 }  // namespace
 
 double medium_at(const NumericProblem& problem, const std::vector<double>& starts, double t) {
@@ -128,6 +214,7 @@ LevelSolution march_level(const NumericProblem& problem, const std::vector<BaseS
 
   std::vector<double> T(size, problem.initial_C), T_old(size), T_iter(size), T_new(size);
   std::vector<double> G_old(n), G(n), a(size), b(size), c(size), d(size), flux_old(size), cap(size);
+  std::vector<double> H_old(size);
   double heat_J = 0;  // per unit transverse measure; divided by surface_area when reported
 
   LevelSolution out;
@@ -186,38 +273,47 @@ LevelSolution march_level(const NumericProblem& problem, const std::vector<BaseS
         const double surf_old = hA * (Tm_a - T_old[n]);
         T_iter = T_old;
         if (seg.h_infinite) T_iter[n] = Tm_b;
-        int it = 0;
-        double change = 0;
-        for (;;) {
-          conductances(grid, mat, T_iter, G);
-          for (int i = 0; i <= n; ++i) {
-            cap[i] = grid.volume[i] * chord_capacity(mat, T_old[i], T_iter[i]) / dt;
-            const double gl = i > 0 ? G[i - 1] : 0.0;
-            const double gr = i < n ? G[i] : 0.0;
-            a[i] = -theta * gl;
-            c[i] = -theta * gr;
-            b[i] = cap[i] + theta * (gl + gr);
-            d[i] = cap[i] * T_old[i] + (1.0 - theta) * flux_old[i];
+        if (mat.volumetric_enthalpy_J_m3) {
+          // Phase change: Picard on the chord capacity cycles when a node crosses the latent
+          // band; the enthalpy iteration does not.
+          StepEquations eq{grid, mat, T_old, H_old, flux_old, theta, dt, hA, Tm_b, surf_old,
+                           seg.h_infinite};
+          for (int i = 0; i <= n; ++i) H_old[i] = mat.volumetric_enthalpy_J_m3(T_old[i]);
+          enthalpy_solve(eq, T_iter, G, options, tb);
+        } else {
+          int it = 0;
+          double change = 0;
+          for (;;) {
+            conductances(grid, mat, T_iter, G);
+            for (int i = 0; i <= n; ++i) {
+              cap[i] = grid.volume[i] * chord_capacity(mat, T_old[i], T_iter[i]) / dt;
+              const double gl = i > 0 ? G[i - 1] : 0.0;
+              const double gr = i < n ? G[i] : 0.0;
+              a[i] = -theta * gl;
+              c[i] = -theta * gr;
+              b[i] = cap[i] + theta * (gl + gr);
+              d[i] = cap[i] * T_old[i] + (1.0 - theta) * flux_old[i];
+            }
+            if (seg.h_infinite) {
+              a[n] = 0.0;
+              b[n] = 1.0;
+              d[n] = Tm_b;
+            } else {
+              b[n] += theta * hA;
+              d[n] += theta * hA * Tm_b + (1.0 - theta) * surf_old;
+            }
+            T_new = d;
+            thomas(a, b, c, T_new);
+            change = 0;
+            for (int i = 0; i <= n; ++i) change = std::max(change, std::fabs(T_new[i] - T_iter[i]));
+            T_iter.swap(T_new);
+            ++it;
+            if (change <= options.picard_tol_K) break;
+            if (it >= options.picard_max_iter)
+              throw NotConverged("numeric: Picard iteration at t = " + fmt(tb) + " s changed " +
+                                 fmt(change) + " K after " + std::to_string(it) +
+                                 " iterations: above picard_tol_K = " + fmt(options.picard_tol_K));
           }
-          if (seg.h_infinite) {
-            a[n] = 0.0;
-            b[n] = 1.0;
-            d[n] = Tm_b;
-          } else {
-            b[n] += theta * hA;
-            d[n] += theta * hA * Tm_b + (1.0 - theta) * surf_old;
-          }
-          T_new = d;
-          thomas(a, b, c, T_new);
-          change = 0;
-          for (int i = 0; i <= n; ++i) change = std::max(change, std::fabs(T_new[i] - T_iter[i]));
-          T_iter.swap(T_new);
-          ++it;
-          if (change <= options.picard_tol_K) break;
-          if (it >= options.picard_max_iter)
-            throw NotConverged("numeric: Picard iteration at t = " + fmt(tb) + " s changed " +
-                               fmt(change) + " K after " + std::to_string(it) +
-                               " iterations: above picard_tol_K = " + fmt(options.picard_tol_K));
         }
         T.swap(T_iter);
         // Heat through the surface in this step, from the same weights the scheme used, so that

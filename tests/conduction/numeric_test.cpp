@@ -358,3 +358,109 @@ TEST_CASE("numeric: bad input and unreachable tolerance are refused") {
   CHECK_THROWS_WITH_AS(solve_numeric(series_problem(Geometry::sphere, 125, 3000), {3000}, opt),
                        doctest::Contains("numeric: self-check error estimate = "), NotConverged);
 }
+
+namespace {
+PhaseChangeProperties neumann_material(double band_K) {
+  // As in tests/reference/gen_neumann_check.py.
+  PhaseChangeProperties p;
+  p.frozen_conductivity_W_mK = 1.6;
+  p.unfrozen_conductivity_W_mK = 0.5;
+  p.frozen_volumetric_heat_capacity_J_m3K = 1050.0 * 1900.0;
+  p.unfrozen_volumetric_heat_capacity_J_m3K = 1050.0 * 3600.0;
+  p.latent_heat_J_m3 = 1050.0 * 230e3;
+  p.freezing_C = -1.5;
+  p.band_K = band_K;
+  return p;
+}
+}  // namespace
+
+TEST_CASE("numeric: phase change conserves energy through the enthalpy") {
+  // Invariant: heat through the surface = Σ V_i (H(T_i) − H(T0)), H from the material itself.
+  NumericProblem p;
+  p.geometry = Geometry::sphere;
+  p.half_size_m = 0.02;
+  p.initial_C = 8.0;
+  p.material = phase_change_material(neumann_material(1.0));
+  MediumProfile chill;
+  chill.points = {{0.0, 8.0}, {300.0, -25.0}};
+  p.segments = {{3000.0, 40.0, false, chill}, {1800.0, 15.0, false, constant_medium(20.0)}};
+  NumericOptions opt;
+  opt.fixed_cells = 80;
+  opt.fixed_step_divisor = 4;
+  for (double end : {1500.0, 3000.0, 4800.0}) {
+    const auto res = solve_numeric(p, {end}, opt);
+    double dH = 0;
+    const std::size_t n = res.node_r_m.size() - 1;
+    for (std::size_t i = 0; i <= n; ++i) {
+      const double lo = i == 0 ? 0.0 : 0.5 * (res.node_r_m[i - 1] + res.node_r_m[i]);
+      const double hi = i == n ? 0.02 : 0.5 * (res.node_r_m[i] + res.node_r_m[i + 1]);
+      dH += (hi * hi * hi - lo * lo * lo) / 3.0 *
+            (p.material.volumetric_enthalpy_J_m3(res.node_T_C[i]) -
+             p.material.volumetric_enthalpy_J_m3(8.0));
+    }
+    dH /= 0.02 * 0.02;
+    CAPTURE(end);
+    MESSAGE("t=" << end << " centre " << res.samples[0].centre_C << " C, heat "
+                 << res.samples[0].heat_in_J_m2 << " J/m2, dH " << dH);
+    CHECK(std::fabs(res.samples[0].heat_in_J_m2 - dH) <= 1e-6 * std::fabs(dH));
+  }
+}
+
+TEST_CASE("numeric: phase-change material input checks and enthalpy inverse") {
+  const auto m = phase_change_material(neumann_material(0.5));
+  for (double t : {-40.0, -1.75, -1.6, -1.5, -1.3, -1.25, 0.0, 30.0})
+    CHECK(m.temperature_from_enthalpy_C(m.volumetric_enthalpy_J_m3(t)) == doctest::Approx(t).epsilon(1e-12));
+  // Latent heat is all inside the band: H(top) − H(bottom) = mean capacity × band + latent.
+  CHECK(m.volumetric_enthalpy_J_m3(-1.25) - m.volumetric_enthalpy_J_m3(-1.75) ==
+        doctest::Approx(0.5 * 0.5 * (1050.0 * 1900 + 1050.0 * 3600) + 1050.0 * 230e3).epsilon(1e-12));
+  auto bad = neumann_material(0.5);
+  bad.band_K = 0;
+  CHECK_THROWS_WITH_AS(phase_change_material(bad), "phase change: band_K = 0: must be > 0", InputError);
+  NumericProblem p = series_problem(Geometry::slab, 125, 100);
+  p.material.volumetric_enthalpy_J_m3 = [](double t) { return 4e6 * t; };
+  CHECK_THROWS_WITH_AS(solve_numeric(p, {100}),
+                       "numeric: material: volumetric_enthalpy_J_m3 and temperature_from_enthalpy_C "
+                       "must be set together",
+                       InputError);
+}
+
+TEST_CASE("numeric: freezing front against Neumann's exact solution") {
+  // Source: tests/reference/neumann_check.csv (gen_neumann_check.py, mpmath; Carslaw & Jaeger
+  // §11.2). Slab half-thickness 0.1 m, surface held at −30 °C, initially 8 °C, 1800 s.
+  const auto rows = read_table("neumann_check.csv");
+  NumericProblem p;
+  p.geometry = Geometry::slab;
+  p.half_size_m = 0.1;
+  p.initial_C = 8.0;
+  p.material = phase_change_material(neumann_material(0.25));
+  p.segments = {{1800.0, 0.0, true, constant_medium(-30.0)}};
+  NumericOptions opt;
+  opt.tol_K = 0.01;
+  const auto t_start = std::chrono::steady_clock::now();
+  const NumericResult res = solve_numeric(p, {1800.0}, opt);
+  const double ms =
+      std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t_start).count();
+  double worst = 0;
+  for (const auto& r : rows) {
+    if (r.at("quantity") == "heat_removed_J_m2") {
+      MESSAGE("heat: numeric " << -res.samples[0].heat_in_J_m2 << " exact " << num(r, "value"));
+      CHECK(-res.samples[0].heat_in_J_m2 == doctest::Approx(num(r, "value")).epsilon(2e-3));
+    } else if (r.at("quantity") == "temp_C") {
+      // Depth from the held face; nodes are r from the centre, so r = 0.1 − depth.
+      const double r_m = 0.1 - num(r, "depth_m");
+      std::size_t i = 0;
+      while (res.node_r_m[i + 1] < r_m) ++i;
+      const double w = (r_m - res.node_r_m[i]) / (res.node_r_m[i + 1] - res.node_r_m[i]);
+      const double got = res.node_T_C[i] + w * (res.node_T_C[i + 1] - res.node_T_C[i]);
+      CAPTURE(num(r, "depth_m"));
+      CHECK(std::fabs(got - num(r, "value")) <= 0.1);
+      worst = std::max(worst, std::fabs(got - num(r, "value")));
+    }
+  }
+  // The centre of the 0.2 m slab has barely felt the surface (Neumann: 8 − 2e-4 K at that
+  // depth, doubled by the symmetric far face): the slab stands in for a semi-infinite solid.
+  CHECK(std::fabs(res.samples[0].centre_C - 8.0) <= 1e-3);
+  MESSAGE("Neumann: " << res.cells << " cells, " << res.steps << " steps, estimate "
+                      << res.error_estimate_K << " K, worst profile difference " << worst
+                      << " K, " << ms << " ms");
+}

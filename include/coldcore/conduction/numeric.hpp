@@ -24,7 +24,8 @@
 ///   step halved, so nodes and instants nest). For a second-order method the error of the finer
 ///   solution is ≈ |fine − coarse|/3; the finer solution is returned when that estimate, over the
 ///   centre, surface and mean at every output time, is ≤ tol_K. Otherwise the next level is
-///   added. Past max_level: NotConverged (never an unconverged answer).
+///   added. Past max_level: NotConverged (never an unconverged answer). With an enthalpy callable
+///   (phase change) the estimate is |fine − coarse| (first order), which is conservative.
 #include <functional>
 #include <string>
 #include <vector>
@@ -41,7 +42,14 @@ namespace coldcore {
 /// (InputError from the solver otherwise, naming the property, temperature and value).
 struct NumericMaterial {
   std::function<double(double temp_C)> conductivity_W_mK;
-  std::function<double(double temp_C)> volumetric_heat_capacity_J_m3K;  ///< ρ·cp
+  std::function<double(double temp_C)> volumetric_heat_capacity_J_m3K;  ///< ρ·cp (apparent)
+  /// Optional: volumetric enthalpy H(T) (J/m³, any reference) with dH/dT = ρcp. Set it for
+  /// phase change: node energies then use the chord (H(b) − H(a))/(b − a) exactly instead of the
+  /// quadrature of ρcp, so a latent-heat peak is neither missed nor double-counted, and the
+  /// self-check assumes first-order convergence (the enthalpy kink is not smooth).
+  std::function<double(double temp_C)> volumetric_enthalpy_J_m3;
+  /// The inverse of volumetric_enthalpy_J_m3. REQUIRES: set whenever the enthalpy is set.
+  std::function<double(double enthalpy_J_m3)> temperature_from_enthalpy_C;
 };
 
 /// Constant k and ρcp.
@@ -51,6 +59,29 @@ NumericMaterial constant_material(const ThermalProperties& p);
 /// a temperature below 0 °C or above 150 °C during the solve throws InputError from
 /// composition_properties. The composition is validated here.
 NumericMaterial composition_material(const Composition& c, std::string origin = "composition");
+
+/// Phase change is solved by the enthalpy iteration of Swaminathan & Voller (1992), Metall.
+/// Trans. B 23:651–664 (Picard on the chord capacity cycles at the band edges).
+///
+/// A simple freezing/thawing model: frozen and unfrozen properties with the latent heat released
+/// uniformly over a band of width band_K centred on freezing_C (k and ρcp blend linearly across
+/// the band). It is NOT a food ice-fraction curve (real foods freeze gradually below their
+/// initial freezing point); use it for products whose freezing range is narrow, or build your
+/// own H(T) from a published ice-fraction model. Checked against Neumann's exact solution
+/// (tests/reference/neumann_check.csv).
+struct PhaseChangeProperties {
+  double frozen_conductivity_W_mK = 0;
+  double unfrozen_conductivity_W_mK = 0;
+  double frozen_volumetric_heat_capacity_J_m3K = 0;    ///< ρ·cp of the frozen product
+  double unfrozen_volumetric_heat_capacity_J_m3K = 0;  ///< ρ·cp of the unfrozen product
+  double latent_heat_J_m3 = 0;   ///< ρ·(latent heat per kg of product), e.g. 1050 × 230e3
+  double freezing_C = 0;         ///< centre of the freezing band
+  double band_K = 1.0;           ///< > 0; narrower is closer to isothermal freezing, needs finer grids
+};
+
+/// REQUIRES: all values finite, conductivities and capacities > 0, latent heat >= 0, band > 0;
+/// InputError ("phase change: <key> = <value>: must be ...") otherwise.
+NumericMaterial phase_change_material(const PhaseChangeProperties& p);
 
 /// One interval of the process with a fixed surface coefficient.
 struct NumericSegment {
@@ -85,6 +116,9 @@ struct NumericOptions {
   /// Picard iteration: stop when the largest change of a node temperature is below this (K).
   double picard_tol_K = 1e-10;
   int picard_max_iter = 50;
+  /// Iteration cap of the phase-change (enthalpy) iteration, which converges linearly while a
+  /// node sits in the latent band; its tolerance is picard_tol_K.
+  int enthalpy_max_iter = 1000;
 };
 
 /// Temperatures at one requested time (time from the start of the first segment).
@@ -102,12 +136,14 @@ struct NumericResult {
   int cells = 0;                        ///< cells of the returned solution
   long steps = 0;                       ///< time steps of the returned solution
   double error_estimate_K = 0;          ///< Richardson estimate of the returned solution's error
-  /// Final profile of the returned solution: node positions (m from the centre) and temperatures.
+  /// Profile of the returned solution at the latest requested time (the end of the process if
+  /// none was requested): node positions (m from the centre) and temperatures.
   std::vector<double> node_r_m;
   std::vector<double> node_T_C;
 };
 
 /// Solves the problem and reports the temperatures at output_times_s.
+/// Marches from t = 0 to the latest requested time only.
 /// REQUIRES: 0 <= each output time <= total duration (any order, repeats allowed);
 /// problem fields as documented. InputError on bad input ("numeric: <key> = <value>: <rule>"),
 /// NotConverged if the self-check or Picard iteration cannot reach its tolerance.
