@@ -7,7 +7,7 @@
 /// Use it where the exact series cannot serve (properties that follow temperature, composition
 /// models) and as an independent check of the series.
 ///
-/// Method (why each choice is in numeric.cpp):
+/// Method (the reasons are in src/conduction/numeric*.cpp):
 /// - Vertex-centred finite volumes on a uniform grid r_i = i·R/N, i = 0..N: node 0 is the centre,
 ///   node N the surface, so both are reported without extrapolation; control volumes are the
 ///   exact shell volumes between face midpoints (energy per unit surface area is exact).
@@ -15,9 +15,13 @@
 ///   (H(T^{n+1}) − H(T^n))/(T^{n+1} − T^n) with H = ∫ρcp dT by 3-point Gauss–Legendre
 ///   quadrature (exact for ρcp polynomials up to degree 5), so the heat that crosses the surface
 ///   equals the change of enthalpy to the Picard tolerance. Face conductivity k((T_i+T_{i+1})/2).
-/// - Crank–Nicolson in time, with the first base step of every segment taken as four
-///   backward-Euler quarter steps (Rannacher start-up) to damp the surface jump; Picard
-///   iteration per step on k and ρcp; a Thomas tridiagonal solve.
+/// - Crank–Nicolson in time; the first two steps of every segment are each taken as two
+///   backward-Euler half-steps (Rannacher start-up) to damp the jump at the surface when the
+///   medium or h changes. Picard iteration per step on k and ρcp; a Thomas tridiagonal solve.
+/// - Phase change (an enthalpy callable is given): the step equations are solved by the enthalpy
+///   iteration of Swaminathan & Voller (1992), "A general enthalpy method for modeling
+///   solidification processes", Metall. Trans. B 23:651–664, safeguarded to take the smaller of
+///   the linear and the mapped-back move (Picard on the chord capacity cycles at band edges).
 /// - Time steps land on every output time, medium breakpoint and segment boundary; the base step
 ///   grows geometrically from a small first step after each segment start.
 /// - Self-check (Richardson): the problem is solved on level ℓ and ℓ+1 (cells doubled AND every
@@ -26,6 +30,16 @@
 ///   centre, surface and mean at every output time, is ≤ tol_K. Otherwise the next level is
 ///   added. Past max_level: NotConverged (never an unconverged answer). With an enthalpy callable
 ///   (phase change) the estimate is |fine − coarse| (first order), which is conservative.
+///   The check covers only what is reported (centre, surface, mean at the requested times), not
+///   interior points of node_T_C.
+///
+/// Measured (tests/conduction/numeric_test.cpp, default options): against the exact series
+/// (90 rows: sphere, cylinder, slab; Bi 0.5, 5, 20, 50, ∞; Fo 0.02 to 2) worst 0.0017 K; against
+/// an independent SciPy solution with k(T), ρcp(T), a ramped medium and an h change worst
+/// 0.0009 K; the self-check estimate was within 2 % of the actual error in every case; observed
+/// order 2.00. Cost: about 30–150 ms for a 40 mm product over Fo ≈ 2 with constant properties
+/// (160–320 cells), a few hundred ms with composition properties; it grows with the total
+/// Fourier number α·t/R² of the run (steps are never larger than the base step).
 #include <functional>
 #include <string>
 #include <vector>
@@ -60,15 +74,13 @@ NumericMaterial constant_material(const ThermalProperties& p);
 /// composition_properties. The composition is validated here.
 NumericMaterial composition_material(const Composition& c, std::string origin = "composition");
 
-/// Phase change is solved by the enthalpy iteration of Swaminathan & Voller (1992), Metall.
-/// Trans. B 23:651–664 (Picard on the chord capacity cycles at the band edges).
-///
 /// A simple freezing/thawing model: frozen and unfrozen properties with the latent heat released
 /// uniformly over a band of width band_K centred on freezing_C (k and ρcp blend linearly across
 /// the band). It is NOT a food ice-fraction curve (real foods freeze gradually below their
 /// initial freezing point); use it for products whose freezing range is narrow, or build your
 /// own H(T) from a published ice-fraction model. Checked against Neumann's exact solution
-/// (tests/reference/neumann_check.csv).
+/// (tests/reference/neumann_check.csv): with band_K = 0.25 and tol_K = 0.01 the profile is
+/// within 0.08 K and the heat removed within 0.02 %.
 struct PhaseChangeProperties {
   double frozen_conductivity_W_mK = 0;
   double unfrozen_conductivity_W_mK = 0;
@@ -147,8 +159,8 @@ struct NumericResult {
 /// REQUIRES: 0 <= each output time <= total duration (any order, repeats allowed);
 /// problem fields as documented. InputError on bad input ("numeric: <key> = <value>: <rule>"),
 /// NotConverged if the self-check or Picard iteration cannot reach its tolerance.
-/// Accuracy: against the exact series (constant properties) within 0.01 K with default options
-/// (tests/conduction/numeric_test.cpp, table tests/reference/numeric_check.csv).
+/// Accuracy: the reported temperatures are within tol_K by the self-check estimate (see above
+/// for the measured agreement with outside references).
 NumericResult solve_numeric(const NumericProblem& problem, const std::vector<double>& output_times_s,
                             const NumericOptions& options = {});
 
