@@ -464,3 +464,35 @@ TEST_CASE("numeric: freezing front against Neumann's exact solution") {
                       << res.error_estimate_K << " K, worst profile difference " << worst
                       << " K, " << ms << " ms");
 }
+
+TEST_CASE("numeric: segment boundaries: later medium reported, state continuous, h change used") {
+  // Two segments: 600 s in 90 °C water at h 500, then 600 s in 10 °C air at h 10.
+  NumericProblem p = series_problem(Geometry::sphere, 500, 600);
+  p.segments.push_back({600.0, 10.0, false, constant_medium(10.0)});
+  const auto res = solve_numeric(p, {600, 600.5, 1200});
+  REQUIRE(res.samples.size() == 3);
+  CHECK(res.samples[0].medium_C == 10.0);  // the later segment owns the shared instant
+  CHECK(res.samples[1].medium_C == 10.0);
+  // At the boundary the temperatures are those reached in the first segment: the exact series
+  // value for sphere, h 500, t 600 s (tests/reference/numeric_check.csv).
+  for (const auto& r : series_rows("sphere", 500))
+    if (num(r, "time_s") == 600) CHECK(std::fabs(res.samples[0].centre_C - num(r, "centre_C")) <= 0.01);
+  // Half a second later the centre is still rising (heat already inside moves on) while the
+  // surface has started to cool.
+  CHECK(res.samples[1].centre_C > res.samples[0].centre_C);
+  CHECK(res.samples[1].centre_C - res.samples[0].centre_C < 0.1);
+  CHECK(res.samples[1].surface_C < res.samples[0].surface_C);
+  // Weak cooling: the mean falls but heat has left through the surface.
+  CHECK(res.samples[2].heat_in_J_m2 < res.samples[0].heat_in_J_m2);
+}
+
+TEST_CASE("numeric: composition properties refuse a chill below 0 C rather than guess") {
+  // No ice-fraction model: a surface driven below 0 °C stops the solve with InputError.
+  auto p = kt_problem("beef-slab");
+  p.initial_C = 20.0;
+  p.segments[0].medium = constant_medium(-5.0);
+  CHECK_THROWS_WITH_AS(solve_numeric(p, {2400}),
+                       doctest::Contains("must be within 0 to 150 °C (below 0 °C the food may be "
+                                         "partly frozen; no ice-fraction model is implemented)"),
+                       InputError);
+}
