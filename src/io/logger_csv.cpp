@@ -5,6 +5,7 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/io/quantity.hpp"
+#include "coldcore/io/sha256.hpp"
 #include "io/detail/text.hpp"
 
 namespace coldcore::io {
@@ -278,6 +279,14 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
   if (out.time_s.empty())
     throw InputError(where(origin, header_line) + ": empty log: a header but no data rows");
   return out;
+}
+
+MediumProfile medium_profile(const TimeSeries& log, std::string_view origin, std::string_view log_bytes) {
+  MediumProfile prof;
+  prof.points.reserve(log.time_s.size());
+  for (std::size_t i = 0; i < log.time_s.size(); ++i) prof.points.push_back({log.time_s[i], log.temp_C[i]});
+  prof.description = "log " + std::string(origin) + " (sha256 " + sha256_hex(log_bytes) + ")";
+  return prof;
 }
 
 }  // namespace coldcore::io

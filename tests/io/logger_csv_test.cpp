@@ -3,6 +3,7 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/io/logger_csv.hpp"
+#include "coldcore/io/sha256.hpp"
 
 using coldcore::InputError;
 using coldcore::io::LogOptions;
@@ -136,4 +137,13 @@ TEST_CASE("logs refused for their header or for being empty") {
                        "h.csv:1: header = \"time_s,temp\": no temperature column: name one with a _C or _F suffix, "
                        "e.g. medium_C",
                        InputError);
+}
+
+TEST_CASE("a log becomes a medium profile, linear between readings, named with its digest") {
+  const std::string text = "time_s,medium_C\n100,20\n160,80\n";
+  const auto prof = coldcore::io::medium_profile(parse_log_csv(text, "oven.csv"), "oven.csv", text);
+  CHECK(prof.at(0) == 20);
+  CHECK(prof.at(30) == doctest::Approx(50));
+  CHECK(prof.at(600) == 80);
+  CHECK(prof.description == "log oven.csv (sha256 " + coldcore::io::sha256_hex(text) + ")");
 }
