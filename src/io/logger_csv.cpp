@@ -183,6 +183,9 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
       if (parse_number(cells[0]) || parse_iso8601_s(cells[0]))
         throw InputError(where(origin, line_no) + ": no header row: the first row must name the columns " +
                          "with their units, e.g. time_s,medium_C");
+      if (cells.size() == 1 && (line.find(';') != std::string_view::npos || line.find('\t') != std::string_view::npos))
+        throw InputError(where(origin, line_no) + ": header = " + quote(line) +
+                         ": cells must be separated by commas (this looks like ';' or tab separated)");
       for (auto c : cells) header.emplace_back(c);
       const std::string& tname = header[0];
       if (is_timestamp_name(tname)) {

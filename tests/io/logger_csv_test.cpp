@@ -133,6 +133,10 @@ TEST_CASE("logs refused for their header or for being empty") {
                        "h.csv:1: time column = \"Time\": must be time_s, time_min, time_h (numbers) or timestamp "
                        "(ISO-8601)",
                        InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s;medium_C\n0;20\n", "h.csv"),
+                       "h.csv:1: header = \"time_s;medium_C\": cells must be separated by commas (this looks like ';' "
+                       "or tab separated)",
+                       InputError);
   CHECK_THROWS_WITH_AS(parse_log_csv("time_s,temp\n0,20\n", "h.csv"),
                        "h.csv:1: header = \"time_s,temp\": no temperature column: name one with a _C or _F suffix, "
                        "e.g. medium_C",
