@@ -5,6 +5,7 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/io/quantity.hpp"
+#include "coldcore/io/sha256.hpp"
 #include "io/detail/text.hpp"
 
 namespace coldcore::io {
@@ -182,6 +183,9 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
       if (parse_number(cells[0]) || parse_iso8601_s(cells[0]))
         throw InputError(where(origin, line_no) + ": no header row: the first row must name the columns " +
                          "with their units, e.g. time_s,medium_C");
+      if (cells.size() == 1 && (line.find(';') != std::string_view::npos || line.find('\t') != std::string_view::npos))
+        throw InputError(where(origin, line_no) + ": header = " + quote(line) +
+                         ": cells must be separated by commas (this looks like ';' or tab separated)");
       for (auto c : cells) header.emplace_back(c);
       const std::string& tname = header[0];
       if (is_timestamp_name(tname)) {
@@ -278,6 +282,14 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
   if (out.time_s.empty())
     throw InputError(where(origin, header_line) + ": empty log: a header but no data rows");
   return out;
+}
+
+MediumProfile medium_profile(const TimeSeries& log, std::string_view origin, std::string_view log_bytes) {
+  MediumProfile prof;
+  prof.points.reserve(log.time_s.size());
+  for (std::size_t i = 0; i < log.time_s.size(); ++i) prof.points.push_back({log.time_s[i], log.temp_C[i]});
+  prof.description = "log " + std::string(origin) + " (sha256 " + sha256_hex(log_bytes) + ")";
+  return prof;
 }
 
 }  // namespace coldcore::io

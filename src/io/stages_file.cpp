@@ -3,7 +3,6 @@
 #include <limits>
 
 #include "coldcore/error.hpp"
-#include "coldcore/io/sha256.hpp"
 #include "io/detail/product_parts.hpp"
 #include "io/detail/text.hpp"
 
@@ -85,11 +84,8 @@ MediumProfile parse_medium_log(const Fields& f, const std::filesystem::path& bas
   }
   TimeSeries log = parse_log_csv(*text, path.generic_string(), opts);
   for (auto& w : log.warnings) out.warnings.push_back(std::move(w));
-  MediumProfile prof;
-  for (std::size_t i = 0; i < log.time_s.size(); ++i) prof.points.push_back({log.time_s[i], log.temp_C[i]});
-  prof.description = "log " + path.generic_string() + " (sha256 " + sha256_hex(*text) + ")";
   log_length_s = log.time_s.back();
-  return prof;
+  return medium_profile(log, path.generic_string(), *text);
 }
 
 void parse_h(const Fields& f, Stage& s) {

@@ -213,6 +213,11 @@ void parse_targets(const Fields& root, ProductFile& out) {
     }
     Fields f(tbl, root.origin(), path, specs_for(*kind));
     Target t = parse_target(f, *kind, i + 1, out.stages);
+    // The name becomes a csv column (F_<name>_min) and a report label.
+    for (char c : t.name)
+      if (c == ',' || c == '"' || static_cast<unsigned char>(c) < 0x20)
+        throw InputError(root.origin() + ": " + path + ".name = " + quote(t.name) +
+                         ": must not contain commas, double quotes or control characters (it names a csv column)");
     for (std::size_t j = 0; j < out.targets.size(); ++j)
       if (out.targets[j].name == t.name)
         throw InputError(root.origin() + ": " + path + ".name = " + quote(t.name) + ": same as target[" +

@@ -3,6 +3,7 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/io/logger_csv.hpp"
+#include "coldcore/io/sha256.hpp"
 
 using coldcore::InputError;
 using coldcore::io::LogOptions;
@@ -132,8 +133,21 @@ TEST_CASE("logs refused for their header or for being empty") {
                        "h.csv:1: time column = \"Time\": must be time_s, time_min, time_h (numbers) or timestamp "
                        "(ISO-8601)",
                        InputError);
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s;medium_C\n0;20\n", "h.csv"),
+                       "h.csv:1: header = \"time_s;medium_C\": cells must be separated by commas (this looks like ';' "
+                       "or tab separated)",
+                       InputError);
   CHECK_THROWS_WITH_AS(parse_log_csv("time_s,temp\n0,20\n", "h.csv"),
                        "h.csv:1: header = \"time_s,temp\": no temperature column: name one with a _C or _F suffix, "
                        "e.g. medium_C",
                        InputError);
+}
+
+TEST_CASE("a log becomes a medium profile, linear between readings, named with its digest") {
+  const std::string text = "time_s,medium_C\n100,20\n160,80\n";
+  const auto prof = coldcore::io::medium_profile(parse_log_csv(text, "oven.csv"), "oven.csv", text);
+  CHECK(prof.at(0) == 20);
+  CHECK(prof.at(30) == doctest::Approx(50));
+  CHECK(prof.at(600) == 80);
+  CHECK(prof.description == "log oven.csv (sha256 " + coldcore::io::sha256_hex(text) + ")");
 }

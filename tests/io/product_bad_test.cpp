@@ -368,6 +368,19 @@ TEST_CASE("bad file: targets") {
 }
 
 TEST_CASE("bad file: stages and composition") {
+  const std::string no_stages = kGood.substr(0, kGood.find("[[stage]]"));
+  CHECK_THROWS_WITH_AS(parse(with("schema = 1\n", "schema = 1\nstage = [1, 2]\n", no_stages)),
+                       "t.toml: stage = [1, 2]: must be one or more [[stage]] tables (double brackets)", InputError);
+  CHECK_THROWS_WITH_AS(parse(with("[[stage]]\nname = \"steam cook\"\nmedium_C = 92\nh_W_m2K = 180\nduration_min = 22\n\n"
+                                  "[[stage]]\nname = \"blast chill\"\nmedium_C = -1\nh_W_m2K = 22\nuntil_centre_C = 4\n"
+                                  "max_duration_h = 8\n",
+                                  "")),
+                       "t.toml: stage: missing: at least one [[stage]] table (medium, h_W_m2K, end condition)",
+                       InputError);
+  CHECK_THROWS_WITH_AS(parse(with("name = \"F70\"", "name = \"F70, core\"")),
+                       "t.toml: target[2].name = \"F70, core\": must not contain commas, double quotes or control "
+                       "characters (it names a csv column)",
+                       InputError);
   CHECK_THROWS_WITH_AS(parse(with("name = \"blast chill\"", "name = \"steam cook\"")),
                        "t.toml: stage[2].name = \"steam cook\": same as stage[1]; stage names must be unique",
                        InputError);

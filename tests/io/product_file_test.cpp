@@ -164,6 +164,10 @@ stages = ["retort", "cool"]
 kind = "cooling-rule"
 rule = "some-rule"
 at = "mean"
+[[target]]
+kind = "centre-min-temperature"
+min_F = 160
+hold_min = 2
 )",
                                 "can.toml");
   CHECK(pf.product.shape == Shape::finite_cylinder);
@@ -187,6 +191,9 @@ at = "mean"
   CHECK(*t.own->D_ref_s == doctest::Approx(12.6));
   CHECK(t.log_reduction == 12);
   CHECK(pf.targets[1].at == "mean");
+  CHECK(pf.targets[2].min_temp_C == doctest::Approx(71.1111111111));  // (160 - 32) / 1.8
+  CHECK(pf.targets[2].hold_s == 120);
+  CHECK(pf.targets[2].at == "centre");
 }
 
 TEST_CASE("slab and brick dimensions") {

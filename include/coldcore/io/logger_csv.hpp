@@ -18,6 +18,8 @@
 #include <string_view>
 #include <vector>
 
+#include "coldcore/process/schedule.hpp"
+
 namespace coldcore::io {
 
 /// A log in SI units, time rebased so that the first row is at t = 0.
@@ -41,6 +43,11 @@ struct LogOptions {
 /// Refused: no header, unknown time column, no temperature column, non-numeric or non-finite
 /// cells, temperatures below -273.15 C, times not strictly increasing, no data rows.
 TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const LogOptions& = {});
+
+/// A parsed log as a stage's medium schedule (points at the logged times, linear between).
+/// `origin` and the log's bytes go into the description: "log <origin> (sha256 <hex>)".
+/// REQUIRES: !log.time_s.empty() (parse_log_csv guarantees it).
+MediumProfile medium_profile(const TimeSeries& log, std::string_view origin, std::string_view log_bytes);
 
 /// Seconds since 1970-01-01T00:00:00Z of an ISO-8601 timestamp as described above; a time
 /// without zone is read as UTC (only differences matter for a log). nullopt if malformed.

@@ -14,7 +14,29 @@
 /// Errors inside a medium log are those of parse_log_csv (`<log path>:<line>: ...`).
 ///
 /// Quantity keys carry their unit as a suffix (io/quantity.hpp): temperatures _C/_F, lengths
-/// _m/_mm, times _s/_min/_h; a key given with two suffixes at once is refused.
+/// _m/_mm, times _s/_min/_h; a key given with two suffixes at once is refused. `X_*` below
+/// stands for any accepted suffix.
+///
+/// Keys read (anything else is refused):
+///   schema = 1                                     required, first checked
+///   [product]  name, shape (sphere | cylinder | finite-cylinder | slab | brick),
+///              diameter_* (sphere, cylinder, finite-cylinder), length_* (finite-cylinder),
+///              thickness_* (slab, full thickness), size_* = [a, b, c] (brick, full edges),
+///              initial_*; a dimension the shape does not use is refused, not ignored.
+///   [product.properties]   conductivity_W_mK, density_kg_m3, specific_heat_J_kgK (all > 0), or
+///   [product.composition]  water (required), protein, fat, carbohydrate, fiber, ash fractions
+///   [[stage]]  name (default "stage N", unique); medium: exactly one of
+///                medium_C|F = T (constant), medium_C|F = [[t, T], ...] (t in s; or name the time
+///                unit: medium_min_C), medium_log = "file.csv" (+ optional medium_log_max_gap_*);
+///              h_W_m2K > 0, or inf / "inf" (then h_infinite = true and h_W_m2K = +inf);
+///              end: exactly one of duration_*, until_centre_* / until_mean_* (with mandatory
+///                max_duration_*); with medium_log and no end given, duration = log length.
+///   [[target]] kind = log-reduction: organism, or own reference_*, z_*, D_*; log_reduction > 0;
+///                                    optional name (default: organism, else "targetN"), stages
+///              kind = F-value: name, reference_*, z_*, F_* > 0, optional stages
+///              kind = cooling-rule: rule, optional at = "centre" | "mean", name (default rule)
+///              kind = centre-min-temperature: min_*, hold_* >= 0, optional at, name
+///              z_F is a temperature difference: z_C = z_F / 1.8. Target names are unique.
 #include <filesystem>
 #include <functional>
 #include <optional>
