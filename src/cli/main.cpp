@@ -18,6 +18,7 @@ int real_main(int argc, char** argv) {
       "Results are engineering estimates; a qualified process authority and the local regulator decide.");
   VerbContext ctx;
   add_modes_verb(app, ctx);
+  add_props_verb(app, ctx);
   add_pending_verbs(app, ctx);
   try {
     app.parse(argc, argv);

@@ -11,7 +11,6 @@ void add_pending_verbs(CLI::App& app, VerbContext& ctx) {
       {"solve", "inverse questions: hold-time, chill-time, max-size, min-medium"},
       {"deviation", "delivered versus scheduled lethality from a logged medium"},
       {"probe", "lethality from a measured cold-spot log"},
-      {"props", "thermal properties versus temperature from a composition"},
       {"organisms", "the organism heat-resistance library with sources"},
       {"rules", "the cooling-rule library with sources"},
       {"media", "surface heat-transfer coefficient ranges with sources"},

@@ -33,3 +33,10 @@ cli_expect(modes_bad_shape 2 ARGS modes --shape cube --biot 1 STDERR_HAS "--shap
 cli_expect(modes_bad_count 2 ARGS modes --shape sphere --biot 1 --count 0 STDERR_HAS "--count = 0: must be from 1 to 2000")
 cli_expect(modes_bad_format 2 ARGS modes --shape sphere --biot 1 --format html STDERR_HAS "--format = html: must be one of text|json|csv")
 cli_expect(pending_verb 2 ARGS solve x.toml STDERR_HAS "not available yet")
+
+# coldcore props: lean beef 74/22/3/1 at 20 °C -> k 0.517, rho 1056.3, cp 3609 J/kgK
+# (REFERENCES 7 item 20, Choi & Okos 1986 evaluated independently).
+cli_expect(props_lean_beef 0 ARGS props --composition water=0.74,protein=0.22,fat=0.03,ash=0.01 --from-C 20 --to-C 20 --format csv
+           STDOUT_HAS "20,0.5169" "1056.2" "3609.3" "# caution:")
+cli_expect(props_bad_sum 2 ARGS props --composition water=0.7 STDERR_HAS "composition sum = 0.7: must be 1 within 0.005")
+cli_expect(props_bad_component 2 ARGS props --composition water=0.7,sugar=0.3 STDERR_HAS "--composition sugar: unknown component")
