@@ -92,6 +92,19 @@ TEST_CASE("series: finite cylinder product rule and lag factors (REFERENCES §7 
   const StepResponse p = finite_cylinder_step_response(kInfiniteBiot, fo_r, 0, kInfiniteBiot, fo_h, 0);
   CHECK(std::abs(p.theta - 0.534528) <= 1e-5);
   CHECK(p.error_bound <= 1e-9);
+  // The same case in dimensional form (k arbitrary at Bi = ∞ is not possible: use a huge h).
+  const StepResponse d = finite_cylinder_point_theta(0.075, 0.10, 1e12, 0.5, 1.4e-7, 1800, 0.0, 0.0);
+  CHECK(std::abs(d.theta - 0.534528) <= 1e-5);
+  const StepResponse dm = finite_cylinder_mean_theta(0.075, 0.10, 1e12, 0.5, 1.4e-7, 1800);
+  CHECK(dm.theta < d.theta);
+  CHECK_THROWS_AS(finite_cylinder_point_theta(0.075, 0.10, 20, 0.5, 1.4e-7, 1800, 0.05, 0.0), InputError);
+  // A cube of side 0.04 m at its centre equals the cube of the slab (half-thickness 0.02 m).
+  const double bs = 20 * 0.02 / 0.5, fs = 1.4e-7 * 900 / (0.02 * 0.02);
+  const double sl = step_response(Geometry::slab, bs, fs, 0.5).theta;
+  CHECK(brick_point_theta({0.04, 0.04, 0.04}, 20, 0.5, 1.4e-7, 900, {0.01, -0.01, 0.01}).theta ==
+        doctest::Approx(sl * sl * sl).epsilon(1e-9));
+  const double slm = mean_step_response(Geometry::slab, bs, fs).theta;
+  CHECK(brick_mean_theta({0.04, 0.04, 0.04}, 20, 0.5, 1.4e-7, 900).theta == doctest::Approx(slm * slm * slm).epsilon(1e-9));
   // §7 item 9: long-time lag factors C1 at Bi = ∞; finite cylinder = cylinder × slab = 2.03970.
   auto c1 = [](Geometry g) { return centre_coefficient(g, kInfiniteBiot, eigenvalue(g, kInfiniteBiot, 1)); };
   CHECK(std::abs(c1(Geometry::slab) - 1.27324) <= 1e-5);
