@@ -25,8 +25,33 @@
 namespace coldcore {
 namespace detail {
 
+std::size_t StageModel::checkpoint_count() const { return checkpoints.size() / (3 * basis->lambda.size() + 7); }
+
+void StageModel::store_checkpoint(const ModalState& st) {
+  checkpoints.insert(checkpoints.end(), st.a.begin(), st.a.end());
+  checkpoints.insert(checkpoints.end(), st.w_prev.begin(), st.w_prev.end());
+  checkpoints.insert(checkpoints.end(), st.w_cur.begin(), st.w_cur.end());
+  const double tail[7] = {st.s_prev.ds, st.s_prev.ds_t, st.s_prev.jump, st.s_cur.ds, st.s_cur.ds_t, st.s_cur.jump,
+                          static_cast<double>(st.epoch)};
+  checkpoints.insert(checkpoints.end(), tail, tail + 7);
+}
+
+void StageModel::load_checkpoint(std::size_t i, ModalState& st) const {
+  const std::size_t K = basis->lambda.size();
+  const double* p = checkpoints.data() + i * (3 * K + 7);
+  st.a.assign(p, p + K);
+  st.w_prev.assign(p + K, p + 2 * K);
+  st.w_cur.assign(p + 2 * K, p + 3 * K);
+  p += 3 * K;
+  st.s_prev = EpochSums{p[0], p[1], p[2]};
+  st.s_cur = EpochSums{p[3], p[4], p[5]};
+  st.epoch = static_cast<long>(p[6]);
+}
+
 long Engine::epoch_of(double origin, double t) const {
-  return static_cast<long>(std::floor((t - origin) / epoch_s));
+  // t >= origin always: truncation is floor (and avoids a libm call on plain x86-64)
+  const double x = (t - origin) / epoch_s;
+  return x >= 0 ? static_cast<long>(x) : static_cast<long>(std::floor(x));
 }
 
 void Engine::advance(const Basis& B, ModalState& st, double dt, double slope) const {
@@ -46,6 +71,166 @@ void Engine::advance(const Basis& B, ModalState& st, double dt, double slope) co
   }
 }
 
+void Engine::advance(const Basis& B, ModalState& st, double dt, double slope, StepCache& c) const {
+  const std::size_t K = B.lambda.size();
+  if (c.dt != dt || c.basis != &B) {
+    c.e.resize(K);
+    c.g.resize(K);
+    for (std::size_t k = 0; k < K; ++k) {
+      const double x = -B.lambda[k] * dt;
+      c.e[k] = std::exp(x);
+      c.g[k] = -std::expm1(x) / B.lambda[k];
+    }
+    c.dt = dt;
+    c.basis = &B;
+  }
+  double* a = st.a.data();
+  double* wp = st.w_prev.data();
+  double* wc = st.w_cur.data();
+  const double* e = c.e.data();
+  const double* g = c.g.data();
+  const double* b = B.b.data();
+#pragma omp simd
+  for (std::size_t k = 0; k < K; ++k) {
+    a[k] = a[k] * e[k] - b[k] * slope * g[k];
+    wp[k] *= e[k];
+    wc[k] *= e[k];
+  }
+}
+
+ModalSums Engine::advance_and_sum(const Basis& B, ModalState& st, double dt, double slope, StepCache& c) const {
+  advance(B, st, dt, slope, c);  // fills the cache when dt changes
+  const std::size_t K = B.lambda.size();
+  double* a = st.a.data();
+  const double* vs = B.surface.data();
+  const double* vm = B.mean.data();
+  const double* wp = st.w_prev.data();
+  const double* wc = st.w_cur.data();
+  double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0;
+#pragma omp simd reduction(+ : s0, s1, s2, s3, s4)
+  for (std::size_t k = 0; k < K; ++k) {
+    s0 += a[k];
+    s1 += a[k] * vs[k];
+    s2 += a[k] * vm[k];
+    s3 += wp[k];
+    s4 += wc[k];
+  }
+  return ModalSums{s0, s1, s2, s3, s4};
+}
+
+namespace {
+void roll_epoch(ModalState& st, long e) {
+  if (e == st.epoch + 1) {
+    st.w_prev.swap(st.w_cur);
+    std::fill(st.w_cur.begin(), st.w_cur.end(), 0.0);
+    st.s_prev = st.s_cur;
+    st.s_cur = EpochSums{};
+  } else if (e > st.epoch + 1) {
+    std::fill(st.w_prev.begin(), st.w_prev.end(), 0.0);
+    std::fill(st.w_cur.begin(), st.w_cur.end(), 0.0);
+    st.s_prev = st.s_cur = EpochSums{};
+  }
+  st.epoch = std::max(st.epoch, e);
+}
+}  // namespace
+
+ModalSums Engine::event_advance_sum(const Basis& B, ModalState& st, double origin, double t_event, double ds,
+                                    double jump, double dt, double slope, StepCache& c,
+                                    std::vector<double>* checkpoint) const {
+  roll_epoch(st, epoch_of(origin, t_event));
+  st.s_cur.ds += ds;
+  st.s_cur.ds_t += ds * (t_event - origin);
+  st.s_cur.jump += jump;
+  const std::size_t K = B.lambda.size();
+  if (c.dt != dt || c.basis != &B) {
+    c.e.resize(K);
+    c.g.resize(K);
+    for (std::size_t k = 0; k < K; ++k) {
+      const double x = -B.lambda[k] * dt;
+      c.e[k] = std::exp(x);
+      c.g[k] = -std::expm1(x) / B.lambda[k];
+    }
+    c.dt = dt;
+    c.basis = &B;
+  }
+  double* a = st.a.data();
+  double* wp = st.w_prev.data();
+  double* wc = st.w_cur.data();
+  const double* e = c.e.data();
+  const double* g = c.g.data();
+  const double* b = B.b.data();
+  const double* bl = B.b_over_lambda.data();
+  const double* vs = B.surface.data();
+  const double* vm = B.mean.data();
+  if (checkpoint) {
+    const std::size_t base = checkpoint->size();
+    checkpoint->resize(base + 3 * K + 7);
+    double* ck = checkpoint->data() + base;
+    for (std::size_t k = 0; k < K; ++k) {
+      ck[k] = a[k] + b[k] * jump;
+      ck[K + k] = wp[k];
+      ck[2 * K + k] = wc[k] + bl[k] * ds + b[k] * jump;
+    }
+    const double tail[7] = {st.s_prev.ds, st.s_prev.ds_t, st.s_prev.jump, st.s_cur.ds, st.s_cur.ds_t, st.s_cur.jump,
+                            static_cast<double>(st.epoch)};
+    std::copy(tail, tail + 7, ck + 3 * K);
+  }
+  double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0;
+  const double bs = slope;
+#pragma omp simd reduction(+ : s0, s1, s2, s3, s4)
+  for (std::size_t k = 0; k < K; ++k) {
+    const double ak = (a[k] + b[k] * jump) * e[k] - b[k] * bs * g[k];
+    const double wck = (wc[k] + bl[k] * ds + b[k] * jump) * e[k];
+    const double wpk = wp[k] * e[k];
+    a[k] = ak;
+    wc[k] = wck;
+    wp[k] = wpk;
+    s0 += ak;
+    s1 += ak * vs[k];
+    s2 += ak * vm[k];
+    s3 += wpk;
+    s4 += wck;
+  }
+  return ModalSums{s0, s1, s2, s3, s4};
+}
+
+ModalSums Engine::sums(const Basis& B, const ModalState& st) const {
+  const std::size_t K = B.lambda.size();
+  const double* a = st.a.data();
+  const double* vs = B.surface.data();
+  const double* vm = B.mean.data();
+  const double* wp = st.w_prev.data();
+  const double* wc = st.w_cur.data();
+  double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0;
+#pragma omp simd reduction(+ : s0, s1, s2, s3, s4)
+  for (std::size_t k = 0; k < K; ++k) {
+    s0 += a[k];
+    s1 += a[k] * vs[k];
+    s2 += a[k] * vm[k];
+    s3 += wp[k];
+    s4 += wc[k];
+  }
+  return ModalSums{s0, s1, s2, s3, s4};
+}
+
+double Engine::centre_from(const Basis& B, const ModalState& st, const ModalSums& s, double origin, double t, double tm,
+                           double slope) const {
+  const long d = epoch_of(origin, t) - st.epoch;
+  const bool use_prev = d <= 0, use_cur = d <= 1;
+  double corr = 0.0;
+  const double tau0 = t - origin;
+  auto add = [&](const EpochSums& e) { corr += e.ds * B.full_centre - (e.ds * tau0 - e.ds_t) + e.jump; };
+  if (use_prev) {
+    add(st.s_prev);
+    corr -= s.w_prev;
+  }
+  if (use_cur) {
+    add(st.s_cur);
+    corr -= s.w_cur;
+  }
+  return tm + s.a - slope * B.q_centre + corr;
+}
+
 void Engine::add_event(const Basis& B, ModalState& st, double origin, double t, double ds, double jump) const {
   const long e = epoch_of(origin, t);
   if (e == st.epoch + 1) {
@@ -61,10 +246,16 @@ void Engine::add_event(const Basis& B, ModalState& st, double origin, double t, 
   st.epoch = std::max(st.epoch, e);
   if (ds == 0.0 && jump == 0.0) return;
   const std::size_t K = B.lambda.size();
-  for (std::size_t k = 0; k < K; ++k) {
-    st.a[k] += B.b[k] * jump;
-    st.w_cur[k] += B.b[k] * (ds / B.lambda[k] + jump);
+  const double* b = B.b.data();
+  const double* bl = B.b_over_lambda.data();
+  double* a = st.a.data();
+  double* wc = st.w_cur.data();
+  if (jump != 0.0) {
+#pragma omp simd
+    for (std::size_t k = 0; k < K; ++k) a[k] += b[k] * jump;
   }
+#pragma omp simd
+  for (std::size_t k = 0; k < K; ++k) wc[k] += bl[k] * ds + b[k] * jump;
   st.s_cur.ds += ds;
   st.s_cur.ds_t += ds * (t - origin);
   st.s_cur.jump += jump;
@@ -127,10 +318,11 @@ void Engine::state_at(const StageModel& S, double t, ModalState& st, double& tm,
   std::size_t step = static_cast<std::size_t>(std::lower_bound(S.step_t.begin(), S.step_t.end(), t) - S.step_t.begin());
   step = step == 0 ? 0 : step - 1;
   const std::size_t ck = step / static_cast<std::size_t>(S.stride);
-  st = S.checkpoints[ck];
+  S.load_checkpoint(ck, st);
+  StepCache cache;
   for (std::size_t k = ck * S.stride; k < step; ++k) {
-    advance(B, st, S.step_t[k + 1] - S.step_t[k], S.step_slope[k]);
-    add_event(B, st, S.origin_s, S.step_t[k + 1], S.step_ds[k + 1], S.step_jump[k + 1]);
+    advance(B, st, S.step_t[k + 1] - S.step_t[k], S.step_slope[k], cache);
+    add_event(B, st, S.origin_s, S.step_t[k + 1], S.step_ds[k + 1], 0.0);
   }
   const double tau = t - S.step_t[step];
   advance(B, st, tau, S.step_slope[step]);
@@ -248,9 +440,9 @@ void validate(const Product& p, const std::vector<Stage>& stages, const HistoryO
     if (s.medium.points.front().time_s != 0) bad(at + ".medium.points[0].time_s", s.medium.points.front().time_s, "must be 0");
     for (std::size_t k = 0; k < s.medium.points.size(); ++k) {
       const auto& mp = s.medium.points[k];
-      const std::string key = at + ".medium.points[" + std::to_string(k) + "]";
-      if (!std::isfinite(mp.temp_C)) bad(key + ".temp_C", mp.temp_C, "must be finite");
-      if (k > 0 && !(mp.time_s > s.medium.points[k - 1].time_s)) bad(key + ".time_s", mp.time_s, "must increase");
+      auto key = [&] { return at + ".medium.points[" + std::to_string(k) + "]"; };
+      if (!std::isfinite(mp.temp_C)) bad(key() + ".temp_C", mp.temp_C, "must be finite");
+      if (k > 0 && !(mp.time_s > s.medium.points[k - 1].time_s)) bad(key() + ".time_s", mp.time_s, "must increase");
     }
     if (s.end.kind == StageEndKind::duration) {
       if (!(s.end.duration_s >= 0) || !std::isfinite(s.end.duration_s)) bad(at + ".duration_s", s.end.duration_s, "must be >= 0");
@@ -371,10 +563,17 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
       if ((stg.end.target_C - v0) * dir <= 0) ended_at_start = true;
     }
 
-    // checkpoint stride: keep the stored amplitudes near 2^17 doubles per stage
+    // checkpoint stride: keep the stored amplitudes near 2^15 doubles per stage (evaluate then
+    // re-advances at most `stride` exact steps from the nearest checkpoint)
     const std::size_t K = B.lambda.size();
     const double est_steps = static_cast<double>(pts.size()) + 64.0;
-    S.stride = std::max(1, static_cast<int>(std::ceil(est_steps * 3.0 * K / 131072.0)));
+    S.stride = std::max(1, static_cast<int>(std::ceil(est_steps * 3.0 * K / 32768.0)));
+    S.step_t.reserve(static_cast<std::size_t>(est_steps));
+    S.step_tm.reserve(static_cast<std::size_t>(est_steps));
+    S.step_slope.reserve(static_cast<std::size_t>(est_steps));
+    S.step_ds.reserve(static_cast<std::size_t>(est_steps));
+    S.checkpoints.reserve((static_cast<std::size_t>(est_steps) / S.stride + 2) * (3 * K + 7));
+    H.samples.reserve(H.samples.size() + static_cast<std::size_t>(est_steps));
 
     StageEndedBy ended_by = until ? StageEndedBy::cap : StageEndedBy::duration;
     double t_local = 0.0;
@@ -392,8 +591,23 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
                            " is already at or past " + fmt(stg.end.target_C) + " C at the stage start; the stage ends at once");
     }
 
+    ModalState end_st, mid_st, start_st;
+    HistorySample mid_s{}, end_s{};
+    detail::StepCache cache;
     auto value_of = [&](const HistorySample& h) { return on_mean ? h.mean_C : h.centre_C; };
     auto f_of = [&](const HistorySample& h) { return (value_of(h) - stg.end.target_C) * dir; };
+    auto centre_at = [&](const ModalState& q, double t, double tm, double sl) {
+      if (S.projected && t - S.start_s <= eng->tau_insulated_s) return eng->centre_continued(static_cast<int>(i) - 1, t);
+      return eng->centre(B, q, S.origin_s, t, tm, sl);
+    };
+    auto fill = [&](HistorySample& out, const ModalState& q, double t, double tm, double sl) {
+      out.time_s = t;
+      out.medium_C = tm;
+      out.stage = static_cast<int>(i);
+      out.centre_C = centre_at(q, t, tm, sl);
+      out.surface_C = eng->surface(B, q, tm, sl);
+      out.mean_C = eng->mean(B, q, tm, sl);
+    };
 
     while (!finished) {
       // current medium piece
@@ -404,64 +618,61 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
                                    : 0.0;
       if (!first_step) pending_ds = new_slope - slope;
       slope = new_slope;
-      const double tm_a = stg.medium.at(t_local);
+      const double tm_a = piece + 1 < pts.size() ? pts[piece].temp_C + slope * (t_local - pts[piece].time_s)
+                                                 : pts.back().temp_C;
       const double ta = t_abs + t_local;
-      // record the step start (state after its event)
-      if (!first_step) eng->add_event(B, st, S.origin_s, ta, pending_ds, 0.0);
-      double remaining = piece_end - t_local;
-      double h = remaining;
-      ModalState end_st, mid_st;
-      HistorySample mid_s{}, end_s{};
-      bool have_mid = false;
-      for (;;) {
-        end_st = st;
-        eng->advance(B, end_st, h, slope);
-        const double tb = ta + h;
-        end_s.time_s = tb;
-        end_s.medium_C = tm_a + slope * h;
-        end_s.stage = static_cast<int>(i);
-        if (S.projected && tb - S.start_s <= eng->tau_insulated_s) {
-          eng->stages.push_back(S);  // temporarily visible for continuation lookups
-          end_s.centre_C = eng->centre_continued(static_cast<int>(i) - 1, tb);
-          eng->stages.pop_back();
-        } else {
-          end_s.centre_C = eng->centre(B, end_st, S.origin_s, tb, end_s.medium_C, slope);
-        }
-        end_s.surface_C = eng->surface(B, end_st, end_s.medium_C, slope);
-        end_s.mean_C = eng->mean(B, end_st, end_s.medium_C, slope);
-        have_mid = false;
-        if (h <= h_nocheck) break;
-        mid_st = st;
-        eng->advance(B, mid_st, h / 2, slope);
-        const double tmid = ta + h / 2;
-        mid_s.time_s = tmid;
-        mid_s.medium_C = tm_a + slope * h / 2;
-        mid_s.stage = static_cast<int>(i);
-        if (S.projected && tmid - S.start_s <= eng->tau_insulated_s) {
-          eng->stages.push_back(S);
-          mid_s.centre_C = eng->centre_continued(static_cast<int>(i) - 1, tmid);
-          eng->stages.pop_back();
-        } else {
-          mid_s.centre_C = eng->centre(B, mid_st, S.origin_s, tmid, mid_s.medium_C, slope);
-        }
-        mid_s.surface_C = eng->surface(B, mid_st, mid_s.medium_C, slope);
-        mid_s.mean_C = eng->mean(B, mid_st, mid_s.medium_C, slope);
-        have_mid = true;
-        const double ec = std::abs(mid_s.centre_C - 0.5 * (last.centre_C + end_s.centre_C));
-        const double em = std::abs(mid_s.mean_C - 0.5 * (last.mean_C + end_s.mean_C));
-        const double es = stg.h_infinite ? 0.0 : std::abs(mid_s.surface_C - 0.5 * (last.surface_C + end_s.surface_C));
-        const double err = std::max({ec, em, es});
-        if (err <= opt.sample_tol_K || h / 2 < h_min) break;
-        h /= 2;
+      const double remaining = piece_end - t_local;
+      const bool checkpoint_here = S.step_t.size() % static_cast<std::size_t>(S.stride) == 0;
+      const bool fused = remaining <= h_nocheck && !until;
+      // the step start: apply its event, then record it (checkpoint = state after the event)
+      if (!fused) {
+        if (!first_step) eng->add_event(B, st, S.origin_s, ta, pending_ds, 0.0);
+        if (checkpoint_here) S.store_checkpoint(st);
       }
-      // step record
-      if (S.step_t.size() % static_cast<std::size_t>(S.stride) == 0) S.checkpoints.push_back(st);
       S.step_t.push_back(ta);
       S.step_tm.push_back(tm_a);
       S.step_slope.push_back(slope);
       S.step_ds.push_back(first_step ? 0.0 : pending_ds);
-      S.step_jump.push_back(0.0);
+      const double ds_here = first_step ? 0.0 : pending_ds;
       first_step = false;
+
+      double h = remaining;
+      bool have_mid = false;
+      const ModalState* step_start = &st;
+      if (h <= h_nocheck) {
+        // short step (e.g. a 1 s log): no midpoint check; advance in place
+        if (until) {
+          start_st = st;
+          step_start = &start_st;
+        }
+        const auto sm = fused ? eng->event_advance_sum(B, st, S.origin_s, ta, ds_here, 0.0, h, slope, cache,
+                                                       checkpoint_here ? &S.checkpoints : nullptr)
+                              : eng->advance_and_sum(B, st, h, slope, cache);
+        const double tb = ta + h, tm_b = tm_a + slope * h;
+        end_s.time_s = tb;
+        end_s.medium_C = tm_b;
+        end_s.stage = static_cast<int>(i);
+        end_s.centre_C = (S.projected && tb - S.start_s <= eng->tau_insulated_s)
+                             ? eng->centre_continued(static_cast<int>(i) - 1, tb)
+                             : eng->centre_from(B, st, sm, S.origin_s, tb, tm_b, slope);
+        end_s.surface_C = tm_b + sm.a_surface - slope * B.q_surface;
+        end_s.mean_C = tm_b + sm.a_mean - slope * B.q_mean;
+      } else {
+        for (;;) {
+          end_st = st;  // reuses end_st's storage (no allocation)
+          eng->advance(B, end_st, h, slope, cache);
+          fill(end_s, end_st, ta + h, tm_a + slope * h, slope);
+          mid_st = st;
+          eng->advance(B, mid_st, h / 2, slope);
+          fill(mid_s, mid_st, ta + h / 2, tm_a + slope * h / 2, slope);
+          have_mid = true;
+          const double ec = std::abs(mid_s.centre_C - 0.5 * (last.centre_C + end_s.centre_C));
+          const double em = std::abs(mid_s.mean_C - 0.5 * (last.mean_C + end_s.mean_C));
+          const double es = stg.h_infinite ? 0.0 : std::abs(mid_s.surface_C - 0.5 * (last.surface_C + end_s.surface_C));
+          if (std::max({ec, em, es}) <= opt.sample_tol_K || h / 2 < h_min) break;
+          h /= 2;
+        }
+      }
 
       // end condition: crossing within (last, mid] or (mid, end]
       bool crossed = false, mid_before = false;
@@ -473,25 +684,17 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
           if (!c) continue;
           if (f_of(*c) >= 0 && f_of(*seg_a) < 0) {
             // root-find on the exact evaluation from the step start
-            double lo = seg_a->time_s - ta, hi = c->time_s - ta;
+            const double lo = seg_a->time_s - ta, hi = c->time_s - ta;
+            ModalState q;
             auto f = [&](double tau) {
-              ModalState q = st;
+              q = *step_start;
               eng->advance(B, q, tau, slope);
               const double tt = ta + tau;
               const double tm = tm_a + slope * tau;
-              double v;
-              if (on_mean) {
-                v = eng->mean(B, q, tm, slope);
-              } else if (S.projected && tt - S.start_s <= eng->tau_insulated_s) {
-                eng->stages.push_back(S);
-                v = eng->centre_continued(static_cast<int>(i) - 1, tt);
-                eng->stages.pop_back();
-              } else {
-                v = eng->centre(B, q, S.origin_s, tt, tm, slope);
-              }
+              const double v = on_mean ? eng->mean(B, q, tm, slope) : centre_at(q, tt, tm, slope);
               return (v - stg.end.target_C) * dir;
             };
-            double flo = f(lo), fhi = f(hi);
+            const double flo = f(lo), fhi = f(hi);
             if (fhi == 0) {
               t_cross = hi;
             } else if (flo >= 0) {
@@ -500,7 +703,8 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
               std::uintmax_t it = 100;
               auto tolf = [&](double x, double y) { return std::abs(x - y) <= opt.crossing_tol_s; };
               auto r = boost::math::tools::toms748_solve(f, lo, hi, flo, fhi, tolf, it);
-              if (it >= 100) throw NotConverged("simulate: stage[" + std::to_string(i) + "]: crossing time root-finder did not converge");
+              if (it >= 100)
+                throw NotConverged("simulate: stage[" + std::to_string(i) + "]: crossing time root-finder did not converge");
               t_cross = 0.5 * (r.first + r.second);
             }
             crossed = true;
@@ -511,39 +715,23 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
         }
       }
       if (crossed) {
-        if (mid_before && mid_s.time_s < ta + t_cross) H.samples.push_back(mid_s);
-        ModalState q = st;
+        if (mid_before) H.samples.push_back(mid_s);
+        ModalState q = *step_start;
         eng->advance(B, q, t_cross, slope);
-        st = q;
+        st = std::move(q);
         t_local += t_cross;
         ended_by = StageEndedBy::condition;
         finished = true;
-      } else {
-        if (have_mid) H.samples.push_back(mid_s);
-        st = end_st;
-        t_local += h;
-        if (h == remaining) t_local = piece_end;  // land exactly on breakpoints
-        if (t_local >= limit) finished = true;
-      }
-      if (crossed) {
-        S.end_s = t_abs + t_local;
-        // exact end sample from the final state
         HistorySample e;
-        e.time_s = S.end_s;
-        e.medium_C = tm_a + slope * t_cross;
-        e.stage = static_cast<int>(i);
-        if (S.projected && e.time_s - S.start_s <= eng->tau_insulated_s) {
-          eng->stages.push_back(S);
-          e.centre_C = eng->centre_continued(static_cast<int>(i) - 1, e.time_s);
-          eng->stages.pop_back();
-        } else {
-          e.centre_C = eng->centre(B, st, S.origin_s, e.time_s, e.medium_C, slope);
-        }
-        e.surface_C = eng->surface(B, st, e.medium_C, slope);
-        e.mean_C = eng->mean(B, st, e.medium_C, slope);
+        fill(e, st, t_abs + t_local, tm_a + slope * t_cross, slope);
         H.samples.push_back(e);
         last = e;
       } else {
+        if (have_mid) H.samples.push_back(mid_s);
+        if (step_start == &st && (have_mid || h > h_nocheck)) std::swap(st, end_st);
+        t_local += h;
+        if (h == remaining) t_local = piece_end;  // land exactly on breakpoints
+        if (t_local >= limit) finished = true;
         H.samples.push_back(end_s);
         last = end_s;
       }
@@ -553,7 +741,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     S.end_tm = last.medium_C;
     S.end_slope = S.step_t.empty() ? s0 : slope;
     if (S.step_t.empty()) S.end_tm = tm0;
-    if (S.checkpoints.empty()) S.checkpoints.push_back(st);
+    if (S.checkpoints.empty()) S.store_checkpoint(st);
 
     StageRecord rec;
     rec.name = stg.name;

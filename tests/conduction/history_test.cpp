@@ -170,7 +170,7 @@ TEST_CASE("long finite cylinder through a change of h equals the infinite cylind
   // (h = 20), the same through a 1D cylinder; ends cannot reach the centre (Fo_H <= 0.012).
   Product fc = body(Shape::finite_cylinder);
   fc.dims.length_m = 0.4;
-  const std::vector<Stage> st = {stage({{0, 20.0}, {400, 85.0}}, 500.0, 1200.0), stage({{0, 2.0}}, 20.0, 2400.0)};
+  const std::vector<Stage> st = {stage({{0, 20.0}, {1500, 85.0}}, 500.0, 1200.0), stage({{0, 2.0}}, 20.0, 2400.0)};
   const auto h2 = simulate(fc, st);
   const auto h1 = simulate(body(Shape::cylinder), st);
   double w = 0;

@@ -32,13 +32,29 @@ struct StageModel {
   std::vector<double> step_tm;  // medium at the step start
   std::vector<double> step_slope;
   std::vector<double> step_ds;  // slope change applied at the step start (before advancing)
-  std::vector<double> step_jump;
   int stride = 1;                     // a checkpoint every `stride` steps
-  std::vector<ModalState> checkpoints;  // state at step_t[k·stride], after its event
+  // state at step_t[k·stride], after its event, flat: a, w_prev, w_cur (K each), then
+  // s_prev (3), s_cur (3), epoch: 3K + 7 doubles per checkpoint
+  std::vector<double> checkpoints;
+  std::size_t checkpoint_count() const;
+  void store_checkpoint(const ModalState& st);
+  void load_checkpoint(std::size_t i, ModalState& st) const;
   ModalState end_state;
   double end_tm = 0, end_slope = 0;
   HistorySample start_sample;
   int index = 0;
+};
+
+/// exp(−λΔ) and (1 − exp(−λΔ))/λ of the last step length, reused while Δ repeats (a 1 s log).
+struct StepCache {
+  double dt = -1;
+  const Basis* basis = nullptr;
+  std::vector<double> e, g;
+};
+
+/// Sums over the kept modes that the three reported temperatures need.
+struct ModalSums {
+  double a = 0, a_surface = 0, a_mean = 0, w_prev = 0, w_cur = 0;
 };
 
 struct Engine {
@@ -49,6 +65,16 @@ struct Engine {
 
   // advance by dt at medium slope s (exact for a linear medium)
   void advance(const Basis& B, ModalState& st, double dt, double slope) const;
+  void advance(const Basis& B, ModalState& st, double dt, double slope, StepCache& cache) const;
+  /// advance (as above) and return the sums of the new state in the same pass
+  ModalSums advance_and_sum(const Basis& B, ModalState& st, double dt, double slope, StepCache& cache) const;
+  ModalSums sums(const Basis& B, const ModalState& st) const;
+  /// add_event at t_event, then advance by dt, then sum, in one pass over the modes (the hot path
+  /// of a 1 s log). If `checkpoint` is set, the state after the event is appended to it.
+  ModalSums event_advance_sum(const Basis& B, ModalState& st, double origin, double t_event, double ds, double jump,
+                              double dt, double slope, StepCache& cache, std::vector<double>* checkpoint) const;
+  double centre_from(const Basis& B, const ModalState& st, const ModalSums& s, double origin, double t, double tm,
+                     double slope) const;
   void add_event(const Basis& B, ModalState& st, double origin, double t, double ds, double jump) const;
   long epoch_of(double origin, double t) const;
   double centre(const Basis& B, const ModalState& st, double origin, double t, double tm, double slope) const;

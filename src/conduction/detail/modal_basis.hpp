@@ -39,11 +39,13 @@ struct Basis {
   // kept product modes (λ <= lambda_cut)
   std::vector<std::array<int, 3>> index;
   std::vector<double> lambda, b, surface, mean;  // b = projection of 1 = product of C; Φ(0) = 1
+  std::vector<double> b_over_lambda;
   double lambda_cut = 0;
   // Σ over ALL modes of b Φ/λ (s), and the part left out by the kept set (Q = full − kept)
   double full_centre = 0, full_surface = 0, full_mean = 0;
   double q_centre = 0, q_surface = 0, q_mean = 0;
   std::array<int, 3> dense{1, 1, 1};  // per-axis mode counts (the kept set lies inside)
+  std::vector<AxisModes> ext;         // products only: outer axes with many modes, for full_ramp_sum
 
   Point centre_point() const { return Point{}; }
   Point surface_point() const;
