@@ -1,6 +1,8 @@
 #pragma once
 // Test helpers for the lethality suites: read committed data files, build analytic histories.
+#include <algorithm>
 #include <fstream>
+#include <stdexcept>
 #include <functional>
 #include <sstream>
 #include <string>
@@ -26,7 +28,8 @@ struct StageSpec {
 /// A History whose centre (and mean, surface) follow temp(t) exactly, with samples every
 /// sample_s and stage records from `stages` laid end to end.
 inline History analytic_history(std::function<double(double)> temp, std::vector<StageSpec> stages,
-                                double sample_s = 10.0) {
+                                double sample_s = 10.0,
+                                std::function<double(double)> medium = nullptr) {
   History h;
   double t0 = 0;
   for (const auto& s : stages) {
@@ -37,10 +40,12 @@ inline History analytic_history(std::function<double(double)> temp, std::vector<
     t0 = r.end_s;
     h.stages.push_back(r);
   }
-  h.evaluate = [temp, &stages = h.stages](double t) {
+  std::vector<StageRecord> recs = h.stages;
+  h.evaluate = [temp, medium, stages = recs](double t) {
     HistorySample s;
     s.time_s = t;
     s.centre_C = s.mean_C = s.surface_C = s.medium_C = temp(t);
+    if (medium) s.medium_C = medium(t);
     int idx = 0;
     for (std::size_t i = 0; i < stages.size(); ++i)
       if (t >= stages[i].start_s) idx = static_cast<int>(i);
