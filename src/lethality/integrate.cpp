@@ -6,6 +6,7 @@
 #include <queue>
 
 #include "coldcore/error.hpp"
+#include "lethality/detail/crossing.hpp"
 #include "lethality/detail/text.hpp"
 
 namespace coldcore {
@@ -35,11 +36,27 @@ LethalityResult f_value(const std::function<double(double)>& temp_C_at,
     const double v = GK::integrate(rate, a, b, 0, 0.0, &err);
     return Piece{a, b, v, err};
   };
+  std::vector<double> bps(breakpoints_s.begin(), breakpoints_s.end());
+  if (k.split_C && k.z_below_C) {
+    // The lethal rate has a kink where T crosses split_C: make every crossing a breakpoint.
+    detail::Curve c;
+    c.temp_C_at = temp_C_at;
+    c.knots = bps;
+    c.probes = 4;
+    std::vector<double> extra;
+    const auto g = c.grid(c.start());
+    for (std::size_t i = 0; i + 1 < g.size(); ++i) {
+      const double fa = temp_C_at(g[i]) - *k.split_C, fb = temp_C_at(g[i + 1]) - *k.split_C;
+      if ((fa < 0) != (fb < 0)) extra.push_back(c.refine(g[i], g[i + 1], *k.split_C));
+    }
+    bps.insert(bps.end(), extra.begin(), extra.end());
+    std::sort(bps.begin(), bps.end());
+  }
   std::priority_queue<Piece> queue;
   double total = 0, total_err = 0;
   const int pieces = std::max(1, opts.initial_pieces);
-  for (std::size_t i = 0; i + 1 < breakpoints_s.size(); ++i) {
-    const double a = breakpoints_s[i], b = breakpoints_s[i + 1];
+  for (std::size_t i = 0; i + 1 < bps.size(); ++i) {
+    const double a = bps[i], b = bps[i + 1];
     if (!(b > a)) continue;
     for (int j = 0; j < pieces; ++j) {
       const double pa = a + (b - a) * j / pieces;
