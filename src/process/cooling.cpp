@@ -180,8 +180,7 @@ CoolingCheck check_curve(const detail::Curve& c, const CoolingRule& rule, const 
     if (st.advisory) {
       if (!r.passed)
         out.notes.push_back("flag: " + st.label + " took longer than " + minutes(st.within_s) +
-                            " (or was not reached); " +
-                            (rule.note.empty() ? std::string("compliance is less certain") : rule.note));
+                            " (or was not reached): " + st.source);
     } else if (!r.passed) {
       all = false;
     }

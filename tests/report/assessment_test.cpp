@@ -209,3 +209,34 @@ TEST_CASE("probe log: three rules, verdict on the smallest, rule check on the sa
   CHECK(p.targets[1].cooling->steps[0].elapsed_s == doctest::Approx(36.0 / 70 * 3600).epsilon(1e-9));
   CHECK(p.all_met());
 }
+
+TEST_CASE("Weibull organism data are parsed and used for log reductions") {
+  // Test-only kinetics (not library data): delta 60 s at 70 C, p 0.5, z 7.5 C.
+  const char* text = R"(
+schema = 1
+[[organism]]
+key = "test-weibull"
+name = "test organism"
+kind = "vegetative"
+reference_C = { value = 70, source = "test", status = "derived" }
+z_C = { value = 7.5, source = "test", status = "derived" }
+valid_min_C = { value = 60, source = "test", status = "derived" }
+valid_max_C = { value = 80, source = "test", status = "derived" }
+weibull = { delta_ref_min = { value = 1, source = "test", status = "derived" }, p = { value = 0.5, source = "test", status = "derived" } }
+)";
+  const OrganismLibrary lib = parse_organisms(text, "w.toml");
+  REQUIRE(lib.organisms[0].kinetics.weibull);
+  CHECK(lib.organisms[0].kinetics.weibull->delta_ref_s == 60);
+  // 70 C for 4 min: (240/60)^0.5 = 2 log10 (Mafart et al. 2002 definition, from memory).
+  auto T = [](double) { return 70.0; };
+  const History h = test::analytic_history(T, {{"hold", 240}}, 10.0);
+  Target t;
+  t.kind = TargetKind::log_reduction;
+  t.organism = "test-weibull";
+  t.log_reduction = 1.9;
+  const Assessment a = assess(h, {t}, lib, rules());
+  CHECK(a.targets[0].achieved == doctest::Approx(2.0));
+  // F needed for 1.9 log10: delta * 1.9^(1/p) = 60 * 3.61 = 216.6 s.
+  CHECK(a.targets[0].F_required_s == doctest::Approx(216.6));
+  CHECK(a.targets[0].verdict == Verdict::met);
+}
