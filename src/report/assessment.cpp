@@ -133,12 +133,22 @@ std::function<double(double)> temp_function(const History& h, bool mean) {
   return detail::linear_log_curve(ts, Ts).temp_C_at;
 }
 
-// Sample times within [a, b] plus the ends, strictly increasing.
-std::vector<double> knots(const History& h, double a, double b) {
+// Sample times within [a, b] plus the ends, strictly increasing. With max_intervals > 0 the
+// interior samples are thinned evenly to at most that many intervals (quadrature breakpoints:
+// the adaptive rule refines inside them; crossing scans use every sample).
+std::vector<double> knots(const History& h, double a, double b, std::size_t max_intervals = 0) {
   std::vector<double> k{a};
   for (const auto& s : h.samples)
     if (s.time_s > k.back() && s.time_s < b) k.push_back(s.time_s);
   if (b > k.back()) k.push_back(b);
+  if (max_intervals > 0 && k.size() > max_intervals + 1) {
+    std::vector<double> thin;
+    const double step = static_cast<double>(k.size() - 1) / static_cast<double>(max_intervals);
+    for (std::size_t i = 0; i < max_intervals; ++i)
+      thin.push_back(k[static_cast<std::size_t>(std::floor(i * step))]);
+    thin.push_back(k.back());
+    k.swap(thin);
+  }
   return k;
 }
 
@@ -151,10 +161,13 @@ std::vector<double> knots_of(const detail::Curve& c, double a, double b) {
   return k;
 }
 
+// Probes per sample interval for crossing scans: dense engine output needs no sub-steps.
+int probes_for(const std::vector<double>& k) { return k.size() > 2000 ? 1 : 4; }
+
 double f_between(const History& h, const std::function<double(double)>& T, double a, double b,
                  const Kinetics& k, double rel_tol) {
   if (!(b > a)) return 0;
-  const auto bp = knots(h, a, b);
+  const auto bp = knots(h, a, b, 512);
   return f_value(T, bp, k, rel_tol).F_s;
 }
 
@@ -206,7 +219,7 @@ double outside_range(const History& h, const std::function<double(double)>& T, c
     detail::Curve c;
     c.temp_C_at = T;
     c.knots = knots(h, st.start_s, st.end_s);
-    c.probes = 4;
+    c.probes = probes_for(c.knots);
     for (const auto& [a, b] : c.intervals_at_or_above(k.valid_max_C, st.start_s))
       out += f_between(h, T, a, b, k, rel_tol);
     double in_or_above_min = 0;
@@ -413,7 +426,7 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         CoolingContext ctx = infer_context(h, rule, opts, T_at, ctx_notes);
         ctx.where = t.at == "mean" ? "mass-average temperature" : "cold spot";
         std::vector<double> bp = knots(h, t0, t1);
-        const CoolingCheck c = check_cooling(T_at, bp, rule, ctx, 4);
+        const CoolingCheck c = check_cooling(T_at, bp, rule, ctx, probes_for(bp));
         cooling_result(r, c, rule);
         for (auto& n : ctx_notes) r.notes.push_back(n);
         break;
@@ -422,7 +435,7 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         detail::Curve c;
         c.temp_C_at = T_at;
         c.knots = knots(h, t0, t1);
-        c.probes = 4;
+        c.probes = probes_for(c.knots);
         min_temperature_result(r, t, c);
         break;
       }

@@ -52,9 +52,11 @@ struct Curve {
   /// T(t−) > level and T(t) <= level. nullopt if it never does.
   std::optional<double> first_fall_through(double level, double from) const {
     const auto g = grid(from);
+    double Ta = temp_C_at(g[0]);
     for (std::size_t i = 0; i + 1 < g.size(); ++i) {
-      const double Ta = temp_C_at(g[i]), Tb = temp_C_at(g[i + 1]);
+      const double Tb = temp_C_at(g[i + 1]);
       if (Ta > level && Tb <= level) return refine(g[i], g[i + 1], level);
+      Ta = Tb;
     }
     return std::nullopt;
   }
