@@ -474,6 +474,15 @@ std::vector<double> cumulative_f_s(const History& h, const TargetResult& r,
   return out;
 }
 
+CookingCheck check_cooking_table(const History& h, const CookingTable& table, bool mean) {
+  if (h.samples.empty()) throw InputError("history: no samples to check against " + table.key);
+  const double t0 = h.samples.front().time_s;
+  const double t1 = std::max(h.samples.back().time_s, h.end_s());
+  const auto k = knots(h, t0, t1);
+  if (k.size() < 2) throw InputError("history: a single instant cannot be checked against " + table.key);
+  return check_cooking_table(temp_function(h, mean), k, table, probes_for(k));
+}
+
 ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<const double> temps_C,
                                  const std::vector<Target>& targets, const OrganismLibrary& organisms,
                                  const RuleLibrary& rules, const AssessOptions& opts,

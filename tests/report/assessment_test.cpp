@@ -240,3 +240,37 @@ weibull = { delta_ref_min = { value = 1, source = "test", status = "derived" }, 
   CHECK(a.targets[0].F_required_s == doctest::Approx(216.6));
   CHECK(a.targets[0].verdict == Verdict::met);
 }
+
+TEST_CASE("a tie is not shown as met") {
+  // 57 C exactly at 600 s and 21 C exactly at 7800 s: elapsed = the 2 h limit, margin 0.
+  std::vector<double> ts{0, 600, 7800, 20000}, Ts{60, 57, 21, 4};
+  Target cool;
+  cool.kind = TargetKind::cooling_rule;
+  cool.rule = "two-stage-6h";
+  const ProbeAssessment p = assess_probe_log(ts, Ts, {cool}, orgs(), rules());
+  CHECK(p.targets[0].margin == 0);
+  CHECK(p.targets[0].verdict == Verdict::not_demonstrated);
+  CHECK(p.targets[0].verdict_text == "not demonstrated, shortfall 0 min");
+}
+
+TEST_CASE("history without exact evaluation is interpolated, with a warning") {
+  History h = make();
+  h.evaluate = nullptr;
+  const Assessment a = assess(h, {listeria(6)}, orgs(), rules());
+  REQUIRE(a.warnings.size() == 1);
+  const double F = f_linear(1200, 20, 72, 70, 7.5) + 600 * std::pow(10, 2 / 7.5) + f_linear(3600, 72, 2, 70, 7.5);
+  // Linear interpolation of a piecewise-linear history with samples at every corner is exact.
+  CHECK(a.targets[0].F_s == doctest::Approx(F).epsilon(1e-6));
+}
+
+TEST_CASE("cooking table on a history") {
+  const CookingTables tabs =
+      parse_cooking_tables(test::read_source_file("products/cooking-tables.toml"), "cooking-tables.toml");
+  const History h = make();  // reaches 72 C, above the 158 F (70.0 C) instant row (REFERENCES 1.4)
+  const CookingCheck c = check_cooking_table(h, tabs.at("fsis-appendix-a-6.5-log", "t"));
+  CHECK(c.met);
+  REQUIRE(c.instant_reached_s.has_value());
+  CHECK(*c.instant_reached_s == doctest::Approx(1200.0 * 50 / 52).epsilon(1e-9));
+  const CookingCheck p = check_cooking_table(h, tabs.at("food-code-poultry", "t"));
+  CHECK_FALSE(p.met);  // never reaches 74 C
+}

@@ -17,6 +17,7 @@
 #include <vector>
 
 #include "coldcore/conduction/history.hpp"
+#include "coldcore/lethality/cooking_tables.hpp"
 #include "coldcore/lethality/kinetics.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
@@ -99,6 +100,10 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
 /// for csv columns F_<name>_min. REQUIRES: r.kinetics (a lethality TargetResult from assess on h).
 std::vector<double> cumulative_f_s(const History& h, const TargetResult& r,
                                    std::span<const double> times_s, double rel_tol = 1e-4);
+
+/// A cooking table (products/cooking-tables.toml) checked on a History at the centre (or the
+/// mass-average when `mean`), by the equivalent-time integral of cooking_tables.hpp.
+CookingCheck check_cooking_table(const History& h, const CookingTable& table, bool mean = false);
 
 /// One lethality target on a measured log, by three rules.
 struct ProbeLethality {
