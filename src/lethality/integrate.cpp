@@ -27,7 +27,11 @@ LethalityResult f_value(const std::function<double(double)>& temp_C_at,
   if (breakpoints_s.size() < 2) return out;
   auto rate = [&](double t) {
     ++out.evaluations;
-    return lethal_rate(temp_C_at(t), k);
+    const double T = temp_C_at(t);
+    if (!std::isfinite(T))
+      throw Error("f_value: temperature = " + detail::num(T) + " at t = " + detail::num(t) +
+                  " s: must be finite");
+    return lethal_rate(T, k);
   };
   // max_depth = 0: one Kronrod/Gauss pair per call, error = |K21 − G10|; the adaptivity is ours
   // (global, largest error first) so the tolerance is relative to the whole F, not per piece.

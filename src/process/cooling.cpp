@@ -146,12 +146,13 @@ CoolingCheck check_curve(const detail::Curve& c, const CoolingRule& rule, const 
     r.step = st;
     std::optional<double> start = c.first_fall_through(st.from_C, c.start());
     if (!start) {
-      const double max_T = c.max_on_grid().first;
+      const auto [max_T, max_at] = c.max_on_grid();
       if (max_T <= st.from_C) {
-        start = c.start();
-        r.notes.push_back(ctx.where + " is at or below " + detail::num(st.from_C) +
-                          " C from the start of the record; the clock starts at the record's "
-                          "first time and any earlier time above it is not counted");
+        start = max_at;
+        r.notes.push_back(ctx.where + " never exceeds " + detail::num(st.from_C) +
+                          " C in the record; the clock starts at its highest temperature (" +
+                          detail::num(max_T) + " C at " + minutes(max_at - c.start()) +
+                          ") and any earlier time above it is not counted");
       } else {
         r.notes.push_back(ctx.where + " is still above " + detail::num(st.from_C) +
                           " C at the end of the record: the step's clock never started");

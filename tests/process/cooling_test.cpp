@@ -171,6 +171,13 @@ TEST_CASE("clock edge cases: record starting below, never reaching, reheating") 
   CoolingCheck c = run(below, "two-stage-6h");
   CHECK(c.steps[0].start_s.value() == 0);
   CHECK(c.steps[0].notes.size() == 1);
+  // Heated only to 50 C, then cooled: the clock starts at the peak, not at the record's start.
+  Log warm;
+  warm.at(0, 4).at(30, 50).at(60, 40).at(150, 21).at(300, 4);
+  c = run(warm, "two-stage-6h");
+  CHECK(c.steps[0].start_s.value() == 30 * 60);
+  CHECK(c.steps[0].elapsed_s == 120 * 60);
+  CHECK_FALSE(c.steps[0].passed);  // exactly 2 h: a tie is not met
   Log stuck;
   stuck.at(0, 70).at(60, 30).at(200, 25);
   c = run(stuck, "two-stage-6h");

@@ -32,7 +32,7 @@ struct FValueOptions {
 /// strategy). Breakpoints must include every point where T(t) may have a kink (stage boundaries,
 /// medium-profile corners); sample times are a good choice because they also locate peaks.
 /// REQUIRES: breakpoints sorted non-decreasing, size >= 2, T finite on the range.
-/// Throws NotConverged when max_intervals is reached before the tolerance.
+/// Throws NotConverged when max_intervals is reached before the tolerance, Error when T is not finite.
 LethalityResult f_value(const std::function<double(double)>& temp_C_at,
                         std::span<const double> breakpoints_s, const Kinetics& k,
                         const FValueOptions& opts = {});

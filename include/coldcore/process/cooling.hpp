@@ -7,8 +7,9 @@
 ///    from_C: T(t) > from_C just before t_start and T(t_start) <= from_C (the crossing is located
 ///    by root finding on the curve; for a log, on its linear interpolation). Later re-heating above
 ///    from_C does not restart the clock (it is noted).
-///  - if the record never is above from_C, the clock starts at the record's first time and a note
-///    says the time spent above from_C before the record, if any, is not counted.
+///  - if the record is never above from_C, the clock starts at the time of the record's highest
+///    temperature (the last time it is reached on the scan grid; the first row for a log that only
+///    cools) and a note says the time spent above from_C before the record, if any, is not counted.
 ///  - if the record ends still above from_C, the clock never starts: not demonstrated.
 ///  - the step ends at the first time t_end >= t_start with T(t_end) <= to_C.
 ///    elapsed = t_end − t_start; margin = limit − elapsed. If to_C is never reached, elapsed is the
