@@ -85,7 +85,10 @@ constexpr const char* kFColours[] = {oi::blue, oi::vermillion, oi::bluish_green,
 constexpr Dash kFDashes[] = {Dash::solid, Dash::dashed, Dash::dash_dot, Dash::short_dash, Dash::long_dash};
 
 std::string default_target_label(const TargetLine& t, TempUnit u, bool temperature) {
-  if (temperature) return "required " + t.column + " = " + fixed(display_temp(t.value, u), 1) + " " + std::string(unit_symbol(u));
+  if (temperature) {
+    const std::string stem = t.column.size() > 2 ? t.column.substr(0, t.column.size() - 2) : t.column;
+    return "required " + stem + " " + fixed(display_temp(t.value, u), 1) + " " + std::string(unit_symbol(u));
+  }
   if (is_f_column(t.column)) return "required F (" + f_name(t.column) + ") = " + fixed(t.value, 2) + " min";
   return "required " + t.column + " = " + fixed(t.value, 2);
 }

@@ -24,7 +24,8 @@ p.lead { margin: 0 0 3mm 0; padding: 2mm 3mm; border-left: 4px solid #D55E00; ba
 table { border-collapse: collapse; width: 100%; margin: 1mm 0 2mm 0; font-size: 9pt; break-inside: auto; }
 tr { break-inside: avoid; }
 th, td { border: 1px solid #BBBBBB; padding: 1mm 1.5mm; text-align: left; vertical-align: top;
-         overflow-wrap: anywhere; }
+         overflow-wrap: break-word; }
+table.key-value td { overflow-wrap: anywhere; }
 th { background: #EEEEEE; }
 td.num { text-align: right; white-space: nowrap; }
 td.verdict-met { font-weight: bold; }
@@ -39,9 +40,10 @@ ul { margin: 1mm 0 2mm 0; padding-left: 6mm; }
 @media print { body { max-width: none; margin: 0; padding: 0; } }
 )css";
 
-void table(std::ostream& o, const detail::TextTable& t, const std::vector<bool>& numeric = {}) {
+void table(std::ostream& o, const detail::TextTable& t, const std::vector<bool>& numeric = {},
+           bool key_value = false) {
   if (t.empty()) return;
-  o << "<table>\n<thead><tr>";
+  o << (key_value ? "<table class=\"key-value\">\n<thead><tr>" : "<table>\n<thead><tr>");
   for (const auto& h : t[0]) o << "<th>" << xml_escape(h) << "</th>";
   o << "</tr></thead>\n<tbody>\n";
   for (size_t r = 1; r < t.size(); ++r) {
@@ -58,7 +60,7 @@ void table(std::ostream& o, const detail::TextTable& t, const std::vector<bool>&
 void key_value_table(std::ostream& o, const std::vector<KeyValue>& kv, const char* key_head) {
   detail::TextTable t = {{key_head, "value"}};
   for (const auto& e : kv) t.push_back({e.key, e.value});
-  table(o, t);
+  table(o, t, {}, true);  // long unbroken values (SHA-256) may wrap anywhere
 }
 
 void list(std::ostream& o, const std::vector<std::string>& items, const char* cls = nullptr) {

@@ -34,7 +34,7 @@ inline RunReport sample_report(const SampleOptions& opt = {}) {
   const double cook_end_s = 1500, cap_s = 8 * 3600;
   double surface = 4, centre = 4, lumped = 4, f70_min = 0, t = 0, chill_end_s = cap_s;
   double passed57_s = -1, passed21_s = -1, passed5_s = -1;
-  auto medium_at = [&](double ts) { return ts < cook_end_s ? 92.0 : -1.0; };
+  auto medium_at = [&](double ts) { return ts < cook_end_s ? 84.0 : -1.0; };
   auto push = [&] {
     std::vector<double> row = {t, medium_at(t), centre, surface, (surface + 2 * centre) / 3, f70_min};
     if (opt.lumped_column) row.push_back(lumped);
@@ -65,7 +65,7 @@ inline RunReport sample_report(const SampleOptions& opt = {}) {
   const auto& last = r.history.rows.back();
   const auto& at_cook_end = r.history.rows[static_cast<size_t>(cook_end_s / 60)];
   r.stages = {
-      {"steam cook", 0, cook_end_s, "duration", "92 °C constant", 180, false, opt.biot,
+      {"steam cook", 0, cook_end_s, "duration", "84 °C constant", 180, false, opt.biot,
        "synthetic Bi; above 0.1 the centre lags the surface", at_cook_end[2], at_cook_end[3], at_cook_end[4]},
       {"blast chill", cook_end_s, chill_end_s, "condition met", "-1 °C constant", 22, false, opt.biot / 8,
        "synthetic Bi", last[2], last[3], last[4]},
@@ -79,8 +79,8 @@ inline RunReport sample_report(const SampleOptions& opt = {}) {
   f70.name = "F70";
   f70.kind = "F-value";
   f70.required = "F70 ≥ 2.00 min";
-  f70.achieved = std::to_string(static_cast<int>(std::floor(f70_min * 100))) + "e-2 min";
-  f70.margin = "synthetic";
+  f70.achieved = fixed(std::floor(f70_min * 100) / 100, 2) + " min";  // lethality rounded down
+  f70.margin = fixed(std::floor((f70_min - 2.0) * 100) / 100, 2) + " min";
   f70.met = f70_min > 2.0;
   f70.details = {"steam cook: all of it (synthetic)"};
   f70.required_value = 2.0;
