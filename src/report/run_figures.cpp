@@ -269,7 +269,7 @@ std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u) {
       "So the centre is the last point to warm while cooking and the last to cool while chilling: it is the cold "
       "spot when heating and the warm spot when cooling, which is why the targets are checked there. In the "
       "temperature plot the gap between the surface and the centre curves is that lag; the mass-average curve "
-      "lies between them.");
+      "is the temperature of the whole piece if it were mixed, and usually lies between them.");
 
   bool bi_inf = false;
   const double bi_max = max_biot(r, bi_inf);
@@ -295,8 +295,8 @@ std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u) {
       s += " The largest difference in this run is " + fixed(display_temp_difference(gap, u), 1) + " " +
            std::string(unit_symbol(u)) + " (the shortcut reads " + (signed_gap > 0 ? "warmer" : "cooler") +
            " than the exact centre) at " + duration_text(at_s) + ".";
-    s += high_bi ? " With Bi above 0.1 the shortcut reads the centre warmer than it is while heating and cooler "
-                   "than it is while cooling, so relying on it would overstate safety."
+    s += high_bi ? " With Bi above 0.1 the shortcut in general reads the centre warmer than it is while heating and "
+                   "cooler than it is while cooling, so relying on it would overstate safety."
                  : " With Bi at or below 0.1 in every stage the shortcut stays close to the exact centre.";
     p.push_back(s);
   } else if (!r.stages.empty()) {

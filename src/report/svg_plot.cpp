@@ -1,14 +1,14 @@
-// Line plots as strict SVG. Every number goes through fixed() so the bytes depend only on the
+// Line plots as strict SVG. Every number goes through fixed_c() (std::to_chars, locale-free) so the bytes depend only on the
 // input; every text goes through xml_escape so the output is well-formed XML.
 #include "coldcore/report/svg_plot.hpp"
 
 #include <algorithm>
+#include <charconv>
 #include <cassert>
 #include <cmath>
 #include <limits>
 #include <sstream>
 
-#include "coldcore/report/format.hpp"
 
 namespace coldcore::svg {
 
@@ -99,7 +99,18 @@ std::string prefix_code_points(std::string_view s, size_t n) {
   return std::string(s.substr(0, i));
 }
 
-std::string num(double v) { return fixed(v, 2); }
+// Fixed-point text by std::to_chars: independent of any locale a caller may have set, so the
+// same plot is the same bytes everywhere. "-0.00" is written as "0.00".
+std::string fixed_c(double v, int decimals) {
+  if (!std::isfinite(v)) return "0";
+  char buf[64];
+  const auto res = std::to_chars(buf, buf + sizeof buf, v, std::chars_format::fixed, decimals);
+  std::string s(buf, res.ptr);
+  if (s[0] == '-' && s.find_first_not_of("-0.") == std::string::npos) s.erase(0, 1);
+  return s;
+}
+
+std::string num(double v) { return fixed_c(v, 2); }
 
 struct Frame {
   double x0, x1, y0, y1;          // data range
@@ -321,13 +332,13 @@ std::string render_svg(const LinePlot& p, bool standalone) {
     const double X = f.px(v);
     o << "<line x1=\"" << num(X) << "\" y1=\"" << num(f.bottom) << "\" x2=\"" << num(X) << "\" y2=\""
       << num(f.bottom + 4) << "\" stroke=\"#333333\"/>\n";
-    text(o, X, f.bottom + 16, fixed(v, xa.ticks.decimals), "text-anchor=\"middle\"");
+    text(o, X, f.bottom + 16, fixed_c(v, xa.ticks.decimals), "text-anchor=\"middle\"");
   }
   for (double v : ya.ticks.values) {
     const double Y = f.py(v);
     o << "<line x1=\"" << num(f.left - 4) << "\" y1=\"" << num(Y) << "\" x2=\"" << num(f.left) << "\" y2=\""
       << num(Y) << "\" stroke=\"#333333\"/>\n";
-    text(o, f.left - 7, Y + 4, fixed(v, ya.ticks.decimals), "text-anchor=\"end\"");
+    text(o, f.left - 7, Y + 4, fixed_c(v, ya.ticks.decimals), "text-anchor=\"end\"");
   }
   text(o, (f.left + f.right) / 2, f.bottom + 34, p.x.label, "text-anchor=\"middle\" class=\"axis-label\"");
   const double yl_x = 16, yl_y = (f.top + f.bottom) / 2;

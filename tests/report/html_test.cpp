@@ -119,3 +119,15 @@ TEST_CASE("html report without history still writes tables, reading notes and ca
   CHECK(h.find("Reading this report") != std::string::npos);
   CHECK(h.find(svg::xml_escape(cautions().front())) != std::string::npos);
 }
+
+TEST_CASE("time axis in minutes up to 3 h, in hours beyond") {
+  RunReport r = sample_report();
+  CHECK(html(r).find("time since process start (h)") != std::string::npos);  // the sample chills ~3.8 h
+  // Keep only the cook: the run then ends at 25 min.
+  r.history.rows.resize(26);
+  r.stages.resize(1);
+  r.rule_boxes.clear();
+  const std::string h = html(r);
+  CHECK(h.find("time since process start (min)") != std::string::npos);
+  CHECK(h.find("time since process start (h)") == std::string::npos);
+}

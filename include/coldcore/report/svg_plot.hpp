@@ -2,8 +2,8 @@
 /// A small line-plot builder that writes strict SVG 1.1 (well-formed XML): named series with
 /// colours and dash patterns, axes with "nice" ticks and labels, vertical marker lines (stage
 /// boundaries), horizontal target lines, shaded boxes (cooling-rule limits) and a legend.
-/// Output is deterministic: the same plot gives the same bytes (numbers are formatted with
-/// fixed decimals by snprintf in the "C" locale the library never changes).
+/// Output is deterministic: the same plot gives the same bytes (numbers are formatted by
+/// std::to_chars with fixed decimals, which no locale changes).
 #include <optional>
 #include <string>
 #include <string_view>
