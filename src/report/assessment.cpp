@@ -65,7 +65,8 @@ namespace {
 std::string minutes_down(double s) { return shown_down(s / 60.0) + " min"; }
 std::string minutes_up(double s) { return shown_up(s / 60.0) + " min"; }
 
-// Verdict and texts; `lethality` selects log10/min formatting, `good_up` = achieved is good when large.
+// Verdict and texts for targets where a larger achieved value is better; log_units selects
+// log10 or minutes.
 void finish(TargetResult& r, bool log_units) {
   r.verdict = r.margin > 0 ? Verdict::met : Verdict::not_demonstrated;
   if (log_units) {
