@@ -25,7 +25,8 @@
 ///     slab      ((n−1)π, (n−½)π)
 ///     cylinder  (j1,n−1 , j0,n)   consecutive zeros of J1 (j1,0 = 0) and J0
 ///     sphere    ((n−1)π, nπ)
-/// so ζ_n is strictly increasing in n. Bi = ∞ returns the exact limits (n−½)π, j0,n, nπ.
+/// so ζ_n is strictly increasing in n. Bi = ∞ returns the exact limits (n−½)π, j0,n, nπ;
+/// Bi >= 1e9 returns ζ∞·Bi/(Bi+1), exact to O((ζ/Bi)²) relative (continuity at 1e9 is tested).
 /// n is tested up to 4000.
 #include <limits>
 #include <vector>
