@@ -25,6 +25,11 @@
 namespace coldcore {
 namespace detail {
 
+// The centre cannot feel a change at the surface before Fo = 0.01 on the smallest half-dimension:
+// 1 − θ_step(centre) < 2e-10 there (sphere, Bi = ∞, the worst case: ≈ 2·e^{−1/(4Fo)}/√(πFo)), so
+// Θ(τ) = ∫0^τ θ_step(centre) = τ holds to that inside the window.
+constexpr double kInsulatedFourier = 0.01;
+
 std::size_t StageModel::checkpoint_count() const { return checkpoints.size() / (3 * basis->lambda.size() + 7); }
 
 void StageModel::store_checkpoint(const ModalState& st) {
@@ -50,7 +55,7 @@ void StageModel::load_checkpoint(std::size_t i, ModalState& st) const {
 
 long Engine::epoch_of(double origin, double t) const {
   // t >= origin always: truncation is floor (and avoids a libm call on plain x86-64)
-  const double x = (t - origin) / epoch_s;
+  const double x = (t - origin) * inv_epoch_s;
   return x >= 0 ? static_cast<long>(x) : static_cast<long>(std::floor(x));
 }
 
@@ -76,10 +81,12 @@ void Engine::advance(const Basis& B, ModalState& st, double dt, double slope, St
   if (c.dt != dt || c.basis != &B) {
     c.e.resize(K);
     c.g.resize(K);
+    c.bg.resize(K);
     for (std::size_t k = 0; k < K; ++k) {
       const double x = -B.lambda[k] * dt;
       c.e[k] = std::exp(x);
       c.g[k] = -std::expm1(x) / B.lambda[k];
+      c.bg[k] = B.b[k] * c.g[k];
     }
     c.dt = dt;
     c.basis = &B;
@@ -145,10 +152,12 @@ ModalSums Engine::event_advance_sum(const Basis& B, ModalState& st, double origi
   if (c.dt != dt || c.basis != &B) {
     c.e.resize(K);
     c.g.resize(K);
+    c.bg.resize(K);
     for (std::size_t k = 0; k < K; ++k) {
       const double x = -B.lambda[k] * dt;
       c.e[k] = std::exp(x);
       c.g[k] = -std::expm1(x) / B.lambda[k];
+      c.bg[k] = B.b[k] * c.g[k];
     }
     c.dt = dt;
     c.basis = &B;
@@ -157,7 +166,7 @@ ModalSums Engine::event_advance_sum(const Basis& B, ModalState& st, double origi
   double* wp = st.w_prev.data();
   double* wc = st.w_cur.data();
   const double* e = c.e.data();
-  const double* g = c.g.data();
+  const double* bg = c.bg.data();
   const double* b = B.b.data();
   const double* bl = B.b_over_lambda.data();
   const double* vs = B.surface.data();
@@ -175,23 +184,35 @@ ModalSums Engine::event_advance_sum(const Basis& B, ModalState& st, double origi
                             static_cast<double>(st.epoch)};
     std::copy(tail, tail + 7, ck + 3 * K);
   }
-  double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0;
+  double s0 = 0, s1 = 0, s2 = 0, s3 = 0;
   const double bs = slope;
-#pragma omp simd reduction(+ : s0, s1, s2, s3, s4)
+  if (jump != 0.0) {
+    for (std::size_t k = 0; k < K; ++k) {
+      a[k] += b[k] * jump;
+      wc[k] += b[k] * jump;
+    }
+  }
+  // the w sums are needed apart only when the end of the step lies in a later epoch (rare):
+  // the caller then recomputes them with sums()
+#pragma omp simd reduction(+ : s0, s1, s2, s3)
   for (std::size_t k = 0; k < K; ++k) {
-    const double ak = (a[k] + b[k] * jump) * e[k] - b[k] * bs * g[k];
-    const double wck = (wc[k] + bl[k] * ds + b[k] * jump) * e[k];
+    const double ak = a[k] * e[k] - bs * bg[k];
+    const double wck = (wc[k] + bl[k] * ds) * e[k];
     const double wpk = wp[k] * e[k];
     a[k] = ak;
     wc[k] = wck;
     wp[k] = wpk;
-    s0 += ak;
+    s0 += ak - wpk - wck;
     s1 += ak * vs[k];
     s2 += ak * vm[k];
-    s3 += wpk;
-    s4 += wck;
   }
-  return ModalSums{s0, s1, s2, s3, s4};
+  (void)s3;
+  ModalSums out;
+  out.a = s0;  // Σ (a − w_prev − w_cur): only valid together with combined = true
+  out.a_surface = s1;
+  out.a_mean = s2;
+  out.combined = true;
+  return out;
 }
 
 ModalSums Engine::sums(const Basis& B, const ModalState& st) const {
@@ -216,6 +237,7 @@ ModalSums Engine::sums(const Basis& B, const ModalState& st) const {
 double Engine::centre_from(const Basis& B, const ModalState& st, const ModalSums& s, double origin, double t, double tm,
                            double slope) const {
   const long d = epoch_of(origin, t) - st.epoch;
+  if (s.combined && d != 0) return centre_from(B, st, sums(B, st), origin, t, tm, slope);
   const bool use_prev = d <= 0, use_cur = d <= 1;
   double corr = 0.0;
   const double tau0 = t - origin;
@@ -481,8 +503,9 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
 
   auto eng = std::make_shared<Engine>();
   eng->alpha = alpha;
-  eng->tau_insulated_s = 0.01 * l_min * l_min / alpha;
+  eng->tau_insulated_s = detail::kInsulatedFourier * l_min * l_min / alpha;
   eng->epoch_s = eng->tau_insulated_s / 2.0;
+  eng->inv_epoch_s = 1.0 / eng->epoch_s;
   const double lambda_cut = pick_lambda_cut(product, stages, eng->tau_insulated_s, opt.tol_K);
 
   History H;
@@ -563,11 +586,11 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
       if ((stg.end.target_C - v0) * dir <= 0) ended_at_start = true;
     }
 
-    // checkpoint stride: keep the stored amplitudes near 2^15 doubles per stage (evaluate then
+    // checkpoint stride: keep the stored amplitudes near 2^13 doubles per stage (evaluate then
     // re-advances at most `stride` exact steps from the nearest checkpoint)
     const std::size_t K = B.lambda.size();
     const double est_steps = static_cast<double>(pts.size()) + 64.0;
-    S.stride = std::max(1, static_cast<int>(std::ceil(est_steps * 3.0 * K / 32768.0)));
+    S.stride = std::max(1, static_cast<int>(std::ceil(est_steps * 3.0 * K / 8192.0)));
     S.step_t.reserve(static_cast<std::size_t>(est_steps));
     S.step_tm.reserve(static_cast<std::size_t>(est_steps));
     S.step_slope.reserve(static_cast<std::size_t>(est_steps));
@@ -575,6 +598,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     S.checkpoints.reserve((static_cast<std::size_t>(est_steps) / S.stride + 2) * (3 * K + 7));
     H.samples.reserve(H.samples.size() + static_cast<std::size_t>(est_steps));
 
+    int until_checkpoint = 1;  // steps to the next checkpoint (the first step has one)
     StageEndedBy ended_by = until ? StageEndedBy::cap : StageEndedBy::duration;
     double t_local = 0.0;
     double slope = s0;
@@ -622,7 +646,8 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
                                                  : pts.back().temp_C;
       const double ta = t_abs + t_local;
       const double remaining = piece_end - t_local;
-      const bool checkpoint_here = S.step_t.size() % static_cast<std::size_t>(S.stride) == 0;
+      const bool checkpoint_here = --until_checkpoint == 0;
+      if (checkpoint_here) until_checkpoint = S.stride;
       const bool fused = remaining <= h_nocheck && !until;
       // the step start: apply its event, then record it (checkpoint = state after the event)
       if (!fused) {

@@ -49,18 +49,20 @@ struct StageModel {
 struct StepCache {
   double dt = -1;
   const Basis* basis = nullptr;
-  std::vector<double> e, g;
+  std::vector<double> e, g, bg;  // bg = b·g
 };
 
 /// Sums over the kept modes that the three reported temperatures need.
 struct ModalSums {
   double a = 0, a_surface = 0, a_mean = 0, w_prev = 0, w_cur = 0;
+  bool combined = false;  // a already holds Σ(a − w_prev − w_cur) (w sums zero)
 };
 
 struct Engine {
   double alpha = 0;
   double tau_insulated_s = 0;   // 0.01·L_min²/α: the centre cannot feel the surface before this
   double epoch_s = 0;           // tau_insulated_s / 2
+  double inv_epoch_s = 0;
   std::vector<StageModel> stages;
 
   // advance by dt at medium slope s (exact for a linear medium)
