@@ -8,6 +8,7 @@
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/conduction/modes.hpp"
 #include "coldcore/conduction/quasi_steady.hpp"
+#include "coldcore/conduction/series.hpp"
 #include "coldcore/error.hpp"
 #include "conduction/detail/history_engine.hpp"
 
@@ -35,16 +36,12 @@ Stage stage(std::vector<MediumPoint> pts, double h, double duration_s) {
   return s;
 }
 
-// The foundation series θ(x, Fo) = Σ C_n X_n(x) exp(−ζ_n² Fo), 400 terms (modes.hpp).
+// The foundation series (series.hpp: tail-bounded term count, short-time forms), to 1e-12.
 double series_theta(Geometry g, double biot, double x, double fo) {
-  double s = 0;
-  for (const auto& m : modes(g, biot, 400)) s += m.coefficient * eigenfunction(g, m.zeta, x) * std::exp(-m.zeta * m.zeta * fo);
-  return s;
+  return step_response(g, biot, fo, x, SeriesOptions{1e-12, 4000}).theta;
 }
 double series_mean(Geometry g, double biot, double fo) {
-  double s = 0;
-  for (const auto& m : modes(g, biot, 400)) s += m.mean_coefficient * std::exp(-m.zeta * m.zeta * fo);
-  return s;
+  return mean_step_response(g, biot, fo, SeriesOptions{1e-12, 4000}).theta;
 }
 
 }  // namespace
@@ -120,7 +117,8 @@ TEST_CASE("a constant medium reduces to the foundation series (1e-9 in theta)") 
 }
 
 TEST_CASE("finite cylinder and brick at a constant medium equal the product rule") {
-  // Newman's product rule (DESIGN.md; REFERENCES.md §7 item 8) with the foundation series.
+  // Newman's product rule (DESIGN.md; REFERENCES.md §7 item 8) with the foundation series
+  // (series.hpp), and the handbook product-rule value of REFERENCES.md §7 item 8 below.
   const double alpha = 0.5 / (1050.0 * 3600.0), tm = 90.0, h_W = 120.0, k = 0.5;
   Product fc = body(Shape::finite_cylinder);
   fc.dims.diameter_m = 0.04;
@@ -149,6 +147,18 @@ TEST_CASE("finite cylinder and brick at a constant medium equal the product rule
   CHECK(wb <= 1e-9);
   CHECK(wm <= 1e-9);
   CHECK(hb.stages[0].biot == doctest::Approx(h_W * 0.015 / k));  // smallest half-dimension
+
+  // REFERENCES.md §7 item 8 [D]: R = 0.0375 m, half-height 0.05 m, alpha = 1.4e-7, Bi = inf,
+  // t = 1800 s -> theta_centre = 0.534528 (abs 1e-5).
+  Product can = body(Shape::finite_cylinder);
+  can.dims.diameter_m = 0.075;
+  can.dims.length_m = 0.1;
+  can.properties = {1.4e-7 * 1000.0 * 4000.0, 1000.0, 4000.0};
+  can.initial_C = 20.0;
+  Stage retort = stage({{0, 120.0}}, 0.0, 1800.0);
+  retort.h_infinite = true;
+  const auto hc = simulate(can, {retort});
+  CHECK((hc.evaluate(1800.0).centre_C - 120.0) / (20.0 - 120.0) == doctest::Approx(0.534528).epsilon(2e-5));
 }
 
 TEST_CASE("long finite cylinder under a ramp equals the infinite cylinder at its centre") {
