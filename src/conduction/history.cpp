@@ -333,6 +333,68 @@ double Engine::at_point(const Basis& B, const ModalState& st, const Point& p, do
   return tm + sum - slope * q;
 }
 
+ShadowValues Engine::shadow_at(const Basis& B, double age) const {
+  const auto& sh = B.shadow;
+  ShadowValues v;
+  v.age = age;
+  double gs = 0, gm = 0, cs = 0, cm = 0;
+  for (std::size_t k = 0; k < sh.lambda.size(); ++k) {
+    const double e = std::exp(-sh.lambda[k] * age);
+    cs += sh.bs[k] * e;
+    cm += sh.bm[k] * e;
+    gs += sh.bs[k] * e / sh.lambda[k];
+    gm += sh.bm[k] * e / sh.lambda[k];
+  }
+  const double r = std::exp(-sh.lambda_end * age);
+  v.gs = gs + sh.ramp_surface * r;
+  v.gm = gm + sh.ramp_mean * r;
+  v.cs = cs + sh.jump_surface * r;
+  v.cm = cm + sh.jump_mean * r;
+  return v;
+}
+
+double Engine::expiry(const Basis& B, double t, double ds, double jump) const {
+  const auto& sh = B.shadow;
+  double scale = std::abs(ds) * (std::abs(B.q_surface) + std::abs(B.q_mean));
+  if (jump != 0.0) {
+    double js = std::abs(sh.jump_surface) + std::abs(sh.jump_mean);
+    for (std::size_t k = 0; k < sh.lambda.size(); ++k) js += std::abs(sh.bs[k]) + std::abs(sh.bm[k]);
+    scale += std::abs(jump) * js;
+  }
+  const double ratio = 100.0 * scale / tol_K;
+  if (ratio <= 1.0) return t;
+  return t + std::log(ratio) / sh.lambda_first;
+}
+
+void Engine::shadow_correction(const Basis& B, const std::vector<RecentEvent>& ev, double t,
+                               std::vector<ShadowValues>* cache, double& surface, double& mean) const {
+  surface = 0;
+  mean = 0;
+  for (const auto& e : ev) {
+    if (e.t > t || e.expires <= t) continue;
+    const double age = t - e.t;
+    ShadowValues v;
+    bool found = false;
+    if (cache) {
+      for (const auto& c : *cache)
+        if (c.age == age) {
+          v = c;
+          found = true;
+          break;
+        }
+    }
+    if (!found) {
+      v = shadow_at(B, age);
+      if (cache) {
+        if (cache->size() >= 64) cache->clear();
+        cache->push_back(v);
+      }
+    }
+    surface += e.ds * v.gs + e.jump * v.cs;
+    mean += e.ds * v.gm + e.jump * v.cm;
+  }
+}
+
 void Engine::state_at(const StageModel& S, double t, ModalState& st, double& tm, double& slope) const {
   const auto& B = *S.basis;
   // a time on a step boundary belongs to the step that ends there (left limit): the left-out
@@ -377,6 +439,20 @@ HistorySample Engine::sample(int i, double t) const {
   else h.centre_C = centre(B, st, S.origin_s, t, tm, slope);
   h.surface_C = surface(B, st, tm, slope);
   h.mean_C = mean(B, st, tm, slope);
+  // transient of the left-out modes after recent events of this stage
+  std::vector<RecentEvent> ev;
+  std::size_t k = static_cast<std::size_t>(std::lower_bound(S.step_t.begin(), S.step_t.end(), t) - S.step_t.begin());
+  while (k > 0) {
+    --k;
+    if (S.step_t[k] < t - S.recent_window_s) break;
+    const double ds = k == 0 ? S.start_ds : S.step_ds[k];
+    const double jump = k == 0 ? S.start_jump : 0.0;
+    if (ds != 0.0 || jump != 0.0) ev.push_back(RecentEvent{S.step_t[k], ds, jump, expiry(B, S.step_t[k], ds, jump)});
+  }
+  double cs = 0, cm = 0;
+  shadow_correction(B, ev, t, nullptr, cs, cm);
+  h.surface_C += cs;
+  h.mean_C += cm;
   return h;
 }
 
@@ -506,6 +582,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
   eng->tau_insulated_s = detail::kInsulatedFourier * l_min * l_min / alpha;
   eng->epoch_s = eng->tau_insulated_s / 2.0;
   eng->inv_epoch_s = 1.0 / eng->epoch_s;
+  eng->tol_K = opt.tol_K;
   const double lambda_cut = pick_lambda_cut(product, stages, eng->tau_insulated_s, opt.tol_K);
 
   History H;
@@ -550,9 +627,13 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
       st = std::move(ns);
       const double jump = i == 0 ? product.initial_C - tm0 : 0.0;
       eng->add_event(*basis, st, S.origin_s, t_abs, s0, jump);
+      S.start_ds = s0;
+      S.start_jump = jump;
     } else {
       S.origin_s = eng->stages.back().origin_s;
       eng->add_event(*basis, st, S.origin_s, t_abs, s0 - prev_slope, prev_tm - tm0);
+      S.start_ds = s0 - prev_slope;
+      S.start_jump = prev_tm - tm0;
     }
     S.basis = basis;
     const Basis& B = *basis;
@@ -618,6 +699,23 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     ModalState end_st, mid_st, start_st;
     HistorySample mid_s{}, end_s{};
     detail::StepCache cache;
+    std::vector<detail::RecentEvent> recent;
+    std::vector<detail::ShadowValues> scache;
+    auto note_event = [&](double t, double ds, double jump) {
+      if (ds == 0.0 && jump == 0.0) return;
+      const double ex = eng->expiry(B, t, ds, jump);
+      if (ex <= t) return;
+      recent.push_back(detail::RecentEvent{t, ds, jump, ex});
+      S.recent_window_s = std::max(S.recent_window_s, ex - t);
+    };
+    note_event(t_abs, S.start_ds, S.start_jump);
+    auto shadow = [&](HistorySample& out) {
+      if (recent.empty()) return;
+      double cs = 0, cm = 0;
+      eng->shadow_correction(B, recent, out.time_s, &scache, cs, cm);
+      out.surface_C += cs;
+      out.mean_C += cm;
+    };
     auto value_of = [&](const HistorySample& h) { return on_mean ? h.mean_C : h.centre_C; };
     auto f_of = [&](const HistorySample& h) { return (value_of(h) - stg.end.target_C) * dir; };
     auto centre_at = [&](const ModalState& q, double t, double tm, double sl) {
@@ -631,6 +729,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
       out.centre_C = centre_at(q, t, tm, sl);
       out.surface_C = eng->surface(B, q, tm, sl);
       out.mean_C = eng->mean(B, q, tm, sl);
+      shadow(out);
     };
 
     while (!finished) {
@@ -660,6 +759,10 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
       S.step_ds.push_back(first_step ? 0.0 : pending_ds);
       const double ds_here = first_step ? 0.0 : pending_ds;
       first_step = false;
+      if (!recent.empty())
+        recent.erase(std::remove_if(recent.begin(), recent.end(), [&](const detail::RecentEvent& e) { return e.expires <= ta; }),
+                     recent.end());
+      note_event(ta, ds_here, 0.0);
 
       double h = remaining;
       bool have_mid = false;
@@ -682,6 +785,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
                              : eng->centre_from(B, st, sm, S.origin_s, tb, tm_b, slope);
         end_s.surface_C = tm_b + sm.a_surface - slope * B.q_surface;
         end_s.mean_C = tm_b + sm.a_mean - slope * B.q_mean;
+        shadow(end_s);
       } else {
         for (;;) {
           end_st = st;  // reuses end_st's storage (no allocation)
@@ -716,7 +820,16 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
               eng->advance(B, q, tau, slope);
               const double tt = ta + tau;
               const double tm = tm_a + slope * tau;
-              const double v = on_mean ? eng->mean(B, q, tm, slope) : centre_at(q, tt, tm, slope);
+              double v;
+              if (on_mean) {
+                HistorySample tmp;
+                tmp.time_s = tt;
+                tmp.mean_C = eng->mean(B, q, tm, slope);
+                shadow(tmp);
+                v = tmp.mean_C;
+              } else {
+                v = centre_at(q, tt, tm, slope);
+              }
               return (v - stg.end.target_C) * dir;
             };
             const double flo = f(lo), fhi = f(hi);

@@ -172,6 +172,57 @@ Basis make_basis(std::vector<AxisModes> axes, double alpha, int surface_axis, do
   B.q_centre = B.full_centre - kc;
   B.q_surface = B.full_surface - ks;
   B.q_mean = B.full_mean - km;
+
+  // shadow modes: 1D up to 4× the kept ζ (16× λ), products up to 2× per axis (4× λ)
+  {
+    const double f = na == 1 ? 16.0 : 4.0;
+    const double lam_end = f * lambda_cut;
+    std::vector<AxisModes> sx;
+    for (const auto& a : B.axes)
+      sx.push_back(axis_modes(a.geometry, a.biot, a.half_length_m,
+                              modes_needed(a.geometry, a.biot, a.half_length_m, alpha, lam_end)));
+    auto& sh = B.shadow;
+    sh.lambda_end = lam_end;
+    sh.lambda_first = lam_end;
+    double sum_s = 0, sum_m = 0, sum_sj = 0, sum_mj = 0;
+    std::array<int, 3> j{0, 0, 0};
+    const int m0 = static_cast<int>(sx[0].zeta.size()), m1 = na > 1 ? static_cast<int>(sx[1].zeta.size()) : 1,
+              m2 = na > 2 ? static_cast<int>(sx[2].zeta.size()) : 1;
+    for (j[0] = 0; j[0] < m0; ++j[0])
+      for (j[1] = 0; j[1] < m1; ++j[1])
+        for (j[2] = 0; j[2] < m2; ++j[2]) {
+          double lam = 0.0, b = 1.0, sv = 1.0, mv = 1.0;
+          for (std::size_t a = 0; a < na; ++a) {
+            lam += sx[a].lambda(j[a], alpha);
+            b *= sx[a].coef[j[a]];
+            sv *= (static_cast<int>(a) == surface_axis) ? sx[a].surf[j[a]] : 1.0;
+            mv *= sx[a].xbar[j[a]];
+          }
+          const bool first = j[0] == 0 && j[1] == 0 && j[2] == 0;
+          if (lam <= lambda_cut || first || lam > lam_end) continue;
+          sh.lambda.push_back(lam);
+          sh.bs.push_back(b * sv);
+          sh.bm.push_back(b * mv);
+          sh.lambda_first = std::min(sh.lambda_first, lam);
+          sum_s += b * sv / lam;
+          sum_m += b * mv / lam;
+          sum_sj += b * sv;
+          sum_mj += b * mv;
+        }
+    sh.ramp_surface = B.q_surface - sum_s;
+    sh.ramp_mean = B.q_mean - sum_m;
+    // Σ over all modes of bΦ is the expansion of 1: 1 at the mean; at the surface point of a 1D
+    // body with finite Bi also 1 (positive terms); for Bi = ∞ 0. In products the surface series
+    // converges only conditionally: no jump remainder is used there.
+    double kept_sj = 0, kept_mj = 0;
+    for (std::size_t k = 0; k < B.lambda.size(); ++k) {
+      kept_sj += B.b[k] * B.surface[k];
+      kept_mj += B.b[k] * B.mean[k];
+    }
+    const bool surface_ok = na == 1 && !std::isinf(B.axes[0].biot);
+    sh.jump_surface = surface_ok ? 1.0 - kept_sj - sum_sj : 0.0;
+    sh.jump_mean = 1.0 - kept_mj - sum_mj;
+  }
   return B;
 }
 
