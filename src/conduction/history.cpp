@@ -701,18 +701,90 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     detail::StepCache cache;
     std::vector<detail::RecentEvent> recent;
     std::vector<detail::ShadowValues> scache;
+    // events of this stage whose surface/mean transient still counts; slope events share one
+    // window from the stage's largest slope change (no logarithm per step)
+    double max_ds = std::abs(S.start_ds);
+    for (std::size_t k = 1; k + 1 < pts.size(); ++k) {
+      const double sa = (pts[k].temp_C - pts[k - 1].temp_C) / (pts[k].time_s - pts[k - 1].time_s);
+      const double sb = (pts[k + 1].temp_C - pts[k].temp_C) / (pts[k + 1].time_s - pts[k].time_s);
+      max_ds = std::max(max_ds, std::abs(sb - sa));
+    }
+    if (pts.size() > 1) {
+      const double sl = (pts.back().temp_C - pts[pts.size() - 2].temp_C) / (pts.back().time_s - pts[pts.size() - 2].time_s);
+      max_ds = std::max(max_ds, std::abs(sl));
+    }
+    const double slope_window = eng->expiry(B, 0.0, max_ds, 0.0);
     auto note_event = [&](double t, double ds, double jump) {
       if (ds == 0.0 && jump == 0.0) return;
-      const double ex = eng->expiry(B, t, ds, jump);
+      const double ex = jump != 0.0 ? std::max(eng->expiry(B, t, ds, jump), t + slope_window) : t + slope_window;
       if (ex <= t) return;
       recent.push_back(detail::RecentEvent{t, ds, jump, ex});
       S.recent_window_s = std::max(S.recent_window_s, ex - t);
     };
     note_event(t_abs, S.start_ds, S.start_jump);
+    // factors at ages that are whole multiples of the last step length (a regular log) come from
+    // a table; others from a small cache
+    double table_dt = -1.0;
+    std::vector<detail::ShadowValues> table;
+    std::array<double, 64> ring_ds{}, ring_t{};
+    std::array<double, 128> ring2{};  // ring_ds mirrored twice: the last 64 events contiguous
+    int ring_pos = 0;
+    long run = 0;
+    double run_dt = -1.0;
+    auto flush_ring = [&]() {
+      for (long j = 1; j <= std::min<long>(run, 63); ++j) {
+        const int q = (ring_pos - static_cast<int>(j)) & 63;
+        if (ring_ds[q] != 0.0) recent.push_back(detail::RecentEvent{ring_t[q], ring_ds[q], 0.0, ring_t[q] + slope_window});
+      }
+      run = 0;
+    };
+    // the ring's part of the correction at the end of the current step (ages j·run_dt)
+    std::vector<double> tab_gs, tab_gm;  // factors at ages j·run_dt, j = 1..run_taps
+    long run_taps = 0;
+    auto ring_shadow = [&](HistorySample& out) {
+      if (run_taps == 0) {
+        while (run_taps < 60 && static_cast<double>(run_taps + 1) * run_dt < slope_window) ++run_taps;
+        tab_gs.assign(static_cast<std::size_t>(run_taps) + 1, 0.0);
+        tab_gm.assign(static_cast<std::size_t>(run_taps) + 1, 0.0);
+        for (long j = 1; j <= run_taps; ++j) {
+          const auto v = eng->shadow_at(B, static_cast<double>(j) * run_dt);
+          tab_gs[static_cast<std::size_t>(j)] = v.gs;
+          tab_gm[static_cast<std::size_t>(j)] = v.gm;
+        }
+      }
+      const long jw = std::min(run, run_taps);
+      const double* d = ring2.data() + ring_pos + 64;  // d[-j] is the event j steps back
+      double cs = 0, cm = 0;
+      for (long j = 1; j <= jw; ++j) {
+        cs += d[-j] * tab_gs[static_cast<std::size_t>(j)];
+        cm += d[-j] * tab_gm[static_cast<std::size_t>(j)];
+      }
+      out.surface_C += cs;
+      out.mean_C += cm;
+    };
     auto shadow = [&](HistorySample& out) {
       if (recent.empty()) return;
       double cs = 0, cm = 0;
-      eng->shadow_correction(B, recent, out.time_s, &scache, cs, cm);
+      const double t = out.time_s;
+      const double inv_dt = table_dt > 0 ? 1.0 / table_dt : 0.0;
+      for (const auto& e : recent) {
+        if (e.t > t || e.expires <= t) continue;
+        const double age = t - e.t;
+        const long j = static_cast<long>(age * inv_dt + 0.5);
+        if (table_dt > 0 && j >= 1 && j < 4096 && static_cast<double>(j) * table_dt == age) {
+          while (table.size() <= static_cast<std::size_t>(j))
+            table.push_back(eng->shadow_at(B, static_cast<double>(table.size()) * table_dt));
+          const auto& v = table[static_cast<std::size_t>(j)];
+          cs += e.ds * v.gs + e.jump * v.cs;
+          cm += e.ds * v.gm + e.jump * v.cm;
+        } else {
+          const std::vector<detail::RecentEvent> one{e};
+          double a = 0, b = 0;
+          eng->shadow_correction(B, one, t, &scache, a, b);
+          cs += a;
+          cm += b;
+        }
+      }
       out.surface_C += cs;
       out.mean_C += cm;
     };
@@ -762,7 +834,28 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
       if (!recent.empty())
         recent.erase(std::remove_if(recent.begin(), recent.end(), [&](const detail::RecentEvent& e) { return e.expires <= ta; }),
                      recent.end());
-      note_event(ta, ds_here, 0.0);
+      // a run of equal short steps (a regular log) keeps its events in a ring: the correction is
+      // then a short fixed filter over the last slope changes
+      const bool ring_ok = fused && slope_window < 60.0 * remaining;
+      if (!(ring_ok && remaining == run_dt)) {
+        flush_ring();
+        if (run_dt != (ring_ok ? remaining : -1.0)) run_taps = 0;  // new step length: new filter
+        run_dt = ring_ok ? remaining : -1.0;
+        if (ring_ok && table_dt != run_dt) {
+          table_dt = run_dt;
+          table.clear();
+        }
+      }
+      if (ring_ok) {
+        ring_ds[ring_pos] = ds_here;
+        ring2[ring_pos] = ring2[ring_pos + 64] = ds_here;
+        ring_t[ring_pos] = ta;
+        ring_pos = (ring_pos + 1) & 63;
+        ++run;
+        S.recent_window_s = std::max(S.recent_window_s, slope_window);
+      } else {
+        note_event(ta, ds_here, 0.0);
+      }
 
       double h = remaining;
       bool have_mid = false;
@@ -786,6 +879,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
         end_s.surface_C = tm_b + sm.a_surface - slope * B.q_surface;
         end_s.mean_C = tm_b + sm.a_mean - slope * B.q_mean;
         shadow(end_s);
+        if (run > 0) ring_shadow(end_s);
       } else {
         for (;;) {
           end_st = st;  // reuses end_st's storage (no allocation)
