@@ -3,6 +3,7 @@
 
 #include <boost/math/quadrature/gauss_kronrod.hpp>
 #include <cmath>
+#include <cstdint>
 #include <string>
 
 #include "coldcore/conduction/history.hpp"
@@ -333,4 +334,40 @@ TEST_CASE("simulate rejects bad input with place, key, value and requirement") {
                        "simulate: stage[1].max_duration_s = 0: must be > 0 (a cap is mandatory)", InputError);
   const auto h = simulate(p, {stage({{0, 80.0}}, 5.0, 10.0)});
   CHECK_THROWS_AS(h.evaluate(11.0), InputError);
+}
+
+TEST_CASE("a noisy 1 s log: samples and evaluate between them meet tol_K (sampling does not change accuracy)") {
+  // Invariant: the default run (tol 1e-4 K) against a run with tol 1e-12 K (many more modes).
+  // Medium: 20 -> 90 C come-up with +-0.05 K logger noise every second for 20 min.
+  Stage s = stage({}, 150.0, 1200.0);
+  std::uint64_t x = 12345;
+  for (int i = 0; i <= 1200; ++i) {
+    x = x * 6364136223846793005ull + 1442695040888963407ull;
+    s.medium.points.push_back({double(i), 20.0 + 70.0 * i / 1200.0 + 0.1 * (double(x >> 11) / 9007199254740992.0 - 0.5)});
+  }
+  for (Shape sh : {Shape::sphere, Shape::finite_cylinder}) {
+    Product p = body(sh);
+    p.dims.length_m = 0.06;
+    const auto a = simulate(p, {s});
+    const auto b = simulate(p, {s}, HistoryOptions{1e-12});
+    double wc = 0, ws = 0, wm = 0;
+    for (double t = 30.25; t < 1200; t += 7.1) {
+      const auto u = a.evaluate(t), v = b.evaluate(t);
+      wc = std::max(wc, std::abs(u.centre_C - v.centre_C));
+      ws = std::max(ws, std::abs(u.surface_C - v.surface_C));
+      wm = std::max(wm, std::abs(u.mean_C - v.mean_C));
+    }
+    for (std::size_t i = 0; i < a.samples.size(); i += 7) {
+      const auto& u = a.samples[i];
+      if (u.time_s < 30) continue;
+      const auto v = b.evaluate(u.time_s);
+      wc = std::max(wc, std::abs(u.centre_C - v.centre_C));
+      ws = std::max(ws, std::abs(u.surface_C - v.surface_C));
+      wm = std::max(wm, std::abs(u.mean_C - v.mean_C));
+    }
+    MESSAGE(to_string(sh) << ": worst centre " << wc << " K, surface " << ws << " K, mean " << wm << " K");
+    CHECK(wc <= 1e-4);
+    CHECK(ws <= 1e-4);
+    CHECK(wm <= 1e-4);
+  }
 }
