@@ -371,3 +371,39 @@ TEST_CASE("a noisy 1 s log: samples and evaluate between them meet tol_K (sampli
     CHECK(wm <= 1e-4);
   }
 }
+
+TEST_CASE("every shape through h = inf, a zero-length stage and a capped until_mean: continuous centre") {
+  for (Shape sh : {Shape::sphere, Shape::cylinder, Shape::slab, Shape::finite_cylinder, Shape::brick}) {
+    Product p = body(sh, 0.03);
+    p.dims.length_m = 0.05;
+    p.dims.size_m[0] = 0.03;
+    p.dims.size_m[1] = 0.04;
+    p.dims.size_m[2] = 0.05;
+    Stage cook = stage({{0, 60.0}, {300, 95.0}}, 0.0, 0);
+    cook.h_infinite = true;
+    cook.end.kind = StageEndKind::until_centre;
+    cook.end.target_C = 70.0;
+    cook.end.max_duration_s = 7200;
+    Stage pause = stage({{0, 40.0}}, 50.0, 0.0);
+    Stage chill = stage({{0, 1.0}, {600, -1.0}}, 25.0, 0);
+    chill.end.kind = StageEndKind::until_mean;
+    chill.end.target_C = -5.0;  // below the medium: never reached, the cap ends it
+    chill.end.max_duration_s = 1800;
+    const auto h = simulate(p, {cook, pause, chill});
+    REQUIRE(h.stages.size() == 3);
+    CHECK(h.stages[0].ended_by == StageEndedBy::condition);
+    CHECK(h.stages[0].at_end.centre_C == doctest::Approx(70.0).epsilon(1e-8));
+    CHECK(h.stages[1].end_s == h.stages[1].start_s);
+    CHECK(h.stages[2].ended_by == StageEndedBy::cap);
+    CHECK(h.warnings.size() == 1);
+    for (const auto& r : h.stages) {
+      if (r.start_s <= 0) continue;
+      const double before = h.evaluate(r.start_s - 1e-7).centre_C, after = h.evaluate(r.start_s + 1e-7).centre_C;
+      CHECK(std::abs(before - after) < 1e-5);
+      CHECK(std::abs(h.evaluate(r.start_s).centre_C - before) < 1e-5);
+    }
+    for (std::size_t i = 1; i < h.samples.size(); ++i) CHECK(h.samples[i].time_s >= h.samples[i - 1].time_s);
+    CHECK(h.samples.back().time_s == doctest::Approx(h.end_s()));
+    CHECK(std::isfinite(h.temperature_at(h.end_s() / 2, {0.5, 0.5, 0.5})));
+  }
+}
