@@ -671,7 +671,8 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     // re-advances at most `stride` exact steps from the nearest checkpoint)
     const std::size_t K = B.lambda.size();
     const double est_steps = static_cast<double>(pts.size()) + 64.0;
-    S.stride = std::max(1, static_cast<int>(std::ceil(est_steps * 3.0 * K / 8192.0)));
+    const double budget = std::max(8192.0, 48.0 * (3.0 * K + 7.0));  // and at least ~48 checkpoints
+    S.stride = std::max(1, static_cast<int>(std::ceil(est_steps * (3.0 * K + 7.0) / budget)));
     S.step_t.reserve(static_cast<std::size_t>(est_steps));
     S.step_tm.reserve(static_cast<std::size_t>(est_steps));
     S.step_slope.reserve(static_cast<std::size_t>(est_steps));
@@ -679,6 +680,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     S.checkpoints.reserve((static_cast<std::size_t>(est_steps) / S.stride + 2) * (3 * K + 7));
     H.samples.reserve(H.samples.size() + static_cast<std::size_t>(est_steps));
 
+    double h_guess = -1.0;      // next trial length of a checked step
     int until_checkpoint = 1;  // steps to the next checkpoint (the first step has one)
     StageEndedBy ended_by = until ? StageEndedBy::cap : StageEndedBy::duration;
     double t_local = 0.0;
@@ -881,6 +883,8 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
         shadow(end_s);
         if (run > 0) ring_shadow(end_s);
       } else {
+        // start from twice the last accepted step of this stage (not the whole piece each time)
+        if (h_guess > 0) h = std::min(h, h_guess);
         for (;;) {
           end_st = st;  // reuses end_st's storage (no allocation)
           eng->advance(B, end_st, h, slope, cache);
@@ -895,6 +899,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
           if (std::max({ec, em, es}) <= opt.sample_tol_K || h / 2 < h_min) break;
           h /= 2;
         }
+        h_guess = 2 * h;
       }
 
       // end condition: crossing within (last, mid] or (mid, end]

@@ -185,6 +185,7 @@ Basis make_basis(std::vector<AxisModes> axes, double alpha, int surface_axis, do
     sh.lambda_end = lam_end;
     sh.lambda_first = lam_end;
     double sum_s = 0, sum_m = 0, sum_sj = 0, sum_mj = 0;
+    std::vector<std::array<double, 3>> cand;  // λ, b·Φ(surface), b·Φ(mean)
     std::array<int, 3> j{0, 0, 0};
     const int m0 = static_cast<int>(sx[0].zeta.size()), m1 = na > 1 ? static_cast<int>(sx[1].zeta.size()) : 1,
               m2 = na > 2 ? static_cast<int>(sx[2].zeta.size()) : 1;
@@ -200,15 +201,24 @@ Basis make_basis(std::vector<AxisModes> axes, double alpha, int surface_axis, do
           }
           const bool first = j[0] == 0 && j[1] == 0 && j[2] == 0;
           if (lam <= lambda_cut || first || lam > lam_end) continue;
-          sh.lambda.push_back(lam);
-          sh.bs.push_back(b * sv);
-          sh.bm.push_back(b * mv);
-          sh.lambda_first = std::min(sh.lambda_first, lam);
-          sum_s += b * sv / lam;
-          sum_m += b * mv / lam;
-          sum_sj += b * sv;
-          sum_mj += b * mv;
+          cand.push_back({lam, b * sv, b * mv});
         }
+    // products: only the 2K slowest left-out modes (the remainder term covers the rest), so that an
+    // event's correction costs about two steps
+    std::sort(cand.begin(), cand.end(), [](const auto& x, const auto& y) { return x[0] < y[0]; });
+    const std::size_t keep = na == 1 ? cand.size() : std::min(cand.size(), 2 * B.lambda.size());
+    if (keep < cand.size()) sh.lambda_end = cand[keep][0];
+    for (std::size_t c = 0; c < keep; ++c) {
+      const double lam = cand[c][0], bs = cand[c][1], bm = cand[c][2];
+      sh.lambda.push_back(lam);
+      sh.bs.push_back(bs);
+      sh.bm.push_back(bm);
+      sh.lambda_first = std::min(sh.lambda_first, lam);
+      sum_s += bs / lam;
+      sum_m += bm / lam;
+      sum_sj += bs;
+      sum_mj += bm;
+    }
     sh.ramp_surface = B.q_surface - sum_s;
     sh.ramp_mean = B.q_mean - sum_m;
     // Σ over all modes of bΦ is the expansion of 1: 1 at the mean; at the surface point of a 1D
