@@ -407,3 +407,25 @@ TEST_CASE("every shape through h = inf, a zero-length stage and a capped until_m
     CHECK(std::isfinite(h.temperature_at(h.end_s() / 2, {0.5, 0.5, 0.5})));
   }
 }
+
+TEST_CASE("a medium ramp from the initial temperature equals the Duhamel integral summed directly") {
+  // Closed form of Duhamel's integral for T∞ = T0 + s·t: u(0, t) = −s Σ C_n (1 − e^{−λ_n t})/λ_n,
+  // summed here over 4000 modes (modes.hpp), independent of the engine's recursion and of its
+  // left-out-mode corrections. Sphere, Bi = 5.
+  const auto p = body(Shape::sphere);
+  const double L = 0.02, alpha = p.properties.diffusivity_m2_s(), s = 0.05;
+  const double h_W = 5.0 * 0.5 / L;
+  const auto hist = simulate(p, {stage({{0, 5.0}, {2000, 5.0 + s * 2000}}, h_W, 2000.0)});
+  const auto ms = modes(Geometry::sphere, 5.0, 4000);
+  double worst = 0;
+  for (double t : {0.5, 3.0, 17.0, 150.0, 999.0, 2000.0}) {
+    double u = 0;
+    for (const auto& m : ms) {
+      const double lam = alpha * m.zeta * m.zeta / (L * L);
+      u += -s * m.coefficient * (-std::expm1(-lam * t)) / lam;
+    }
+    worst = std::max(worst, std::abs(hist.evaluate(t).centre_C - (5.0 + s * t + u)));
+  }
+  MESSAGE("ramp vs direct Duhamel sum: worst centre " << worst << " K");
+  CHECK(worst <= 1e-6);
+}
