@@ -8,6 +8,7 @@
 
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/conduction/modes.hpp"
+#include "coldcore/conduction/overlap.hpp"
 #include "coldcore/conduction/quasi_steady.hpp"
 #include "coldcore/conduction/series.hpp"
 #include "coldcore/error.hpp"
@@ -428,4 +429,22 @@ TEST_CASE("a medium ramp from the initial temperature equals the Duhamel integra
   }
   MESSAGE("ramp vs direct Duhamel sum: worst centre " << worst << " K");
   CHECK(worst <= 1e-6);
+}
+
+TEST_CASE("projection inner products (Green's identity) equal the direct overlap integrals") {
+  // Independent formula: overlap.hpp (sinc / Lommel closed forms, checked there against adaptive
+  // quadrature) divided by the new mode's norm.
+  using namespace coldcore::detail;
+  for (Geometry g : {Geometry::slab, Geometry::cylinder, Geometry::sphere}) {
+    for (auto [bi_from, bi_to] : {std::pair{20.0, 0.8}, std::pair{kInfiniteBiot, 3.0}, std::pair{0.5, kInfiniteBiot}}) {
+      const auto from = axis_modes(g, bi_from, 0.02, 30), to = axis_modes(g, bi_to, 0.02, 30);
+      const auto M = projection_matrix(from, to);
+      double worst = 0;
+      for (int i = 0; i < 30; ++i)
+        for (int j = 0; j < 30; ++j)
+          worst = std::max(worst, std::abs(M[i * 30 + j] - mode_overlap(g, from.zeta[i], to.zeta[j]) / to.norm[j]));
+      MESSAGE(to_string(g) << " Bi " << bi_from << " -> " << bi_to << ": worst " << worst);
+      CHECK(worst <= 1e-10);
+    }
+  }
 }
