@@ -7,8 +7,13 @@
 
 #include "coldcore/conduction/modes.hpp"
 #include "coldcore/conduction/quasi_steady.hpp"
+#include "coldcore/error.hpp"
+#include <string>
 
 namespace coldcore::detail {
+
+// Beyond this many product modes a history would need hundreds of MB: refuse instead.
+constexpr std::size_t kMaxProductModes = 200000;
 
 int AxisModes::m() const { return geometry_exponent(geometry); }
 
@@ -142,6 +147,11 @@ Basis make_basis(std::vector<AxisModes> axes, double alpha, int surface_axis, do
         // always keep the first mode (Bi = 0 axis aside, λ_1 is the slowest)
         const bool first = idx[0] == 0 && idx[1] == 0 && idx[2] == 0;
         if (lam > lambda_cut && !first) continue;
+        if (B.index.size() >= kMaxProductModes)
+          throw NotConverged("simulate: product modes: more than " + std::to_string(kMaxProductModes) +
+                             " needed (lambda_cut = " + std::to_string(lambda_cut) +
+                             " 1/s): the body is too elongated for the product series at this tol_K; "
+                             "raise tol_K or model the long directions as a slab or cylinder");
         B.index.push_back(idx);
         B.lambda.push_back(lam);
         B.b.push_back(b);
