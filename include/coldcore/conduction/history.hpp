@@ -102,7 +102,11 @@ struct HistoryOptions {
 /// REQUIRES: product dimensions > 0 for its shape, properties > 0, every stage h_W_m2K > 0 or
 /// h_infinite, medium points non-empty with increasing times from 0, duration >= 0 or a cap > 0.
 /// Throws InputError "simulate: <key> = <value>: <requirement>" otherwise; NotConverged if a
-/// crossing cannot be located.
+/// crossing cannot be located, or if a product body would need more than 200000 product modes
+/// (e.g. a 10 × 100 × 100 mm brick at tol 1e-4 K: very elongated bodies are refused, not
+/// approximated).
+/// Cost: O(K) per internal step and per evaluate(); K ≈ 18 modes for a 40 mm sphere,
+/// ≈ 400 for a 40 × 60 mm finite cylinder at the default tolerance.
 History simulate(const Product& product, const std::vector<Stage>& stages, const HistoryOptions& options = {});
 
 }  // namespace coldcore
