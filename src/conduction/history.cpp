@@ -60,6 +60,12 @@ long Engine::epoch_of(double origin, double t) const {
 }
 
 void Engine::advance(const Basis& B, ModalState& st, double dt, double slope) const {
+  if (B.axes.size() > 1) {
+    // products: the factorised exponentials of the cached form are far cheaper than K exp calls
+    StepCache c;
+    advance(B, st, dt, slope, c);
+    return;
+  }
   const std::size_t K = B.lambda.size();
   double* a = st.a.data();
   double* wp = st.w_prev.data();
@@ -82,11 +88,34 @@ void Engine::advance(const Basis& B, ModalState& st, double dt, double slope, St
     c.e.resize(K);
     c.g.resize(K);
     c.bg.resize(K);
-    for (std::size_t k = 0; k < K; ++k) {
-      const double x = -B.lambda[k] * dt;
-      c.e[k] = std::exp(x);
-      c.g[k] = -std::expm1(x) / B.lambda[k];
-      c.bg[k] = B.b[k] * c.g[k];
+    if (B.axes.size() > 1) {
+      // A product mode decays as the product of its axis modes, e^{−(λi+λj+λk)dt}, so K
+      // exponentials reduce to one per axis mode and K products. Where λ·dt is small, 1 − e
+      // would cancel: those few modes keep expm1.
+      const std::size_t A = B.axes.size();
+      for (std::size_t ax = 0; ax < A; ++ax) {
+        const AxisModes& am = B.axes[ax];
+        c.axis_e[ax].resize(am.zeta.size());
+        for (std::size_t n = 0; n < am.zeta.size(); ++n)
+          c.axis_e[ax][n] = std::exp(-am.lambda(static_cast<int>(n), B.alpha) * dt);
+      }
+      for (std::size_t k = 0; k < K; ++k) {
+        const auto& ix = B.index[k];
+        double e = c.axis_e[0][static_cast<std::size_t>(ix[0])] * c.axis_e[1][static_cast<std::size_t>(ix[1])];
+        if (A > 2) e *= c.axis_e[2][static_cast<std::size_t>(ix[2])];
+        const double x = B.lambda[k] * dt;
+        const double one_minus_e = x > 0.5 ? 1.0 - e : -std::expm1(-x);
+        c.e[k] = e;
+        c.g[k] = one_minus_e / B.lambda[k];
+        c.bg[k] = one_minus_e * B.b_over_lambda[k];
+      }
+    } else {
+      for (std::size_t k = 0; k < K; ++k) {
+        const double x = -B.lambda[k] * dt;
+        c.e[k] = std::exp(x);
+        c.g[k] = -std::expm1(x) / B.lambda[k];
+        c.bg[k] = B.b[k] * c.g[k];
+      }
     }
     c.dt = dt;
     c.basis = &B;
@@ -153,11 +182,34 @@ ModalSums Engine::event_advance_sum(const Basis& B, ModalState& st, double origi
     c.e.resize(K);
     c.g.resize(K);
     c.bg.resize(K);
-    for (std::size_t k = 0; k < K; ++k) {
-      const double x = -B.lambda[k] * dt;
-      c.e[k] = std::exp(x);
-      c.g[k] = -std::expm1(x) / B.lambda[k];
-      c.bg[k] = B.b[k] * c.g[k];
+    if (B.axes.size() > 1) {
+      // A product mode decays as the product of its axis modes, e^{−(λi+λj+λk)dt}, so K
+      // exponentials reduce to one per axis mode and K products. Where λ·dt is small, 1 − e
+      // would cancel: those few modes keep expm1.
+      const std::size_t A = B.axes.size();
+      for (std::size_t ax = 0; ax < A; ++ax) {
+        const AxisModes& am = B.axes[ax];
+        c.axis_e[ax].resize(am.zeta.size());
+        for (std::size_t n = 0; n < am.zeta.size(); ++n)
+          c.axis_e[ax][n] = std::exp(-am.lambda(static_cast<int>(n), B.alpha) * dt);
+      }
+      for (std::size_t k = 0; k < K; ++k) {
+        const auto& ix = B.index[k];
+        double e = c.axis_e[0][static_cast<std::size_t>(ix[0])] * c.axis_e[1][static_cast<std::size_t>(ix[1])];
+        if (A > 2) e *= c.axis_e[2][static_cast<std::size_t>(ix[2])];
+        const double x = B.lambda[k] * dt;
+        const double one_minus_e = x > 0.5 ? 1.0 - e : -std::expm1(-x);
+        c.e[k] = e;
+        c.g[k] = one_minus_e / B.lambda[k];
+        c.bg[k] = one_minus_e * B.b_over_lambda[k];
+      }
+    } else {
+      for (std::size_t k = 0; k < K; ++k) {
+        const double x = -B.lambda[k] * dt;
+        c.e[k] = std::exp(x);
+        c.g[k] = -std::expm1(x) / B.lambda[k];
+        c.bg[k] = B.b[k] * c.g[k];
+      }
     }
     c.dt = dt;
     c.basis = &B;
@@ -403,7 +455,11 @@ void Engine::state_at(const StageModel& S, double t, ModalState& st, double& tm,
   step = step == 0 ? 0 : step - 1;
   const std::size_t ck = step / static_cast<std::size_t>(S.stride);
   S.load_checkpoint(ck, st);
-  StepCache cache;
+  // Scratch reused across calls (evaluate() is called hundreds of thousands of times by the
+  // lethality quadrature); invalidated here so it is refilled for this basis and step.
+  thread_local StepCache cache;
+  cache.basis = nullptr;
+  cache.dt = -1;
   for (std::size_t k = ck * S.stride; k < step; ++k) {
     advance(B, st, S.step_t[k + 1] - S.step_t[k], S.step_slope[k], cache);
     add_event(B, st, S.origin_s, S.step_t[k + 1], S.step_ds[k + 1], 0.0);
@@ -667,11 +723,12 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
       if ((stg.end.target_C - v0) * dir <= 0) ended_at_start = true;
     }
 
-    // checkpoint stride: keep the stored amplitudes near 2^13 doubles per stage (evaluate then
-    // re-advances at most `stride` exact steps from the nearest checkpoint)
+    // checkpoint stride: keep the stored amplitudes within 2^22 doubles (32 MB) per stage;
+    // evaluate() re-advances at most `stride` exact steps from the nearest checkpoint, and the
+    // lethality quadrature calls it very often, so memory is traded for speed here
     const std::size_t K = B.lambda.size();
     const double est_steps = static_cast<double>(pts.size()) + 64.0;
-    const double budget = std::max(8192.0, 48.0 * (3.0 * K + 7.0));  // and at least ~48 checkpoints
+    const double budget = std::max(4194304.0, 48.0 * (3.0 * K + 7.0));  // and at least ~48 checkpoints
     S.stride = std::max(1, static_cast<int>(std::ceil(est_steps * (3.0 * K + 7.0) / budget)));
     S.step_t.reserve(static_cast<std::size_t>(est_steps));
     S.step_tm.reserve(static_cast<std::size_t>(est_steps));

@@ -52,6 +52,7 @@ struct StepCache {
   double dt = -1;
   const Basis* basis = nullptr;
   std::vector<double> e, g, bg;  // bg = b·g
+  std::vector<double> axis_e[3];  // products: per-axis exponentials e^{−λ_n dt}
 };
 
 /// A recent event (change of medium slope ds, jump of u by `jump`) whose left-out-mode transient
