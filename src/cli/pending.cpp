@@ -10,9 +10,6 @@ void add_pending_verbs(CLI::App& app, VerbContext& ctx) {
   static const Pending kPending[] = {
       {"solve", "inverse questions: hold-time, chill-time, max-size, min-medium"},
       {"deviation", "delivered versus scheduled lethality from a logged medium"},
-      {"probe", "lethality from a measured cold-spot log"},
-      {"organisms", "the organism heat-resistance library with sources"},
-      {"rules", "the cooling-rule library with sources"},
       {"media", "surface heat-transfer coefficient ranges with sources"},
   };
   for (const auto& p : kPending) {

@@ -55,6 +55,15 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
     }
     default: write_run_text(report, out, u); break;
   }
+  // A stage that hit its cap did not run as scheduled: say so on stderr and never exit 0.
+  bool capped = false;
+  for (const auto& st : history.stages)
+    if (st.ended_by == StageEndedBy::cap) {
+      capped = true;
+      std::cerr << "coldcore: " << file.origin << ": stage '" << st.name << "' reached its cap at "
+                << duration_text(st.end_s - st.start_s) << " before its end condition was met\n";
+    }
+  if (capped) return kNotDemonstrated;
   return assessment.targets.empty() || assessment.all_met() ? kAllMet : kNotDemonstrated;
 }
 

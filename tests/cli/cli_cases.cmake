@@ -40,3 +40,49 @@ cli_expect(props_lean_beef 0 ARGS props --composition water=0.74,protein=0.22,fa
            STDOUT_HAS "20,0.5169" "1056.2" "3609.3" "# caution:")
 cli_expect(props_bad_sum 2 ARGS props --composition water=0.7 STDERR_HAS "composition sum = 0.7: must be 1 within 0.005")
 cli_expect(props_bad_component 2 ARGS props --composition water=0.7,sugar=0.3 STDERR_HAS "--composition sugar: unknown component")
+
+# Bad product files: refused by `coldcore run` with exit 2 and the exact message on their first line.
+file(GLOB COLDCORE_BAD_FILES ${PROJECT_SOURCE_DIR}/tests/cli/bad/*.toml)
+foreach(f IN LISTS COLDCORE_BAD_FILES)
+  get_filename_component(n ${f} NAME_WE)
+  file(RELATIVE_PATH rel ${PROJECT_SOURCE_DIR} ${f})
+  add_test(NAME cli.bad.${n}
+           COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DFILE=${rel} -P ${PROJECT_SOURCE_DIR}/tests/cli/bad_file.cmake
+           WORKING_DIRECTORY ${PROJECT_SOURCE_DIR})
+endforeach()
+
+# coldcore run on every demo product, in every format: cautions always present.
+foreach(p kofta-balls chicken-sausage-log corned-beef-can lasagne-tray)
+  foreach(fmt text json csv html)
+    cli_expect(run_${p}_${fmt} 0 ARGS run products/${p}.toml --format ${fmt} --date 2026-12-01
+               STDOUT_HAS "process authority" "heat-penetration" "temperature-distribution" "regulator")
+  endforeach()
+endforeach()
+cli_expect(run_units_F 0 ARGS run products/kofta-balls.toml --format csv --units F --date 2026-12-01
+           STDOUT_HAS "time_s,medium_F,centre_F,surface_F,mean_F,F_listeria-monocytogenes_min" "\n0,204.8,39.2,39.2,39.2,0")
+cli_expect(run_md_needs_out 2 ARGS run products/kofta-balls.toml --format md STDERR_HAS "give --out PATH.md")
+cli_expect(run_missing_file 2 ARGS run products/no-such-file.toml STDERR_HAS "products/no-such-file.toml: cannot read file")
+cli_expect(run_bad_step 2 ARGS run products/kofta-balls.toml --step-s -5 STDERR_HAS "--step-s = -5.000: must be > 0")
+# A chill that cannot reach its end temperature within the cap is reported and exits 1.
+cli_expect(run_cap_reached 1 ARGS run tests/cli/cap_reached.toml
+           STDOUT_HAS "CAP REACHED" STDERR_HAS "reached its cap")
+
+# coldcore probe on the shipped invented log (General Method; trapezoid and Simpson shown).
+cli_expect(probe_kofta 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --target-log 6 --rule two-stage-6h
+           STDOUT_HAS "trapezoid" "Simpson" "met" "process authority")
+cli_expect(probe_json 0 ARGS probe products/logs/kofta-probe.csv --reference-C 70 --z-C 7.5 --F-min 2 --format json
+           STDOUT_HAS "\"verdict\": \"met\"" "cautions")
+cli_expect(probe_not_demonstrated 1 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --target-log 1e6
+           STDOUT_HAS "not demonstrated")
+cli_expect(probe_unknown_organism 2 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogens --target-log 6
+           STDERR_HAS "did you mean 'listeria-monocytogenes'")
+cli_expect(probe_nothing_asked 2 ARGS probe products/logs/kofta-probe.csv STDERR_HAS "give --organism KEY")
+
+# The data libraries list their sources.
+foreach(verb organisms rules)
+  foreach(fmt text json csv)
+    cli_expect(${verb}_${fmt} 0 ARGS ${verb} --format ${fmt} STDOUT_HAS "process authority")
+  endforeach()
+endforeach()
+cli_expect(organisms_sources 0 ARGS organisms STDOUT_HAS "c-botulinum-proteolytic" "from memory" "REFERENCES")
+cli_expect(rules_food_code 0 ARGS rules STDOUT_HAS "two-stage-6h" "57.0 °C -> 21.0 °C within 2 h 00 min 00 s")
