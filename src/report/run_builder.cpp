@@ -214,9 +214,12 @@ void add_assessment(RunReport& report, const History& history, const Assessment&
       report.target_lines.push_back({t.column, t.F_required_s / 60.0, "required " + t.name + " " + minutes_up(t.F_required_s)});
     }
     if (t.cooling) {
+      int n = 0;
       for (const auto& st : t.cooling->steps) {
+        ++n;
         if (!st.start_s) continue;
-        report.rule_boxes.push_back({t.name + ": " + st.step.label + " within " + duration_text(st.step.within_s),
+        // the writers append the step's limits in the display unit
+        report.rule_boxes.push_back({"step " + std::to_string(n) + " (" + duration_text(st.step.within_s) + ")",
                                      *st.start_s, *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C});
       }
     }
