@@ -105,6 +105,7 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
   const io::DataLibraries lib = io::load_libraries(data_dir());
   AssessOptions opts;
   opts.origin = a.log;
+  opts.cooking_tables = &lib.cooking;
   const ProbeAssessment pa = assess_probe_log(log.time_s, log.temp_C, targets, lib.organisms, lib.rules, opts, a.log);
 
   RunReport r;

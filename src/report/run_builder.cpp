@@ -194,6 +194,13 @@ VerdictRow verdict_row(const TargetResult& t) {
     }
     for (const auto& n : t.cooling->notes) v.details.push_back(n);
   }
+  if (t.cooking) {
+    if (t.cooking->instant_reached_s)
+      v.details.push_back("the table's instant row was reached at " + duration_text(*t.cooking->instant_reached_s));
+    else
+      v.details.push_back("equivalent-time fraction of the table's requirement: " + shown_down(t.cooking->fraction) +
+                          " (met when above 1)");
+  }
   if (t.reached_s) v.details.push_back("first reached at " + duration_text(*t.reached_s));
   for (const auto& n : t.notes) v.details.push_back(n);
   if (!t.source.empty()) v.details.push_back("source: " + t.source);

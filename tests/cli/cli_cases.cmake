@@ -94,3 +94,7 @@ if(NOT COLDCORE_SANITIZE)
            COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
                    -P ${PROJECT_SOURCE_DIR}/tests/cli/reports_current.cmake)
 endif()
+
+# A cooking time-temperature table as a target (FSIS Appendix A 7-log column, REFERENCES 1.4).
+cli_expect(run_cooking_table 0 ARGS run products/chicken-sausage-log.toml
+           STDOUT_HAS "fsis-appendix-a-7-log" "instant row reached")
