@@ -98,3 +98,8 @@ endif()
 # A cooking time-temperature table as a target (FSIS Appendix A 7-log column, REFERENCES 1.4).
 cli_expect(run_cooking_table 0 ARGS run products/chicken-sausage-log.toml
            STDOUT_HAS "fsis-appendix-a-7-log" "instant row reached")
+
+# Every reporting verb in every format carries the cautions (one walk over verbs x formats).
+add_test(NAME cli.cautions_every_verb_and_format
+         COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
+                 "-DEXTRA_CASES=${COLDCORE_CAUTION_CASES}" -P ${PROJECT_SOURCE_DIR}/tests/cli/cautions_all.cmake)
