@@ -711,7 +711,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     const std::size_t K = B.lambda.size();
     const double est_steps = static_cast<double>(pts.size()) + 64.0;
     const double budget = std::max(4194304.0, 48.0 * (3.0 * K + 7.0));  // and at least ~48 checkpoints
-    const int min_stride = std::max(1, static_cast<int>(64 / std::max<std::size_t>(K, 1)));
+    const int min_stride = std::max(1, static_cast<int>(128 / std::max<std::size_t>(K, 1)));
     S.stride = std::max(min_stride, static_cast<int>(std::ceil(est_steps * (3.0 * K + 7.0) / budget)));
     S.step_t.reserve(static_cast<std::size_t>(est_steps));
     S.step_tm.reserve(static_cast<std::size_t>(est_steps));
