@@ -33,12 +33,14 @@ constexpr double kInsulatedFourier = 0.01;
 std::size_t StageModel::checkpoint_count() const { return checkpoints.size() / (3 * basis->lambda.size() + 7); }
 
 void StageModel::store_checkpoint(const ModalState& st) {
-  checkpoints.insert(checkpoints.end(), st.a.begin(), st.a.end());
-  checkpoints.insert(checkpoints.end(), st.w_prev.begin(), st.w_prev.end());
-  checkpoints.insert(checkpoints.end(), st.w_cur.begin(), st.w_cur.end());
+  const std::size_t K = st.a.size();
+  double* p = checkpoints.append(3 * K + 7);
+  std::copy(st.a.begin(), st.a.end(), p);
+  std::copy(st.w_prev.begin(), st.w_prev.end(), p + K);
+  std::copy(st.w_cur.begin(), st.w_cur.end(), p + 2 * K);
   const double tail[7] = {st.s_prev.ds, st.s_prev.ds_t, st.s_prev.jump, st.s_cur.ds, st.s_cur.ds_t, st.s_cur.jump,
                           static_cast<double>(st.epoch)};
-  checkpoints.insert(checkpoints.end(), tail, tail + 7);
+  std::copy(tail, tail + 7, p + 3 * K);
 }
 
 void StageModel::load_checkpoint(std::size_t i, ModalState& st) const {
@@ -82,44 +84,48 @@ void Engine::advance(const Basis& B, ModalState& st, double dt, double slope) co
   }
 }
 
+void Engine::fill_cache(const Basis& B, double dt, StepCache& c) const {
+  if (c.dt == dt && c.basis == &B) return;  // a regular log: every step after the first hits
+  const std::size_t K = B.lambda.size();
+  c.e.resize(K);
+  c.g.resize(K);
+  c.bg.resize(K);
+  if (B.axes.size() > 1) {
+    // A product mode decays as the product of its axis modes, e^{−(λi+λj+λk)dt}, so K
+    // exponentials reduce to one per axis mode and K products. Where λ·dt is small, 1 − e
+    // would cancel: those few modes keep expm1.
+    const std::size_t A = B.axes.size();
+    for (std::size_t ax = 0; ax < A; ++ax) {
+      const AxisModes& am = B.axes[ax];
+      c.axis_e[ax].resize(am.zeta.size());
+      for (std::size_t n = 0; n < am.zeta.size(); ++n)
+        c.axis_e[ax][n] = std::exp(-am.lambda(static_cast<int>(n), B.alpha) * dt);
+    }
+    for (std::size_t k = 0; k < K; ++k) {
+      const auto& ix = B.index[k];
+      double e = c.axis_e[0][static_cast<std::size_t>(ix[0])] * c.axis_e[1][static_cast<std::size_t>(ix[1])];
+      if (A > 2) e *= c.axis_e[2][static_cast<std::size_t>(ix[2])];
+      const double x = B.lambda[k] * dt;
+      const double one_minus_e = x > 0.5 ? 1.0 - e : -std::expm1(-x);
+      c.e[k] = e;
+      c.g[k] = one_minus_e / B.lambda[k];
+      c.bg[k] = one_minus_e * B.b_over_lambda[k];
+    }
+  } else {
+    for (std::size_t k = 0; k < K; ++k) {
+      const double x = -B.lambda[k] * dt;
+      c.e[k] = std::exp(x);
+      c.g[k] = -std::expm1(x) / B.lambda[k];
+      c.bg[k] = B.b[k] * c.g[k];
+    }
+  }
+  c.dt = dt;
+  c.basis = &B;
+}
+
 void Engine::advance(const Basis& B, ModalState& st, double dt, double slope, StepCache& c) const {
   const std::size_t K = B.lambda.size();
-  if (c.dt != dt || c.basis != &B) {
-    c.e.resize(K);
-    c.g.resize(K);
-    c.bg.resize(K);
-    if (B.axes.size() > 1) {
-      // A product mode decays as the product of its axis modes, e^{−(λi+λj+λk)dt}, so K
-      // exponentials reduce to one per axis mode and K products. Where λ·dt is small, 1 − e
-      // would cancel: those few modes keep expm1.
-      const std::size_t A = B.axes.size();
-      for (std::size_t ax = 0; ax < A; ++ax) {
-        const AxisModes& am = B.axes[ax];
-        c.axis_e[ax].resize(am.zeta.size());
-        for (std::size_t n = 0; n < am.zeta.size(); ++n)
-          c.axis_e[ax][n] = std::exp(-am.lambda(static_cast<int>(n), B.alpha) * dt);
-      }
-      for (std::size_t k = 0; k < K; ++k) {
-        const auto& ix = B.index[k];
-        double e = c.axis_e[0][static_cast<std::size_t>(ix[0])] * c.axis_e[1][static_cast<std::size_t>(ix[1])];
-        if (A > 2) e *= c.axis_e[2][static_cast<std::size_t>(ix[2])];
-        const double x = B.lambda[k] * dt;
-        const double one_minus_e = x > 0.5 ? 1.0 - e : -std::expm1(-x);
-        c.e[k] = e;
-        c.g[k] = one_minus_e / B.lambda[k];
-        c.bg[k] = one_minus_e * B.b_over_lambda[k];
-      }
-    } else {
-      for (std::size_t k = 0; k < K; ++k) {
-        const double x = -B.lambda[k] * dt;
-        c.e[k] = std::exp(x);
-        c.g[k] = -std::expm1(x) / B.lambda[k];
-        c.bg[k] = B.b[k] * c.g[k];
-      }
-    }
-    c.dt = dt;
-    c.basis = &B;
-  }
+  fill_cache(B, dt, c);
   double* a = st.a.data();
   double* wp = st.w_prev.data();
   double* wc = st.w_cur.data();
@@ -170,86 +176,27 @@ void roll_epoch(ModalState& st, long e) {
 }
 }  // namespace
 
-ModalSums Engine::event_advance_sum(const Basis& B, ModalState& st, double origin, double t_event, double ds,
-                                    double jump, double dt, double slope, StepCache& c,
-                                    std::vector<double>* checkpoint) const {
-  roll_epoch(st, epoch_of(origin, t_event));
-  st.s_cur.ds += ds;
-  st.s_cur.ds_t += ds * (t_event - origin);
-  st.s_cur.jump += jump;
-  const std::size_t K = B.lambda.size();
-  if (c.dt != dt || c.basis != &B) {
-    c.e.resize(K);
-    c.g.resize(K);
-    c.bg.resize(K);
-    if (B.axes.size() > 1) {
-      // A product mode decays as the product of its axis modes, e^{−(λi+λj+λk)dt}, so K
-      // exponentials reduce to one per axis mode and K products. Where λ·dt is small, 1 − e
-      // would cancel: those few modes keep expm1.
-      const std::size_t A = B.axes.size();
-      for (std::size_t ax = 0; ax < A; ++ax) {
-        const AxisModes& am = B.axes[ax];
-        c.axis_e[ax].resize(am.zeta.size());
-        for (std::size_t n = 0; n < am.zeta.size(); ++n)
-          c.axis_e[ax][n] = std::exp(-am.lambda(static_cast<int>(n), B.alpha) * dt);
-      }
-      for (std::size_t k = 0; k < K; ++k) {
-        const auto& ix = B.index[k];
-        double e = c.axis_e[0][static_cast<std::size_t>(ix[0])] * c.axis_e[1][static_cast<std::size_t>(ix[1])];
-        if (A > 2) e *= c.axis_e[2][static_cast<std::size_t>(ix[2])];
-        const double x = B.lambda[k] * dt;
-        const double one_minus_e = x > 0.5 ? 1.0 - e : -std::expm1(-x);
-        c.e[k] = e;
-        c.g[k] = one_minus_e / B.lambda[k];
-        c.bg[k] = one_minus_e * B.b_over_lambda[k];
-      }
-    } else {
-      for (std::size_t k = 0; k < K; ++k) {
-        const double x = -B.lambda[k] * dt;
-        c.e[k] = std::exp(x);
-        c.g[k] = -std::expm1(x) / B.lambda[k];
-        c.bg[k] = B.b[k] * c.g[k];
-      }
-    }
-    c.dt = dt;
-    c.basis = &B;
-  }
-  double* a = st.a.data();
-  double* wp = st.w_prev.data();
-  double* wc = st.w_cur.data();
-  const double* e = c.e.data();
-  const double* bg = c.bg.data();
-  const double* b = B.b.data();
-  const double* bl = B.b_over_lambda.data();
-  const double* vs = B.surface.data();
-  const double* vm = B.mean.data();
-  if (checkpoint) {
-    const std::size_t base = checkpoint->size();
-    checkpoint->resize(base + 3 * K + 7);
-    double* ck = checkpoint->data() + base;
-    for (std::size_t k = 0; k < K; ++k) {
-      ck[k] = a[k] + b[k] * jump;
-      ck[K + k] = wp[k];
-      ck[2 * K + k] = wc[k] + bl[k] * ds + b[k] * jump;
-    }
-    const double tail[7] = {st.s_prev.ds, st.s_prev.ds_t, st.s_prev.jump, st.s_cur.ds, st.s_cur.ds_t, st.s_cur.jump,
-                            static_cast<double>(st.epoch)};
-    std::copy(tail, tail + 7, ck + 3 * K);
-  }
-  double s0 = 0, s1 = 0, s2 = 0, s3 = 0;
-  const double bs = slope;
-  if (jump != 0.0) {
-    for (std::size_t k = 0; k < K; ++k) {
-      a[k] += b[k] * jump;
-      wc[k] += b[k] * jump;
-    }
-  }
-  // the w sums are needed apart only when the end of the step lies in a later epoch (rare):
-  // the caller then recomputes them with sums()
-#pragma omp simd reduction(+ : s0, s1, s2, s3)
+namespace {
+// One pass over the modes of event_advance_sum: the event's ds enters w_cur, then a, w_prev and
+// w_cur decay over the step and the sums are taken. With Store, the state after the event (before
+// the decay) is written to ck in the checkpoint layout. Restrict pointers and no branch inside
+// the loop let it vectorise; element-wise results are the same as the scalar loop's.
+template <bool Store>
+void step_kernel(std::size_t K, double* __restrict a, double* __restrict wp, double* __restrict wc,
+                 const double* __restrict e, const double* __restrict bg, const double* __restrict bl,
+                 const double* __restrict vs, const double* __restrict vm, double ds, double slope,
+                 double* __restrict ck, double& s0_out, double& s1_out, double& s2_out) {
+  double s0 = 0, s1 = 0, s2 = 0;
+#pragma omp simd reduction(+ : s0, s1, s2)
   for (std::size_t k = 0; k < K; ++k) {
-    const double ak = a[k] * e[k] - bs * bg[k];
-    const double wck = (wc[k] + bl[k] * ds) * e[k];
+    const double wce = wc[k] + bl[k] * ds;
+    if constexpr (Store) {
+      ck[k] = a[k];
+      ck[K + k] = wp[k];
+      ck[2 * K + k] = wce;
+    }
+    const double ak = a[k] * e[k] - slope * bg[k];
+    const double wck = wce * e[k];
     const double wpk = wp[k] * e[k];
     a[k] = ak;
     wc[k] = wck;
@@ -258,12 +205,44 @@ ModalSums Engine::event_advance_sum(const Basis& B, ModalState& st, double origi
     s1 += ak * vs[k];
     s2 += ak * vm[k];
   }
-  (void)s3;
+  s0_out = s0;
+  s1_out = s1;
+  s2_out = s2;
+}
+}  // namespace
+
+ModalSums Engine::event_advance_sum(const Basis& B, ModalState& st, double origin, double t_event, double ds,
+                                    double jump, double dt, double slope, StepCache& c, FlatBuffer* checkpoint) const {
+  roll_epoch(st, epoch_of(origin, t_event));
+  st.s_cur.ds += ds;
+  st.s_cur.ds_t += ds * (t_event - origin);
+  st.s_cur.jump += jump;
+  const std::size_t K = B.lambda.size();
+  fill_cache(B, dt, c);
+  double* a = st.a.data();
+  double* wc = st.w_cur.data();
+  if (jump != 0.0) {
+    const double* b = B.b.data();
+    for (std::size_t k = 0; k < K; ++k) {
+      a[k] += b[k] * jump;
+      wc[k] += b[k] * jump;
+    }
+  }
+  // the w sums are needed apart only when the end of the step lies in a later epoch (rare):
+  // the caller then recomputes them with sums()
   ModalSums out;
-  out.a = s0;  // Σ (a − w_prev − w_cur): only valid together with combined = true
-  out.a_surface = s1;
-  out.a_mean = s2;
-  out.combined = true;
+  if (checkpoint) {
+    double* ck = checkpoint->append(3 * K + 7);
+    const double tail[7] = {st.s_prev.ds, st.s_prev.ds_t, st.s_prev.jump, st.s_cur.ds, st.s_cur.ds_t, st.s_cur.jump,
+                            static_cast<double>(st.epoch)};
+    std::copy(tail, tail + 7, ck + 3 * K);
+    step_kernel<true>(K, a, st.w_prev.data(), wc, c.e.data(), c.bg.data(), B.b_over_lambda.data(), B.surface.data(),
+                      B.mean.data(), ds, slope, ck, out.a, out.a_surface, out.a_mean);
+  } else {
+    step_kernel<false>(K, a, st.w_prev.data(), wc, c.e.data(), c.bg.data(), B.b_over_lambda.data(), B.surface.data(),
+                       B.mean.data(), ds, slope, nullptr, out.a, out.a_surface, out.a_mean);
+  }
+  out.combined = true;  // out.a = Σ (a − w_prev − w_cur): only valid together with combined = true
   return out;
 }
 
@@ -725,11 +704,15 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
 
     // checkpoint stride: keep the stored amplitudes within 2^22 doubles (32 MB) per stage;
     // evaluate() re-advances at most `stride` exact steps from the nearest checkpoint, and the
-    // lethality quadrature calls it very often, so memory is traded for speed here
+    // lethality quadrature calls it very often, so memory is traded for speed here. With few
+    // modes a checkpoint at every step is not worth its memory traffic (it cost simulate() more
+    // than the stepping itself): re-advancing up to ~64 mode-steps is small beside the O(K)
+    // exponentials evaluate() needs anyway.
     const std::size_t K = B.lambda.size();
     const double est_steps = static_cast<double>(pts.size()) + 64.0;
     const double budget = std::max(4194304.0, 48.0 * (3.0 * K + 7.0));  // and at least ~48 checkpoints
-    S.stride = std::max(1, static_cast<int>(std::ceil(est_steps * (3.0 * K + 7.0) / budget)));
+    const int min_stride = std::max(1, static_cast<int>(128 / std::max<std::size_t>(K, 1)));
+    S.stride = std::max(min_stride, static_cast<int>(std::ceil(est_steps * (3.0 * K + 7.0) / budget)));
     S.step_t.reserve(static_cast<std::size_t>(est_steps));
     S.step_tm.reserve(static_cast<std::size_t>(est_steps));
     S.step_slope.reserve(static_cast<std::size_t>(est_steps));

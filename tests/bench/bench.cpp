@@ -1,6 +1,7 @@
 // Benchmark of the history engine: centre history through a 4-hour logged medium sampled every
 // second (14,400 intervals, h constant), for a sphere and a finite cylinder.
-// Usage: coldcore_bench [--repeat N]. Prints "<case> <ms per history> ms". No assertions.
+// Usage: coldcore_bench [--repeat N] [--case sphere|cylinder]. Prints "<case> <ms per history> ms".
+// No assertions. --case runs one case only (e.g. to count its instructions under callgrind).
 #include <algorithm>
 #include <chrono>
 #include <cmath>
@@ -49,11 +50,18 @@ double time_ms(const Product& p, const std::vector<Stage>& st, int repeat, doubl
 
 int main(int argc, char** argv) {
   int repeat = 21;
+  bool run_sphere = true, run_cylinder = true;
   for (int i = 1; i < argc; ++i) {
     if (std::strcmp(argv[i], "--repeat") == 0 && i + 1 < argc) {
       repeat = std::max(1, std::atoi(argv[++i]));
+    } else if (std::strcmp(argv[i], "--case") == 0 && i + 1 < argc && std::strcmp(argv[i + 1], "sphere") == 0) {
+      run_cylinder = false;
+      ++i;
+    } else if (std::strcmp(argv[i], "--case") == 0 && i + 1 < argc && std::strcmp(argv[i + 1], "cylinder") == 0) {
+      run_sphere = false;
+      ++i;
     } else {
-      std::fprintf(stderr, "usage: coldcore_bench [--repeat N]\n");
+      std::fprintf(stderr, "usage: coldcore_bench [--repeat N] [--case sphere|cylinder]\n");
       return 2;
     }
   }
@@ -76,9 +84,13 @@ int main(int argc, char** argv) {
   fc.dims.length_m = 0.06;
 
   double c = 0;
-  const double ms_s = time_ms(sphere, st, repeat, c);
-  std::printf("sphere-4h-log %.3f ms\n", ms_s);
-  const double ms_f = time_ms(fc, st, std::max(1, repeat / 3), c);
-  std::printf("finite-cylinder-4h-log %.3f ms\n", ms_f);
+  if (run_sphere) {
+    const double ms_s = time_ms(sphere, st, repeat, c);
+    std::printf("sphere-4h-log %.3f ms\n", ms_s);
+  }
+  if (run_cylinder) {
+    const double ms_f = time_ms(fc, st, std::max(1, repeat / 3), c);
+    std::printf("finite-cylinder-4h-log %.3f ms\n", ms_f);
+  }
   return 0;
 }

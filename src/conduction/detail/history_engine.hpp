@@ -1,5 +1,7 @@
 #pragma once
 // State of the history engine, shared by simulate() and History::evaluate. Private.
+#include <algorithm>
+#include <cstddef>
 #include <memory>
 #include <vector>
 
@@ -23,6 +25,36 @@ struct ModalState {
   long epoch = 0;
 };
 
+/// Growable flat array of doubles whose appended space is left uninitialised: checkpoints are
+/// written right after they are appended, and zero-filling them first (std::vector::resize) cost
+/// about as much as writing them.
+class FlatBuffer {
+ public:
+  void reserve(std::size_t n) {
+    if (n > cap_) grow(n);
+  }
+  /// n uninitialised doubles at the end (valid until the next append or reserve)
+  double* append(std::size_t n) {
+    if (size_ + n > cap_) grow(std::max(size_ + n, 2 * cap_));
+    double* out = p_.get() + size_;
+    size_ += n;
+    return out;
+  }
+  const double* data() const { return p_.get(); }
+  std::size_t size() const { return size_; }
+  bool empty() const { return size_ == 0; }
+
+ private:
+  void grow(std::size_t n) {
+    auto q = std::make_unique_for_overwrite<double[]>(n);
+    if (size_ > 0) std::copy(p_.get(), p_.get() + size_, q.get());
+    p_ = std::move(q);
+    cap_ = n;
+  }
+  std::unique_ptr<double[]> p_;
+  std::size_t size_ = 0, cap_ = 0;
+};
+
 struct StageModel {
   std::shared_ptr<const Basis> basis;
   bool projected = false;
@@ -35,7 +67,7 @@ struct StageModel {
   int stride = 1;                     // a checkpoint every `stride` steps
   // state at step_t[k·stride], after its event, flat: a, w_prev, w_cur (K each), then
   // s_prev (3), s_cur (3), epoch: 3K + 7 doubles per checkpoint
-  std::vector<double> checkpoints;
+  FlatBuffer checkpoints;
   std::size_t checkpoint_count() const;
   void store_checkpoint(const ModalState& st);
   void load_checkpoint(std::size_t i, ModalState& st) const;
@@ -95,7 +127,9 @@ struct Engine {
   /// add_event at t_event, then advance by dt, then sum, in one pass over the modes (the hot path
   /// of a 1 s log). If `checkpoint` is set, the state after the event is appended to it.
   ModalSums event_advance_sum(const Basis& B, ModalState& st, double origin, double t_event, double ds, double jump,
-                              double dt, double slope, StepCache& cache, std::vector<double>* checkpoint) const;
+                              double dt, double slope, StepCache& cache, FlatBuffer* checkpoint) const;
+  /// fills `cache` for step length dt in basis B (if it does not already hold them)
+  void fill_cache(const Basis& B, double dt, StepCache& cache) const;
   double centre_from(const Basis& B, const ModalState& st, const ModalSums& s, double origin, double t, double tm,
                      double slope) const;
   void add_event(const Basis& B, ModalState& st, double origin, double t, double ds, double jump) const;
