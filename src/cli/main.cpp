@@ -17,6 +17,7 @@ int real_main(int argc, char** argv) {
       "solution, 2 bad input or usage.\n"
       "Results are engineering estimates; a qualified process authority and the local regulator decide.");
   VerbContext ctx;
+  add_run_verb(app, ctx);
   add_modes_verb(app, ctx);
   add_props_verb(app, ctx);
   add_pending_verbs(app, ctx);

@@ -92,9 +92,10 @@ MassFractions parse_composition(const toml::table& t, const std::string& origin)
   get("carbohydrate", m.carbohydrate);
   get("fiber", m.fiber);
   get("ash", m.ash);
-  if (std::abs(sum - 1.0) > 0.01)
+  if (std::abs(sum - 1.0) > composition_sum_tolerance)
     throw InputError(origin + ": product.composition = " + detail::format_value(t) +
-                     ": the mass fractions must sum to 1 (within 0.01); they sum to " + format_number(sum));
+                     ": the mass fractions must sum to 1 (within " + format_number(composition_sum_tolerance) +
+                     "); they sum to " + format_number(sum));
   return m;
 }
 

@@ -46,16 +46,16 @@
 
 #include "coldcore/io/logger_csv.hpp"
 #include "coldcore/process/schedule.hpp"
+#include "coldcore/properties/composition.hpp"
 #include "coldcore/process/targets.hpp"
 
 namespace coldcore::io {
 
-/// Mass fractions of [product.composition] (each in [0, 1], summing to 1 within 0.01). When a
-/// file gives these instead of [product.properties], Product::properties stays zero and the
-/// properties module derives temperature-dependent values from the composition.
-struct MassFractions {
-  double water = 0, protein = 0, fat = 0, carbohydrate = 0, fiber = 0, ash = 0;
-};
+/// Mass fractions of [product.composition] (each in [0, 1], summing to 1 within
+/// composition_sum_tolerance). When a file gives these instead of [product.properties],
+/// Product::properties stays zero and the properties module derives temperature-dependent
+/// values from the composition. The same type the properties module takes.
+using MassFractions = coldcore::Composition;
 
 struct ProductFile {
   Product product;

@@ -52,6 +52,28 @@ struct VerdictRow {
   std::string value_unit;
 };
 
+/// A cooling-rule step drawn over the cooling curve: the checked temperature (the centre) must
+/// fall from temp_hi_C, which it passed at t0_s, to temp_lo_C no later than t1_s. Times from the
+/// process start; temperatures in °C. The writers draw it as a shaded box whose right edge is
+/// the deadline: the curve must leave the box through its lower edge.
+struct RuleBox {
+  std::string label;     ///< e.g. "step 1 (2 h)"; no temperatures: writers append the limits
+                         ///< in the display unit ("step 1 (2 h): 57.0 → 21.0 °C")
+  double t0_s = 0, t1_s = 0;
+  double temp_hi_C = 0, temp_lo_C = 0;
+};
+
+/// A required value drawn as a horizontal line on the plot that shows history column `column`,
+/// e.g. {"F_F70_min", 2.0} (minutes) or {"centre_C", 72.0} (°C, converted for --units F).
+struct TargetLine {
+  std::string column;
+  double value = 0;
+  std::string label;     ///< legend text; empty: "required <column> = <value>"
+};
+
+/// History column names the html and markdown writers recognise: time_s, medium_C, centre_C,
+/// surface_C, mean_C, the optional lumped_centre_C (the lumped-capacitance estimate of the
+/// centre, drawn beside the exact centre when present) and F_<name>_min (cumulative lethality).
 struct RunReport {
   std::string title;
   std::string verb;                      ///< "run", "modes", ...
@@ -63,6 +85,8 @@ struct RunReport {
   std::vector<std::string> assumptions;
   std::vector<KeyValue> provenance;      ///< tool version, input file, SHA-256, date
   std::vector<std::string> cautions;     ///< always filled from cautions()
+  std::vector<RuleBox> rule_boxes;       ///< cooling-rule steps to draw (may be empty)
+  std::vector<TargetLine> target_lines;  ///< required values to draw (may be empty)
 };
 
 /// "met" or "not demonstrated".

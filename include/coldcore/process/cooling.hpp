@@ -1,0 +1,101 @@
+#pragma once
+/// Cooling (stabilisation) rules as data (products/cooling-rules.toml) and a checker that reports,
+/// for each step of a rule, the elapsed time, the limit and the margin.
+///
+/// Clock definition (exact). For a step "from_C -> to_C within limit":
+///  - the step's clock starts at the first time t_start at which the temperature falls through
+///    from_C: T(t) > from_C just before t_start and T(t_start) <= from_C (the crossing is located
+///    by root finding on the curve; for a log, on its linear interpolation). Later re-heating above
+///    from_C does not restart the clock (it is noted).
+///  - if the record is never above from_C, the clock starts at the time of the record's highest
+///    temperature (the last time it is reached on the scan grid; the first row for a log that only
+///    cools) and a note says the time spent above from_C before the record, if any, is not counted.
+///  - if the record ends still above from_C, the clock never starts: not demonstrated.
+///  - the step ends at the first time t_end >= t_start with T(t_end) <= to_C.
+///    elapsed = t_end − t_start; margin = limit − elapsed. If to_C is never reached, elapsed is the
+///    lower bound (record end − t_start) and the step is not demonstrated.
+///  - a step passes only when to_C was reached and margin > 0 (strictly; a tie is not shown as met).
+///  - advisory steps (FSIS Appendix B option 2: 48.9 -> 26.7 °C in more than 1 h) never fail the
+///    rule; exceeding them raises a flag in the notes.
+/// Rule-level condition chill_start_within_s (option 2: chilling begun within 90 min after the
+/// cook): needs CoolingContext::cook_end_s and chill_start_s; when either is missing the condition
+/// — and so the rule — is not demonstrated.
+#include <functional>
+#include <optional>
+#include <span>
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace coldcore {
+
+struct CoolingStep {
+  std::string label;       ///< e.g. "57 -> 21 C"
+  double from_C = 0;
+  double to_C = 0;         ///< < from_C
+  double within_s = 0;     ///< > 0
+  bool advisory = false;
+  std::string source, status;
+};
+
+struct CoolingRule {
+  std::string key, name, source, status, note;
+  std::vector<CoolingStep> steps;
+  std::optional<double> chill_start_within_s;  ///< chilling must begin within this after the cook
+  std::string chill_start_source;
+};
+
+struct RuleLibrary {
+  std::vector<CoolingRule> rules;
+  std::string origin;
+  const CoolingRule* find(std::string_view key) const;
+  /// Else InputError "<place>: rule = "<key>": not in <origin>; did you mean '<nearest>'?".
+  const CoolingRule& at(std::string_view key, std::string_view place) const;
+};
+
+/// Parses cooling-rules.toml (schema 1):
+///   [[rule]] key, name, source, status, note?, chill_start_within_min?, chill_start_source?
+///   [[rule.step]] from_C | from_F, to_C | to_F, within_h | within_min | within_s, advisory?,
+///                 source, status
+/// °F values are converted exactly ((F − 32)/1.8).
+RuleLibrary parse_cooling_rules(std::string_view toml_text, std::string_view origin);
+
+/// Extra facts the temperature record cannot show.
+struct CoolingContext {
+  std::optional<double> cook_end_s;     ///< end of the cook cycle
+  std::optional<double> chill_start_s;  ///< when chilling began
+  std::string where = "cold spot";      ///< label of the temperature checked (notes only)
+};
+
+struct CoolingStepResult {
+  CoolingStep step;
+  std::optional<double> start_s;   ///< clock start
+  std::optional<double> end_s;     ///< reached to_C
+  double elapsed_s = 0;            ///< end − start, or a lower bound when not reached
+  double margin_s = 0;             ///< within − elapsed
+  bool reached = false;
+  bool passed = false;             ///< reached && margin > 0 (advisory steps: not exceeded)
+  std::vector<std::string> notes;
+};
+
+struct CoolingCheck {
+  std::string rule_key;
+  std::vector<CoolingStepResult> steps;
+  std::optional<double> chill_delay_s;   ///< chill_start − cook_end when both known
+  std::optional<double> chill_delay_margin_s;
+  bool passed = false;                   ///< every non-advisory step passed and the chill-start condition met
+  std::vector<std::string> notes;        ///< flags (advisory steps exceeded, missing context)
+};
+
+/// Checks a measured log (linear between rows). REQUIRES: times strictly increasing (else InputError).
+CoolingCheck check_cooling(std::span<const double> times_s, std::span<const double> temps_C,
+                           const CoolingRule& rule, const CoolingContext& ctx = {},
+                           std::string_view origin = "log");
+
+/// Checks a temperature function known everywhere (the engine's History::evaluate), smooth between
+/// the given breakpoints; each breakpoint interval is probed `probes` times for crossings.
+CoolingCheck check_cooling(const std::function<double(double)>& temp_C_at,
+                           std::span<const double> breakpoints_s, const CoolingRule& rule,
+                           const CoolingContext& ctx = {}, int probes = 4);
+
+}  // namespace coldcore

@@ -1,0 +1,133 @@
+#pragma once
+/// The assessment model: one verdict per target, with margins, per-stage lethality and flags.
+/// Pure computation over a History (or a measured cold-spot log); writers format it.
+///
+/// Verdicts: "met" only when the unrounded computed margin is > 0; otherwise "not demonstrated"
+/// with the shortfall. There is no "failed" verdict: a model can only fail to demonstrate.
+/// Shown values never look better than the computed ones: lethality (F, log reductions), holds
+/// achieved and margins are rounded DOWN; required values, elapsed cooling times and shortfalls
+/// are rounded UP (3 significant figures; a 1e-12 relative allowance absorbs binary
+/// representation error so that an exact 3 min is shown as 3.00, not 2.99).
+///
+/// Lethality is evaluated at the cold spot (History centre). Cooling rules and minimum
+/// temperatures use Target::at ("centre" or "mean").
+#include <optional>
+#include <span>
+#include <string>
+#include <vector>
+
+#include "coldcore/conduction/history.hpp"
+#include "coldcore/lethality/cooking_tables.hpp"
+#include "coldcore/lethality/kinetics.hpp"
+#include "coldcore/lethality/organisms.hpp"
+#include "coldcore/process/cooling.hpp"
+#include "coldcore/process/targets.hpp"
+
+namespace coldcore {
+
+enum class Verdict { met, not_demonstrated };
+const char* to_string(Verdict v);   ///< "met" | "not demonstrated"
+const char* to_string(TargetKind k);  ///< "log-reduction" | "F-value" | "cooling-rule" | "centre-min-temperature"
+
+/// Options for assess(). Defaults in brackets.
+struct AssessOptions {
+  std::string origin = "targets";  ///< place used in error messages ["targets"], e.g. the product file
+  double rel_tol = 1e-4;           ///< lethality integrals, relative [1e-4; the design asks 1e-3]
+  bool prefer_weibull = true;      ///< use an organism's Weibull data for log reductions [true]
+  /// Cooling-rule context (FSIS option 2). When unset, assess() takes chilling to start at the
+  /// first stage whose medium at its start is below the rule's first step's end temperature and
+  /// which follows a time above the first step's start temperature, and the cook to end at the end
+  /// of the stage before it. assess_probe_log() cannot infer them.
+  std::optional<double> cook_end_s;
+  std::optional<double> chill_start_s;
+  /// Out-of-range lethality is flagged when it exceeds this fraction of the credited F [0.001].
+  double out_of_range_flag_fraction = 1e-3;
+};
+
+struct StageLethality {
+  std::string stage;
+  double F_s = 0;        ///< lethality accrued in the stage (whether credited or not)
+  bool credited = true;  ///< counted towards the target
+  std::string F_text;    ///< minutes, rounded down
+};
+
+/// What "required / achieved / margin" measure for each kind:
+///  log-reduction: log10 reductions; F-value: seconds of F; centre-min-temperature: seconds of
+///  continuous hold at or above the temperature; cooling-rule: seconds of the tightest step
+///  (required = its limit, achieved = its elapsed time, margin = limit − elapsed).
+struct TargetResult {
+  std::string name;              ///< target name, or organism key, or rule key
+  std::string column;            ///< csv column "F_<name>_min" for lethality targets, else ""
+  TargetKind kind = TargetKind::f_value;
+  std::string unit;              ///< "log10" | "min" (texts) — raw values are log10 or seconds
+  double required = 0;
+  double achieved = 0;
+  double margin = 0;             ///< achieved − required (cooling: limit − elapsed)
+  Verdict verdict = Verdict::not_demonstrated;
+  std::string required_text, achieved_text, margin_text;  ///< rounded as stated above
+  std::string verdict_text;      ///< "met, margin 0.52 log10" / "not demonstrated, shortfall 1.3 min"
+  // Lethality targets:
+  std::optional<Kinetics> kinetics;
+  double F_s = 0;                ///< credited F (equivalent time at kinetics.reference_C)
+  double F_required_s = 0;       ///< F needed (log-linear: logs × D; Weibull: δ·logs^(1/p))
+  std::vector<StageLethality> stages;
+  std::vector<int> credited_stages;  ///< indices into History::stages
+  double F_outside_range_s = 0;  ///< credited F accrued outside [valid_min_C, valid_max_C]
+  // Cooling-rule targets:
+  std::optional<CoolingCheck> cooling;
+  // centre-min-temperature targets:
+  std::optional<double> reached_s;   ///< first time the temperature was reached
+  std::vector<std::string> notes;    ///< flags and provenance remarks, one sentence each
+  std::string source;                ///< data source(s) behind the verdict
+};
+
+struct Assessment {
+  std::vector<TargetResult> targets;
+  std::vector<std::string> warnings;  ///< assessment-wide (history warnings are not repeated)
+  /// True when there is at least one target and every target is met.
+  bool all_met() const;
+};
+
+/// Assesses every target against a History.
+/// REQUIRES: h.samples non-empty and increasing in time; h.evaluate set (otherwise the samples
+/// are interpolated linearly and a warning says so).
+/// Throws InputError for unknown organisms/rules/stages ("<origin>: target[i]: ..."), lethality
+/// targets without kinetics, log-reduction targets without a D (or Weibull) value.
+Assessment assess(const History& h, const std::vector<Target>& targets, const OrganismLibrary& organisms,
+                  const RuleLibrary& rules, const AssessOptions& opts = {});
+
+/// Cumulative credited F (seconds) of a lethality target at each of times_s (non-decreasing),
+/// for csv columns F_<name>_min. REQUIRES: r.kinetics (a lethality TargetResult from assess on h).
+std::vector<double> cumulative_f_s(const History& h, const TargetResult& r,
+                                   std::span<const double> times_s, double rel_tol = 1e-4);
+
+/// A cooking table (products/cooking-tables.toml) checked on a History at the centre (or the
+/// mass-average when `mean`), by the equivalent-time integral of cooking_tables.hpp.
+CookingCheck check_cooking_table(const History& h, const CookingTable& table, bool mean = false);
+
+/// One lethality target on a measured log, by three rules.
+struct ProbeLethality {
+  std::string name;
+  double F_trapezoid_s = 0, F_simpson_s = 0, F_linear_s = 0;  ///< the verdict uses the smallest
+};
+
+struct ProbeAssessment {
+  std::vector<TargetResult> targets;    ///< as for assess(); lethality verdicts on the smallest F
+  std::vector<ProbeLethality> lethality;  ///< the three F values per lethality target, in order
+  std::vector<std::string> warnings;    ///< sampling warnings, rule disagreement > 1 %
+  bool all_met() const;
+};
+
+/// Assesses targets on a measured cold-spot log (time_s, temp_C rows, linear between rows for
+/// rules and minimum temperatures). Stage filters cannot apply to a log and are noted.
+/// REQUIRES: times strictly increasing (else InputError naming `origin` and the row).
+ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<const double> temps_C,
+                                 const std::vector<Target>& targets, const OrganismLibrary& organisms,
+                                 const RuleLibrary& rules, const AssessOptions& opts = {},
+                                 std::string_view origin = "log");
+
+/// Rounding used for shown values: 3 significant figures, toward −∞ (down) or +∞ (up).
+std::string shown_down(double value, int significant = 3);
+std::string shown_up(double value, int significant = 3);
+
+}  // namespace coldcore

@@ -1,0 +1,28 @@
+#pragma once
+/// Builds the report model of `coldcore run` from the loaded product file and the computed
+/// history (and, once lethality is assessed, the verdicts). No physics is recomputed here
+/// except sampling the engine's exact evaluation at the output times.
+#include <string>
+
+#include "coldcore/conduction/history.hpp"
+#include "coldcore/io/product_file.hpp"
+#include "coldcore/report/run_report.hpp"
+
+namespace coldcore {
+
+struct RunReportOptions {
+  double step_s = 60;      ///< output sampling; > 0. Rows also at every stage boundary and the end.
+  std::string date;        ///< report date for provenance (fixed in tests for reproducibility)
+  std::string version;     ///< tool version for provenance
+};
+
+/// Characteristic length V/A of the product, m (for the lumped-capacitance Biot number).
+double volume_to_area_m(const Product& p);
+/// Smallest half-dimension (radius or half-thickness), m: the length of the stage Biot number.
+double smallest_half_dimension_m(const Product& p);
+/// Plain-words note on what a stage's Biot number means for lumped capacitance.
+std::string biot_note(const Product& p, const Stage& s);
+
+RunReport build_run_report(const io::ProductFile& file, const History& history, const RunReportOptions& opts);
+
+}  // namespace coldcore

@@ -1,0 +1,98 @@
+#pragma once
+// State of the history engine, shared by simulate() and History::evaluate. Private.
+#include <memory>
+#include <vector>
+
+#include "coldcore/conduction/history.hpp"
+#include "conduction/detail/modal_basis.hpp"
+
+namespace coldcore::detail {
+
+/// Running sums of the medium events (slope change ds, level jump j) of one epoch.
+struct EpochSums {
+  double ds = 0;     // Σ Δs_j
+  double ds_t = 0;   // Σ Δs_j (t_j − origin)
+  double jump = 0;   // Σ J_j
+};
+
+/// Modal state at one instant: amplitudes of u = T − T∞ on the kept modes, plus the centre's
+/// transient memory of recent events, held for two epochs (see history.cpp).
+struct ModalState {
+  std::vector<double> a, w_prev, w_cur;
+  EpochSums s_prev, s_cur;
+  long epoch = 0;
+};
+
+struct StageModel {
+  std::shared_ptr<const Basis> basis;
+  bool projected = false;
+  double start_s = 0, end_s = 0;
+  double origin_s = 0;          // epoch origin (start of the run of stages sharing this basis)
+  std::vector<double> step_t;   // absolute start of each internal step
+  std::vector<double> step_tm;  // medium at the step start
+  std::vector<double> step_slope;
+  std::vector<double> step_ds;  // slope change applied at the step start (before advancing)
+  int stride = 1;                     // a checkpoint every `stride` steps
+  // state at step_t[k·stride], after its event, flat: a, w_prev, w_cur (K each), then
+  // s_prev (3), s_cur (3), epoch: 3K + 7 doubles per checkpoint
+  std::vector<double> checkpoints;
+  std::size_t checkpoint_count() const;
+  void store_checkpoint(const ModalState& st);
+  void load_checkpoint(std::size_t i, ModalState& st) const;
+  ModalState end_state;
+  double end_tm = 0, end_slope = 0;
+  HistorySample start_sample;
+  int index = 0;
+};
+
+/// exp(−λΔ) and (1 − exp(−λΔ))/λ of the last step length, reused while Δ repeats (a 1 s log).
+struct StepCache {
+  double dt = -1;
+  const Basis* basis = nullptr;
+  std::vector<double> e, g;
+};
+
+/// Sums over the kept modes that the three reported temperatures need.
+struct ModalSums {
+  double a = 0, a_surface = 0, a_mean = 0, w_prev = 0, w_cur = 0;
+};
+
+struct Engine {
+  double alpha = 0;
+  double tau_insulated_s = 0;   // 0.01·L_min²/α: the centre cannot feel the surface before this
+  double epoch_s = 0;           // tau_insulated_s / 2
+  std::vector<StageModel> stages;
+
+  // advance by dt at medium slope s (exact for a linear medium)
+  void advance(const Basis& B, ModalState& st, double dt, double slope) const;
+  void advance(const Basis& B, ModalState& st, double dt, double slope, StepCache& cache) const;
+  /// advance (as above) and return the sums of the new state in the same pass
+  ModalSums advance_and_sum(const Basis& B, ModalState& st, double dt, double slope, StepCache& cache) const;
+  ModalSums sums(const Basis& B, const ModalState& st) const;
+  /// add_event at t_event, then advance by dt, then sum, in one pass over the modes (the hot path
+  /// of a 1 s log). If `checkpoint` is set, the state after the event is appended to it.
+  ModalSums event_advance_sum(const Basis& B, ModalState& st, double origin, double t_event, double ds, double jump,
+                              double dt, double slope, StepCache& cache, std::vector<double>* checkpoint) const;
+  double centre_from(const Basis& B, const ModalState& st, const ModalSums& s, double origin, double t, double tm,
+                     double slope) const;
+  void add_event(const Basis& B, ModalState& st, double origin, double t, double ds, double jump) const;
+  long epoch_of(double origin, double t) const;
+  double centre(const Basis& B, const ModalState& st, double origin, double t, double tm, double slope) const;
+  double surface(const Basis& B, const ModalState& st, double tm, double slope) const;
+  double mean(const Basis& B, const ModalState& st, double tm, double slope) const;
+  double at_point(const Basis& B, const ModalState& st, const Point& p, double tm, double slope) const;
+
+  /// State, medium and slope of stage i at absolute time t (start_s < t <= end_s).
+  void state_at(const StageModel& S, double t, ModalState& st, double& tm, double& slope) const;
+  /// Centre of stage j continued past its end with the medium held at its end value.
+  double centre_continued(int j, double t) const;
+  HistorySample sample(int i, double t) const;
+  double profile(int i, double t, const Point& p) const;
+};
+
+/// Coefficients on `to`'s kept modes of the profile T − tm_to of state `st` in basis `from`
+/// (medium tm_from, slope slope_from at that instant): closed-form inner products per axis.
+std::vector<double> project_state(const Basis& from, const ModalState& st, double tm_from, double slope_from,
+                                  const Basis& to, double tm_to);
+
+}  // namespace coldcore::detail

@@ -1,0 +1,566 @@
+#include "coldcore/report/assessment.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+#include "coldcore/error.hpp"
+#include "coldcore/lethality/integrate.hpp"
+#include "lethality/detail/crossing.hpp"
+#include "lethality/detail/text.hpp"
+#include "lethality/detail/toml_read.hpp"
+
+namespace coldcore {
+
+const char* to_string(Verdict v) { return v == Verdict::met ? "met" : "not demonstrated"; }
+
+const char* to_string(TargetKind k) {
+  switch (k) {
+    case TargetKind::log_reduction: return "log-reduction";
+    case TargetKind::f_value: return "F-value";
+    case TargetKind::cooling_rule: return "cooling-rule";
+    case TargetKind::centre_min_temperature: return "centre-min-temperature";
+  }
+  return "?";
+}
+
+bool Assessment::all_met() const {
+  if (targets.empty()) return false;
+  for (const auto& t : targets)
+    if (t.verdict != Verdict::met) return false;
+  return true;
+}
+
+bool ProbeAssessment::all_met() const {
+  if (targets.empty()) return false;
+  for (const auto& t : targets)
+    if (t.verdict != Verdict::met) return false;
+  return true;
+}
+
+namespace {
+
+std::string shown(double value, int significant, bool up) {
+  if (!std::isfinite(value)) return value > 0 ? "inf" : (value < 0 ? "-inf" : "nan");
+  if (value == 0) return "0";
+  const int e = static_cast<int>(std::floor(std::log10(std::abs(value))));
+  const int decimals = std::max(0, significant - 1 - e);
+  const double scale = std::pow(10.0, significant - 1 - e);
+  // Allowance for binary representation error (documented in the header).
+  const double x = value * scale;
+  const double nudge = 1e-12 * std::abs(x);
+  const double r = up ? std::ceil(x - nudge) : std::floor(x + nudge);
+  char buf[64];
+  std::snprintf(buf, sizeof buf, "%.*f", decimals, r / scale);
+  return buf;
+}
+
+}  // namespace
+
+std::string shown_down(double value, int significant) { return shown(value, significant, false); }
+std::string shown_up(double value, int significant) { return shown(value, significant, true); }
+
+namespace {
+
+std::string minutes_down(double s) { return shown_down(s / 60.0) + " min"; }
+std::string minutes_up(double s) { return shown_up(s / 60.0) + " min"; }
+
+// Verdict and texts for targets where a larger achieved value is better; log_units selects
+// log10 or minutes.
+void finish(TargetResult& r, bool log_units) {
+  r.verdict = r.margin > 0 ? Verdict::met : Verdict::not_demonstrated;
+  if (log_units) {
+    r.unit = "log10";
+    r.required_text = shown_up(r.required) + " log10";
+    r.achieved_text = shown_down(r.achieved) + " log10";
+    if (r.margin > 0) {
+      const std::string m = shown_down(r.margin);
+      r.margin_text = (m == "0" || std::stod(m) == 0 ? "< " + shown_up(r.margin, 1) : m) + " log10";
+    } else {
+      r.margin_text = shown_up(-r.margin) + " log10";
+    }
+  } else {
+    r.unit = "min";
+    r.required_text = minutes_up(r.required);
+    r.achieved_text = minutes_down(r.achieved);
+    if (r.margin > 0) {
+      const std::string m = shown_down(r.margin / 60.0);
+      r.margin_text = (std::stod(m) == 0 ? "< " + shown_up(r.margin / 60.0, 1) : m) + " min";
+    } else {
+      r.margin_text = minutes_up(-r.margin);
+    }
+  }
+  r.verdict_text = r.verdict == Verdict::met ? "met, margin " + r.margin_text
+                                             : "not demonstrated, shortfall " + r.margin_text;
+}
+
+struct Resolved {
+  Kinetics k;
+  const Organism* organism = nullptr;
+};
+
+Resolved resolve(const Target& t, const std::string& place, const OrganismLibrary& lib) {
+  Resolved r;
+  if (t.own) {
+    if (!(t.own->z_C > 0))
+      throw InputError(place + ".z_C = " + detail::num(t.own->z_C) + ": must be > 0");
+    r.k.name = t.name.empty() ? "own kinetics" : t.name;
+    r.k.reference_C = t.own->reference_C;
+    r.k.z_C = t.own->z_C;
+    r.k.D_ref_s = t.own->D_ref_s;
+    r.k.source = "kinetics given in the target";
+    return r;
+  }
+  if (t.organism.empty())
+    throw InputError(place + ": organism: missing (name a library organism or give reference_C and z_C)");
+  r.organism = &lib.at(t.organism, place);
+  r.k = r.organism->kinetics;
+  return r;
+}
+
+// The centre or mean temperature as a function of time.
+std::function<double(double)> temp_function(const History& h, bool mean) {
+  if (h.evaluate) {
+    auto ev = h.evaluate;
+    if (mean) return [ev](double t) { return ev(t).mean_C; };
+    return [ev](double t) { return ev(t).centre_C; };
+  }
+  std::vector<double> ts, Ts;
+  for (const auto& s : h.samples) {
+    if (!ts.empty() && s.time_s <= ts.back()) continue;
+    ts.push_back(s.time_s);
+    Ts.push_back(mean ? s.mean_C : s.centre_C);
+  }
+  return detail::linear_log_curve(ts, Ts).temp_C_at;
+}
+
+// Sample times within [a, b] plus the ends, strictly increasing. With max_intervals > 0 the
+// interior samples are thinned evenly to at most that many intervals (quadrature breakpoints:
+// the adaptive rule refines inside them; crossing scans use every sample).
+std::vector<double> knots(const History& h, double a, double b, std::size_t max_intervals = 0) {
+  std::vector<double> k{a};
+  for (const auto& s : h.samples)
+    if (s.time_s > k.back() && s.time_s < b) k.push_back(s.time_s);
+  if (b > k.back()) k.push_back(b);
+  if (max_intervals > 0 && k.size() > max_intervals + 1) {
+    std::vector<double> thin;
+    const double step = static_cast<double>(k.size() - 1) / static_cast<double>(max_intervals);
+    for (std::size_t i = 0; i < max_intervals; ++i)
+      thin.push_back(k[static_cast<std::size_t>(std::floor(i * step))]);
+    thin.push_back(k.back());
+    k.swap(thin);
+  }
+  return k;
+}
+
+// Knots of a curve within [a, b] plus the ends, strictly increasing.
+std::vector<double> knots_of(const detail::Curve& c, double a, double b) {
+  std::vector<double> k{a};
+  for (double t : c.knots)
+    if (t > k.back() && t < b) k.push_back(t);
+  if (b > k.back()) k.push_back(b);
+  return k;
+}
+
+// Probes per sample interval for crossing scans: dense engine output needs no sub-steps.
+int probes_for(const std::vector<double>& k) { return k.size() > 2000 ? 1 : 4; }
+
+double f_between(const History& h, const std::function<double(double)>& T, double a, double b,
+                 const Kinetics& k, double rel_tol) {
+  if (!(b > a)) return 0;
+  const auto bp = knots(h, a, b, 512);
+  return f_value(T, bp, k, rel_tol).F_s;
+}
+
+std::vector<int> credited(const Target& t, const History& h, const std::string& place) {
+  std::vector<int> idx;
+  if (t.stages.empty()) {
+    for (std::size_t i = 0; i < h.stages.size(); ++i) idx.push_back(static_cast<int>(i));
+    return idx;
+  }
+  std::vector<std::string> names;
+  for (const auto& s : h.stages) names.push_back(s.name);
+  for (const auto& want : t.stages) {
+    bool found = false;
+    for (std::size_t i = 0; i < h.stages.size(); ++i)
+      if (h.stages[i].name == want) {
+        if (std::find(idx.begin(), idx.end(), static_cast<int>(i)) == idx.end())
+          idx.push_back(static_cast<int>(i));
+        found = true;
+      }
+    if (!found) {
+      std::string msg = place + ".stages: \"" + want + "\": no stage of that name";
+      const std::string near = detail::nearest(want, names);
+      if (!near.empty()) msg += "; did you mean '" + near + "'?";
+      throw InputError(msg);
+    }
+  }
+  std::sort(idx.begin(), idx.end());
+  return idx;
+}
+
+void provenance_notes(TargetResult& r, const Resolved& res) {
+  if (!res.organism) {
+    r.notes.push_back("kinetics given in the target: no valid temperature range is known for them");
+    return;
+  }
+  for (const auto& [key, v] : res.organism->values)
+    if (v.status == "from memory")
+      r.notes.push_back(key + " of " + res.k.key + " is from memory (unconfirmed): " + v.source);
+}
+
+// F credited outside the organism's valid range, over the credited stages.
+double outside_range(const History& h, const std::function<double(double)>& T, const Kinetics& k,
+                     const std::vector<int>& stages, double rel_tol) {
+  if (k.valid_min_C <= -1e299 && k.valid_max_C >= 1e299) return 0;
+  double out = 0;
+  for (int i : stages) {
+    const auto& st = h.stages[static_cast<std::size_t>(i)];
+    if (!(st.end_s > st.start_s)) continue;
+    detail::Curve c;
+    c.temp_C_at = T;
+    c.knots = knots(h, st.start_s, st.end_s);
+    c.probes = probes_for(c.knots);
+    for (const auto& [a, b] : c.intervals_at_or_above(k.valid_max_C, st.start_s))
+      out += f_between(h, T, a, b, k, rel_tol);
+    double in_or_above_min = 0;
+    for (const auto& [a, b] : c.intervals_at_or_above(k.valid_min_C, st.start_s))
+      in_or_above_min += f_between(h, T, a, b, k, rel_tol);
+    const double stage_F = f_between(h, T, st.start_s, st.end_s, k, rel_tol);
+    out += std::max(0.0, stage_F - in_or_above_min);
+  }
+  return out;
+}
+
+// Required F and log bookkeeping shared by History and probe assessment.
+void lethality_verdict(TargetResult& r, const Target& t, const Resolved& res, const AssessOptions& o,
+                       const std::string& place) {
+  const Kinetics& k = res.k;
+  if (t.kind == TargetKind::log_reduction) {
+    if (!(t.log_reduction > 0))
+      throw InputError(place + ".log_reduction = " + detail::num(t.log_reduction) + ": must be > 0");
+    const bool weibull = o.prefer_weibull && k.weibull.has_value();
+    if (!weibull && !k.D_ref_s)
+      throw InputError(place + ": organism = \"" + k.key +
+                       "\": has no D value; a log-reduction target needs D_ref (or Weibull data)");
+    r.required = t.log_reduction;
+    if (weibull) {
+      r.achieved = log_reduction_weibull(r.F_s, k);
+      r.F_required_s = k.weibull->delta_ref_s * std::pow(t.log_reduction, 1.0 / k.weibull->p);
+      r.notes.push_back("Weibull survival (delta = " + shown_down(k.weibull->delta_ref_s / 60) +
+                        " min at " + detail::num(k.reference_C) + " C, p = " +
+                        detail::num(k.weibull->p) + "): log10 reduction = (F/delta)^p");
+    } else {
+      r.achieved = log_reduction_linear(r.F_s, k);
+      r.F_required_s = t.log_reduction * *k.D_ref_s;
+    }
+    r.margin = r.achieved - r.required;
+    finish(r, true);
+  } else {
+    if (!(t.F_required_s > 0))
+      throw InputError(place + ".F = " + detail::num(t.F_required_s / 60) + " min: must be > 0");
+    r.required = t.F_required_s;
+    r.F_required_s = t.F_required_s;
+    r.achieved = r.F_s;
+    r.margin = r.achieved - r.required;
+    finish(r, false);
+  }
+}
+
+std::string label_of(const Target& t) {
+  if (!t.name.empty()) return t.name;
+  if (!t.organism.empty()) return t.organism;
+  if (!t.rule.empty()) return t.rule;
+  if (t.kind == TargetKind::centre_min_temperature)
+    return t.at + " >= " + detail::num(t.min_temp_C) + " C";
+  return to_string(t.kind);
+}
+
+void cooling_result(TargetResult& r, const CoolingCheck& c, const CoolingRule& rule) {
+  r.cooling = c;
+  r.source = rule.source;
+  // The tightest non-advisory step gives the headline numbers.
+  const CoolingStepResult* worst = nullptr;
+  for (const auto& s : c.steps)
+    if (!s.step.advisory && (!worst || s.margin_s < worst->margin_s)) worst = &s;
+  if (worst) {
+    r.required = worst->step.within_s;
+    r.achieved = worst->elapsed_s;
+    r.margin = worst->margin_s;
+  }
+  for (const auto& s : c.steps)
+    for (const auto& n : s.notes) r.notes.push_back(s.step.label + ": " + n);
+  for (const auto& n : c.notes) r.notes.push_back(n);
+  r.unit = "min";
+  // Elapsed is a bad quantity here: shown up; margin shown down.
+  r.required_text = minutes_down(r.required);
+  r.achieved_text = minutes_up(r.achieved);
+  r.verdict = c.passed && r.margin > 0 ? Verdict::met : Verdict::not_demonstrated;
+  if (r.margin > 0) {
+    const std::string m = shown_down(r.margin / 60.0);
+    r.margin_text = (std::stod(m) == 0 ? "< " + shown_up(r.margin / 60.0, 1) : m) + " min";
+  } else {
+    r.margin_text = minutes_up(-r.margin);
+  }
+  if (r.verdict == Verdict::met) {
+    r.verdict_text = "met, margin " + r.margin_text;
+  } else if (r.margin > 0) {
+    r.verdict_text = "not demonstrated (see notes)";
+  } else {
+    r.verdict_text = "not demonstrated, shortfall " + r.margin_text;
+  }
+}
+
+void min_temperature_result(TargetResult& r, const Target& t, const detail::Curve& c) {
+  const auto runs = c.intervals_at_or_above(t.min_temp_C, c.start());
+  double longest = 0;
+  for (const auto& [a, b] : runs) longest = std::max(longest, b - a);
+  if (!runs.empty()) r.reached_s = runs.front().first;
+  r.required = t.hold_s;
+  r.achieved = longest;
+  r.margin = longest - t.hold_s;
+  if (runs.empty())
+    r.notes.push_back(t.at + " never reached " + detail::num(t.min_temp_C) + " C");
+  r.source = "target";
+  finish(r, false);
+}
+
+// Context for rules with a chill-start condition, inferred from the stages (see AssessOptions).
+CoolingContext infer_context(const History& h, const CoolingRule& rule, const AssessOptions& o,
+                             const std::function<double(double)>& T, std::vector<std::string>& notes) {
+  CoolingContext ctx;
+  ctx.cook_end_s = o.cook_end_s;
+  ctx.chill_start_s = o.chill_start_s;
+  if (!rule.chill_start_within_s || (ctx.cook_end_s && ctx.chill_start_s) || rule.steps.empty())
+    return ctx;
+  const double hot = rule.steps.front().from_C, cold = rule.steps.front().to_C;
+  bool was_hot = false;
+  for (std::size_t i = 0; i < h.stages.size(); ++i) {
+    const auto& st = h.stages[i];
+    const double medium_start = h.evaluate ? h.evaluate(st.start_s).medium_C : st.at_end.medium_C;
+    if (was_hot && medium_start < cold && i > 0) {
+      if (!ctx.chill_start_s) ctx.chill_start_s = st.start_s;
+      if (!ctx.cook_end_s) {
+        // The cook ends at the end of the last stage before chilling whose medium was hot.
+        for (std::size_t j = i; j-- > 0;) {
+          const double m = h.evaluate ? h.evaluate(h.stages[j].start_s).medium_C : h.stages[j].at_end.medium_C;
+          if (m >= hot) {
+            ctx.cook_end_s = h.stages[j].end_s;
+            break;
+          }
+        }
+      }
+      if (ctx.cook_end_s && ctx.chill_start_s)
+        notes.push_back("chilling taken to start with stage '" + st.name + "' at " +
+                        minutes_down(*ctx.chill_start_s) + "; cook taken to end at " +
+                        minutes_down(*ctx.cook_end_s));
+      break;
+    }
+    if (T(st.end_s) > hot || T(st.start_s) > hot) was_hot = true;
+    if (!was_hot) {
+      const auto bp = knots(h, st.start_s, st.end_s);
+      for (double t : bp)
+        if (T(t) > hot) {
+          was_hot = true;
+          break;
+        }
+    }
+  }
+  return ctx;
+}
+
+}  // namespace
+
+Assessment assess(const History& h, const std::vector<Target>& targets, const OrganismLibrary& organisms,
+                  const RuleLibrary& rules, const AssessOptions& opts) {
+  Assessment out;
+  if (h.samples.empty()) throw InputError(opts.origin + ": history: no samples to assess");
+  if (!h.evaluate)
+    out.warnings.push_back("history has no exact evaluation: samples are interpolated linearly");
+  const auto centre = temp_function(h, false);
+  const auto mean = temp_function(h, true);
+  const double t0 = h.samples.front().time_s;
+  const double t1 = std::max(h.samples.back().time_s, h.end_s());
+  for (std::size_t i = 0; i < targets.size(); ++i) {
+    const Target& t = targets[i];
+    const std::string place = opts.origin + ": target[" + std::to_string(i + 1) + "]";
+    TargetResult r;
+    r.kind = t.kind;
+    r.name = label_of(t);
+    if (t.at != "centre" && t.at != "mean")
+      throw InputError(place + ".at = \"" + t.at + "\": must be \"centre\" or \"mean\"");
+    const auto& T_at = t.at == "mean" ? mean : centre;
+    switch (t.kind) {
+      case TargetKind::log_reduction:
+      case TargetKind::f_value: {
+        const Resolved res = resolve(t, place, organisms);
+        r.kinetics = res.k;
+        r.column = "F_" + r.name + "_min";
+        r.source = res.k.source;
+        if (h.stages.empty()) {
+          r.F_s = f_between(h, centre, t0, t1, res.k, opts.rel_tol);
+        } else {
+          r.credited_stages = credited(t, h, place);
+          for (std::size_t s = 0; s < h.stages.size(); ++s) {
+            StageLethality sl;
+            sl.stage = h.stages[s].name;
+            sl.F_s = f_between(h, centre, h.stages[s].start_s, h.stages[s].end_s, res.k, opts.rel_tol);
+            sl.credited = std::find(r.credited_stages.begin(), r.credited_stages.end(),
+                                    static_cast<int>(s)) != r.credited_stages.end();
+            sl.F_text = minutes_down(sl.F_s);
+            if (sl.credited) r.F_s += sl.F_s;
+            r.stages.push_back(sl);
+          }
+          r.F_outside_range_s = outside_range(h, centre, res.k, r.credited_stages, opts.rel_tol);
+        }
+        lethality_verdict(r, t, res, opts, place);
+        provenance_notes(r, res);
+        if (r.F_s > 0 && r.F_outside_range_s > opts.out_of_range_flag_fraction * r.F_s)
+          r.notes.push_back("flag: " + shown_up(100 * r.F_outside_range_s / r.F_s, 2) +
+                            " % of the credited F accrued outside the data's valid range " +
+                            detail::num(res.k.valid_min_C) + " to " + detail::num(res.k.valid_max_C) + " C");
+        break;
+      }
+      case TargetKind::cooling_rule: {
+        const CoolingRule& rule = rules.at(t.rule, place);
+        std::vector<std::string> ctx_notes;
+        CoolingContext ctx = infer_context(h, rule, opts, T_at, ctx_notes);
+        ctx.where = t.at == "mean" ? "mass-average temperature" : "cold spot";
+        std::vector<double> bp = knots(h, t0, t1);
+        const CoolingCheck c = check_cooling(T_at, bp, rule, ctx, probes_for(bp));
+        cooling_result(r, c, rule);
+        for (auto& n : ctx_notes) r.notes.push_back(n);
+        break;
+      }
+      case TargetKind::centre_min_temperature: {
+        detail::Curve c;
+        c.temp_C_at = T_at;
+        c.knots = knots(h, t0, t1);
+        c.probes = probes_for(c.knots);
+        min_temperature_result(r, t, c);
+        break;
+      }
+    }
+    out.targets.push_back(std::move(r));
+  }
+  return out;
+}
+
+std::vector<double> cumulative_f_s(const History& h, const TargetResult& r,
+                                   std::span<const double> times_s, double rel_tol) {
+  std::vector<double> out;
+  if (!r.kinetics) return out;
+  const auto centre = temp_function(h, false);
+  const double t0 = h.samples.empty() ? 0.0 : h.samples.front().time_s;
+  // Credited intervals: the credited stages, or everything when the history has no stages.
+  std::vector<std::pair<double, double>> spans;
+  if (h.stages.empty()) {
+    spans.emplace_back(t0, std::numeric_limits<double>::infinity());
+  } else {
+    for (int i : r.credited_stages)
+      spans.emplace_back(h.stages[static_cast<std::size_t>(i)].start_s,
+                         h.stages[static_cast<std::size_t>(i)].end_s);
+  }
+  double acc = 0, prev = t0;
+  for (double t : times_s) {
+    if (t > prev) {
+      for (const auto& [a, b] : spans) {
+        const double lo = std::max(a, prev), hi = std::min(b, t);
+        if (hi > lo) acc += f_between(h, centre, lo, hi, *r.kinetics, rel_tol);
+      }
+      prev = t;
+    }
+    out.push_back(acc);
+  }
+  return out;
+}
+
+CookingCheck check_cooking_table(const History& h, const CookingTable& table, bool mean) {
+  if (h.samples.empty()) throw InputError("history: no samples to check against " + table.key);
+  const double t0 = h.samples.front().time_s;
+  const double t1 = std::max(h.samples.back().time_s, h.end_s());
+  const auto k = knots(h, t0, t1);
+  if (k.size() < 2) throw InputError("history: a single instant cannot be checked against " + table.key);
+  return check_cooking_table(temp_function(h, mean), k, table, probes_for(k));
+}
+
+ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<const double> temps_C,
+                                 const std::vector<Target>& targets, const OrganismLibrary& organisms,
+                                 const RuleLibrary& rules, const AssessOptions& opts,
+                                 std::string_view origin) {
+  validate_log(times_s, temps_C, origin);
+  ProbeAssessment out;
+  const detail::Curve curve = detail::linear_log_curve(times_s, temps_C);
+  for (std::size_t i = 0; i < targets.size(); ++i) {
+    const Target& t = targets[i];
+    const std::string place = opts.origin + ": target[" + std::to_string(i + 1) + "]";
+    TargetResult r;
+    r.kind = t.kind;
+    r.name = label_of(t);
+    switch (t.kind) {
+      case TargetKind::log_reduction:
+      case TargetKind::f_value: {
+        const Resolved res = resolve(t, place, organisms);
+        r.kinetics = res.k;
+        r.column = "F_" + r.name + "_min";
+        r.source = res.k.source;
+        ProbeLethality pl;
+        pl.name = r.name;
+        const LogIntegral tr = f_trapezoid_s(times_s, temps_C, res.k, origin);
+        pl.F_trapezoid_s = tr.F_s;
+        pl.F_simpson_s = f_simpson_s(times_s, temps_C, res.k, origin).F_s;
+        pl.F_linear_s = f_piecewise_linear_s(times_s, temps_C, res.k, origin).F_s;
+        r.F_s = std::min({pl.F_trapezoid_s, pl.F_simpson_s, pl.F_linear_s});
+        const double hi = std::max({pl.F_trapezoid_s, pl.F_simpson_s, pl.F_linear_s});
+        if (r.F_s > 0 && hi - r.F_s > 0.01 * r.F_s)
+          out.warnings.push_back(r.name + ": trapezoid, Simpson and linear-interpolation F differ by " +
+                                 shown_up(100 * (hi - r.F_s) / r.F_s, 2) +
+                                 " %; the smallest is used (the log may be too coarse)");
+        for (const auto& w : tr.warnings) out.warnings.push_back(r.name + ": " + w);
+        if (!t.stages.empty())
+          r.notes.push_back("stages cannot be selected on a probe log: the whole log is credited");
+        // Out-of-range share on the linear interpolant.
+        if (res.organism) {
+          double outside = 0;
+          const double total = pl.F_linear_s;
+          for (const auto& [a, b] : curve.intervals_at_or_above(res.k.valid_max_C, curve.start())) {
+            std::vector<double> bp = knots_of(curve, a, b);
+            outside += f_value(curve.temp_C_at, bp, res.k, opts.rel_tol).F_s;
+          }
+          double in_or_above = 0;
+          for (const auto& [a, b] : curve.intervals_at_or_above(res.k.valid_min_C, curve.start())) {
+            std::vector<double> bp = knots_of(curve, a, b);
+            in_or_above += f_value(curve.temp_C_at, bp, res.k, opts.rel_tol).F_s;
+          }
+          outside += std::max(0.0, total - in_or_above);
+          r.F_outside_range_s = outside;
+          if (total > 0 && outside > opts.out_of_range_flag_fraction * total)
+            r.notes.push_back("flag: " + shown_up(100 * outside / total, 2) +
+                              " % of the credited F accrued outside the data's valid range " +
+                              detail::num(res.k.valid_min_C) + " to " +
+                              detail::num(res.k.valid_max_C) + " C");
+        }
+        lethality_verdict(r, t, res, opts, place);
+        provenance_notes(r, res);
+        out.lethality.push_back(pl);
+        break;
+      }
+      case TargetKind::cooling_rule: {
+        const CoolingRule& rule = rules.at(t.rule, place);
+        CoolingContext ctx;
+        ctx.cook_end_s = opts.cook_end_s;
+        ctx.chill_start_s = opts.chill_start_s;
+        const CoolingCheck c = check_cooling(times_s, temps_C, rule, ctx, origin);
+        cooling_result(r, c, rule);
+        break;
+      }
+      case TargetKind::centre_min_temperature:
+        min_temperature_result(r, t, curve);
+        break;
+    }
+    out.targets.push_back(std::move(r));
+  }
+  return out;
+}
+
+}  // namespace coldcore

@@ -1,0 +1,40 @@
+#pragma once
+// Content shared by the html and markdown writers: the plots built from a RunReport, the
+// "Reading this report" paragraphs and the formatted table cells. Plain text here; each writer
+// escapes for its own markup.
+#include <string>
+#include <vector>
+
+#include "coldcore/report/run_report.hpp"
+#include "coldcore/report/svg_plot.hpp"
+
+namespace coldcore::detail {
+
+struct RunFigure {
+  std::string key;      // "temperature", "lethality", "cooling": file-name part
+  std::string caption;  // one sentence under the figure
+  svg::LinePlot plot;
+};
+
+/// The plots the history supports: temperatures (if time_s and a temperature column exist),
+/// cumulative lethality (if F_*_min columns exist), cooling (if rule_boxes exist).
+std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u);
+
+/// "Reading this report" in plain words, one paragraph per string.
+std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u);
+
+using TextTable = std::vector<std::vector<std::string>>;  // first row is the header
+TextTable stage_table(const RunReport& r, TempUnit u);
+TextTable verdict_table(const RunReport& r);
+
+/// Column name as shown: "centre_C" -> "centre_F" for --units F.
+std::string display_column_name(const Column& c, TempUnit u);
+
+/// The report's cautions; the library's cautions() if the model left them empty, so that no
+/// rich report is ever written without them.
+const std::vector<std::string>& report_cautions(const RunReport& r);
+
+/// The first line every rich report shows under its title.
+std::string lead_sentence();
+
+}  // namespace coldcore::detail

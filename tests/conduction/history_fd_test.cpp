@@ -1,0 +1,96 @@
+// History engine against the independent finite-volume Crank-Nicolson reference
+// (tests/reference/history_fd.csv, generator tests/reference/gen_history_fd.py; its header holds
+// the convergence table: centre error estimate <= 1e-6 K).
+#include <doctest/doctest.h>
+
+#include <cmath>
+#include <string>
+
+#include "coldcore/conduction/history.hpp"
+#include "support/csv_table.hpp"
+
+using namespace coldcore;
+
+namespace {
+
+// The generator's cases (k = 0.5, rho = 1050, cp = 3600; R = 0.02 m; initial 5 C).
+Product fd_product(Shape shape) {
+  Product p;
+  p.name = "fd reference body";
+  p.shape = shape;
+  p.dims.diameter_m = 0.04;
+  p.initial_C = 5.0;
+  p.properties = {0.5, 1050.0, 3600.0};
+  return p;
+}
+
+Stage stage(std::vector<MediumPoint> pts, double h, double duration_s) {
+  Stage s;
+  s.name = "stage";
+  s.medium.points = std::move(pts);
+  s.h_W_m2K = h;
+  s.end.kind = StageEndKind::duration;
+  s.end.duration_s = duration_s;
+  return s;
+}
+
+struct Worst {
+  double err = 0, t = 0;
+  void add(double got, double want, double t_s) {
+    const double e = std::abs(got - want);
+    if (e > err) { err = e; t = t_s; }
+  }
+};
+
+void compare(const History& h, const std::string& case_name, double tol_centre, double tol_other) {
+  Worst wc, wm, ws;
+  int n = 0;
+  for (const auto& r : test::read_csv("tests/reference/history_fd.csv")) {
+    if (r.text("case") != case_name) continue;
+    const double t = r.num("time_s");
+    const auto s = h.evaluate(t);
+    wc.add(s.centre_C, r.num("centre_C"), t);
+    // mean and surface only where the reference itself is good to 2 mK (not right after a jump)
+    if (r.num("mean_err_K") < 2e-3) wm.add(s.mean_C, r.num("mean_C"), t);
+    if (r.num("surface_err_K") < 2e-3) ws.add(s.surface_C, r.num("surface_C"), t);
+    ++n;
+  }
+  REQUIRE(n > 50);
+  MESSAGE(case_name << ": worst centre " << wc.err << " K at t=" << wc.t << " s; mean " << wm.err << " K at "
+                    << wm.t << " s; surface " << ws.err << " K at " << ws.t << " s (" << n << " rows)");
+  CHECK(wc.err <= tol_centre);
+  CHECK(wm.err <= tol_other);
+  CHECK(ws.err <= tol_other);
+}
+
+}  // namespace
+
+TEST_CASE("ramp-hold-step medium: sphere and cylinder centre vs finite-volume reference to 0.02 K") {
+  // Source: tests/reference/history_fd.csv, cases ramp-hold-step-*; rows include 2, 6, 20 s after
+  // every breakpoint, i.e. evaluate() between the engine's internal steps.
+  const std::vector<Stage> st = {stage({{0, 20.0}, {600, 90.0}}, 200.0, 1800.0), stage({{0, 2.0}}, 200.0, 1800.0)};
+  compare(simulate(fd_product(Shape::sphere), st), "ramp-hold-step-sphere", 0.02, 0.02);
+  compare(simulate(fd_product(Shape::cylinder), st), "ramp-hold-step-cylinder", 0.02, 0.02);
+}
+
+TEST_CASE("cook in hot water then chill in cold air (two h): vs reference to 0.05 K and chill end within 10 s") {
+  // Source: tests/reference/history_fd.csv, case cook-chill-sphere and its :crossing row.
+  const auto p = fd_product(Shape::sphere);
+  std::vector<Stage> st = {stage({{0, 85.0}}, 500.0, 2400.0), stage({{0, 2.0}}, 20.0, 7200.0)};
+  compare(simulate(p, st), "cook-chill-sphere", 0.05, 0.05);
+
+  double t_ref = 0;
+  for (const auto& r : test::read_csv("tests/reference/history_fd.csv"))
+    if (r.text("case") == "cook-chill-sphere:crossing") t_ref = r.num("time_s");
+  REQUIRE(t_ref > 2400);
+  st[1].end.kind = StageEndKind::until_centre;
+  st[1].end.target_C = 10.0;
+  st[1].end.max_duration_s = 4 * 3600.0;
+  const auto h = simulate(p, st);
+  REQUIRE(h.stages.size() == 2);
+  CHECK(h.stages[1].ended_by == StageEndedBy::condition);
+  MESSAGE("chill end: engine " << h.stages[1].end_s << " s, reference " << t_ref << " s");
+  CHECK(std::abs(h.stages[1].end_s - t_ref) <= 10.0);
+  CHECK(h.stages[1].at_end.centre_C == doctest::Approx(10.0).epsilon(1e-6));
+  CHECK(h.warnings.empty());
+}
