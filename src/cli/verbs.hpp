@@ -23,6 +23,9 @@ struct VerbContext {
 void add_modes_verb(CLI::App& app, VerbContext& ctx);
 void add_props_verb(CLI::App& app, VerbContext& ctx);
 void add_run_verb(CLI::App& app, VerbContext& ctx);
+void add_solve_verb(CLI::App& app, VerbContext& ctx);
+void add_deviation_verb(CLI::App& app, VerbContext& ctx);
+void add_media_verb(CLI::App& app, VerbContext& ctx);
 void add_pending_verbs(CLI::App& app, VerbContext& ctx);
 
 }  // namespace coldcore::cli
