@@ -8,7 +8,6 @@ namespace coldcore::cli {
 void add_pending_verbs(CLI::App& app, VerbContext& ctx) {
   struct Pending { const char* name; const char* help; };
   static const Pending kPending[] = {
-      {"deviation", "delivered versus scheduled lethality from a logged medium"},
       {"probe", "lethality from a measured cold-spot log"},
       {"organisms", "the organism heat-resistance library with sources"},
       {"rules", "the cooling-rule library with sources"},

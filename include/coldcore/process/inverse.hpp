@@ -84,8 +84,8 @@ struct SolveOptions {
   double max_hold_s = 48 * 3600.0;   ///< hold/chill search bound [48 h]
   std::optional<double> end_C; ///< chill-time: end temperature (default: the stage's until_* value)
   bool mean = false;           ///< chill-time: the mass average instead of the centre
-  double max_size_factor = 10; ///< max-size: search up to this × the nominal size [10]
-  double min_size_factor = 0.01;///< max-size: and down to this × [0.01]
+  double max_size_factor = 3;  ///< max-size: search up to this × the nominal size [3]
+  double min_size_factor = 0.05;///< max-size: and down to this × [0.05]
   double max_medium_C = 200;   ///< min-medium: search bound [200 °C]
   double rel_tol = 1e-6;       ///< root finder: relative tolerance on the answer [1e-6]
 };
