@@ -11,7 +11,6 @@ void add_pending_verbs(CLI::App& app, VerbContext& ctx) {
       {"probe", "lethality from a measured cold-spot log"},
       {"organisms", "the organism heat-resistance library with sources"},
       {"rules", "the cooling-rule library with sources"},
-      {"media", "surface heat-transfer coefficient ranges with sources"},
   };
   for (const auto& p : kPending) {
     auto* sub = app.add_subcommand(p.name, std::string(p.help) + " (not available yet)");

@@ -235,7 +235,16 @@ ProductFile load_product(const std::filesystem::path& path) {
     ss << in.rdbuf();
     return ss.str();
   };
-  return parse_product(text, path.generic_string(), path.parent_path(), disk);
+  ProductFile pf = parse_product(text, path.generic_string(), path.parent_path(), disk);
+  if (needs_media(pf)) {
+    const std::filesystem::path mp = path.parent_path() / "media.toml";
+    const auto mt = disk(mp);
+    if (!mt)
+      throw InputError(path.generic_string() + ": medium_type: needs " + mp.generic_string() +
+                       " (the media library) beside the product file");
+    apply_media(pf, parse_media(*mt, mp.generic_string()));
+  }
+  return pf;
 }
 
 }  // namespace coldcore::io
