@@ -125,7 +125,7 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
       ro.rel_tol = 1e-6;
       ro.abs_tol = 1e-3;
       try {
-        const RootResult root = solve_margin([&](double x) { return evaluate(apply(x), libs, considered).margin; }, 0.0,
+        const RootResult root = solve_margin([&](double x) { return evaluate(apply(x), libs, considered, search_history_options()).margin; }, 0.0,
                                              std::max(60.0, o.unit_s), FeasibleSide::above, ro, "");
         r.extra_hold_unrounded_s = root.x;
         double rounded = root.met_at_bound ? 0.0 : round_to_unit(root.x, o.unit_s, FeasibleSide::above);

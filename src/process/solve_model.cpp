@@ -55,8 +55,15 @@ Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<
   return e;
 }
 
+HistoryOptions search_history_options() {
+  HistoryOptions o;
+  o.tol_K = 1e-3;
+  o.sample_tol_K = 0.05;
+  return o;
+}
+
 int default_stage(const Scenario& s, bool heating) {
-  const History h = simulate(s.product, s.stages);
+  const History h = simulate(s.product, s.stages, search_history_options());
   int found = -1;
   for (std::size_t i = 0; i < h.stages.size(); ++i) {
     const auto& rec = h.stages[i];

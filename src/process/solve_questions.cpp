@@ -111,13 +111,15 @@ SolveResult run(Question q, const Setup& st, const Scenario& s, const Libraries&
   SolveResult res;
   res.question = q;
   for (int i : st.considered) res.considered.push_back(s.targets[static_cast<std::size_t>(i)].name);
-  const auto margin = [&](double x) { return evaluate(st.apply(x), libs, st.considered).margin; };
+  const auto margin = [&](double x) {
+    return evaluate(st.apply(x), libs, st.considered, search_history_options()).margin;
+  };
   try {
     res.root = solve_margin(margin, st.lo, st.hi, st.side, st.ro, st.why_none);
   } catch (const NoSolution&) {
     // Say why: the verdicts at the bound and, where it applies, the physical limit.
     const double bound = st.ro.expand ? st.ro.limit : (st.side == FeasibleSide::above ? st.hi : st.lo);
-    const Evaluation e = evaluate(st.apply(bound), libs, st.considered);
+    const Evaluation e = evaluate(st.apply(bound), libs, st.considered, search_history_options());
     std::string why = st.why_none + ": at the bound " + num(bound) + " " + shortfalls(e, st.considered);
     if (st.stage >= 0) why += physical_reason(s, e, st.stage, st.considered);
     throw NoSolution(why);
@@ -140,7 +142,7 @@ std::vector<int> all_targets(const Scenario& s) {
 double stage_duration_s(const Scenario& s, int idx) {
   const Stage& st = s.stages[static_cast<std::size_t>(idx)];
   if (st.end.kind == StageEndKind::duration) return st.end.duration_s;
-  const History h = simulate(s.product, s.stages);
+  const History h = simulate(s.product, s.stages, search_history_options());
   const auto& rec = h.stages[static_cast<std::size_t>(idx)];
   return rec.end_s - rec.start_s;
 }
@@ -319,7 +321,7 @@ SolveResult max_size(const Scenario& s, const Libraries& libs, const SolveOption
                 " mm meets every target with the scheduled process";
   // Met even at the largest size tried: no largest size within the bounds.
   {
-    const Evaluation e = evaluate(st.apply(st.hi), libs, st.considered);
+    const Evaluation e = evaluate(st.apply(st.hi), libs, st.considered, search_history_options());
     if (e.considered_met)
       throw NoSolution("every target is still met at " + num(o.max_size_factor) + " x the nominal " + name + " (" +
                        num(st.hi * 1000) + " mm), the search bound; the largest size lies beyond it");

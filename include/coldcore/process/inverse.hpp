@@ -65,6 +65,12 @@ double target_margin(const TargetResult& r);
 Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<int>& considered = {},
                     const HistoryOptions& hopts = {});
 
+/// Engine options used while SEARCHING (root-finder trials, stage classification, bracket
+/// guesses): tol_K 1e-3 K, sample_tol_K 0.05 K — a brick costs far less at these. Answers are
+/// never taken from a search run alone: every reported re-run (verification, one unit less,
+/// restored) uses the default HistoryOptions, and a rounded answer that fails there is stepped.
+HistoryOptions search_history_options();
+
 /// Index of the last stage whose medium, at its end, is above the centre at the stage's start
 /// (a heating stage); of the last stage whose medium is below the centre (cooling) for
 /// `heating == false`. Found by one forward run. NoSolution when there is none.
