@@ -110,6 +110,22 @@ void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::os
     out << "\nNOTES\n";
     for (const auto& n : r.notes) out << "  - " << n << "\n";
   }
+  if (c.conservative) {
+    const auto& cs = *c.conservative;
+    out << "\nCONSERVATIVE (documented worst case of the file's ranges)\n  choices:";
+    for (const auto& ch : cs.choices) out << " " << ch << ";";
+    out << "\n";
+    if (cs.result) {
+      out << "  answer:           " << shown_raw(r, cs.result->answer, u) << " (unrounded)\n";
+      out << "  use:              " << shown(r, cs.result->rounded, u) << "  (nominal: " << shown(r, r.rounded, u) << ")\n";
+      text_check(out, *cs.result, cs.result->verification, "  re-run at ", u);
+    } else {
+      out << "  no solution: " << cs.no_solution << "\n";
+    }
+    for (const auto& a : cs.alone)
+      out << "  alone: " << a.label << " -> " << (a.rounded ? shown(r, *a.rounded, u) : "no solution") << "\n";
+    out << "  driven by: " << cs.driven_by << "\n";
+  }
   std::vector<std::string> warns = c.warnings;
   warns.insert(warns.end(), r.verification.eval.history.warnings.begin(), r.verification.eval.history.warnings.end());
   warns.insert(warns.end(), r.verification.eval.assessment.warnings.begin(),
@@ -150,6 +166,32 @@ void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::os
     if (r.end_at_less_C) w.key("at_one_unit_less_C").value(*r.end_at_less_C);
     w.end_object();
   }
+  if (c.conservative) {
+    const auto& cs = *c.conservative;
+    w.key("conservative").begin_object();
+    w.key("choices").value(cs.choices);
+    if (cs.result) {
+      w.key("answer_" + r.unit).value(cs.result->answer);
+      w.key("rounded_" + r.unit).value(cs.result->rounded);
+      w.key("verification");
+      json_check(w, *cs.result, cs.result->verification);
+    } else {
+      w.key("rounded_" + r.unit).null();
+      w.key("no_solution").value(cs.no_solution);
+    }
+    w.key("alone").begin_array();
+    for (const auto& a : cs.alone) {
+      w.begin_object();
+      w.key("choice").value(a.label);
+      w.key("rounded_" + r.unit);
+      if (a.rounded) w.value(*a.rounded); else w.null();
+      if (!a.no_solution.empty()) w.key("no_solution").value(a.no_solution);
+      w.end_object();
+    }
+    w.end_array();
+    w.key("driven_by").value(cs.driven_by);
+    w.end_object();
+  }
   w.key("considered_targets").value(r.considered);
   w.key("root_evaluations").value(r.root.evaluations);
   w.key("notes").value(r.notes);
@@ -172,6 +214,13 @@ void write_solve_csv(const SolveResult& r, const SolveReportContext& c, std::ost
   for (const auto& n : r.notes) out << "# note: " << n << "\n";
   for (const auto& n : r.assumptions) out << "# assumption: " << n << "\n";
   for (const auto& n : c.warnings) out << "# warning: " << n << "\n";
+  if (c.conservative) {
+    const auto& cs = *c.conservative;
+    for (const auto& ch : cs.choices) out << "# conservative choice: " << ch << "\n";
+    out << "# conservative rounded_" << r.unit << ": "
+        << (cs.result ? JsonWriter::number(cs.result->rounded) : "no solution: " + cs.no_solution) << "\n";
+    out << "# conservative driven by: " << cs.driven_by << "\n";
+  }
   out << "run,value_" << r.unit << ",target,kind,required,achieved,margin,unit,verdict\n";
   const auto rows = [&](const char* run, const Check& ch) {
     for (const auto& t : ch.eval.assessment.targets)
@@ -181,6 +230,7 @@ void write_solve_csv(const SolveResult& r, const SolveReportContext& c, std::ost
   };
   rows("rounded", r.verification);
   if (r.one_unit_less) rows("one-unit-less", *r.one_unit_less);
+  if (c.conservative && c.conservative->result) rows("conservative", c.conservative->result->verification);
 }
 
 }  // namespace coldcore

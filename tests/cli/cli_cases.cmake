@@ -87,3 +87,12 @@ cli_expect(deviation_nothing 2 ARGS deviation products/kofta-balls.toml
 cli_expect(media_text 0 ARGS media STDOUT_HAS "condensing-steam" "5000 - 100000" "source:" "CAUTIONS")
 cli_expect(media_json 0 ARGS media --format json STDOUT_HAS "\"key\": \"blast-chill\"" "\"h_min_W_m2K\": 20" "\"cautions\"")
 cli_expect(media_csv 0 ARGS media --format csv STDOUT_HAS "key,h_min_W_m2K,h_max_W_m2K" "still-air,5,15")
+
+# --conservative: the worst case of [product.ranges] and h_range_W_m2K beside the nominal answer.
+cli_expect(solve_conservative_kofta 0 ARGS solve products/kofta-balls.toml --for hold-time --conservative
+           STDOUT_HAS "CONSERVATIVE (documented worst case" "diameter 40 mm (largest)" "initial 2 C (coldest, for heating)"
+                      "driven by: stage \"combi-oven steam cook\" h 80 W/m2K (lowest)")
+cli_expect(solve_conservative_sausage_json 0 ARGS solve products/chicken-sausage-log.toml --for chill-time --conservative --format json
+           STDOUT_HAS "\"conservative\"" "initial 5 C (warmest, for chilling)" "\"driven_by\"")
+cli_expect(solve_conservative_no_ranges 2 ARGS solve products/corned-beef-can.toml --for min-medium --conservative
+           STDERR_HAS "--conservative: the file gives no range that applies to min-medium")

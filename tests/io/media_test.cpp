@@ -92,3 +92,21 @@ TEST_CASE("product file: medium_type with h_W_m2K, and h outside its range, are 
   CHECK_THROWS_WITH_AS(io::parse_product(out, "p.toml"),
                        "p.toml: stage[1].h_range_W_m2K = [250, 300]: must contain h_W_m2K = 200", InputError);
 }
+
+TEST_CASE("product file: [product.ranges] parse in SI and must contain the nominal value") {
+  std::string t = kBase;
+  t.replace(t.find("[product.properties]"), 20,
+            "[product.ranges]\ndiameter_mm = [38, 44]\ninitial_C = [2, 6]\nconductivity_W_mK = [0.45, 0.55]\n[product.properties]");
+  const auto pf = io::parse_product(t, "p.toml");
+  REQUIRE(pf.ranges.diameter_m);
+  CHECK((*pf.ranges.diameter_m)[1] == doctest::Approx(0.044));
+  CHECK((*pf.ranges.initial_C)[0] == 2);
+  CHECK((*pf.ranges.conductivity_W_mK)[0] == 0.45);
+  std::string bad = kBase;
+  bad.replace(bad.find("[product.properties]"), 20, "[product.ranges]\ndiameter_mm = [41, 44]\n[product.properties]");
+  CHECK_THROWS_WITH_AS(io::parse_product(bad, "p.toml"),
+                       "p.toml: product.ranges.diameter_mm = [41, 44]: must contain the nominal value 0.04 (SI)", InputError);
+  std::string unused = kBase;
+  unused.replace(unused.find("[product.properties]"), 20, "[product.ranges]\nthickness_mm = [41, 44]\n[product.properties]");
+  CHECK_THROWS_AS(io::parse_product(unused, "p.toml"), InputError);
+}

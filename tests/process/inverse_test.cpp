@@ -1,10 +1,12 @@
 // Inverse questions on the forward model: re-run checks, conduction scaling, honest no-solution.
+#include <array>
 #include <cmath>
 
 #include <doctest/doctest.h>
 
 #include "coldcore/error.hpp"
 #include "coldcore/process/inverse.hpp"
+#include "coldcore/process/conservative.hpp"
 #include "inverse_support.hpp"
 
 using namespace coldcore;
@@ -97,4 +99,24 @@ TEST_CASE("solve: a medium too cold to reach the target is no solution, with the
   o.stage = "chill";
   CHECK_THROWS_WITH_AS(process::solve(Question::chill_time, c, libs.get(), o),
                        doctest::Contains("is not below the end temperature, so it never can"), NoSolution);
+}
+
+TEST_CASE("solve --conservative: the worst case needs at least the longest single-choice time") {
+  const test::Libs libs;
+  auto s = test::dip_sphere({test::f_target("P70", 120.0, {"cook"})});
+  process::Ranges r;
+  r.diameter_m = std::array<double, 2>{0.036, 0.040};
+  r.initial_C = std::array<double, 2>{2.0, 6.0};
+  r.stage_h_W_m2K = {std::array<double, 2>{80.0, 160.0}, std::nullopt};
+  const auto c = process::solve_conservative(Question::hold_time, s, r, libs.get());
+  REQUIRE(c.result);
+  const auto nominal = process::solve(Question::hold_time, s, libs.get());
+  CHECK(c.result->rounded >= nominal.rounded);
+  for (const auto& a : c.alone) {
+    REQUIRE(a.rounded);
+    CHECK(c.result->rounded >= *a.rounded);  // every choice slows heating: together at least as long
+  }
+  CHECK(c.choices.size() == 3);
+  CHECK(c.choices[2] == "initial 2 C (coldest, for heating)");
+  CHECK_FALSE(c.driven_by.empty());
 }

@@ -23,6 +23,9 @@
 ///              diameter_* (sphere, cylinder, finite-cylinder), length_* (finite-cylinder),
 ///              thickness_* (slab, full thickness), size_* = [a, b, c] (brick, full edges),
 ///              initial_*; a dimension the shape does not use is refused, not ignored.
+///   [product.ranges]       optional tolerance ranges, each [low, high] containing the nominal:
+///              diameter_*, length_*, thickness_* (only those the shape uses), conductivity_W_mK,
+///              initial_* — e.g. diameter_mm = [40, 44], initial_C = [2, 6]
 ///   [product.properties]   conductivity_W_mK, density_kg_m3, specific_heat_J_kgK (all > 0), or
 ///   [product.composition]  water (required), protein, fat, carbohydrate, fiber, ash fractions
 ///   [[stage]]  name (default "stage N", unique); medium: exactly one of
@@ -63,6 +66,15 @@ namespace coldcore::io {
 /// values from the composition. The same type the properties module takes.
 using MassFractions = coldcore::Composition;
 
+/// [product.ranges]: tolerance ranges [low, high] of product values, in SI, each containing the
+/// nominal value. Used by conservative evaluation (process/conservative.hpp); nominal results
+/// never use them. Keys: diameter_*, length_*, thickness_* (as the shape uses them),
+/// conductivity_W_mK, initial_* (°C or °F). Stage h ranges: StageH::h_range_W_m2K.
+struct ProductRanges {
+  std::optional<std::array<double, 2>> diameter_m, length_m, thickness_m, conductivity_W_mK, initial_C;
+  bool any() const { return diameter_m || length_m || thickness_m || conductivity_W_mK || initial_C; }
+};
+
 /// Per-stage h provenance beyond h_W_m2K (parallel to ProductFile::stages).
 struct StageH {
   std::string medium_type;                        ///< set when the stage names medium_type
@@ -77,6 +89,7 @@ struct ProductFile {
   std::vector<Target> targets;               ///< may be empty
   std::vector<std::string> warnings;         ///< e.g. gaps in a medium log; never fatal
   std::vector<StageH> stage_h;               ///< parallel to stages
+  ProductRanges ranges;                      ///< [product.ranges], when given
   std::string origin;                        ///< as passed to parse_product
   std::string sha256_hex;                    ///< of the TOML text, for provenance
 };

@@ -14,6 +14,7 @@
 #include <string>
 #include <vector>
 
+#include "coldcore/process/conservative.hpp"
 #include "coldcore/process/inverse.hpp"
 #include "coldcore/report/format.hpp"
 #include "coldcore/report/run_report.hpp"
@@ -24,6 +25,8 @@ struct SolveReportContext {
   std::string product_name;
   std::vector<KeyValue> provenance;   ///< tool, input, SHA-256, libraries, date
   std::vector<std::string> warnings;  ///< file warnings
+  /// --conservative: the worst case beside the nominal answer (JSON key "conservative").
+  const process::ConservativeSolve* conservative = nullptr;
 };
 
 void write_solve_text(const process::SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
