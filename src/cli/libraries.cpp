@@ -1,39 +1,131 @@
-#include "cli/libraries.hpp"
+// coldcore organisms | rules: the data libraries with their sources.
+#include <iostream>
 
-#include "coldcore/error.hpp"
-#include "coldcore/io/product_file.hpp"
-#include "coldcore/io/sha256.hpp"
+#include "cli/data_dir.hpp"
+#include "cli/output.hpp"
+#include "cli/verbs.hpp"
+#include "coldcore/io/libraries.hpp"
+#include "coldcore/report/cautions.hpp"
+#include "coldcore/report/json.hpp"
 
 namespace coldcore::cli {
 
-std::filesystem::path library_path(const std::string& name, const std::string& library_dir,
-                                   const std::string& product_file) {
-  namespace fs = std::filesystem;
-  if (!library_dir.empty()) {
-    const fs::path p = fs::path(library_dir) / name;
-    if (!fs::exists(p)) throw InputError("--library = " + library_dir + ": has no " + name);
-    return p;
-  }
-  if (!product_file.empty()) {
-    const fs::path beside = fs::path(product_file).parent_path() / name;
-    if (fs::exists(beside)) return beside;
-  }
-  const fs::path src = fs::path(COLDCORE_SOURCE_DIR) / "products" / name;
-  if (fs::exists(src)) return src;
-  throw InputError(name + ": not found beside the product file nor in " + src.parent_path().generic_string() +
-                   "; give --library DIR");
+namespace {
+
+std::string temp_text(double c, TempUnit u) { return fixed(display_temp(c, u), 1) + " " + std::string(unit_symbol(u)); }
+std::string diff_text(double k, TempUnit u) { return fixed(display_temp_difference(k, u), 2) + " " + std::string(unit_symbol(u)); }
+
+void write_cautions_text(std::ostream& out) {
+  out << "\nCAUTIONS\n";
+  for (const auto& c : cautions()) out << "  * " << c << "\n";
 }
 
-DataLibraries load_libraries(const std::string& library_dir, const std::string& product_file) {
-  DataLibraries d;
-  const auto op = library_path("organisms.toml", library_dir, product_file);
-  const auto rp = library_path("cooling-rules.toml", library_dir, product_file);
-  const std::string ot = io::read_text_file(op), rt = io::read_text_file(rp);
-  d.organisms = parse_organisms(ot, op.generic_string());
-  d.rules = parse_cooling_rules(rt, rp.generic_string());
-  d.organisms_sha256 = io::sha256_hex(ot);
-  d.rules_sha256 = io::sha256_hex(rt);
-  return d;
+int list_organisms(const OutputArgs& a, std::ostream& out) {
+  const Format f = parse_format(a.format, {Format::text, Format::json, Format::csv});
+  const TempUnit u = parse_temp_unit(a.units);
+  const auto lib = io::load_libraries(data_dir());
+  if (f == Format::json) {
+    JsonWriter w(out);
+    w.begin_object().key("library").value(lib.organisms.origin).key("organisms").begin_array();
+    for (const auto& o : lib.organisms.organisms) {
+      const Kinetics& k = o.kinetics;
+      w.begin_object();
+      w.key("key").value(k.key).key("name").value(k.name).key("kind").value(o.kind);
+      w.key("reference_C").value(k.reference_C).key("z_C").value(k.z_C);
+      if (k.split_C) w.key("split_C").value(*k.split_C).key("z_below_C").value(*k.z_below_C);
+      if (k.D_ref_s) w.key("D_ref_s").value(*k.D_ref_s);
+      w.key("valid_min_C").value(k.valid_min_C).key("valid_max_C").value(k.valid_max_C);
+      w.key("values").begin_array();
+      for (const auto& [key, v] : o.values)
+        w.begin_object().key("key").value(key).key("value").value(v.value).key("source").value(v.source)
+            .key("status").value(v.status).end_object();
+      w.end_array();
+      w.end_object();
+    }
+    w.end_array().key("cautions").value(cautions()).end_object();
+    return kAllMet;
+  }
+  if (f == Format::csv) {
+    for (const auto& c : cautions()) out << "# caution: " << c << "\n";
+    out << "key,quantity,value,status,source\n";
+    for (const auto& o : lib.organisms.organisms)
+      for (const auto& [key, v] : o.values)
+        out << o.kinetics.key << "," << key << "," << JsonWriter::number(v.value) << "," << v.status << ","
+            << JsonWriter::escape(v.source) << "\n";
+    return kAllMet;
+  }
+  out << "Organism heat-resistance library (" << lib.organisms.origin << ")\n";
+  for (const auto& o : lib.organisms.organisms) {
+    const Kinetics& k = o.kinetics;
+    out << "\n" << k.key << ": " << k.name << " (" << o.kind << ")\n";
+    out << "  reference " << temp_text(k.reference_C, u) << ", z " << diff_text(k.z_C, u);
+    if (k.split_C) out << " at and above " << temp_text(*k.split_C, u) << ", z " << diff_text(*k.z_below_C, u) << " below";
+    out << "\n";
+    if (k.D_ref_s) out << "  D at reference " << fixed(*k.D_ref_s / 60.0, 4) << " min\n";
+    out << "  data valid from " << temp_text(k.valid_min_C, u) << " to " << temp_text(k.valid_max_C, u) << "\n";
+    for (const auto& [key, v] : o.values) out << "    " << key << " [" << v.status << "]: " << v.source << "\n";
+    if (o.has_unconfirmed()) out << "  ! some values are from memory: verify against the primary source before use\n";
+  }
+  write_cautions_text(out);
+  return kAllMet;
+}
+
+int list_rules(const OutputArgs& a, std::ostream& out) {
+  const Format f = parse_format(a.format, {Format::text, Format::json, Format::csv});
+  const TempUnit u = parse_temp_unit(a.units);
+  const auto lib = io::load_libraries(data_dir());
+  if (f == Format::json) {
+    JsonWriter w(out);
+    w.begin_object().key("library").value(lib.rules.origin).key("rules").begin_array();
+    for (const auto& r : lib.rules.rules) {
+      w.begin_object().key("key").value(r.key).key("name").value(r.name).key("source").value(r.source)
+          .key("status").value(r.status);
+      if (r.chill_start_within_s) w.key("chill_start_within_s").value(*r.chill_start_within_s);
+      w.key("steps").begin_array();
+      for (const auto& s : r.steps)
+        w.begin_object().key("from_C").value(s.from_C).key("to_C").value(s.to_C).key("within_s").value(s.within_s)
+            .key("advisory").value(s.advisory).key("source").value(s.source).key("status").value(s.status).end_object();
+      w.end_array().end_object();
+    }
+    w.end_array().key("cautions").value(cautions()).end_object();
+    return kAllMet;
+  }
+  if (f == Format::csv) {
+    for (const auto& c : cautions()) out << "# caution: " << c << "\n";
+    out << "key,step,from_C,to_C,within_s,advisory,status,source\n";
+    for (const auto& r : lib.rules.rules) {
+      int n = 0;
+      for (const auto& s : r.steps)
+        out << r.key << "," << ++n << "," << JsonWriter::number(s.from_C) << "," << JsonWriter::number(s.to_C) << ","
+            << JsonWriter::number(s.within_s) << "," << (s.advisory ? "yes" : "no") << "," << s.status << ","
+            << JsonWriter::escape(s.source) << "\n";
+    }
+    return kAllMet;
+  }
+  out << "Cooling-rule library (" << lib.rules.origin << ")\n";
+  for (const auto& r : lib.rules.rules) {
+    out << "\n" << r.key << ": " << r.name << " [" << r.status << "]\n  source: " << r.source << "\n";
+    for (const auto& s : r.steps)
+      out << "  " << temp_text(s.from_C, u) << " -> " << temp_text(s.to_C, u) << " within " << duration_text(s.within_s)
+          << (s.advisory ? " (advisory)" : "") << "\n";
+    if (r.chill_start_within_s) out << "  chilling must begin within " << duration_text(*r.chill_start_within_s) << " of the cook\n";
+    if (!r.note.empty()) out << "  note: " << r.note << "\n";
+  }
+  write_cautions_text(out);
+  return kAllMet;
+}
+
+}  // namespace
+
+void add_library_verbs(CLI::App& app, VerbContext& ctx) {
+  auto org = std::make_shared<OutputArgs>();
+  auto* o = app.add_subcommand("organisms", "the organism heat-resistance library with its sources");
+  add_output_options(*o, *org);
+  o->callback([&ctx, org] { ctx.run = [org] { return with_output(*org, [&](std::ostream& out) { return list_organisms(*org, out); }); }; });
+  auto rul = std::make_shared<OutputArgs>();
+  auto* r = app.add_subcommand("rules", "the cooling-rule library with its sources");
+  add_output_options(*r, *rul);
+  r->callback([&ctx, rul] { ctx.run = [rul] { return with_output(*rul, [&](std::ostream& out) { return list_rules(*rul, out); }); }; });
 }
 
 }  // namespace coldcore::cli

@@ -20,6 +20,8 @@ int real_main(int argc, char** argv) {
   add_run_verb(app, ctx);
   add_modes_verb(app, ctx);
   add_props_verb(app, ctx);
+  add_probe_verb(app, ctx);
+  add_library_verbs(app, ctx);
   add_solve_verb(app, ctx);
   add_deviation_verb(app, ctx);
   add_media_verb(app, ctx);

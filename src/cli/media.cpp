@@ -2,7 +2,7 @@
 #include <cstdio>
 #include <memory>
 
-#include "cli/libraries.hpp"
+#include "cli/library_files.hpp"
 #include "cli/output.hpp"
 #include "cli/verbs.hpp"
 #include "coldcore/io/media.hpp"

@@ -1,5 +1,6 @@
 #include "cli/output.hpp"
 
+#include <ctime>
 #include <filesystem>
 #include <fstream>
 #include <iostream>
@@ -16,30 +17,53 @@ void add_output_options(CLI::App& sub, OutputArgs& a, bool with_step) {
   if (with_step) sub.add_option("--step-s", a.step_s, "output sampling of history tables, s")->capture_default_str();
 }
 
-int with_output(const OutputArgs& a, const std::function<int(std::ostream&)>& body) {
-  std::ostringstream buf;
-  const int code = body(buf);
-  if (a.out.empty()) {
-    std::cout << buf.str();
-    return code;
-  }
-  // Write beside the target and rename, so a failed write never leaves half a report.
-  const std::filesystem::path target(a.out);
+std::string today_utc() {
+  std::time_t now = std::time(nullptr);
+  std::tm tm{};
+  gmtime_r(&now, &tm);
+  char buf[16];
+  std::strftime(buf, sizeof buf, "%Y-%m-%d", &tm);
+  return buf;
+}
+
+namespace {
+
+// Write beside the target and rename, so a failed write never leaves half a file.
+void write_whole_file(const std::filesystem::path& target, const std::string& content) {
   std::filesystem::path tmp = target;
   tmp += ".tmp-coldcore";
   {
     std::ofstream f(tmp, std::ios::binary);
-    if (!f) throw InputError("--out = " + a.out + ": cannot be opened for writing");
-    f << buf.str();
+    if (!f) throw InputError("--out = " + target.string() + ": cannot be opened for writing");
+    f << content;
     f.flush();
-    if (!f) throw InputError("--out = " + a.out + ": write failed");
+    if (!f) throw InputError("--out = " + target.string() + ": write failed");
   }
   std::error_code ec;
   std::filesystem::rename(tmp, target, ec);
   if (ec) {
     std::filesystem::remove(tmp, ec);
-    throw InputError("--out = " + a.out + ": cannot be written");
+    throw InputError("--out = " + target.string() + ": cannot be written");
   }
+}
+
+}  // namespace
+
+int with_output(const OutputArgs& a, const std::function<int(std::ostream&)>& body) {
+  return with_output(a, [&](std::ostream& out, SideFiles&) { return body(out); });
+}
+
+int with_output(const OutputArgs& a, const std::function<int(std::ostream&, SideFiles&)>& body) {
+  std::ostringstream buf;
+  SideFiles side;
+  const int code = body(buf, side);
+  if (a.out.empty()) {
+    std::cout << buf.str();
+    return code;
+  }
+  const std::filesystem::path target(a.out);
+  for (const auto& [name, content] : side) write_whole_file(target.parent_path() / name, content);
+  write_whole_file(target, buf.str());
   return code;
 }
 

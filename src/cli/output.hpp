@@ -4,6 +4,8 @@
 #include <functional>
 #include <iosfwd>
 #include <string>
+#include <utility>
+#include <vector>
 
 #include <CLI/CLI.hpp>
 
@@ -20,8 +22,19 @@ struct OutputArgs {
 
 void add_output_options(CLI::App& sub, OutputArgs& a, bool with_step = false);
 
+/// Today's date in UTC, YYYY-MM-DD, for report provenance.
+std::string today_utc();
+
 /// Runs `body` writing into a buffer; on success writes the buffer to --out (or stdout) and
 /// returns body's exit code. On an exception nothing is written.
 int with_output(const OutputArgs& a, const std::function<int(std::ostream&)>& body);
+
+/// Files written beside --out (e.g. the SVG plots of a Markdown report): name relative to the
+/// folder of --out, and content.
+using SideFiles = std::vector<std::pair<std::string, std::string>>;
+
+/// As above, and the body may add side files; they are written only when --out is given and
+/// the body succeeded (a body that adds side files without --out is refused by the verb).
+int with_output(const OutputArgs& a, const std::function<int(std::ostream&, SideFiles&)>& body);
 
 }  // namespace coldcore::cli

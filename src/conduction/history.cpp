@@ -25,6 +25,11 @@
 namespace coldcore {
 namespace detail {
 
+// The centre cannot feel a change at the surface before Fo = 0.01 on the smallest half-dimension:
+// 1 − θ_step(centre) < 2e-10 there (sphere, Bi = ∞, the worst case: ≈ 2·e^{−1/(4Fo)}/√(πFo)), so
+// Θ(τ) = ∫0^τ θ_step(centre) = τ holds to that inside the window.
+constexpr double kInsulatedFourier = 0.01;
+
 std::size_t StageModel::checkpoint_count() const { return checkpoints.size() / (3 * basis->lambda.size() + 7); }
 
 void StageModel::store_checkpoint(const ModalState& st) {
@@ -50,11 +55,17 @@ void StageModel::load_checkpoint(std::size_t i, ModalState& st) const {
 
 long Engine::epoch_of(double origin, double t) const {
   // t >= origin always: truncation is floor (and avoids a libm call on plain x86-64)
-  const double x = (t - origin) / epoch_s;
+  const double x = (t - origin) * inv_epoch_s;
   return x >= 0 ? static_cast<long>(x) : static_cast<long>(std::floor(x));
 }
 
 void Engine::advance(const Basis& B, ModalState& st, double dt, double slope) const {
+  if (B.axes.size() > 1) {
+    // products: the factorised exponentials of the cached form are far cheaper than K exp calls
+    StepCache c;
+    advance(B, st, dt, slope, c);
+    return;
+  }
   const std::size_t K = B.lambda.size();
   double* a = st.a.data();
   double* wp = st.w_prev.data();
@@ -76,10 +87,35 @@ void Engine::advance(const Basis& B, ModalState& st, double dt, double slope, St
   if (c.dt != dt || c.basis != &B) {
     c.e.resize(K);
     c.g.resize(K);
-    for (std::size_t k = 0; k < K; ++k) {
-      const double x = -B.lambda[k] * dt;
-      c.e[k] = std::exp(x);
-      c.g[k] = -std::expm1(x) / B.lambda[k];
+    c.bg.resize(K);
+    if (B.axes.size() > 1) {
+      // A product mode decays as the product of its axis modes, e^{−(λi+λj+λk)dt}, so K
+      // exponentials reduce to one per axis mode and K products. Where λ·dt is small, 1 − e
+      // would cancel: those few modes keep expm1.
+      const std::size_t A = B.axes.size();
+      for (std::size_t ax = 0; ax < A; ++ax) {
+        const AxisModes& am = B.axes[ax];
+        c.axis_e[ax].resize(am.zeta.size());
+        for (std::size_t n = 0; n < am.zeta.size(); ++n)
+          c.axis_e[ax][n] = std::exp(-am.lambda(static_cast<int>(n), B.alpha) * dt);
+      }
+      for (std::size_t k = 0; k < K; ++k) {
+        const auto& ix = B.index[k];
+        double e = c.axis_e[0][static_cast<std::size_t>(ix[0])] * c.axis_e[1][static_cast<std::size_t>(ix[1])];
+        if (A > 2) e *= c.axis_e[2][static_cast<std::size_t>(ix[2])];
+        const double x = B.lambda[k] * dt;
+        const double one_minus_e = x > 0.5 ? 1.0 - e : -std::expm1(-x);
+        c.e[k] = e;
+        c.g[k] = one_minus_e / B.lambda[k];
+        c.bg[k] = one_minus_e * B.b_over_lambda[k];
+      }
+    } else {
+      for (std::size_t k = 0; k < K; ++k) {
+        const double x = -B.lambda[k] * dt;
+        c.e[k] = std::exp(x);
+        c.g[k] = -std::expm1(x) / B.lambda[k];
+        c.bg[k] = B.b[k] * c.g[k];
+      }
     }
     c.dt = dt;
     c.basis = &B;
@@ -145,10 +181,35 @@ ModalSums Engine::event_advance_sum(const Basis& B, ModalState& st, double origi
   if (c.dt != dt || c.basis != &B) {
     c.e.resize(K);
     c.g.resize(K);
-    for (std::size_t k = 0; k < K; ++k) {
-      const double x = -B.lambda[k] * dt;
-      c.e[k] = std::exp(x);
-      c.g[k] = -std::expm1(x) / B.lambda[k];
+    c.bg.resize(K);
+    if (B.axes.size() > 1) {
+      // A product mode decays as the product of its axis modes, e^{−(λi+λj+λk)dt}, so K
+      // exponentials reduce to one per axis mode and K products. Where λ·dt is small, 1 − e
+      // would cancel: those few modes keep expm1.
+      const std::size_t A = B.axes.size();
+      for (std::size_t ax = 0; ax < A; ++ax) {
+        const AxisModes& am = B.axes[ax];
+        c.axis_e[ax].resize(am.zeta.size());
+        for (std::size_t n = 0; n < am.zeta.size(); ++n)
+          c.axis_e[ax][n] = std::exp(-am.lambda(static_cast<int>(n), B.alpha) * dt);
+      }
+      for (std::size_t k = 0; k < K; ++k) {
+        const auto& ix = B.index[k];
+        double e = c.axis_e[0][static_cast<std::size_t>(ix[0])] * c.axis_e[1][static_cast<std::size_t>(ix[1])];
+        if (A > 2) e *= c.axis_e[2][static_cast<std::size_t>(ix[2])];
+        const double x = B.lambda[k] * dt;
+        const double one_minus_e = x > 0.5 ? 1.0 - e : -std::expm1(-x);
+        c.e[k] = e;
+        c.g[k] = one_minus_e / B.lambda[k];
+        c.bg[k] = one_minus_e * B.b_over_lambda[k];
+      }
+    } else {
+      for (std::size_t k = 0; k < K; ++k) {
+        const double x = -B.lambda[k] * dt;
+        c.e[k] = std::exp(x);
+        c.g[k] = -std::expm1(x) / B.lambda[k];
+        c.bg[k] = B.b[k] * c.g[k];
+      }
     }
     c.dt = dt;
     c.basis = &B;
@@ -157,7 +218,7 @@ ModalSums Engine::event_advance_sum(const Basis& B, ModalState& st, double origi
   double* wp = st.w_prev.data();
   double* wc = st.w_cur.data();
   const double* e = c.e.data();
-  const double* g = c.g.data();
+  const double* bg = c.bg.data();
   const double* b = B.b.data();
   const double* bl = B.b_over_lambda.data();
   const double* vs = B.surface.data();
@@ -175,23 +236,35 @@ ModalSums Engine::event_advance_sum(const Basis& B, ModalState& st, double origi
                             static_cast<double>(st.epoch)};
     std::copy(tail, tail + 7, ck + 3 * K);
   }
-  double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0;
+  double s0 = 0, s1 = 0, s2 = 0, s3 = 0;
   const double bs = slope;
-#pragma omp simd reduction(+ : s0, s1, s2, s3, s4)
+  if (jump != 0.0) {
+    for (std::size_t k = 0; k < K; ++k) {
+      a[k] += b[k] * jump;
+      wc[k] += b[k] * jump;
+    }
+  }
+  // the w sums are needed apart only when the end of the step lies in a later epoch (rare):
+  // the caller then recomputes them with sums()
+#pragma omp simd reduction(+ : s0, s1, s2, s3)
   for (std::size_t k = 0; k < K; ++k) {
-    const double ak = (a[k] + b[k] * jump) * e[k] - b[k] * bs * g[k];
-    const double wck = (wc[k] + bl[k] * ds + b[k] * jump) * e[k];
+    const double ak = a[k] * e[k] - bs * bg[k];
+    const double wck = (wc[k] + bl[k] * ds) * e[k];
     const double wpk = wp[k] * e[k];
     a[k] = ak;
     wc[k] = wck;
     wp[k] = wpk;
-    s0 += ak;
+    s0 += ak - wpk - wck;
     s1 += ak * vs[k];
     s2 += ak * vm[k];
-    s3 += wpk;
-    s4 += wck;
   }
-  return ModalSums{s0, s1, s2, s3, s4};
+  (void)s3;
+  ModalSums out;
+  out.a = s0;  // Σ (a − w_prev − w_cur): only valid together with combined = true
+  out.a_surface = s1;
+  out.a_mean = s2;
+  out.combined = true;
+  return out;
 }
 
 ModalSums Engine::sums(const Basis& B, const ModalState& st) const {
@@ -216,6 +289,7 @@ ModalSums Engine::sums(const Basis& B, const ModalState& st) const {
 double Engine::centre_from(const Basis& B, const ModalState& st, const ModalSums& s, double origin, double t, double tm,
                            double slope) const {
   const long d = epoch_of(origin, t) - st.epoch;
+  if (s.combined && d != 0) return centre_from(B, st, sums(B, st), origin, t, tm, slope);
   const bool use_prev = d <= 0, use_cur = d <= 1;
   double corr = 0.0;
   const double tau0 = t - origin;
@@ -311,6 +385,68 @@ double Engine::at_point(const Basis& B, const ModalState& st, const Point& p, do
   return tm + sum - slope * q;
 }
 
+ShadowValues Engine::shadow_at(const Basis& B, double age) const {
+  const auto& sh = B.shadow;
+  ShadowValues v;
+  v.age = age;
+  double gs = 0, gm = 0, cs = 0, cm = 0;
+  for (std::size_t k = 0; k < sh.lambda.size(); ++k) {
+    const double e = std::exp(-sh.lambda[k] * age);
+    cs += sh.bs[k] * e;
+    cm += sh.bm[k] * e;
+    gs += sh.bs[k] * e / sh.lambda[k];
+    gm += sh.bm[k] * e / sh.lambda[k];
+  }
+  const double r = std::exp(-sh.lambda_end * age);
+  v.gs = gs + sh.ramp_surface * r;
+  v.gm = gm + sh.ramp_mean * r;
+  v.cs = cs + sh.jump_surface * r;
+  v.cm = cm + sh.jump_mean * r;
+  return v;
+}
+
+double Engine::expiry(const Basis& B, double t, double ds, double jump) const {
+  const auto& sh = B.shadow;
+  double scale = std::abs(ds) * (std::abs(B.q_surface) + std::abs(B.q_mean));
+  if (jump != 0.0) {
+    double js = std::abs(sh.jump_surface) + std::abs(sh.jump_mean);
+    for (std::size_t k = 0; k < sh.lambda.size(); ++k) js += std::abs(sh.bs[k]) + std::abs(sh.bm[k]);
+    scale += std::abs(jump) * js;
+  }
+  const double ratio = 100.0 * scale / tol_K;
+  if (ratio <= 1.0) return t;
+  return t + std::log(ratio) / sh.lambda_first;
+}
+
+void Engine::shadow_correction(const Basis& B, const std::vector<RecentEvent>& ev, double t,
+                               std::vector<ShadowValues>* cache, double& surface, double& mean) const {
+  surface = 0;
+  mean = 0;
+  for (const auto& e : ev) {
+    if (e.t > t || e.expires <= t) continue;
+    const double age = t - e.t;
+    ShadowValues v;
+    bool found = false;
+    if (cache) {
+      for (const auto& c : *cache)
+        if (c.age == age) {
+          v = c;
+          found = true;
+          break;
+        }
+    }
+    if (!found) {
+      v = shadow_at(B, age);
+      if (cache) {
+        if (cache->size() >= 64) cache->clear();
+        cache->push_back(v);
+      }
+    }
+    surface += e.ds * v.gs + e.jump * v.cs;
+    mean += e.ds * v.gm + e.jump * v.cm;
+  }
+}
+
 void Engine::state_at(const StageModel& S, double t, ModalState& st, double& tm, double& slope) const {
   const auto& B = *S.basis;
   // a time on a step boundary belongs to the step that ends there (left limit): the left-out
@@ -319,7 +455,11 @@ void Engine::state_at(const StageModel& S, double t, ModalState& st, double& tm,
   step = step == 0 ? 0 : step - 1;
   const std::size_t ck = step / static_cast<std::size_t>(S.stride);
   S.load_checkpoint(ck, st);
-  StepCache cache;
+  // Scratch reused across calls (evaluate() is called hundreds of thousands of times by the
+  // lethality quadrature); invalidated here so it is refilled for this basis and step.
+  thread_local StepCache cache;
+  cache.basis = nullptr;
+  cache.dt = -1;
   for (std::size_t k = ck * S.stride; k < step; ++k) {
     advance(B, st, S.step_t[k + 1] - S.step_t[k], S.step_slope[k], cache);
     add_event(B, st, S.origin_s, S.step_t[k + 1], S.step_ds[k + 1], 0.0);
@@ -355,6 +495,20 @@ HistorySample Engine::sample(int i, double t) const {
   else h.centre_C = centre(B, st, S.origin_s, t, tm, slope);
   h.surface_C = surface(B, st, tm, slope);
   h.mean_C = mean(B, st, tm, slope);
+  // transient of the left-out modes after recent events of this stage
+  std::vector<RecentEvent> ev;
+  std::size_t k = static_cast<std::size_t>(std::lower_bound(S.step_t.begin(), S.step_t.end(), t) - S.step_t.begin());
+  while (k > 0) {
+    --k;
+    if (S.step_t[k] < t - S.recent_window_s) break;
+    const double ds = k == 0 ? S.start_ds : S.step_ds[k];
+    const double jump = k == 0 ? S.start_jump : 0.0;
+    if (ds != 0.0 || jump != 0.0) ev.push_back(RecentEvent{S.step_t[k], ds, jump, expiry(B, S.step_t[k], ds, jump)});
+  }
+  double cs = 0, cm = 0;
+  shadow_correction(B, ev, t, nullptr, cs, cm);
+  h.surface_C += cs;
+  h.mean_C += cm;
   return h;
 }
 
@@ -481,8 +635,10 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
 
   auto eng = std::make_shared<Engine>();
   eng->alpha = alpha;
-  eng->tau_insulated_s = 0.01 * l_min * l_min / alpha;
+  eng->tau_insulated_s = detail::kInsulatedFourier * l_min * l_min / alpha;
   eng->epoch_s = eng->tau_insulated_s / 2.0;
+  eng->inv_epoch_s = 1.0 / eng->epoch_s;
+  eng->tol_K = opt.tol_K;
   const double lambda_cut = pick_lambda_cut(product, stages, eng->tau_insulated_s, opt.tol_K);
 
   History H;
@@ -527,9 +683,13 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
       st = std::move(ns);
       const double jump = i == 0 ? product.initial_C - tm0 : 0.0;
       eng->add_event(*basis, st, S.origin_s, t_abs, s0, jump);
+      S.start_ds = s0;
+      S.start_jump = jump;
     } else {
       S.origin_s = eng->stages.back().origin_s;
       eng->add_event(*basis, st, S.origin_s, t_abs, s0 - prev_slope, prev_tm - tm0);
+      S.start_ds = s0 - prev_slope;
+      S.start_jump = prev_tm - tm0;
     }
     S.basis = basis;
     const Basis& B = *basis;
@@ -563,11 +723,13 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
       if ((stg.end.target_C - v0) * dir <= 0) ended_at_start = true;
     }
 
-    // checkpoint stride: keep the stored amplitudes near 2^15 doubles per stage (evaluate then
-    // re-advances at most `stride` exact steps from the nearest checkpoint)
+    // checkpoint stride: keep the stored amplitudes within 2^22 doubles (32 MB) per stage;
+    // evaluate() re-advances at most `stride` exact steps from the nearest checkpoint, and the
+    // lethality quadrature calls it very often, so memory is traded for speed here
     const std::size_t K = B.lambda.size();
     const double est_steps = static_cast<double>(pts.size()) + 64.0;
-    S.stride = std::max(1, static_cast<int>(std::ceil(est_steps * 3.0 * K / 32768.0)));
+    const double budget = std::max(4194304.0, 48.0 * (3.0 * K + 7.0));  // and at least ~48 checkpoints
+    S.stride = std::max(1, static_cast<int>(std::ceil(est_steps * (3.0 * K + 7.0) / budget)));
     S.step_t.reserve(static_cast<std::size_t>(est_steps));
     S.step_tm.reserve(static_cast<std::size_t>(est_steps));
     S.step_slope.reserve(static_cast<std::size_t>(est_steps));
@@ -575,6 +737,8 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     S.checkpoints.reserve((static_cast<std::size_t>(est_steps) / S.stride + 2) * (3 * K + 7));
     H.samples.reserve(H.samples.size() + static_cast<std::size_t>(est_steps));
 
+    double h_guess = -1.0;      // next trial length of a checked step
+    int until_checkpoint = 1;  // steps to the next checkpoint (the first step has one)
     StageEndedBy ended_by = until ? StageEndedBy::cap : StageEndedBy::duration;
     double t_local = 0.0;
     double slope = s0;
@@ -594,6 +758,95 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     ModalState end_st, mid_st, start_st;
     HistorySample mid_s{}, end_s{};
     detail::StepCache cache;
+    std::vector<detail::RecentEvent> recent;
+    std::vector<detail::ShadowValues> scache;
+    // events of this stage whose surface/mean transient still counts; slope events share one
+    // window from the stage's largest slope change (no logarithm per step)
+    double max_ds = std::abs(S.start_ds);
+    for (std::size_t k = 1; k + 1 < pts.size(); ++k) {
+      const double sa = (pts[k].temp_C - pts[k - 1].temp_C) / (pts[k].time_s - pts[k - 1].time_s);
+      const double sb = (pts[k + 1].temp_C - pts[k].temp_C) / (pts[k + 1].time_s - pts[k].time_s);
+      max_ds = std::max(max_ds, std::abs(sb - sa));
+    }
+    if (pts.size() > 1) {
+      const double sl = (pts.back().temp_C - pts[pts.size() - 2].temp_C) / (pts.back().time_s - pts[pts.size() - 2].time_s);
+      max_ds = std::max(max_ds, std::abs(sl));
+    }
+    const double slope_window = eng->expiry(B, 0.0, max_ds, 0.0);
+    auto note_event = [&](double t, double ds, double jump) {
+      if (ds == 0.0 && jump == 0.0) return;
+      const double ex = jump != 0.0 ? std::max(eng->expiry(B, t, ds, jump), t + slope_window) : t + slope_window;
+      if (ex <= t) return;
+      recent.push_back(detail::RecentEvent{t, ds, jump, ex});
+      S.recent_window_s = std::max(S.recent_window_s, ex - t);
+    };
+    note_event(t_abs, S.start_ds, S.start_jump);
+    // factors at ages that are whole multiples of the last step length (a regular log) come from
+    // a table; others from a small cache
+    double table_dt = -1.0;
+    std::vector<detail::ShadowValues> table;
+    std::array<double, 64> ring_ds{}, ring_t{};
+    std::array<double, 128> ring2{};  // ring_ds mirrored twice: the last 64 events contiguous
+    int ring_pos = 0;
+    long run = 0;
+    double run_dt = -1.0;
+    auto flush_ring = [&]() {
+      for (long j = 1; j <= std::min<long>(run, 63); ++j) {
+        const int q = (ring_pos - static_cast<int>(j)) & 63;
+        if (ring_ds[q] != 0.0) recent.push_back(detail::RecentEvent{ring_t[q], ring_ds[q], 0.0, ring_t[q] + slope_window});
+      }
+      run = 0;
+    };
+    // the ring's part of the correction at the end of the current step (ages j·run_dt)
+    std::vector<double> tab_gs, tab_gm;  // factors at ages j·run_dt, j = 1..run_taps
+    long run_taps = 0;
+    auto ring_shadow = [&](HistorySample& out) {
+      if (run_taps == 0) {
+        while (run_taps < 60 && static_cast<double>(run_taps + 1) * run_dt < slope_window) ++run_taps;
+        tab_gs.assign(static_cast<std::size_t>(run_taps) + 1, 0.0);
+        tab_gm.assign(static_cast<std::size_t>(run_taps) + 1, 0.0);
+        for (long j = 1; j <= run_taps; ++j) {
+          const auto v = eng->shadow_at(B, static_cast<double>(j) * run_dt);
+          tab_gs[static_cast<std::size_t>(j)] = v.gs;
+          tab_gm[static_cast<std::size_t>(j)] = v.gm;
+        }
+      }
+      const long jw = std::min(run, run_taps);
+      const double* d = ring2.data() + ring_pos + 64;  // d[-j] is the event j steps back
+      double cs = 0, cm = 0;
+      for (long j = 1; j <= jw; ++j) {
+        cs += d[-j] * tab_gs[static_cast<std::size_t>(j)];
+        cm += d[-j] * tab_gm[static_cast<std::size_t>(j)];
+      }
+      out.surface_C += cs;
+      out.mean_C += cm;
+    };
+    auto shadow = [&](HistorySample& out) {
+      if (recent.empty()) return;
+      double cs = 0, cm = 0;
+      const double t = out.time_s;
+      const double inv_dt = table_dt > 0 ? 1.0 / table_dt : 0.0;
+      for (const auto& e : recent) {
+        if (e.t > t || e.expires <= t) continue;
+        const double age = t - e.t;
+        const long j = static_cast<long>(age * inv_dt + 0.5);
+        if (table_dt > 0 && j >= 1 && j < 4096 && static_cast<double>(j) * table_dt == age) {
+          while (table.size() <= static_cast<std::size_t>(j))
+            table.push_back(eng->shadow_at(B, static_cast<double>(table.size()) * table_dt));
+          const auto& v = table[static_cast<std::size_t>(j)];
+          cs += e.ds * v.gs + e.jump * v.cs;
+          cm += e.ds * v.gm + e.jump * v.cm;
+        } else {
+          const std::vector<detail::RecentEvent> one{e};
+          double a = 0, b = 0;
+          eng->shadow_correction(B, one, t, &scache, a, b);
+          cs += a;
+          cm += b;
+        }
+      }
+      out.surface_C += cs;
+      out.mean_C += cm;
+    };
     auto value_of = [&](const HistorySample& h) { return on_mean ? h.mean_C : h.centre_C; };
     auto f_of = [&](const HistorySample& h) { return (value_of(h) - stg.end.target_C) * dir; };
     auto centre_at = [&](const ModalState& q, double t, double tm, double sl) {
@@ -607,6 +860,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
       out.centre_C = centre_at(q, t, tm, sl);
       out.surface_C = eng->surface(B, q, tm, sl);
       out.mean_C = eng->mean(B, q, tm, sl);
+      shadow(out);
     };
 
     while (!finished) {
@@ -622,7 +876,8 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
                                                  : pts.back().temp_C;
       const double ta = t_abs + t_local;
       const double remaining = piece_end - t_local;
-      const bool checkpoint_here = S.step_t.size() % static_cast<std::size_t>(S.stride) == 0;
+      const bool checkpoint_here = --until_checkpoint == 0;
+      if (checkpoint_here) until_checkpoint = S.stride;
       const bool fused = remaining <= h_nocheck && !until;
       // the step start: apply its event, then record it (checkpoint = state after the event)
       if (!fused) {
@@ -635,6 +890,31 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
       S.step_ds.push_back(first_step ? 0.0 : pending_ds);
       const double ds_here = first_step ? 0.0 : pending_ds;
       first_step = false;
+      if (!recent.empty())
+        recent.erase(std::remove_if(recent.begin(), recent.end(), [&](const detail::RecentEvent& e) { return e.expires <= ta; }),
+                     recent.end());
+      // a run of equal short steps (a regular log) keeps its events in a ring: the correction is
+      // then a short fixed filter over the last slope changes
+      const bool ring_ok = fused && slope_window < 60.0 * remaining;
+      if (!(ring_ok && remaining == run_dt)) {
+        flush_ring();
+        if (run_dt != (ring_ok ? remaining : -1.0)) run_taps = 0;  // new step length: new filter
+        run_dt = ring_ok ? remaining : -1.0;
+        if (ring_ok && table_dt != run_dt) {
+          table_dt = run_dt;
+          table.clear();
+        }
+      }
+      if (ring_ok) {
+        ring_ds[ring_pos] = ds_here;
+        ring2[ring_pos] = ring2[ring_pos + 64] = ds_here;
+        ring_t[ring_pos] = ta;
+        ring_pos = (ring_pos + 1) & 63;
+        ++run;
+        S.recent_window_s = std::max(S.recent_window_s, slope_window);
+      } else {
+        note_event(ta, ds_here, 0.0);
+      }
 
       double h = remaining;
       bool have_mid = false;
@@ -657,7 +937,11 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
                              : eng->centre_from(B, st, sm, S.origin_s, tb, tm_b, slope);
         end_s.surface_C = tm_b + sm.a_surface - slope * B.q_surface;
         end_s.mean_C = tm_b + sm.a_mean - slope * B.q_mean;
+        shadow(end_s);
+        if (run > 0) ring_shadow(end_s);
       } else {
+        // start from twice the last accepted step of this stage (not the whole piece each time)
+        if (h_guess > 0) h = std::min(h, h_guess);
         for (;;) {
           end_st = st;  // reuses end_st's storage (no allocation)
           eng->advance(B, end_st, h, slope, cache);
@@ -672,6 +956,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
           if (std::max({ec, em, es}) <= opt.sample_tol_K || h / 2 < h_min) break;
           h /= 2;
         }
+        h_guess = 2 * h;
       }
 
       // end condition: crossing within (last, mid] or (mid, end]
@@ -691,7 +976,16 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
               eng->advance(B, q, tau, slope);
               const double tt = ta + tau;
               const double tm = tm_a + slope * tau;
-              const double v = on_mean ? eng->mean(B, q, tm, slope) : centre_at(q, tt, tm, slope);
+              double v;
+              if (on_mean) {
+                HistorySample tmp;
+                tmp.time_s = tt;
+                tmp.mean_C = eng->mean(B, q, tm, slope);
+                shadow(tmp);
+                v = tmp.mean_C;
+              } else {
+                v = centre_at(q, tt, tm, slope);
+              }
               return (v - stg.end.target_C) * dir;
             };
             const double flo = f(lo), fhi = f(hi);

@@ -7,8 +7,13 @@
 
 #include "coldcore/conduction/modes.hpp"
 #include "coldcore/conduction/quasi_steady.hpp"
+#include "coldcore/error.hpp"
+#include <string>
 
 namespace coldcore::detail {
+
+// Beyond this many product modes a history would need hundreds of MB: refuse instead.
+constexpr std::size_t kMaxProductModes = 200000;
 
 int AxisModes::m() const { return geometry_exponent(geometry); }
 
@@ -142,6 +147,11 @@ Basis make_basis(std::vector<AxisModes> axes, double alpha, int surface_axis, do
         // always keep the first mode (Bi = 0 axis aside, λ_1 is the slowest)
         const bool first = idx[0] == 0 && idx[1] == 0 && idx[2] == 0;
         if (lam > lambda_cut && !first) continue;
+        if (B.index.size() >= kMaxProductModes)
+          throw NotConverged("simulate: product modes: more than " + std::to_string(kMaxProductModes) +
+                             " needed (lambda_cut = " + std::to_string(lambda_cut) +
+                             " 1/s): the body is too elongated for the product series at this tol_K; "
+                             "raise tol_K or model the long directions as a slab or cylinder");
         B.index.push_back(idx);
         B.lambda.push_back(lam);
         B.b.push_back(b);
@@ -172,6 +182,67 @@ Basis make_basis(std::vector<AxisModes> axes, double alpha, int surface_axis, do
   B.q_centre = B.full_centre - kc;
   B.q_surface = B.full_surface - ks;
   B.q_mean = B.full_mean - km;
+
+  // shadow modes: 1D up to 4× the kept ζ (16× λ), products up to 2× per axis (4× λ)
+  {
+    const double f = na == 1 ? 16.0 : 4.0;
+    const double lam_end = f * lambda_cut;
+    std::vector<AxisModes> sx;
+    for (const auto& a : B.axes)
+      sx.push_back(axis_modes(a.geometry, a.biot, a.half_length_m,
+                              modes_needed(a.geometry, a.biot, a.half_length_m, alpha, lam_end)));
+    auto& sh = B.shadow;
+    sh.lambda_end = lam_end;
+    sh.lambda_first = lam_end;
+    double sum_s = 0, sum_m = 0, sum_sj = 0, sum_mj = 0;
+    std::vector<std::array<double, 3>> cand;  // λ, b·Φ(surface), b·Φ(mean)
+    std::array<int, 3> j{0, 0, 0};
+    const int m0 = static_cast<int>(sx[0].zeta.size()), m1 = na > 1 ? static_cast<int>(sx[1].zeta.size()) : 1,
+              m2 = na > 2 ? static_cast<int>(sx[2].zeta.size()) : 1;
+    for (j[0] = 0; j[0] < m0; ++j[0])
+      for (j[1] = 0; j[1] < m1; ++j[1])
+        for (j[2] = 0; j[2] < m2; ++j[2]) {
+          double lam = 0.0, b = 1.0, sv = 1.0, mv = 1.0;
+          for (std::size_t a = 0; a < na; ++a) {
+            lam += sx[a].lambda(j[a], alpha);
+            b *= sx[a].coef[j[a]];
+            sv *= (static_cast<int>(a) == surface_axis) ? sx[a].surf[j[a]] : 1.0;
+            mv *= sx[a].xbar[j[a]];
+          }
+          const bool first = j[0] == 0 && j[1] == 0 && j[2] == 0;
+          if (lam <= lambda_cut || first || lam > lam_end) continue;
+          cand.push_back({lam, b * sv, b * mv});
+        }
+    // products: only the 2K slowest left-out modes (the remainder term covers the rest), so that an
+    // event's correction costs about two steps
+    std::sort(cand.begin(), cand.end(), [](const auto& x, const auto& y) { return x[0] < y[0]; });
+    const std::size_t keep = na == 1 ? cand.size() : std::min(cand.size(), 2 * B.lambda.size());
+    if (keep < cand.size()) sh.lambda_end = cand[keep][0];
+    for (std::size_t c = 0; c < keep; ++c) {
+      const double lam = cand[c][0], bs = cand[c][1], bm = cand[c][2];
+      sh.lambda.push_back(lam);
+      sh.bs.push_back(bs);
+      sh.bm.push_back(bm);
+      sh.lambda_first = std::min(sh.lambda_first, lam);
+      sum_s += bs / lam;
+      sum_m += bm / lam;
+      sum_sj += bs;
+      sum_mj += bm;
+    }
+    sh.ramp_surface = B.q_surface - sum_s;
+    sh.ramp_mean = B.q_mean - sum_m;
+    // Σ over all modes of bΦ is the expansion of 1: 1 at the mean; at the surface point of a 1D
+    // body with finite Bi also 1 (positive terms); for Bi = ∞ 0. In products the surface series
+    // converges only conditionally: no jump remainder is used there.
+    double kept_sj = 0, kept_mj = 0;
+    for (std::size_t k = 0; k < B.lambda.size(); ++k) {
+      kept_sj += B.b[k] * B.surface[k];
+      kept_mj += B.b[k] * B.mean[k];
+    }
+    const bool surface_ok = na == 1 && !std::isinf(B.axes[0].biot);
+    sh.jump_surface = surface_ok ? 1.0 - kept_sj - sum_sj : 0.0;
+    sh.jump_mean = 1.0 - kept_mj - sum_mj;
+  }
   return B;
 }
 

@@ -149,6 +149,19 @@ LogIntegral f_trapezoid_s(std::span<const double> times_s, std::span<const doubl
   return out;
 }
 
+std::vector<double> cumulative_f_trapezoid_s(std::span<const double> times_s, std::span<const double> temps_C,
+                                             const Kinetics& k, std::string_view origin) {
+  validate_log(times_s, temps_C, origin);
+  std::vector<double> out(times_s.size(), 0.0);
+  double prev = lethal_rate(temps_C[0], k);
+  for (std::size_t i = 1; i < times_s.size(); ++i) {
+    const double cur = lethal_rate(temps_C[i], k);
+    out[i] = out[i - 1] + 0.5 * (prev + cur) * (times_s[i] - times_s[i - 1]);
+    prev = cur;
+  }
+  return out;
+}
+
 LogIntegral f_simpson_s(std::span<const double> times_s, std::span<const double> temps_C,
                         const Kinetics& k, std::string_view origin) {
   validate_log(times_s, temps_C, origin);

@@ -144,3 +144,87 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
 }
 
 }  // namespace coldcore
+
+namespace coldcore {
+
+namespace {
+
+std::string minutes_down(double seconds) { return shown_down(seconds / 60.0) + " min"; }
+std::string minutes_up(double seconds) { return shown_up(seconds / 60.0) + " min"; }
+
+}  // namespace
+
+VerdictRow verdict_row(const TargetResult& t) {
+  VerdictRow v;
+  v.name = t.name;
+  v.kind = to_string(t.kind);
+  v.required = t.required_text;
+  v.achieved = t.achieved_text;
+  v.margin = t.margin_text;
+  v.met = t.verdict == Verdict::met;
+  v.required_value = t.required;
+  v.achieved_value = t.achieved;
+  v.margin_value = t.margin;
+  v.value_unit = t.unit == "log10" ? "log10" : "s";
+  if (t.kinetics) {
+    const Kinetics& k = *t.kinetics;
+    v.details.push_back("credited F = " + minutes_down(t.F_s) + " at " + fixed(k.reference_C, 1) + " °C (z " +
+                        fixed(k.z_C, 2) + " °C); F needed " + minutes_up(t.F_required_s));
+    for (const auto& s : t.stages)
+      v.details.push_back("stage '" + s.stage + "': F " + s.F_text + (s.credited ? "" : " (not credited)"));
+    if (t.F_outside_range_s > 0)
+      v.details.push_back("F credited outside the data's valid range (" + fixed(k.valid_min_C, 1) + " to " +
+                          fixed(k.valid_max_C, 1) + " °C): " + minutes_down(t.F_outside_range_s));
+  }
+  if (t.cooling) {
+    for (const auto& st : t.cooling->steps) {
+      std::string line = "step " + st.step.label + ": ";
+      if (!st.start_s) {
+        line += "clock never started";
+      } else if (!st.reached) {
+        line += "not reached within the record (at least " + duration_text(st.elapsed_s) + ", limit " +
+                duration_text(st.step.within_s) + ")";
+      } else {
+        line += "took " + duration_text(st.elapsed_s) + " of " + duration_text(st.step.within_s) +
+                (st.passed ? " (passed)" : " (exceeded)");
+      }
+      if (st.step.advisory) line += " [advisory]";
+      v.details.push_back(line);
+      for (const auto& n : st.notes) v.details.push_back(n);
+    }
+    for (const auto& n : t.cooling->notes) v.details.push_back(n);
+  }
+  if (t.reached_s) v.details.push_back("first reached at " + duration_text(*t.reached_s));
+  for (const auto& n : t.notes) v.details.push_back(n);
+  if (!t.source.empty()) v.details.push_back("source: " + t.source);
+  return v;
+}
+
+void add_assessment(RunReport& report, const History& history, const Assessment& assessment,
+                    const std::vector<Target>& targets) {
+  std::vector<double> times;
+  times.reserve(report.history.rows.size());
+  for (const auto& row : report.history.rows) times.push_back(row[0]);
+  for (const auto& t : assessment.targets) {
+    report.verdicts.push_back(verdict_row(t));
+    if (t.kinetics && !t.column.empty()) {
+      const std::vector<double> f = cumulative_f_s(history, t, times);
+      report.history.columns.push_back({t.column, false});
+      for (size_t i = 0; i < report.history.rows.size(); ++i) report.history.rows[i].push_back(f[i] / 60.0);
+      report.target_lines.push_back({t.column, t.F_required_s / 60.0, "required " + t.name + " " + minutes_up(t.F_required_s)});
+    }
+    if (t.cooling) {
+      for (const auto& st : t.cooling->steps) {
+        if (!st.start_s) continue;
+        report.rule_boxes.push_back({t.name + ": " + st.step.label + " within " + duration_text(st.step.within_s),
+                                     *st.start_s, *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C});
+      }
+    }
+  }
+  for (const auto& target : targets)
+    if (target.kind == TargetKind::centre_min_temperature)
+      report.target_lines.push_back({target.at == "mean" ? "mean_C" : "centre_C", target.min_temp_C, ""});
+  report.warnings.insert(report.warnings.end(), assessment.warnings.begin(), assessment.warnings.end());
+}
+
+}  // namespace coldcore

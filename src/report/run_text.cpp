@@ -29,7 +29,10 @@ void print_table(std::ostream& out, const std::vector<std::vector<std::string>>&
     }
   for (const auto& row : rows) {
     std::string line = " ";
-    for (size_t i = 0; i < row.size(); ++i) line += " " + pad(row[i], i + 1 < row.size() ? width[i] : 0);
+    for (size_t i = 0; i < row.size(); ++i) {
+      line += ' ';
+      line += pad(row[i], i + 1 < row.size() ? width[i] : 0);
+    }
     out << line << "\n";
   }
 }

@@ -32,7 +32,6 @@ cli_expect(modes_bad_biot 2 ARGS modes --shape sphere --biot -3 STDERR_HAS "--bi
 cli_expect(modes_bad_shape 2 ARGS modes --shape cube --biot 1 STDERR_HAS "--shape = cube: must be sphere, cylinder or slab")
 cli_expect(modes_bad_count 2 ARGS modes --shape sphere --biot 1 --count 0 STDERR_HAS "--count = 0: must be from 1 to 2000")
 cli_expect(modes_bad_format 2 ARGS modes --shape sphere --biot 1 --format html STDERR_HAS "--format = html: must be one of text|json|csv")
-cli_expect(pending_verb 2 ARGS probe x.csv STDERR_HAS "not available yet")
 
 # coldcore props: lean beef 74/22/3/1 at 20 °C -> k 0.517, rho 1056.3, cp 3609 J/kgK
 # (REFERENCES 7 item 20, Choi & Okos 1986 evaluated independently).
@@ -96,3 +95,49 @@ cli_expect(solve_conservative_sausage_json 0 ARGS solve products/chicken-sausage
            STDOUT_HAS "\"conservative\"" "initial 5 C (warmest, for chilling)" "\"driven_by\"")
 cli_expect(solve_conservative_no_ranges 2 ARGS solve products/corned-beef-can.toml --for min-medium --conservative
            STDERR_HAS "--conservative: the file gives no range that applies to min-medium")
+
+# Bad product files: refused by `coldcore run` with exit 2 and the exact message on their first line.
+file(GLOB COLDCORE_BAD_FILES ${PROJECT_SOURCE_DIR}/tests/cli/bad/*.toml)
+foreach(f IN LISTS COLDCORE_BAD_FILES)
+  get_filename_component(n ${f} NAME_WE)
+  file(RELATIVE_PATH rel ${PROJECT_SOURCE_DIR} ${f})
+  add_test(NAME cli.bad.${n}
+           COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DFILE=${rel} -P ${PROJECT_SOURCE_DIR}/tests/cli/bad_file.cmake
+           WORKING_DIRECTORY ${PROJECT_SOURCE_DIR})
+endforeach()
+
+# coldcore run on every demo product, in every format: cautions always present.
+foreach(p kofta-balls chicken-sausage-log corned-beef-can lasagne-tray)
+  foreach(fmt text json csv html)
+    cli_expect(run_${p}_${fmt} 0 ARGS run products/${p}.toml --format ${fmt} --date 2026-12-01
+               STDOUT_HAS "process authority" "heat-penetration" "temperature-distribution" "regulator")
+  endforeach()
+endforeach()
+cli_expect(run_units_F 0 ARGS run products/kofta-balls.toml --format csv --units F --date 2026-12-01
+           STDOUT_HAS "time_s,medium_F,centre_F,surface_F,mean_F,F_listeria-monocytogenes_min" "\n0,204.8,39.2,39.2,39.2,0")
+cli_expect(run_md_needs_out 2 ARGS run products/kofta-balls.toml --format md STDERR_HAS "give --out PATH.md")
+cli_expect(run_missing_file 2 ARGS run products/no-such-file.toml STDERR_HAS "products/no-such-file.toml: cannot read file")
+cli_expect(run_bad_step 2 ARGS run products/kofta-balls.toml --step-s -5 STDERR_HAS "--step-s = -5.000: must be > 0")
+# A chill that cannot reach its end temperature within the cap is reported and exits 1.
+cli_expect(run_cap_reached 1 ARGS run tests/cli/cap_reached.toml
+           STDOUT_HAS "CAP REACHED" STDERR_HAS "reached its cap")
+
+# coldcore probe on the shipped invented log (General Method; trapezoid and Simpson shown).
+cli_expect(probe_kofta 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --target-log 6 --rule two-stage-6h
+           STDOUT_HAS "trapezoid" "Simpson" "met" "process authority")
+cli_expect(probe_json 0 ARGS probe products/logs/kofta-probe.csv --reference-C 70 --z-C 7.5 --F-min 2 --format json
+           STDOUT_HAS "\"verdict\": \"met\"" "cautions")
+cli_expect(probe_not_demonstrated 1 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --target-log 1e6
+           STDOUT_HAS "not demonstrated")
+cli_expect(probe_unknown_organism 2 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogens --target-log 6
+           STDERR_HAS "did you mean 'listeria-monocytogenes'")
+cli_expect(probe_nothing_asked 2 ARGS probe products/logs/kofta-probe.csv STDERR_HAS "give --organism KEY")
+
+# The data libraries list their sources.
+foreach(verb organisms rules)
+  foreach(fmt text json csv)
+    cli_expect(${verb}_${fmt} 0 ARGS ${verb} --format ${fmt} STDOUT_HAS "process authority")
+  endforeach()
+endforeach()
+cli_expect(organisms_sources 0 ARGS organisms STDOUT_HAS "c-botulinum-proteolytic" "from memory" "REFERENCES")
+cli_expect(rules_food_code 0 ARGS rules STDOUT_HAS "two-stage-6h" "57.0 °C -> 21.0 °C within 2 h 00 min 00 s")

@@ -94,3 +94,26 @@ TEST_CASE("cook in hot water then chill in cold air (two h): vs reference to 0.0
   CHECK(h.stages[1].at_end.centre_C == doctest::Approx(10.0).epsilon(1e-6));
   CHECK(h.warnings.empty());
 }
+
+TEST_CASE("ramp-hold-step medium: finite cylinder (product modes) vs 2D finite-volume reference to 0.02 K") {
+  // Source: tests/reference/history_fd2d.csv (generator gen_history_fd2d.py; centre error
+  // estimate of the reference 2e-4 K, see its header). Diameter 40 mm, length 50 mm, h = 200.
+  Product p = fd_product(Shape::finite_cylinder);
+  p.dims.length_m = 0.05;
+  const std::vector<Stage> st = {stage({{0, 20.0}, {600, 90.0}}, 200.0, 1800.0), stage({{0, 2.0}}, 200.0, 1800.0)};
+  const auto h = simulate(p, st);
+  Worst wc, wm;
+  int n = 0;
+  for (const auto& r : test::read_csv("tests/reference/history_fd2d.csv")) {
+    const double t = r.num("time_s");
+    const auto s = h.evaluate(t);
+    wc.add(s.centre_C, r.num("centre_C"), t);
+    if (r.num("mean_err_K") < 2e-3) wm.add(s.mean_C, r.num("mean_C"), t);
+    ++n;
+  }
+  REQUIRE(n > 50);
+  MESSAGE("finite cylinder: worst centre " << wc.err << " K at t=" << wc.t << " s; mean " << wm.err << " K at " << wm.t
+                                          << " s (" << n << " rows)");
+  CHECK(wc.err <= 0.02);
+  CHECK(wm.err <= 0.02);
+}

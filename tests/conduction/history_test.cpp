@@ -3,11 +3,14 @@
 
 #include <boost/math/quadrature/gauss_kronrod.hpp>
 #include <cmath>
+#include <cstdint>
 #include <string>
 
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/conduction/modes.hpp"
+#include "coldcore/conduction/overlap.hpp"
 #include "coldcore/conduction/quasi_steady.hpp"
+#include "coldcore/conduction/series.hpp"
 #include "coldcore/error.hpp"
 #include "conduction/detail/history_engine.hpp"
 
@@ -35,16 +38,12 @@ Stage stage(std::vector<MediumPoint> pts, double h, double duration_s) {
   return s;
 }
 
-// The foundation series θ(x, Fo) = Σ C_n X_n(x) exp(−ζ_n² Fo), 400 terms (modes.hpp).
+// The foundation series (series.hpp: tail-bounded term count, short-time forms), to 1e-12.
 double series_theta(Geometry g, double biot, double x, double fo) {
-  double s = 0;
-  for (const auto& m : modes(g, biot, 400)) s += m.coefficient * eigenfunction(g, m.zeta, x) * std::exp(-m.zeta * m.zeta * fo);
-  return s;
+  return step_response(g, biot, fo, x, SeriesOptions{1e-12, 4000}).theta;
 }
 double series_mean(Geometry g, double biot, double fo) {
-  double s = 0;
-  for (const auto& m : modes(g, biot, 400)) s += m.mean_coefficient * std::exp(-m.zeta * m.zeta * fo);
-  return s;
+  return mean_step_response(g, biot, fo, SeriesOptions{1e-12, 4000}).theta;
 }
 
 }  // namespace
@@ -120,7 +119,8 @@ TEST_CASE("a constant medium reduces to the foundation series (1e-9 in theta)") 
 }
 
 TEST_CASE("finite cylinder and brick at a constant medium equal the product rule") {
-  // Newman's product rule (DESIGN.md; REFERENCES.md §7 item 8) with the foundation series.
+  // Newman's product rule (DESIGN.md; REFERENCES.md §7 item 8) with the foundation series
+  // (series.hpp), and the handbook product-rule value of REFERENCES.md §7 item 8 below.
   const double alpha = 0.5 / (1050.0 * 3600.0), tm = 90.0, h_W = 120.0, k = 0.5;
   Product fc = body(Shape::finite_cylinder);
   fc.dims.diameter_m = 0.04;
@@ -149,6 +149,18 @@ TEST_CASE("finite cylinder and brick at a constant medium equal the product rule
   CHECK(wb <= 1e-9);
   CHECK(wm <= 1e-9);
   CHECK(hb.stages[0].biot == doctest::Approx(h_W * 0.015 / k));  // smallest half-dimension
+
+  // REFERENCES.md §7 item 8 [D]: R = 0.0375 m, half-height 0.05 m, alpha = 1.4e-7, Bi = inf,
+  // t = 1800 s -> theta_centre = 0.534528 (abs 1e-5).
+  Product can = body(Shape::finite_cylinder);
+  can.dims.diameter_m = 0.075;
+  can.dims.length_m = 0.1;
+  can.properties = {1.4e-7 * 1000.0 * 4000.0, 1000.0, 4000.0};
+  can.initial_C = 20.0;
+  Stage retort = stage({{0, 120.0}}, 0.0, 1800.0);
+  retort.h_infinite = true;
+  const auto hc = simulate(can, {retort});
+  CHECK((hc.evaluate(1800.0).centre_C - 120.0) / (20.0 - 120.0) == doctest::Approx(0.534528).epsilon(2e-5));
 }
 
 TEST_CASE("long finite cylinder under a ramp equals the infinite cylinder at its centre") {
@@ -323,4 +335,116 @@ TEST_CASE("simulate rejects bad input with place, key, value and requirement") {
                        "simulate: stage[1].max_duration_s = 0: must be > 0 (a cap is mandatory)", InputError);
   const auto h = simulate(p, {stage({{0, 80.0}}, 5.0, 10.0)});
   CHECK_THROWS_AS(h.evaluate(11.0), InputError);
+}
+
+TEST_CASE("a noisy 1 s log: samples and evaluate between them meet tol_K (sampling does not change accuracy)") {
+  // Invariant: the default run (tol 1e-4 K) against a run with tol 1e-12 K (many more modes).
+  // Medium: 20 -> 90 C come-up with +-0.05 K logger noise every second for 20 min.
+  Stage s = stage({}, 150.0, 1200.0);
+  std::uint64_t x = 12345;
+  for (int i = 0; i <= 1200; ++i) {
+    x = x * 6364136223846793005ull + 1442695040888963407ull;
+    s.medium.points.push_back({double(i), 20.0 + 70.0 * i / 1200.0 + 0.1 * (double(x >> 11) / 9007199254740992.0 - 0.5)});
+  }
+  for (Shape sh : {Shape::sphere, Shape::finite_cylinder}) {
+    Product p = body(sh);
+    p.dims.length_m = 0.06;
+    const auto a = simulate(p, {s});
+    const auto b = simulate(p, {s}, HistoryOptions{1e-12});
+    double wc = 0, ws = 0, wm = 0;
+    for (double t = 30.25; t < 1200; t += 7.1) {
+      const auto u = a.evaluate(t), v = b.evaluate(t);
+      wc = std::max(wc, std::abs(u.centre_C - v.centre_C));
+      ws = std::max(ws, std::abs(u.surface_C - v.surface_C));
+      wm = std::max(wm, std::abs(u.mean_C - v.mean_C));
+    }
+    for (std::size_t i = 0; i < a.samples.size(); i += 7) {
+      const auto& u = a.samples[i];
+      if (u.time_s < 30) continue;
+      const auto v = b.evaluate(u.time_s);
+      wc = std::max(wc, std::abs(u.centre_C - v.centre_C));
+      ws = std::max(ws, std::abs(u.surface_C - v.surface_C));
+      wm = std::max(wm, std::abs(u.mean_C - v.mean_C));
+    }
+    MESSAGE(to_string(sh) << ": worst centre " << wc << " K, surface " << ws << " K, mean " << wm << " K");
+    CHECK(wc <= 1e-4);
+    CHECK(ws <= 1e-4);
+    CHECK(wm <= 1e-4);
+  }
+}
+
+TEST_CASE("every shape through h = inf, a zero-length stage and a capped until_mean: continuous centre") {
+  for (Shape sh : {Shape::sphere, Shape::cylinder, Shape::slab, Shape::finite_cylinder, Shape::brick}) {
+    Product p = body(sh, 0.03);
+    p.dims.length_m = 0.05;
+    p.dims.size_m[0] = 0.03;
+    p.dims.size_m[1] = 0.04;
+    p.dims.size_m[2] = 0.05;
+    Stage cook = stage({{0, 60.0}, {300, 95.0}}, 0.0, 0);
+    cook.h_infinite = true;
+    cook.end.kind = StageEndKind::until_centre;
+    cook.end.target_C = 70.0;
+    cook.end.max_duration_s = 7200;
+    Stage pause = stage({{0, 40.0}}, 50.0, 0.0);
+    Stage chill = stage({{0, 1.0}, {600, -1.0}}, 25.0, 0);
+    chill.end.kind = StageEndKind::until_mean;
+    chill.end.target_C = -5.0;  // below the medium: never reached, the cap ends it
+    chill.end.max_duration_s = 1800;
+    const auto h = simulate(p, {cook, pause, chill});
+    REQUIRE(h.stages.size() == 3);
+    CHECK(h.stages[0].ended_by == StageEndedBy::condition);
+    CHECK(h.stages[0].at_end.centre_C == doctest::Approx(70.0).epsilon(1e-8));
+    CHECK(h.stages[1].end_s == h.stages[1].start_s);
+    CHECK(h.stages[2].ended_by == StageEndedBy::cap);
+    CHECK(h.warnings.size() == 1);
+    for (const auto& r : h.stages) {
+      if (r.start_s <= 0) continue;
+      const double before = h.evaluate(r.start_s - 1e-7).centre_C, after = h.evaluate(r.start_s + 1e-7).centre_C;
+      CHECK(std::abs(before - after) < 1e-5);
+      CHECK(std::abs(h.evaluate(r.start_s).centre_C - before) < 1e-5);
+    }
+    for (std::size_t i = 1; i < h.samples.size(); ++i) CHECK(h.samples[i].time_s >= h.samples[i - 1].time_s);
+    CHECK(h.samples.back().time_s == doctest::Approx(h.end_s()));
+    CHECK(std::isfinite(h.temperature_at(h.end_s() / 2, {0.5, 0.5, 0.5})));
+  }
+}
+
+TEST_CASE("a medium ramp from the initial temperature equals the Duhamel integral summed directly") {
+  // Closed form of Duhamel's integral for T∞ = T0 + s·t: u(0, t) = −s Σ C_n (1 − e^{−λ_n t})/λ_n,
+  // summed here over 4000 modes (modes.hpp), independent of the engine's recursion and of its
+  // left-out-mode corrections. Sphere, Bi = 5.
+  const auto p = body(Shape::sphere);
+  const double L = 0.02, alpha = p.properties.diffusivity_m2_s(), s = 0.05;
+  const double h_W = 5.0 * 0.5 / L;
+  const auto hist = simulate(p, {stage({{0, 5.0}, {2000, 5.0 + s * 2000}}, h_W, 2000.0)});
+  const auto ms = modes(Geometry::sphere, 5.0, 4000);
+  double worst = 0;
+  for (double t : {0.5, 3.0, 17.0, 150.0, 999.0, 2000.0}) {
+    double u = 0;
+    for (const auto& m : ms) {
+      const double lam = alpha * m.zeta * m.zeta / (L * L);
+      u += -s * m.coefficient * (-std::expm1(-lam * t)) / lam;
+    }
+    worst = std::max(worst, std::abs(hist.evaluate(t).centre_C - (5.0 + s * t + u)));
+  }
+  MESSAGE("ramp vs direct Duhamel sum: worst centre " << worst << " K");
+  CHECK(worst <= 1e-6);
+}
+
+TEST_CASE("projection inner products (Green's identity) equal the direct overlap integrals") {
+  // Independent formula: overlap.hpp (sinc / Lommel closed forms, checked there against adaptive
+  // quadrature) divided by the new mode's norm.
+  using namespace coldcore::detail;
+  for (Geometry g : {Geometry::slab, Geometry::cylinder, Geometry::sphere}) {
+    for (auto [bi_from, bi_to] : {std::pair{20.0, 0.8}, std::pair{kInfiniteBiot, 3.0}, std::pair{0.5, kInfiniteBiot}}) {
+      const auto from = axis_modes(g, bi_from, 0.02, 30), to = axis_modes(g, bi_to, 0.02, 30);
+      const auto M = projection_matrix(from, to);
+      double worst = 0;
+      for (int i = 0; i < 30; ++i)
+        for (int j = 0; j < 30; ++j)
+          worst = std::max(worst, std::abs(M[i * 30 + j] - mode_overlap(g, from.zeta[i], to.zeta[j]) / to.norm[j]));
+      MESSAGE(to_string(g) << " Bi " << bi_from << " -> " << bi_to << ": worst " << worst);
+      CHECK(worst <= 1e-10);
+    }
+  }
 }

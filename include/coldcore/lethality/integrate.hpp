@@ -53,6 +53,11 @@ struct LogIntegral {
 LogIntegral f_trapezoid_s(std::span<const double> times_s, std::span<const double> temps_C,
                           const Kinetics& k, std::string_view origin = "log");
 
+/// Cumulative trapezoid F (s) at every logged time (0 at the first row), for history columns.
+/// Same requirements as f_trapezoid_s; the last value equals f_trapezoid_s(...).F_s.
+std::vector<double> cumulative_f_trapezoid_s(std::span<const double> times_s, std::span<const double> temps_C,
+                                             const Kinetics& k, std::string_view origin = "log");
+
 /// Composite Simpson rule for non-uniform spacing (three-point parabola through each pair of
 /// intervals; a last odd interval uses the three-point formula on its final interval).
 /// Same requirements as f_trapezoid_s; with 2 rows it falls back to the trapezoid.

@@ -5,6 +5,7 @@
 #include <string>
 
 #include "coldcore/conduction/history.hpp"
+#include "coldcore/report/assessment.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/report/run_report.hpp"
 
@@ -24,5 +25,14 @@ double smallest_half_dimension_m(const Product& p);
 std::string biot_note(const Product& p, const Stage& s);
 
 RunReport build_run_report(const io::ProductFile& file, const History& history, const RunReportOptions& opts);
+
+/// Adds the assessment: one verdict row per target (with per-stage F shares, cooling-rule steps
+/// and flags as details), a cumulative F_<name>_min column per lethality target sampled at the
+/// report's rows, the required F lines and the cooling-rule boxes for the plots.
+void add_assessment(RunReport& report, const History& history, const Assessment& assessment,
+                    const std::vector<Target>& targets);
+
+/// Verdict row of one target, shared by every verb that reports targets.
+VerdictRow verdict_row(const TargetResult& t);
 
 }  // namespace coldcore

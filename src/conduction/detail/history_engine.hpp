@@ -43,25 +43,48 @@ struct StageModel {
   double end_tm = 0, end_slope = 0;
   HistorySample start_sample;
   int index = 0;
+  double start_ds = 0, start_jump = 0;  // the event at the stage start
+  double recent_window_s = 0;           // largest age at which an event's transient still counts
 };
 
 /// exp(−λΔ) and (1 − exp(−λΔ))/λ of the last step length, reused while Δ repeats (a 1 s log).
 struct StepCache {
   double dt = -1;
   const Basis* basis = nullptr;
-  std::vector<double> e, g;
+  std::vector<double> e, g, bg;  // bg = b·g
+  std::vector<double> axis_e[3];  // products: per-axis exponentials e^{−λ_n dt}
+};
+
+/// A recent event (change of medium slope ds, jump of u by `jump`) whose left-out-mode transient
+/// still matters at the surface and for the mean.
+struct RecentEvent {
+  double t = 0, ds = 0, jump = 0, expires = 0;
+};
+struct ShadowValues {
+  double age = 0, gs = 0, gm = 0, cs = 0, cm = 0;
 };
 
 /// Sums over the kept modes that the three reported temperatures need.
 struct ModalSums {
   double a = 0, a_surface = 0, a_mean = 0, w_prev = 0, w_cur = 0;
+  bool combined = false;  // a already holds Σ(a − w_prev − w_cur) (w sums zero)
 };
 
 struct Engine {
   double alpha = 0;
   double tau_insulated_s = 0;   // 0.01·L_min²/α: the centre cannot feel the surface before this
   double epoch_s = 0;           // tau_insulated_s / 2
+  double inv_epoch_s = 0;
   std::vector<StageModel> stages;
+  double tol_K = 1e-4;
+
+  /// left-out-mode transient factors at `age` after an event (surface and mean)
+  ShadowValues shadow_at(const Basis& B, double age) const;
+  /// time after which an event's surface/mean transient is below tol/100
+  double expiry(const Basis& B, double t, double ds, double jump) const;
+  /// surface and mean corrections at t from the events
+  void shadow_correction(const Basis& B, const std::vector<RecentEvent>& ev, double t, std::vector<ShadowValues>* cache,
+                         double& surface, double& mean) const;
 
   // advance by dt at medium slope s (exact for a linear medium)
   void advance(const Basis& B, ModalState& st, double dt, double slope) const;

@@ -47,6 +47,15 @@ struct Basis {
   std::array<int, 3> dense{1, 1, 1};  // per-axis mode counts (the kept set lies inside)
   std::vector<AxisModes> ext;         // products only: outer axes with many modes, for full_ramp_sum
 
+  /// The first left-out modes (λ_cut < λ <= lambda_shadow_end), for the transient of the surface
+  /// and mean after an event; beyond them a remainder decaying like e^{−λ_end τ}.
+  struct Shadow {
+    std::vector<double> lambda, bs, bm;  // λ, b·Φ(surface), b·Φ(mean)
+    double ramp_surface = 0, ramp_mean = 0;  // remainders of Σ bΦ/λ beyond the shadow modes
+    double jump_surface = 0, jump_mean = 0;  // remainders of Σ bΦ beyond them
+    double lambda_end = 0, lambda_first = 0;
+  } shadow;
+
   Point centre_point() const { return Point{}; }
   Point surface_point() const;
   Point mean_point() const;

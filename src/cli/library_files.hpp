@@ -9,7 +9,7 @@
 
 namespace coldcore::cli {
 
-struct DataLibraries {
+struct LibraryFiles {
   OrganismLibrary organisms;
   RuleLibrary rules;
   std::string organisms_sha256, rules_sha256;
@@ -20,6 +20,6 @@ struct DataLibraries {
 std::filesystem::path library_path(const std::string& name, const std::string& library_dir,
                                    const std::string& product_file);
 
-DataLibraries load_libraries(const std::string& library_dir, const std::string& product_file);
+LibraryFiles load_libraries(const std::string& library_dir, const std::string& product_file);
 
 }  // namespace coldcore::cli

@@ -1,0 +1,17 @@
+# Runs `coldcore run FILE` and checks it is refused: exit 2, nothing on stdout, and stderr equal
+# to "coldcore: " followed by the text after "# expect: " on the file's first line.
+file(READ ${FILE} text)
+string(FIND "${text}" "\n" eol)
+string(SUBSTRING "${text}" 0 ${eol} first)
+string(REGEX REPLACE "^# expect: " "" expected "${first}")
+execute_process(COMMAND ${EXE} run ${FILE} RESULT_VARIABLE rc OUTPUT_VARIABLE out ERROR_VARIABLE err)
+string(STRIP "${err}" err)
+if(NOT rc EQUAL 2)
+  message(FATAL_ERROR "exit ${rc}, expected 2\nstderr: ${err}")
+endif()
+if(NOT out STREQUAL "")
+  message(FATAL_ERROR "a refused file still wrote output:\n${out}")
+endif()
+if(NOT err STREQUAL "coldcore: ${expected}")
+  message(FATAL_ERROR "stderr:\n  ${err}\nexpected:\n  coldcore: ${expected}")
+endif()
