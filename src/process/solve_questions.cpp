@@ -326,7 +326,19 @@ SolveResult max_size(const Scenario& s, const Libraries& libs, const SolveOption
       throw NoSolution("every target is still met at " + num(o.max_size_factor) + " x the nominal " + name + " (" +
                        num(st.hi * 1000) + " mm), the search bound; the largest size lies beyond it");
   }
+  // Bracket from the nominal size when it meets the targets: below it the margin need not be
+  // monotone (an until_* stage ends earlier for a small product, which may then lose a hold).
+  const bool nominal_met = evaluate(st.apply(nominal), libs, st.considered, search_history_options()).considered_met;
+  if (nominal_met) {
+    st.lo = nominal;
+  } else {
+    st.hi = nominal;
+    st.why_none = "the nominal " + name + " (" + num(nominal * 1000) + " mm) does not meet every target, nor does any " +
+                  name + " down to " + num(st.lo * 1000) + " mm";
+  }
   SolveResult r = run(Question::max_size, st, s, libs);
+  r.assumptions.push_back(nominal_met ? "searched from the nominal " + name + " upward; smaller sizes are not examined"
+                                      : "the nominal " + name + " does not meet every target; searched below it");
   r.quantity = name;
   r.unit = "m";
   r.nominal = nominal;
