@@ -141,3 +141,31 @@ foreach(verb organisms rules)
 endforeach()
 cli_expect(organisms_sources 0 ARGS organisms STDOUT_HAS "c-botulinum-proteolytic" "from memory" "REFERENCES")
 cli_expect(rules_food_code 0 ARGS rules STDOUT_HAS "two-stage-6h" "57.0 °C -> 21.0 °C within 2 h 00 min 00 s")
+
+# solve and deviation on every demo product, in every format this verb writes: cautions always.
+foreach(p kofta-balls chicken-sausage-log corned-beef-can lasagne-tray)
+  foreach(fmt text json csv)
+    if(fmt STREQUAL "text")
+      set(c "CAUTIONS")
+    elseif(fmt STREQUAL "json")
+      set(c "\"cautions\"")
+    else()
+      set(c "# caution:")
+    endif()
+    cli_expect(solve_hold_${p}_${fmt} 0 ARGS solve products/${p}.toml --for hold-time --format ${fmt} STDOUT_HAS "${c}")
+  endforeach()
+endforeach()
+set(COLDCORE_DEV_kofta-balls "products/logs/kofta-oven-deviation.csv")
+set(COLDCORE_DEV_chicken-sausage-log "products/logs/chicken-sausage-bath-deviation.csv")
+set(COLDCORE_DEV_lasagne-tray "products/logs/lasagne-oven-deviation.csv")
+foreach(p kofta-balls chicken-sausage-log lasagne-tray)
+  cli_expect(deviation_${p}_text 0 ARGS deviation products/${p}.toml --medium-log ${COLDCORE_DEV_${p}}
+             STDOUT_HAS "DEVIATION RECORD" "deviation start:" "is for the process authority to decide" "CAUTIONS")
+  cli_expect(deviation_${p}_json 0 ARGS deviation products/${p}.toml --medium-log ${COLDCORE_DEV_${p}} --format json
+             STDOUT_HAS "\"delivered_F_min\"" "\"disposition\"" "\"cautions\"")
+  cli_expect(deviation_${p}_csv 0 ARGS deviation products/${p}.toml --medium-log ${COLDCORE_DEV_${p}} --format csv
+             STDOUT_HAS "target,kind,scheduled_F_min" "# disposition:" "# caution:")
+endforeach()
+# The delivered-process example file runs forward like any product file.
+cli_expect(run_corned_delivered 0 ARGS run products/corned-beef-can-delivered.toml
+           STDOUT_HAS "corned-beef-hold-deviation.csv")
