@@ -13,8 +13,8 @@ int real_main(int argc, char** argv) {
   app.set_version_flag("--version", std::string("coldcore ") + coldcore::kVersion);
   app.require_subcommand(1);
   app.footer(
-      "Exit status: 0 every target met (or none given), 1 a target not demonstrated or no\n"
-      "solution, 2 bad input or usage.\n"
+      "Exit status: 0 every target met (or none given); 1 a target not demonstrated, a stage\n"
+      "that reached its cap, or no solution; 2 bad input or usage.\n"
       "Results are engineering estimates; a qualified process authority and the local regulator decide.");
   VerbContext ctx;
   add_run_verb(app, ctx);

@@ -105,6 +105,7 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
   const io::DataLibraries lib = io::load_libraries(data_dir());
   AssessOptions opts;
   opts.origin = a.log;
+  opts.cooking_tables = &lib.cooking;
   const ProbeAssessment pa = assess_probe_log(log.time_s, log.temp_C, targets, lib.organisms, lib.rules, opts, a.log);
 
   RunReport r;
@@ -141,9 +142,15 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
         r.target_lines.push_back({col, t.F_required_s / 60.0, ""});
       }
     }
-    if (t.cooling)
-      for (const auto& st : t.cooling->steps)
-        if (st.start_s) r.rule_boxes.push_back({t.name + ": " + st.step.label, *st.start_s, *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C});
+    if (t.cooling) {
+      int n = 0;
+      for (const auto& st : t.cooling->steps) {
+        ++n;
+        if (st.start_s)
+          r.rule_boxes.push_back({"step " + std::to_string(n) + " (" + duration_text(st.step.within_s) + ")", *st.start_s,
+                                  *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C});
+      }
+    }
     r.verdicts.push_back(v);
   }
   r.warnings = log.warnings;

@@ -35,6 +35,7 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
   const History history = simulate(file.product, file.stages);
   AssessOptions assess_opts;
   assess_opts.origin = file.origin;
+  assess_opts.cooking_tables = &lib.cooking;
   const Assessment assessment = assess(history, file.targets, lib.organisms, lib.rules, assess_opts);
   RunReportOptions opts;
   opts.step_s = a.output.step_s;

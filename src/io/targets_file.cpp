@@ -17,10 +17,11 @@ struct KindName {
   std::string_view name;
   TargetKind kind;
 };
-constexpr std::array<KindName, 4> kKinds = {{{"log-reduction", TargetKind::log_reduction},
+constexpr std::array<KindName, 5> kKinds = {{{"log-reduction", TargetKind::log_reduction},
                                              {"F-value", TargetKind::f_value},
                                              {"cooling-rule", TargetKind::cooling_rule},
-                                             {"centre-min-temperature", TargetKind::centre_min_temperature}}};
+                                             {"centre-min-temperature", TargetKind::centre_min_temperature},
+                                             {"cooking-table", TargetKind::cooking_table}}};
 
 std::vector<KeySpec> specs_for(TargetKind k) {
   std::vector<KeySpec> s = {plain("kind"), plain("name")};
@@ -36,6 +37,7 @@ std::vector<KeySpec> specs_for(TargetKind k) {
                          plain("stages")});
       break;
     case TargetKind::cooling_rule: s.insert(s.end(), {plain("rule"), plain("at")}); break;
+    case TargetKind::cooking_table: s.insert(s.end(), {plain("table"), plain("at")}); break;
     case TargetKind::centre_min_temperature:
       s.insert(s.end(), {quantity("min", Quantity::temperature), quantity("hold", Quantity::time), plain("at")});
       break;
@@ -164,6 +166,15 @@ Target parse_target(const Fields& f, TargetKind kind, std::size_t index, const s
       t.rule = *rule;
       t.at = parse_at(f);
       t.name = name ? *name : *rule;
+      break;
+    }
+    case TargetKind::cooking_table: {
+      const auto table = f.string("table");
+      if (!table) f.missing("table", "a table key of the cooking-table library (products/cooking-tables.toml)");
+      if (table->empty()) f.fail("table", "must not be empty");
+      t.table = *table;
+      t.at = parse_at(f);
+      t.name = name ? *name : *table;
       break;
     }
     case TargetKind::centre_min_temperature: {

@@ -81,7 +81,8 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
                           "where the logs say so");
   std::vector<int> considered;
   for (std::size_t i = 0; i < s.targets.size(); ++i)
-    if (is_lethality(s.targets[i].kind) || s.targets[i].kind == TargetKind::centre_min_temperature)
+    if (is_lethality(s.targets[i].kind) || s.targets[i].kind == TargetKind::centre_min_temperature ||
+        s.targets[i].kind == TargetKind::cooking_table)
       considered.push_back(static_cast<int>(i));
 
   if (in.medium_log) {

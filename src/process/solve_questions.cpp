@@ -151,7 +151,8 @@ SolveResult hold_time(const Scenario& s, const Libraries& libs, const SolveOptio
   Setup st;
   st.stage = o.stage.empty() ? default_stage(s, true) : stage_index(s, o.stage, "--stage");
   for (std::size_t i = 0; i < s.targets.size(); ++i)
-    if (is_lethality(s.targets[i].kind) || s.targets[i].kind == TargetKind::centre_min_temperature)
+    if (is_lethality(s.targets[i].kind) || s.targets[i].kind == TargetKind::centre_min_temperature ||
+        s.targets[i].kind == TargetKind::cooking_table)
       st.considered.push_back(static_cast<int>(i));
   if (st.considered.empty())
     throw InputError(s.origin + ": target: missing: hold-time needs a log-reduction, F-value or "

@@ -20,6 +20,7 @@ const char* to_string(TargetKind k) {
     case TargetKind::f_value: return "F-value";
     case TargetKind::cooling_rule: return "cooling-rule";
     case TargetKind::centre_min_temperature: return "centre-min-temperature";
+    case TargetKind::cooking_table: return "cooking-table";
   }
   return "?";
 }
@@ -311,6 +312,32 @@ void cooling_result(TargetResult& r, const CoolingCheck& c, const CoolingRule& r
   }
 }
 
+// Φ is the equivalent-time fraction of the table's requirement (cooking_tables.hpp): met when
+// Φ > 1 or the instant row was reached.
+void cooking_result(TargetResult& r, const CookingCheck& c) {
+  r.cooking = c;
+  r.source = c.source;
+  r.unit = "fraction";
+  r.required = 1.0;
+  r.achieved = c.fraction;
+  r.margin = c.fraction - 1.0;
+  r.verdict = c.met ? Verdict::met : Verdict::not_demonstrated;
+  r.required_text = "table equivalence 1.00";
+  if (c.instant_reached_s) {
+    r.achieved_text = "instant row reached";
+    r.margin_text = "-";
+  } else {
+    r.achieved_text = "equivalence " + shown_down(c.fraction);
+    r.margin_text = c.fraction > 1.0 ? shown_down(c.fraction - 1.0) : "-" + shown_up(1.0 - c.fraction);
+  }
+  r.verdict_text = std::string(to_string(r.verdict)) + ", equivalent-time fraction " + r.achieved_text;
+}
+
+const CookingTable& cooking_table_for(const Target& t, const std::string& place, const AssessOptions& opts) {
+  if (opts.cooking_tables == nullptr) throw InputError(place + ": cooking-table target but no cooking tables were loaded");
+  return opts.cooking_tables->at(t.table, place);
+}
+
 void min_temperature_result(TargetResult& r, const Target& t, const detail::Curve& c) {
   const auto runs = c.intervals_at_or_above(t.min_temp_C, c.start());
   double longest = 0;
@@ -430,6 +457,10 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         const CoolingCheck c = check_cooling(T_at, bp, rule, ctx, probes_for(bp));
         cooling_result(r, c, rule);
         for (auto& n : ctx_notes) r.notes.push_back(n);
+        break;
+      }
+      case TargetKind::cooking_table: {
+        cooking_result(r, check_cooking_table(h, cooking_table_for(t, place, opts), t.at == "mean"));
         break;
       }
       case TargetKind::centre_min_temperature: {
@@ -554,6 +585,9 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
         cooling_result(r, c, rule);
         break;
       }
+      case TargetKind::cooking_table:
+        cooking_result(r, check_cooking_table(times_s, temps_C, cooking_table_for(t, place, opts), origin));
+        break;
       case TargetKind::centre_min_temperature:
         min_temperature_result(r, t, curve);
         break;

@@ -4,6 +4,7 @@
 #include <cmath>
 #include <numbers>
 
+#include "coldcore/conduction/lumped_history.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/report/cautions.hpp"
 
@@ -128,6 +129,19 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
     const HistorySample s = history.evaluate(t);
     r.history.rows.push_back({t, s.medium_C, s.centre_C, s.surface_C, s.mean_C});
   }
+  // When any stage has Bi(V/A) > 0.1, show the lumped shortcut beside the exact centre so the
+  // reader sees how far off it would be (a comparison only; never used for a verdict).
+  bool lumped_misleads = false;
+  for (const auto& st : file.stages)
+    lumped_misleads = lumped_misleads || st.h_infinite ||
+                      st.h_W_m2K * volume_to_area_m(p) / p.properties.conductivity_W_mK > 0.1;
+  if (lumped_misleads && history.stages.size() == file.stages.size()) {
+    std::vector<double> times;
+    for (const auto& row : r.history.rows) times.push_back(row[0]);
+    const std::vector<double> lumped = lumped_history_C(p, volume_to_area_m(p), file.stages, history, times);
+    r.history.columns.push_back({"lumped_centre_C", true});
+    for (size_t i = 0; i < r.history.rows.size(); ++i) r.history.rows[i].push_back(lumped[i]);
+  }
   r.warnings = file.warnings;
   r.warnings.insert(r.warnings.end(), history.warnings.begin(), history.warnings.end());
   r.assumptions = {
@@ -194,6 +208,13 @@ VerdictRow verdict_row(const TargetResult& t) {
     }
     for (const auto& n : t.cooling->notes) v.details.push_back(n);
   }
+  if (t.cooking) {
+    if (t.cooking->instant_reached_s)
+      v.details.push_back("the table's instant row was reached at " + duration_text(*t.cooking->instant_reached_s));
+    else
+      v.details.push_back("equivalent-time fraction of the table's requirement: " + shown_down(t.cooking->fraction) +
+                          " (met when above 1)");
+  }
   if (t.reached_s) v.details.push_back("first reached at " + duration_text(*t.reached_s));
   for (const auto& n : t.notes) v.details.push_back(n);
   if (!t.source.empty()) v.details.push_back("source: " + t.source);
@@ -209,14 +230,24 @@ void add_assessment(RunReport& report, const History& history, const Assessment&
     report.verdicts.push_back(verdict_row(t));
     if (t.kinetics && !t.column.empty()) {
       const std::vector<double> f = cumulative_f_s(history, t, times);
-      report.history.columns.push_back({t.column, false});
-      for (size_t i = 0; i < report.history.rows.size(); ++i) report.history.rows[i].push_back(f[i] / 60.0);
+      // F columns follow mean_C (DESIGN.md csv order); the lumped comparison stays last.
+      auto& cols = report.history.columns;
+      size_t at = cols.size();
+      if (!cols.empty() && cols.back().name == "lumped_centre_C") at = cols.size() - 1;
+      cols.insert(cols.begin() + static_cast<std::ptrdiff_t>(at), Column{t.column, false});
+      for (size_t i = 0; i < report.history.rows.size(); ++i) {
+        auto& row = report.history.rows[i];
+        row.insert(row.begin() + static_cast<std::ptrdiff_t>(at), f[i] / 60.0);
+      }
       report.target_lines.push_back({t.column, t.F_required_s / 60.0, "required " + t.name + " " + minutes_up(t.F_required_s)});
     }
     if (t.cooling) {
+      int n = 0;
       for (const auto& st : t.cooling->steps) {
+        ++n;
         if (!st.start_s) continue;
-        report.rule_boxes.push_back({t.name + ": " + st.step.label + " within " + duration_text(st.step.within_s),
+        // the writers append the step's limits in the display unit
+        report.rule_boxes.push_back({"step " + std::to_string(n) + " (" + duration_text(st.step.within_s) + ")",
                                      *st.start_s, *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C});
       }
     }

@@ -169,3 +169,26 @@ endforeach()
 # The delivered-process example file runs forward like any product file.
 cli_expect(run_corned_delivered 0 ARGS run products/corned-beef-can-delivered.toml
            STDOUT_HAS "corned-beef-hold-deviation.csv")
+
+# The committed example reports are what the demo makes now (fixed date, byte-identical).
+# Checked in the plain build only: the sanitizer build may differ in the last bits of a double.
+if(NOT COLDCORE_SANITIZE)
+  add_test(NAME cli.reports_current
+           COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
+                   -P ${PROJECT_SOURCE_DIR}/tests/cli/reports_current.cmake)
+endif()
+
+# A cooking time-temperature table as a target (FSIS Appendix A 7-log column, REFERENCES 1.4).
+cli_expect(run_cooking_table 0 ARGS run products/chicken-sausage-log.toml
+           STDOUT_HAS "fsis-appendix-a-7-log" "instant row reached")
+
+# solve, deviation and media join the cautions walk below.
+list(APPEND COLDCORE_CAUTION_CASES
+     "solve|products/kofta-balls.toml --for hold-time|text,json,csv"
+     "deviation|products/kofta-balls.toml --medium-log products/logs/kofta-oven-deviation.csv|text,json,csv"
+     "media|-|text,json,csv")
+
+# Every reporting verb in every format carries the cautions (one walk over verbs x formats).
+add_test(NAME cli.cautions_every_verb_and_format
+         COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
+                 "-DEXTRA_CASES=${COLDCORE_CAUTION_CASES}" -P ${PROJECT_SOURCE_DIR}/tests/cli/cautions_all.cmake)

@@ -7,7 +7,7 @@
 
 namespace coldcore {
 
-enum class TargetKind { log_reduction, f_value, cooling_rule, centre_min_temperature };
+enum class TargetKind { log_reduction, f_value, cooling_rule, centre_min_temperature, cooking_table };
 
 /// Kinetics a target gives itself instead of naming a library organism.
 struct OwnKinetics {
@@ -25,6 +25,7 @@ struct Target {
   double F_required_s = 0;             ///< F-value targets: required F (a time)
   std::vector<std::string> stages;     ///< stages whose lethality counts; empty = all
   std::string rule;                    ///< cooling-rule targets: rule key in cooling-rules.toml
+  std::string table;                   ///< cooking-table targets: table key in cooking-tables.toml
   double min_temp_C = 0;               ///< centre-min-temperature: temperature to reach ...
   double hold_s = 0;                   ///< ... and hold at or above for this long
   std::string at = "centre";           ///< "centre" or "mean": where a rule or minimum is checked

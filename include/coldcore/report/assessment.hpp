@@ -40,6 +40,9 @@ struct AssessOptions {
   /// of the stage before it. assess_probe_log() cannot infer them.
   std::optional<double> cook_end_s;
   std::optional<double> chill_start_s;
+  /// Cooking tables for cooking-table targets (products/cooking-tables.toml); a cooking-table
+  /// target without them is an InputError. Not owned.
+  const CookingTables* cooking_tables = nullptr;
   /// Out-of-range lethality is flagged when it exceeds this fraction of the credited F [0.001].
   double out_of_range_flag_fraction = 1e-3;
 };
@@ -75,6 +78,8 @@ struct TargetResult {
   double F_outside_range_s = 0;  ///< credited F accrued outside [valid_min_C, valid_max_C]
   // Cooling-rule targets:
   std::optional<CoolingCheck> cooling;
+  // cooking-table targets:
+  std::optional<CookingCheck> cooking;
   // centre-min-temperature targets:
   std::optional<double> reached_s;   ///< first time the temperature was reached
   std::vector<std::string> notes;    ///< flags and provenance remarks, one sentence each

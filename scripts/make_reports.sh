@@ -1,0 +1,23 @@
+#!/usr/bin/env bash
+# Regenerates the example reports: one HTML and one Markdown report (with its SVG plots) per
+# demo product, and one for the invented probe log. The date is fixed so that the same inputs
+# give byte-identical files (tests/cli/reports_current.cmake checks the committed ones).
+# usage: scripts/make_reports.sh COLDCORE_BINARY OUT_DIR     (run from anywhere)
+set -euo pipefail
+cc="$(cd "$(dirname "$1")" && pwd)/$(basename "$1")"
+out="$2"
+root="$(cd "$(dirname "$0")/.." && pwd)"
+date="${COLDCORE_REPORT_DATE:-2026-12-01}"
+mkdir -p "$out"
+out="$(cd "$out" && pwd)"
+cd "$root"
+products=(kofta-balls chicken-sausage-log corned-beef-can lasagne-tray)
+for p in "${products[@]}"; do
+  # exit 1 (a target not demonstrated) still writes a report; only 2 (bad input) stops here
+  "$cc" run "products/$p.toml" --format html --out "$out/$p.html" --date "$date" || [ $? -eq 1 ]
+  "$cc" run "products/$p.toml" --format md --out "$out/$p.md" --date "$date" || [ $? -eq 1 ]
+done
+"$cc" probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --target-log 6 \
+  --rule two-stage-6h --format html --out "$out/kofta-probe.html" --date "$date" || [ $? -eq 1 ]
+"$cc" probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --target-log 6 \
+  --rule two-stage-6h --format md --out "$out/kofta-probe.md" --date "$date" || [ $? -eq 1 ]
