@@ -73,12 +73,13 @@ int run_deviation(const DeviationArgs& a, std::ostream& out) {
   process::DeviationOptions o;
   o.tolerance_K = a.tolerance_K;
   o.unit_s = a.round_min * 60.0;
-  const process::DeviationResult r = process::evaluate_deviation(in, {&libs.organisms, &libs.rules}, o);
+  const process::DeviationResult r = process::evaluate_deviation(in, {&libs.organisms, &libs.rules, &libs.cooking}, o);
   info.provenance = {{"tool", std::string("coldcore ") + kVersion},
                      {"input", file.origin},
                      {"input SHA-256", file.sha256_hex},
                      {"organisms", libs.organisms.origin + " (SHA-256 " + libs.organisms_sha256 + ")"},
                      {"cooling rules", libs.rules.origin + " (SHA-256 " + libs.rules_sha256 + ")"},
+                     {"cooking tables", libs.cooking.origin + " (SHA-256 " + libs.cooking_sha256 + ")"},
                      {"date", a.date.empty() ? today_utc() : a.date}};
   switch (f) {
     case Format::json: write_deviation_json(r, info, out, u); break;

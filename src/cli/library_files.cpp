@@ -31,6 +31,10 @@ LibraryFiles load_libraries(const std::string& library_dir, const std::string& p
   const std::string ot = io::read_text_file(op), rt = io::read_text_file(rp);
   d.organisms = parse_organisms(ot, op.generic_string());
   d.rules = parse_cooling_rules(rt, rp.generic_string());
+  const auto cp = library_path("cooking-tables.toml", library_dir, product_file);
+  const std::string ct = io::read_text_file(cp);
+  d.cooking = parse_cooking_tables(ct, cp.generic_string());
+  d.cooking_sha256 = io::sha256_hex(ct);
   d.organisms_sha256 = io::sha256_hex(ot);
   d.rules_sha256 = io::sha256_hex(rt);
   return d;

@@ -4,6 +4,7 @@
 #include <filesystem>
 #include <string>
 
+#include "coldcore/lethality/cooking_tables.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
 
@@ -12,7 +13,8 @@ namespace coldcore::cli {
 struct LibraryFiles {
   OrganismLibrary organisms;
   RuleLibrary rules;
-  std::string organisms_sha256, rules_sha256;
+  CookingTables cooking;
+  std::string organisms_sha256, rules_sha256, cooking_sha256;
 };
 
 /// Path of library file `name`: `library_dir`/name when library_dir is given; else beside

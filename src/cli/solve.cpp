@@ -67,7 +67,7 @@ int run_solve(const SolveArgs& a, std::ostream& out) {
   o.max_hold_s = a.max_hold_h * 3600.0;
   o.end_C = a.end_C;
   o.mean = a.mean;
-  const process::SolveResult r = process::solve(q, s, {&libs.organisms, &libs.rules}, o);
+  const process::SolveResult r = process::solve(q, s, {&libs.organisms, &libs.rules, &libs.cooking}, o);
   std::optional<process::ConservativeSolve> cons;
   if (a.conservative) {
     process::Ranges rg;
@@ -77,7 +77,7 @@ int run_solve(const SolveArgs& a, std::ostream& out) {
     rg.conductivity_W_mK = file.ranges.conductivity_W_mK;
     rg.initial_C = file.ranges.initial_C;
     for (const auto& sh : file.stage_h) rg.stage_h_W_m2K.push_back(sh.h_range_W_m2K);
-    cons = process::solve_conservative(q, s, rg, {&libs.organisms, &libs.rules}, o);
+    cons = process::solve_conservative(q, s, rg, {&libs.organisms, &libs.rules, &libs.cooking}, o);
   }
   SolveReportContext c;
   c.product_name = file.product.name;
@@ -88,6 +88,7 @@ int run_solve(const SolveArgs& a, std::ostream& out) {
                   {"input SHA-256", file.sha256_hex},
                   {"organisms", libs.organisms.origin + " (SHA-256 " + libs.organisms_sha256 + ")"},
                   {"cooling rules", libs.rules.origin + " (SHA-256 " + libs.rules_sha256 + ")"},
+                  {"cooking tables", libs.cooking.origin + " (SHA-256 " + libs.cooking_sha256 + ")"},
                   {"date", a.date.empty() ? today_utc() : a.date}};
   switch (f) {
     case Format::json: write_solve_json(r, c, out, u); break;

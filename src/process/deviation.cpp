@@ -151,6 +151,7 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
   if (!in.probe_time_s.empty()) {
     AssessOptions ao;
     ao.origin = s.origin;
+    ao.cooking_tables = libs.cooking;
     r.probe = assess_probe_log(in.probe_time_s, in.probe_temp_C, s.targets, *libs.organisms, *libs.rules, ao,
                                in.probe_origin);
     r.assumptions.push_back("the probe log is the cold-spot temperature, time 0 at the start of the first stage; "

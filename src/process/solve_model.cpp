@@ -40,6 +40,7 @@ Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<
   e.history = simulate(s.product, s.stages, hopts);
   AssessOptions ao;
   ao.origin = s.origin;
+  ao.cooking_tables = libs.cooking;
   e.assessment = assess(e.history, s.targets, *libs.organisms, *libs.rules, ao);
   e.all_met = e.assessment.all_met();
   double m = std::numeric_limits<double>::infinity();

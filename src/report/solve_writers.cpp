@@ -49,7 +49,11 @@ void json_check(JsonWriter& w, const SolveResult& r, const Check& c) {
 }
 
 /// Unit of TargetResult's raw numbers (its `unit` names the unit of the texts).
-const char* raw_unit(const TargetResult& t) { return t.kind == TargetKind::log_reduction ? "log10" : "s"; }
+const char* raw_unit(const TargetResult& t) {
+  if (t.kind == TargetKind::log_reduction) return "log10";
+  if (t.kind == TargetKind::cooking_table) return "fraction";  // of the table's required equivalent time
+  return "s";
+}
 
 std::string csv_cell(const std::string& s) {
   if (s.find_first_of(",\"\n") == std::string::npos) return s;

@@ -47,6 +47,7 @@ struct Scenario {
 struct Libraries {
   const OrganismLibrary* organisms = nullptr;  ///< REQUIRES non-null
   const RuleLibrary* rules = nullptr;          ///< REQUIRES non-null
+  const CookingTables* cooking = nullptr;      ///< needed only by cooking-table targets
 };
 
 /// One forward run: history, assessment and the process margin over `considered` targets.
