@@ -95,7 +95,10 @@ void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::os
   out << "  scheduled:        " << shown(r, r.nominal, u) << "\n";
   out << "  answer:           " << shown_raw(r, r.answer, u) << " (unrounded)\n";
   out << "  use:              " << shown(r, r.rounded, u) << "  (rounded "
-      << (r.question == Question::max_size ? "down" : "up") << " to " << shown(r, r.unit_step, u) << ")\n";
+      << (r.question == Question::max_size ? "down" : "up") << " to "
+      << (r.unit == "C" ? fixed(display_temp_difference(r.unit_step, u), 2) + " " + std::string(unit_symbol(u))
+                        : shown(r, r.unit_step, u))
+      << ")\n";
   out << "  solved for:       ";
   for (std::size_t i = 0; i < r.considered.size(); ++i) out << (i ? ", " : "") << r.considered[i];
   out << "\n\nVERIFICATION (forward re-run)\n";
