@@ -22,6 +22,9 @@ int real_main(int argc, char** argv) {
   add_props_verb(app, ctx);
   add_probe_verb(app, ctx);
   add_library_verbs(app, ctx);
+  add_solve_verb(app, ctx);
+  add_deviation_verb(app, ctx);
+  add_media_verb(app, ctx);
   add_pending_verbs(app, ctx);
   try {
     app.parse(argc, argv);

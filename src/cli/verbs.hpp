@@ -25,6 +25,9 @@ void add_props_verb(CLI::App& app, VerbContext& ctx);
 void add_library_verbs(CLI::App& app, VerbContext& ctx);
 void add_probe_verb(CLI::App& app, VerbContext& ctx);
 void add_run_verb(CLI::App& app, VerbContext& ctx);
+void add_solve_verb(CLI::App& app, VerbContext& ctx);
+void add_deviation_verb(CLI::App& app, VerbContext& ctx);
+void add_media_verb(CLI::App& app, VerbContext& ctx);
 void add_pending_verbs(CLI::App& app, VerbContext& ctx);
 
 }  // namespace coldcore::cli

@@ -99,12 +99,51 @@ MassFractions parse_composition(const toml::table& t, const std::string& origin)
   return m;
 }
 
+/// [product.ranges]: each key a [low, high] pair in its unit, containing the nominal value.
+ProductRanges parse_ranges(const toml::table& t, const std::string& origin, const Product& p, bool has_k) {
+  Fields f(t, origin, "product.ranges",
+           {quantity("diameter", Quantity::length), quantity("length", Quantity::length),
+            quantity("thickness", Quantity::length), plain("conductivity_W_mK"),
+            quantity("initial", Quantity::temperature)});
+  ProductRanges r;
+  const auto pair = [&](const std::string& key, const toml::node& n, const std::string& unit, Quantity q, bool is_q,
+                        double nominal, bool positive) -> std::array<double, 2> {
+    const std::string need = "must be [low, high] with low <= high" + std::string(positive ? ", low > 0" : "");
+    const toml::array* a = n.as_array();
+    if (a == nullptr || a->size() != 2 || !a->get(0)->is_number() || !a->get(1)->is_number()) f.fail(key, need);
+    double lo = a->get(0)->value<double>().value_or(0), hi = a->get(1)->value<double>().value_or(0);
+    if (is_q) {
+      lo = *to_si(q, lo, unit);
+      hi = *to_si(q, hi, unit);
+    }
+    if (!(lo <= hi) || !std::isfinite(lo) || !std::isfinite(hi) || (positive && !(lo > 0))) f.fail(key, need);
+    if (nominal < lo - 1e-12 * std::abs(nominal) || nominal > hi + 1e-12 * std::abs(nominal))
+      f.fail(key, "must contain the nominal value " + format_number(nominal) + " (SI)");
+    return {lo, hi};
+  };
+  const auto length = [&](const char* base, double nominal, std::optional<std::array<double, 2>>& out) {
+    if (auto fd = f.find(base)) {
+      if (!(nominal > 0)) f.fail(fd->key, "not used by shape = " + quote(to_string(p.shape)));
+      out = pair(fd->key, *fd->node, fd->unit, Quantity::length, true, nominal, true);
+    }
+  };
+  length("diameter", p.dims.diameter_m, r.diameter_m);
+  length("length", p.dims.length_m, r.length_m);
+  length("thickness", p.dims.thickness_m, r.thickness_m);
+  if (const toml::node* n = f.node("conductivity_W_mK")) {
+    if (!has_k) f.fail("conductivity_W_mK", "needs [product.properties] (a composition gives k itself)");
+    r.conductivity_W_mK = pair("conductivity_W_mK", *n, "", Quantity::temperature, false, p.properties.conductivity_W_mK, true);
+  }
+  if (auto fi = f.find("initial")) r.initial_C = pair(fi->key, *fi->node, fi->unit, Quantity::temperature, true, p.initial_C, false);
+  return r;
+}
+
 Product parse_product_table(const toml::table& t, const std::string& origin, std::optional<MassFractions>& comp) {
   Fields f(t, origin, "product",
            {plain("name"), plain("shape"), quantity("diameter", Quantity::length),
             quantity("length", Quantity::length), quantity("thickness", Quantity::length),
             quantity("size", Quantity::length), quantity("initial", Quantity::temperature), plain("properties"),
-            plain("composition")});
+            plain("composition"), plain("ranges")});
   Product p;
   const auto name = f.string("name");
   if (!name) f.missing("name", "a name for reports, in double quotes");
@@ -211,6 +250,11 @@ ProductFile parse_product(std::string_view toml_text, std::string_view origin_sv
   if (product == nullptr) root.missing("product", "a [product] table (name, shape, size, initial temperature, properties)");
   if (!product->is_table()) root.fail("product", "must be a table [product]");
   out.product = parse_product_table(*product->as_table(), origin, out.composition);
+  if (const toml::node* rg = product->as_table()->get("ranges")) {
+    if (!rg->is_table())
+      throw InputError(origin + ": product.ranges = " + detail::format_value(*rg) + ": must be a table [product.ranges]");
+    out.ranges = parse_ranges(*rg->as_table(), origin, out.product, !out.composition.has_value());
+  }
 
   detail::parse_stages(root, base_dir, read_log, out);
   detail::parse_targets(root, out);
@@ -235,7 +279,16 @@ ProductFile load_product(const std::filesystem::path& path) {
     ss << in.rdbuf();
     return ss.str();
   };
-  return parse_product(text, path.generic_string(), path.parent_path(), disk);
+  ProductFile pf = parse_product(text, path.generic_string(), path.parent_path(), disk);
+  if (needs_media(pf)) {
+    const std::filesystem::path mp = path.parent_path() / "media.toml";
+    const auto mt = disk(mp);
+    if (!mt)
+      throw InputError(path.generic_string() + ": medium_type: needs " + mp.generic_string() +
+                       " (the media library) beside the product file");
+    apply_media(pf, parse_media(*mt, mp.generic_string()));
+  }
+  return pf;
 }
 
 }  // namespace coldcore::io

@@ -18,6 +18,8 @@ std::vector<KeySpec> stage_specs() {
           plain("medium_log"),
           quantity("medium_log_max_gap", Quantity::time),
           plain("h_W_m2K"),
+          plain("medium_type"),
+          plain("h_range_W_m2K"),
           quantity("duration", Quantity::time),
           quantity("until_centre", Quantity::temperature),
           quantity("until_mean", Quantity::temperature),
@@ -86,6 +88,28 @@ MediumProfile parse_medium_log(const Fields& f, const std::filesystem::path& bas
   for (auto& w : log.warnings) out.warnings.push_back(std::move(w));
   log_length_s = log.time_s.back();
   return medium_profile(log, path.generic_string(), *text);
+}
+
+/// medium_type (h from the media library later, apply_media) and h_range_W_m2K beside h_W_m2K.
+/// Returns true when h comes from medium_type (then h_W_m2K is absent and stays 0 here).
+bool parse_h_extras(const Fields& f, const Stage& s, StageH& out) {
+  if (auto mt = f.string("medium_type")) {
+    if (f.node("h_W_m2K") != nullptr) f.fail("medium_type", "given together with h_W_m2K; give one");
+    if (f.node("h_range_W_m2K") != nullptr) f.fail("h_range_W_m2K", "not used with medium_type (its range comes from media.toml)");
+    if (mt->empty()) f.fail("medium_type", "must name a medium of media.toml");
+    out.medium_type = *mt;
+    return true;
+  }
+  if (const toml::node* n = f.node("h_range_W_m2K")) {
+    const toml::array* a = n->as_array();
+    const std::string need = "must be [low, high] in W/(m2 K), 0 < low <= high";
+    if (a == nullptr || a->size() != 2 || !a->get(0)->is_number() || !a->get(1)->is_number()) f.fail("h_range_W_m2K", need);
+    const double lo = a->get(0)->value<double>().value_or(0), hi = a->get(1)->value<double>().value_or(0);
+    if (!(lo > 0) || !(hi >= lo) || !std::isfinite(hi)) f.fail("h_range_W_m2K", need);
+    (void)s;
+    out.h_range_W_m2K = {lo, hi};
+  }
+  return false;
 }
 
 void parse_h(const Fields& f, Stage& s) {
@@ -190,8 +214,15 @@ void parse_stages(const Fields& root, const std::filesystem::path& base_dir, con
       s.medium = parse_medium_log(f, base_dir, read_log, out, len);
       log_length_s = len;
     }
-    parse_h(f, s);
+    StageH sh;
+    if (!parse_h_extras(f, s, sh)) {
+      parse_h(f, s);
+      if (sh.h_range_W_m2K && !s.h_infinite &&
+          (s.h_W_m2K < (*sh.h_range_W_m2K)[0] || s.h_W_m2K > (*sh.h_range_W_m2K)[1]))
+        f.fail("h_range_W_m2K", "must contain h_W_m2K = " + format_number(s.h_W_m2K));
+    }
     parse_end(f, s, log_length_s, out);
+    out.stage_h.push_back(std::move(sh));
     out.stages.push_back(std::move(s));
   }
 }

@@ -23,12 +23,19 @@
 ///              diameter_* (sphere, cylinder, finite-cylinder), length_* (finite-cylinder),
 ///              thickness_* (slab, full thickness), size_* = [a, b, c] (brick, full edges),
 ///              initial_*; a dimension the shape does not use is refused, not ignored.
+///   [product.ranges]       optional tolerance ranges, each [low, high] containing the nominal:
+///              diameter_*, length_*, thickness_* (only those the shape uses), conductivity_W_mK,
+///              initial_* — e.g. diameter_mm = [40, 44], initial_C = [2, 6]
 ///   [product.properties]   conductivity_W_mK, density_kg_m3, specific_heat_J_kgK (all > 0), or
 ///   [product.composition]  water (required), protein, fat, carbohydrate, fiber, ash fractions
 ///   [[stage]]  name (default "stage N", unique); medium: exactly one of
 ///                medium_C|F = T (constant), medium_C|F = [[t, T], ...] (t in s; or name the time
 ///                unit: medium_min_C), medium_log = "file.csv" (+ optional medium_log_max_gap_*);
-///              h_W_m2K > 0, or inf / "inf" (then h_infinite = true and h_W_m2K = +inf);
+///              h_W_m2K > 0, or inf / "inf" (then h_infinite = true and h_W_m2K = +inf),
+///                optionally with h_range_W_m2K = [low, high] containing it (kept in stage_h);
+///                or medium_type = "<key of media.toml>" instead of h_W_m2K: h is then taken
+///                from the medium's range by apply_media() (io/media.hpp says which end and why);
+///                load_product reads media.toml beside the product file for it;
 ///              end: exactly one of duration_*, until_centre_* / until_mean_* (with mandatory
 ///                max_duration_*); with medium_log and no end given, duration = log length.
 ///   [[target]] kind = log-reduction: organism, or own reference_*, z_*, D_*; log_reduction > 0;
@@ -37,6 +44,7 @@
 ///              kind = cooling-rule: rule, optional at = "centre" | "mean", name (default rule)
 ///              kind = centre-min-temperature: min_*, hold_* >= 0, optional at, name
 ///              z_F is a temperature difference: z_C = z_F / 1.8. Target names are unique.
+#include <array>
 #include <filesystem>
 #include <functional>
 #include <optional>
@@ -45,6 +53,7 @@
 #include <vector>
 
 #include "coldcore/io/logger_csv.hpp"
+#include "coldcore/io/media.hpp"
 #include "coldcore/process/schedule.hpp"
 #include "coldcore/properties/composition.hpp"
 #include "coldcore/process/targets.hpp"
@@ -57,12 +66,30 @@ namespace coldcore::io {
 /// values from the composition. The same type the properties module takes.
 using MassFractions = coldcore::Composition;
 
+/// [product.ranges]: tolerance ranges [low, high] of product values, in SI, each containing the
+/// nominal value. Used by conservative evaluation (process/conservative.hpp); nominal results
+/// never use them. Keys: diameter_*, length_*, thickness_* (as the shape uses them),
+/// conductivity_W_mK, initial_* (°C or °F). Stage h ranges: StageH::h_range_W_m2K.
+struct ProductRanges {
+  std::optional<std::array<double, 2>> diameter_m, length_m, thickness_m, conductivity_W_mK, initial_C;
+  bool any() const { return diameter_m || length_m || thickness_m || conductivity_W_mK || initial_C; }
+};
+
+/// Per-stage h provenance beyond h_W_m2K (parallel to ProductFile::stages).
+struct StageH {
+  std::string medium_type;                        ///< set when the stage names medium_type
+  std::optional<std::array<double, 2>> h_range_W_m2K;  ///< [low, high]: h_range_W_m2K, or the medium's range
+  std::string note;                               ///< which h was used and why (apply_media)
+};
+
 struct ProductFile {
   Product product;
   std::optional<MassFractions> composition;  ///< set when [product.composition] was given
   std::vector<Stage> stages;                 ///< at least one, in file order, names unique
   std::vector<Target> targets;               ///< may be empty
   std::vector<std::string> warnings;         ///< e.g. gaps in a medium log; never fatal
+  std::vector<StageH> stage_h;               ///< parallel to stages
+  ProductRanges ranges;                      ///< [product.ranges], when given
   std::string origin;                        ///< as passed to parse_product
   std::string sha256_hex;                    ///< of the TOML text, for provenance
 };
@@ -78,9 +105,18 @@ using LogReader = std::function<std::optional<std::string>(const std::filesystem
 ProductFile parse_product(std::string_view toml_text, std::string_view origin,
                           const std::filesystem::path& base_dir = {}, const LogReader& read_log = {});
 
+/// Gives every stage that names medium_type its h from `media` (the conservative end, see
+/// io/media.hpp) and records the choice in stage_h[i].note and in warnings. InputError
+/// `<origin>: stage[i].medium_type = "x": not in media.toml; ...` for an unknown medium.
+void apply_media(ProductFile& file, const MediaLibrary& media);
+
+/// True when some stage names medium_type.
+bool needs_media(const ProductFile& file);
+
 /// Reads `path` and its medium logs from disk, then parse_product with origin = path as given
 /// and base_dir = its parent folder. The only function of io/ that touches the disk, together
-/// with read_text_file.
+/// with read_text_file. When a stage names medium_type, media.toml beside the file is read and
+/// apply_media() applied (InputError when it is missing).
 ProductFile load_product(const std::filesystem::path& path);
 
 /// The bytes of a file; InputError `<path>: cannot read file` when it cannot be opened.

@@ -1,0 +1,55 @@
+#pragma once
+/// Conservative evaluation: the documented worst case of the product's tolerance ranges, solved
+/// beside the nominal answer. The worst case takes, where a range is given:
+///   the LARGEST size (diameter, length, thickness), the LOWEST conductivity k, the LOWEST h of
+///   every stage with an h range (h_range_W_m2K or medium_type), and the COLDEST initial
+///   temperature for heating questions (hold-time, min-medium, and max-size when a lethality or
+///   minimum-temperature target exists) or the WARMEST for chilling (chill-time, and max-size with
+///   cooling rules only).
+/// Which choice drove it: each choice is applied alone and the question re-solved; the choice whose
+/// answer alone is the least favourable (longest time, smallest size, highest medium) is named.
+#include <array>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "coldcore/process/inverse.hpp"
+
+namespace coldcore::process {
+
+/// Ranges [low, high] in SI; stage_h parallel to Scenario::stages (empty entries: no range).
+struct Ranges {
+  std::optional<std::array<double, 2>> diameter_m, length_m, thickness_m, conductivity_W_mK, initial_C;
+  std::vector<std::optional<std::array<double, 2>>> stage_h_W_m2K;
+  bool any() const;
+};
+
+/// One worst-case choice: what it sets and to what.
+struct RangeChoice {
+  std::string label;   ///< e.g. "diameter 44 mm (largest)"
+  std::function<void(Scenario&)> apply;
+};
+
+/// The choices for question q (see above). Empty when no range applies.
+std::vector<RangeChoice> worst_case_choices(Question q, const Scenario& s, const Ranges& r);
+
+struct ChoiceAnswer {
+  std::string label;
+  std::optional<double> rounded;  ///< nullopt when that choice alone has no solution
+  std::string no_solution;        ///< its reason then
+};
+
+struct ConservativeSolve {
+  std::vector<std::string> choices;       ///< labels of every applied choice
+  std::optional<SolveResult> result;      ///< all choices together (nullopt: no solution)
+  std::string no_solution;                ///< reason when result is empty
+  std::vector<ChoiceAnswer> alone;        ///< each choice alone
+  std::string driven_by;                  ///< label of the least favourable single choice
+};
+
+/// Solves q with every worst-case choice applied, and with each alone. Throws InputError when no
+/// range applies to the question.
+ConservativeSolve solve_conservative(Question q, const Scenario& s, const Ranges& r, const Libraries& libs,
+                                     const SolveOptions& o = {});
+
+}  // namespace coldcore::process

@@ -1,0 +1,40 @@
+#pragma once
+/// Writers of `coldcore deviation`: the comparison and the deviation record (text, json, csv;
+/// cautions always; the statement that disposition is for the process authority always).
+///
+/// JSON: {"lot", "stage", "deviation": {"found", "start_s", "end_s", "lowest_C", ...},
+///        "targets": [{"name", "kind", "scheduled_F_min", "delivered_F_min", "scheduled_log_reduction",
+///        "delivered_log_reduction", "verdict", "scheduled_verdict", "delivered_margin", ...}],
+///        "all_met_delivered", "extra_hold_s" (rounded up, to use; null when none), "extra_hold_unrounded_s",
+///        "extension_medium_C", "restored": {...}, "record": {...}, "disposition", "notes", "assumptions",
+///        "warnings", "provenance", "cautions"}
+/// csv: '# ' comment lines (cautions, record, provenance), then one row per target:
+///        target,kind,scheduled_F_min,delivered_F_min,scheduled_log_reduction,delivered_log_reduction,verdict
+/// Shown F and log reductions are rounded DOWN, extra time UP.
+#include <iosfwd>
+#include <string>
+#include <vector>
+
+#include "coldcore/process/deviation.hpp"
+#include "coldcore/report/format.hpp"
+#include "coldcore/report/run_report.hpp"
+
+namespace coldcore {
+
+struct DeviationRecordInfo {
+  std::string product_name;
+  std::string lot;                    ///< "" = not given (the record says so)
+  std::string medium_log, medium_log_sha256;
+  std::string probe_log, probe_log_sha256;
+  std::vector<KeyValue> provenance;   ///< tool, input, SHA-256s, date
+  std::vector<std::string> warnings;
+};
+
+/// The sentence every deviation output carries.
+const std::string& disposition_statement();
+
+void write_deviation_text(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
+void write_deviation_json(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
+void write_deviation_csv(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
+
+}  // namespace coldcore

@@ -1,0 +1,39 @@
+#pragma once
+/// Writers of `coldcore solve` answers: text, json, csv (cautions always). They format a
+/// process::SolveResult; nothing is recomputed.
+///
+/// JSON: {"question", "stage", "quantity", "answer_<u>" (unrounded), "rounded_<u>" (to use),
+///        "unit_<u>", "nominal_<u>", "verification": {"value_<u>", "all_met", "considered_met",
+///        "targets": [...]}, "one_unit_less": {...} | null, "considered_targets", "notes",
+///        "assumptions", "warnings", "provenance", "cautions"}, with <u> = s | m | C (SI).
+/// csv: '# ' comment lines (cautions, provenance, notes), then one row per target and re-run:
+///        run,value_<u>,target,kind,required,achieved,margin,verdict
+/// Shown lethality is rounded down and times up (assessment.hpp); the answer to use is rounded
+/// toward the safe side by the solver.
+#include <iosfwd>
+#include <string>
+#include <vector>
+
+#include "coldcore/process/conservative.hpp"
+#include "coldcore/process/inverse.hpp"
+#include "coldcore/report/format.hpp"
+#include "coldcore/report/run_report.hpp"
+
+namespace coldcore {
+
+struct SolveReportContext {
+  std::string product_name;
+  std::vector<KeyValue> provenance;   ///< tool, input, SHA-256, libraries, date
+  std::vector<std::string> warnings;  ///< file warnings
+  /// --conservative: the worst case beside the nominal answer (JSON key "conservative").
+  const process::ConservativeSolve* conservative = nullptr;
+};
+
+void write_solve_text(const process::SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
+void write_solve_json(const process::SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
+void write_solve_csv(const process::SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
+
+/// Shared by the solve and deviation writers: one target result in JSON.
+void write_target_json(class JsonWriter& w, const TargetResult& t);
+
+}  // namespace coldcore

@@ -1,0 +1,113 @@
+// coldcore deviation FILE --medium-log LOG.csv [--stage NAME] [--probe-log LOG.csv] [--lot ID]
+#include <ctime>
+#include <memory>
+
+#include "cli/library_files.hpp"
+#include "cli/output.hpp"
+#include "cli/verbs.hpp"
+#include "coldcore/error.hpp"
+#include "coldcore/io/logger_csv.hpp"
+#include "coldcore/io/product_file.hpp"
+#include "coldcore/io/sha256.hpp"
+#include "coldcore/process/deviation.hpp"
+#include "coldcore/report/deviation_report.hpp"
+#include "coldcore/version.hpp"
+
+namespace coldcore::cli {
+
+namespace {
+
+struct DeviationArgs {
+  std::string file, medium_log, probe_log, stage, lot, library, date, column;
+  double tolerance_K = 0.5;
+  double round_min = 1;
+  OutputArgs output;
+};
+
+std::string today_utc() {
+  std::time_t now = std::time(nullptr);
+  std::tm tm{};
+  gmtime_r(&now, &tm);
+  char buf[16];
+  std::strftime(buf, sizeof buf, "%Y-%m-%d", &tm);
+  return buf;
+}
+
+int run_deviation(const DeviationArgs& a, std::ostream& out) {
+  const Format f = parse_format(a.output.format, {Format::text, Format::json, Format::csv});
+  const TempUnit u = parse_temp_unit(a.output.units);
+  if (a.medium_log.empty() && a.probe_log.empty())
+    throw InputError("deviation: give --medium-log LOG.csv and/or --probe-log LOG.csv");
+  if (!(a.tolerance_K > 0)) throw InputError("--tolerance-K = " + std::to_string(a.tolerance_K) + ": must be > 0");
+  if (!(a.round_min > 0)) throw InputError("--round-min = " + std::to_string(a.round_min) + ": must be > 0");
+  const io::ProductFile file = io::load_product(a.file);
+  const LibraryFiles libs = load_libraries(a.library, a.file);
+  process::DeviationInput in;
+  in.scheduled = process::Scenario{file.product, file.stages, file.targets, file.origin};
+  DeviationRecordInfo info;
+  info.product_name = file.product.name;
+  info.lot = a.lot;
+  info.warnings = file.warnings;
+  if (!a.medium_log.empty()) {
+    const std::string text = io::read_text_file(a.medium_log);
+    io::LogOptions lo;
+    lo.temp_column = a.column;
+    const io::TimeSeries log = io::parse_log_csv(text, a.medium_log, lo);
+    for (const auto& w : log.warnings) info.warnings.push_back(w);
+    in.medium_log = io::medium_profile(log, a.medium_log, text);
+    in.stage = a.stage.empty() ? process::default_stage(in.scheduled, true)
+                               : process::stage_index(in.scheduled, a.stage, "--stage");
+    info.medium_log = a.medium_log;
+    info.medium_log_sha256 = io::sha256_hex(text);
+  }
+  if (!a.probe_log.empty()) {
+    const std::string text = io::read_text_file(a.probe_log);
+    const io::TimeSeries log = io::parse_log_csv(text, a.probe_log);
+    for (const auto& w : log.warnings) info.warnings.push_back(w);
+    in.probe_time_s = log.time_s;
+    in.probe_temp_C = log.temp_C;
+    in.probe_origin = a.probe_log;
+    info.probe_log = a.probe_log;
+    info.probe_log_sha256 = io::sha256_hex(text);
+  }
+  process::DeviationOptions o;
+  o.tolerance_K = a.tolerance_K;
+  o.unit_s = a.round_min * 60.0;
+  const process::DeviationResult r = process::evaluate_deviation(in, {&libs.organisms, &libs.rules, &libs.cooking}, o);
+  info.provenance = {{"tool", std::string("coldcore ") + kVersion},
+                     {"input", file.origin},
+                     {"input SHA-256", file.sha256_hex},
+                     {"organisms", libs.organisms.origin + " (SHA-256 " + libs.organisms_sha256 + ")"},
+                     {"cooling rules", libs.rules.origin + " (SHA-256 " + libs.rules_sha256 + ")"},
+                     {"cooking tables", libs.cooking.origin + " (SHA-256 " + libs.cooking_sha256 + ")"},
+                     {"date", a.date.empty() ? today_utc() : a.date}};
+  switch (f) {
+    case Format::json: write_deviation_json(r, info, out, u); break;
+    case Format::csv: write_deviation_csv(r, info, out, u); break;
+    default: write_deviation_text(r, info, out, u); break;
+  }
+  return r.all_met_delivered ? kAllMet : kNotDemonstrated;
+}
+
+}  // namespace
+
+void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
+  auto args = std::make_shared<DeviationArgs>();
+  auto* sub = app.add_subcommand("deviation", "delivered versus scheduled lethality from a logged medium or probe");
+  sub->add_option("FILE", args->file, "product file (TOML, schema 1)")->required();
+  sub->add_option("--medium-log", args->medium_log, "logged medium of the deviated stage (CSV, first row = stage start)");
+  sub->add_option("--stage", args->stage, "the deviated stage (default: the last heating stage)");
+  sub->add_option("--probe-log", args->probe_log, "measured cold-spot log (CSV, first row = process start)");
+  sub->add_option("--lot", args->lot, "lot or batch identifier for the record");
+  sub->add_option("--column", args->column, "temperature column of the medium log, when it has several");
+  sub->add_option("--tolerance-K", args->tolerance_K, "a reading this far below the schedule is deviated")->capture_default_str();
+  sub->add_option("--round-min", args->round_min, "additional time rounded UP to this, min")->capture_default_str();
+  sub->add_option("--library", args->library, "folder with organisms.toml and cooling-rules.toml");
+  sub->add_option("--date", args->date, "record date, YYYY-MM-DD (default: today, UTC)");
+  add_output_options(*sub, args->output);
+  sub->callback([&ctx, args] {
+    ctx.run = [args] { return with_output(args->output, [&](std::ostream& out) { return run_deviation(*args, out); }); };
+  });
+}
+
+}  // namespace coldcore::cli

@@ -1,0 +1,43 @@
+#include "cli/library_files.hpp"
+
+#include "coldcore/error.hpp"
+#include "coldcore/io/product_file.hpp"
+#include "coldcore/io/sha256.hpp"
+
+namespace coldcore::cli {
+
+std::filesystem::path library_path(const std::string& name, const std::string& library_dir,
+                                   const std::string& product_file) {
+  namespace fs = std::filesystem;
+  if (!library_dir.empty()) {
+    const fs::path p = fs::path(library_dir) / name;
+    if (!fs::exists(p)) throw InputError("--library = " + library_dir + ": has no " + name);
+    return p;
+  }
+  if (!product_file.empty()) {
+    const fs::path beside = fs::path(product_file).parent_path() / name;
+    if (fs::exists(beside)) return beside;
+  }
+  const fs::path src = fs::path(COLDCORE_SOURCE_DIR) / "products" / name;
+  if (fs::exists(src)) return src;
+  throw InputError(name + ": not found beside the product file nor in " + src.parent_path().generic_string() +
+                   "; give --library DIR");
+}
+
+LibraryFiles load_libraries(const std::string& library_dir, const std::string& product_file) {
+  LibraryFiles d;
+  const auto op = library_path("organisms.toml", library_dir, product_file);
+  const auto rp = library_path("cooling-rules.toml", library_dir, product_file);
+  const std::string ot = io::read_text_file(op), rt = io::read_text_file(rp);
+  d.organisms = parse_organisms(ot, op.generic_string());
+  d.rules = parse_cooling_rules(rt, rp.generic_string());
+  const auto cp = library_path("cooking-tables.toml", library_dir, product_file);
+  const std::string ct = io::read_text_file(cp);
+  d.cooking = parse_cooking_tables(ct, cp.generic_string());
+  d.cooking_sha256 = io::sha256_hex(ct);
+  d.organisms_sha256 = io::sha256_hex(ot);
+  d.rules_sha256 = io::sha256_hex(rt);
+  return d;
+}
+
+}  // namespace coldcore::cli

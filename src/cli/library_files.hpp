@@ -1,0 +1,27 @@
+#pragma once
+// The data libraries (organisms.toml, cooling-rules.toml, media.toml) a verb needs, found beside
+// the product file, else in --library DIR, else in the source tree's products/ folder.
+#include <filesystem>
+#include <string>
+
+#include "coldcore/lethality/cooking_tables.hpp"
+#include "coldcore/lethality/organisms.hpp"
+#include "coldcore/process/cooling.hpp"
+
+namespace coldcore::cli {
+
+struct LibraryFiles {
+  OrganismLibrary organisms;
+  RuleLibrary rules;
+  CookingTables cooking;
+  std::string organisms_sha256, rules_sha256, cooking_sha256;
+};
+
+/// Path of library file `name`: `library_dir`/name when library_dir is given; else beside
+/// `product_file`; else COLDCORE_SOURCE_DIR/products/name. InputError when none exists.
+std::filesystem::path library_path(const std::string& name, const std::string& library_dir,
+                                   const std::string& product_file);
+
+LibraryFiles load_libraries(const std::string& library_dir, const std::string& product_file);
+
+}  // namespace coldcore::cli

@@ -1,0 +1,130 @@
+// coldcore solve FILE --for hold-time|chill-time|max-size|min-medium: inverse questions.
+#include <ctime>
+#include <memory>
+
+#include "cli/library_files.hpp"
+#include "cli/output.hpp"
+#include "cli/verbs.hpp"
+#include "coldcore/error.hpp"
+#include "coldcore/io/product_file.hpp"
+#include "coldcore/process/conservative.hpp"
+#include "coldcore/process/inverse.hpp"
+#include "coldcore/report/solve_report.hpp"
+#include "coldcore/version.hpp"
+
+namespace coldcore::cli {
+
+namespace {
+
+struct SolveArgs {
+  std::string file;
+  std::string question;
+  std::string stage;
+  std::string library;
+  std::string date;
+  double round_min = 1;      ///< hold/chill unit
+  double round_mm = 1;       ///< size unit
+  double round_C = 0.5;      ///< medium unit
+  double max_hold_h = 48;
+  std::optional<double> end_C;
+  bool mean = false;
+  bool conservative = false;
+  OutputArgs output;
+};
+
+process::Question parse_question(const std::string& s) {
+  using process::Question;
+  for (Question q : {Question::hold_time, Question::chill_time, Question::max_size, Question::min_medium})
+    if (s == process::to_string(q)) return q;
+  throw InputError("--for = " + s + ": must be hold-time, chill-time, max-size or min-medium");
+}
+
+std::string today_utc() {
+  std::time_t now = std::time(nullptr);
+  std::tm tm{};
+  gmtime_r(&now, &tm);
+  char buf[16];
+  std::strftime(buf, sizeof buf, "%Y-%m-%d", &tm);
+  return buf;
+}
+
+int run_solve(const SolveArgs& a, std::ostream& out) {
+  const Format f = parse_format(a.output.format, {Format::text, Format::json, Format::csv});
+  const TempUnit u = parse_temp_unit(a.output.units);
+  const process::Question q = parse_question(a.question);
+  if (!(a.round_min > 0)) throw InputError("--round-min = " + std::to_string(a.round_min) + ": must be > 0");
+  if (!(a.round_mm > 0)) throw InputError("--round-mm = " + std::to_string(a.round_mm) + ": must be > 0");
+  if (!(a.round_C > 0)) throw InputError("--round-C = " + std::to_string(a.round_C) + ": must be > 0");
+  if (!(a.max_hold_h > 0)) throw InputError("--max-hold-h = " + std::to_string(a.max_hold_h) + ": must be > 0");
+  const io::ProductFile file = io::load_product(a.file);
+  const LibraryFiles libs = load_libraries(a.library, a.file);
+  process::Scenario s{file.product, file.stages, file.targets, file.origin};
+  process::SolveOptions o;
+  o.stage = a.stage;
+  o.unit_s = a.round_min * 60.0;
+  o.unit_m = a.round_mm / 1000.0;
+  o.unit_C = a.round_C;
+  o.max_hold_s = a.max_hold_h * 3600.0;
+  o.end_C = a.end_C;
+  o.mean = a.mean;
+  const process::SolveResult r = process::solve(q, s, {&libs.organisms, &libs.rules, &libs.cooking}, o);
+  std::optional<process::ConservativeSolve> cons;
+  if (a.conservative) {
+    process::Ranges rg;
+    rg.diameter_m = file.ranges.diameter_m;
+    rg.length_m = file.ranges.length_m;
+    rg.thickness_m = file.ranges.thickness_m;
+    rg.conductivity_W_mK = file.ranges.conductivity_W_mK;
+    rg.initial_C = file.ranges.initial_C;
+    for (const auto& sh : file.stage_h) rg.stage_h_W_m2K.push_back(sh.h_range_W_m2K);
+    cons = process::solve_conservative(q, s, rg, {&libs.organisms, &libs.rules, &libs.cooking}, o);
+  }
+  SolveReportContext c;
+  c.product_name = file.product.name;
+  c.warnings = file.warnings;
+  if (cons) c.conservative = &*cons;
+  c.provenance = {{"tool", std::string("coldcore ") + kVersion},
+                  {"input", file.origin},
+                  {"input SHA-256", file.sha256_hex},
+                  {"organisms", libs.organisms.origin + " (SHA-256 " + libs.organisms_sha256 + ")"},
+                  {"cooling rules", libs.rules.origin + " (SHA-256 " + libs.rules_sha256 + ")"},
+                  {"cooking tables", libs.cooking.origin + " (SHA-256 " + libs.cooking_sha256 + ")"},
+                  {"date", a.date.empty() ? today_utc() : a.date}};
+  switch (f) {
+    case Format::json: write_solve_json(r, c, out, u); break;
+    case Format::csv: write_solve_csv(r, c, out, u); break;
+    default: write_solve_text(r, c, out, u); break;
+  }
+  // The answer exists; the exit code says whether its re-run meets every target.
+  const bool ok = q == process::Question::chill_time ? r.end_C && r.end_at_rounded_C < *r.end_C
+                                                     : r.verification.eval.considered_met;
+  // A conservative question without an answer is not a demonstrated process either.
+  const bool cons_ok = !cons || (cons->result && cons->result->verification.eval.considered_met);
+  return ok && cons_ok ? kAllMet : kNotDemonstrated;
+}
+
+}  // namespace
+
+void add_solve_verb(CLI::App& app, VerbContext& ctx) {
+  auto args = std::make_shared<SolveArgs>();
+  auto* sub = app.add_subcommand("solve", "inverse questions: hold-time, chill-time, max-size, min-medium");
+  sub->add_option("FILE", args->file, "product file (TOML, schema 1)")->required();
+  sub->add_option("--for", args->question, "hold-time | chill-time | max-size | min-medium")->required();
+  sub->add_option("--stage", args->stage, "stage to change (default: last heating stage; chill-time: last cooling)");
+  sub->add_option("--round-min", args->round_min, "hold/chill answers rounded UP to this, min")->capture_default_str();
+  sub->add_option("--round-mm", args->round_mm, "max-size answer rounded DOWN to this, mm")->capture_default_str();
+  sub->add_option("--round-C", args->round_C, "min-medium answer rounded UP to this, °C")->capture_default_str();
+  sub->add_option("--max-hold-h", args->max_hold_h, "search bound for hold and chill times, h")->capture_default_str();
+  sub->add_option("--end-C", args->end_C, "chill-time: end temperature, °C (default: the stage's until_* value)");
+  sub->add_flag("--mean", args->mean, "chill-time: the mass average instead of the centre");
+  sub->add_flag("--conservative", args->conservative,
+                "also solve the documented worst case of the file's ranges and name the choice that drove it");
+  sub->add_option("--library", args->library, "folder with organisms.toml and cooling-rules.toml");
+  sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
+  add_output_options(*sub, args->output);
+  sub->callback([&ctx, args] {
+    ctx.run = [args] { return with_output(args->output, [&](std::ostream& out) { return run_solve(*args, out); }); };
+  });
+}
+
+}  // namespace coldcore::cli

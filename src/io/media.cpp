@@ -1,0 +1,85 @@
+#include "coldcore/io/media.hpp"
+
+#include <cmath>
+
+#include <toml++/toml.h>
+
+#include "coldcore/error.hpp"
+#include "coldcore/io/quantity.hpp"
+#include "io/detail/fields.hpp"
+#include "io/detail/text.hpp"
+
+namespace coldcore::io {
+
+const MediumType* MediaLibrary::find(std::string_view key) const {
+  for (const auto& m : media)
+    if (m.key == key) return &m;
+  return nullptr;
+}
+
+const MediumType& MediaLibrary::at(std::string_view key, std::string_view place) const {
+  if (const MediumType* m = find(key)) return *m;
+  std::vector<std::string> keys;
+  std::string accepted;
+  for (const auto& m : media) {
+    keys.push_back(m.key);
+    accepted += (accepted.empty() ? "" : ", ") + m.key;
+  }
+  std::string msg = std::string(place) + " = " + detail::quote(key) + ": not in " + origin;
+  if (auto near = did_you_mean(key, keys)) msg += "; did you mean " + detail::quote(*near) + "?";
+  throw InputError(msg + "; accepted: " + accepted);
+}
+
+MediaLibrary parse_media(std::string_view text, std::string_view origin_sv) {
+  const std::string origin(origin_sv);
+  toml::table doc;
+  try {
+    doc = toml::parse(text, origin_sv);
+  } catch (const toml::parse_error& e) {
+    throw InputError(origin + ":" + std::to_string(e.source().begin.line) + ":" +
+                     std::to_string(e.source().begin.column) + ": not valid TOML: " + std::string(e.description()));
+  }
+  using detail::plain;
+  detail::Fields root(doc, origin, "", {plain("schema"), plain("media")});
+  const toml::node* schema = root.node("schema");
+  if (schema == nullptr) root.missing("schema", "must be 1");
+  if (!schema->is_integer() || schema->as_integer()->get() != 1) root.fail("schema", "must be 1");
+  const toml::node* media = root.node("media");
+  if (media == nullptr || !media->is_table()) root.missing("media", "[media.<key>] tables");
+  MediaLibrary lib;
+  lib.origin = origin;
+  for (const auto& [k, v] : *media->as_table()) {
+    const std::string key(k.str());
+    if (!v.is_table()) root.fail("media." + key, "must be a table [media." + key + "]");
+    detail::Fields f(*v.as_table(), origin, "media." + key,
+                     {plain("description"), plain("h_min_W_m2K"), plain("h_max_W_m2K"), plain("source"),
+                      plain("status")});
+    MediumType m;
+    m.key = key;
+    const auto str = [&](const char* name) {
+      auto s = f.string(name);
+      if (!s || s->empty()) f.missing(name, "a non-empty string");
+      return *s;
+    };
+    const auto h = [&](const char* name) {
+      const toml::node* n = f.node(name);
+      if (n == nullptr) f.missing(name, "a heat-transfer coefficient in W/(m2 K), > 0");
+      const double x = f.number_of(name, *n, false, "W/(m2 K)");
+      if (!(x > 0)) f.fail(name, "must be > 0");
+      return x;
+    };
+    m.description = str("description");
+    m.h_min_W_m2K = h("h_min_W_m2K");
+    m.h_max_W_m2K = h("h_max_W_m2K");
+    if (m.h_max_W_m2K < m.h_min_W_m2K) f.fail("h_max_W_m2K", "must be >= h_min_W_m2K (" + detail::format_number(m.h_min_W_m2K) + ")");
+    m.source = str("source");
+    m.status = str("status");
+    if (m.status != "confirmed" && m.status != "from memory" && m.status != "derived")
+      f.fail("status", "must be \"confirmed\", \"from memory\" or \"derived\"");
+    lib.media.push_back(std::move(m));
+  }
+  if (lib.media.empty()) root.fail("media", "must hold at least one [media.<key>] table");
+  return lib;
+}
+
+}  // namespace coldcore::io

@@ -1,0 +1,119 @@
+#include "coldcore/process/conservative.hpp"
+
+#include <cmath>
+#include <sstream>
+
+#include "coldcore/error.hpp"
+
+namespace coldcore::process {
+
+namespace {
+
+std::string num(double x) {
+  std::ostringstream s;
+  s.precision(6);
+  s << x;
+  return s.str();
+}
+
+bool heating_question(Question q, const Scenario& s) {
+  switch (q) {
+    case Question::hold_time:
+    case Question::min_medium: return true;
+    case Question::chill_time: return false;
+    case Question::max_size:
+      for (const auto& t : s.targets)
+        if (t.kind != TargetKind::cooling_rule) return true;
+      return false;
+  }
+  return true;
+}
+
+}  // namespace
+
+bool Ranges::any() const {
+  if (diameter_m || length_m || thickness_m || conductivity_W_mK || initial_C) return true;
+  for (const auto& h : stage_h_W_m2K)
+    if (h) return true;
+  return false;
+}
+
+std::vector<RangeChoice> worst_case_choices(Question q, const Scenario& s, const Ranges& r) {
+  std::vector<RangeChoice> c;
+  // max-size varies the size itself: a size range does not apply to it.
+  if (q != Question::max_size) {
+    if (r.diameter_m) {
+      const double v = (*r.diameter_m)[1];
+      c.push_back({"diameter " + num(v * 1000) + " mm (largest)", [v](Scenario& x) { x.product.dims.diameter_m = v; }});
+    }
+    if (r.length_m) {
+      const double v = (*r.length_m)[1];
+      c.push_back({"length " + num(v * 1000) + " mm (largest)", [v](Scenario& x) { x.product.dims.length_m = v; }});
+    }
+    if (r.thickness_m) {
+      const double v = (*r.thickness_m)[1];
+      c.push_back({"thickness " + num(v * 1000) + " mm (largest)", [v](Scenario& x) { x.product.dims.thickness_m = v; }});
+    }
+  }
+  if (r.conductivity_W_mK) {
+    const double v = (*r.conductivity_W_mK)[0];
+    c.push_back({"conductivity " + num(v) + " W/mK (lowest)",
+                 [v](Scenario& x) { x.product.properties.conductivity_W_mK = v; }});
+  }
+  for (std::size_t i = 0; i < r.stage_h_W_m2K.size() && i < s.stages.size(); ++i) {
+    if (!r.stage_h_W_m2K[i] || s.stages[i].h_infinite) continue;
+    const double v = (*r.stage_h_W_m2K[i])[0];
+    c.push_back({"stage \"" + s.stages[i].name + "\" h " + num(v) + " W/m2K (lowest)",
+                 [v, i](Scenario& x) { x.stages[i].h_W_m2K = v; }});
+  }
+  if (r.initial_C) {
+    const bool heat = heating_question(q, s);
+    const double v = heat ? (*r.initial_C)[0] : (*r.initial_C)[1];
+    c.push_back({"initial " + num(v) + " C (" + (heat ? "coldest, for heating" : "warmest, for chilling") + ")",
+                 [v](Scenario& x) { x.product.initial_C = v; }});
+  }
+  return c;
+}
+
+ConservativeSolve solve_conservative(Question q, const Scenario& s, const Ranges& r, const Libraries& libs,
+                                     const SolveOptions& o) {
+  const auto choices = worst_case_choices(q, s, r);
+  if (choices.empty())
+    throw InputError(s.origin + ": --conservative: the file gives no range that applies to " + to_string(q) +
+                     " ([product.ranges], h_range_W_m2K or medium_type)");
+  ConservativeSolve out;
+  Scenario all = s;
+  for (const auto& c : choices) {
+    out.choices.push_back(c.label);
+    c.apply(all);
+  }
+  try {
+    out.result = solve(q, all, libs, o);
+  } catch (const NoSolution& e) {
+    out.no_solution = e.what();
+  }
+  // Least favourable: longest time / highest medium (answers rounded up), smallest size.
+  const bool smaller_worse = q == Question::max_size;
+  double worst = smaller_worse ? 1e300 : -1e300;
+  for (const auto& c : choices) {
+    ChoiceAnswer a;
+    a.label = c.label;
+    Scenario one = s;
+    c.apply(one);
+    try {
+      a.rounded = solve(q, one, libs, o).rounded;
+      const bool w = smaller_worse ? *a.rounded < worst : *a.rounded > worst;
+      if (w && out.driven_by.find("no solution") == std::string::npos) {
+        worst = *a.rounded;
+        out.driven_by = c.label;
+      }
+    } catch (const NoSolution& e) {
+      a.no_solution = e.what();
+      out.driven_by = c.label + " (no solution with it alone)";
+    }
+    out.alone.push_back(std::move(a));
+  }
+  return out;
+}
+
+}  // namespace coldcore::process

@@ -1,0 +1,104 @@
+// The forward model of the inverse questions: simulate + assess, reduced to one margin.
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+#include "coldcore/error.hpp"
+#include "coldcore/process/inverse.hpp"
+
+namespace coldcore::process {
+
+namespace {
+
+bool is_lethality(TargetKind k) { return k == TargetKind::log_reduction || k == TargetKind::f_value; }
+
+}  // namespace
+
+double target_margin(const TargetResult& r) {
+  double m = 0;
+  if (is_lethality(r.kind) && r.F_required_s > 0) {
+    // F/F_required − 1 is monotone in F for log-linear and Weibull targets alike, and finite at F = 0.
+    m = r.F_s / r.F_required_s - 1.0;
+  } else if (r.required > 0) {
+    m = r.margin / r.required;
+  } else {
+    m = r.margin;
+  }
+  // The sign must agree with the verdict: the root finder's "feasible" is the report's "met".
+  constexpr double kTiny = 1e-12;
+  const bool met = r.verdict == Verdict::met;
+  if (met && !(m > 0)) m = kTiny;
+  if (!met && !(m < 0)) m = -kTiny;
+  return m;
+}
+
+Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<int>& considered,
+                    const HistoryOptions& hopts) {
+  if (libs.organisms == nullptr || libs.rules == nullptr)
+    throw InputError("evaluate: organism and rule libraries are required");
+  Evaluation e;
+  e.history = simulate(s.product, s.stages, hopts);
+  AssessOptions ao;
+  ao.origin = s.origin;
+  ao.cooking_tables = libs.cooking;
+  e.assessment = assess(e.history, s.targets, *libs.organisms, *libs.rules, ao);
+  e.all_met = e.assessment.all_met();
+  double m = std::numeric_limits<double>::infinity();
+  const auto& t = e.assessment.targets;
+  if (considered.empty()) {
+    for (const auto& r : t) m = std::min(m, target_margin(r));
+  } else {
+    for (int i : considered) m = std::min(m, target_margin(t.at(static_cast<std::size_t>(i))));
+  }
+  if (t.empty()) m = -1;  // nothing to meet is not "met"
+  e.margin = m;
+  e.considered_met = m > 0;
+  return e;
+}
+
+HistoryOptions search_history_options() {
+  HistoryOptions o;
+  o.tol_K = 1e-3;
+  o.sample_tol_K = 0.05;
+  return o;
+}
+
+int default_stage(const Scenario& s, bool heating) {
+  const History h = simulate(s.product, s.stages, search_history_options());
+  int found = -1;
+  for (std::size_t i = 0; i < h.stages.size(); ++i) {
+    const auto& rec = h.stages[i];
+    const double centre_start = h.evaluate(rec.start_s).centre_C;
+    const double medium_end = rec.at_end.medium_C;
+    if (heating ? medium_end > centre_start : medium_end < centre_start) found = static_cast<int>(i);
+  }
+  if (found < 0)
+    throw NoSolution(std::string("no ") + (heating ? "heating" : "cooling") +
+                     " stage (medium " + (heating ? "above" : "below") +
+                     " the centre) in the process; name one with --stage");
+  return found;
+}
+
+int stage_index(const Scenario& s, const std::string& name, const std::string& place) {
+  std::string names;
+  for (std::size_t i = 0; i < s.stages.size(); ++i) {
+    if (s.stages[i].name == name) return static_cast<int>(i);
+    if (i > 0) names += ", ";
+    names += "\"";
+    names += s.stages[i].name;
+    names += "\"";
+  }
+  throw InputError(place + " = \"" + name + "\": no such stage; stages are " + names);
+}
+
+const char* to_string(Question q) {
+  switch (q) {
+    case Question::hold_time: return "hold-time";
+    case Question::chill_time: return "chill-time";
+    case Question::max_size: return "max-size";
+    case Question::min_medium: return "min-medium";
+  }
+  return "?";
+}
+
+}  // namespace coldcore::process

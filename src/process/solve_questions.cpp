@@ -1,0 +1,401 @@
+// The four inverse questions: set up the parameter, bracket, solve, round, verify.
+#include <algorithm>
+#include <cmath>
+#include <functional>
+#include <sstream>
+
+#include "coldcore/error.hpp"
+#include "coldcore/lethality/kinetics.hpp"
+#include "coldcore/process/inverse.hpp"
+
+namespace coldcore::process {
+
+namespace {
+
+std::string num(double x, int prec = 6) {
+  std::ostringstream s;
+  s.precision(prec);
+  s << x;
+  return s.str();
+}
+
+bool is_lethality(TargetKind k) { return k == TargetKind::log_reduction || k == TargetKind::f_value; }
+
+/// Which targets' verdicts at a bound explain a NoSolution, in words.
+std::string shortfalls(const Evaluation& e, const std::vector<int>& considered) {
+  std::string out;
+  for (std::size_t i = 0; i < e.assessment.targets.size(); ++i) {
+    if (!considered.empty() && std::find(considered.begin(), considered.end(), static_cast<int>(i)) == considered.end())
+      continue;
+    const auto& r = e.assessment.targets[i];
+    if (r.verdict == Verdict::met) continue;
+    out += (out.empty() ? "" : "; ") + r.name + " " + r.verdict_text;
+  }
+  return out;
+}
+
+double max_medium_C(const Stage& st) {
+  double m = -1e300;
+  for (const auto& p : st.medium.points) m = std::max(m, p.temp_C);
+  return m;
+}
+
+/// Plain-words physical reason a stage cannot deliver a target however long it lasts.
+std::string physical_reason(const Scenario& s, const Evaluation& at_bound, int stage, const std::vector<int>& considered) {
+  std::string why;
+  const double tmax = max_medium_C(s.stages[static_cast<std::size_t>(stage)]);
+  for (int i : considered) {
+    const Target& t = s.targets[static_cast<std::size_t>(i)];
+    const TargetResult& r = at_bound.assessment.targets[static_cast<std::size_t>(i)];
+    if (r.verdict == Verdict::met) continue;
+    if (t.kind == TargetKind::centre_min_temperature && tmax <= t.min_temp_C)
+      why += "; the stage's medium (at most " + num(tmax, 4) + " C) is not above " + r.name + "'s " +
+             num(t.min_temp_C, 4) + " C, so the " + t.at + " can never reach it";
+    if (is_lethality(t.kind) && r.kinetics) {
+      const double rate = lethal_rate(tmax, *r.kinetics);
+      why += "; at the stage's highest medium temperature, " + num(tmax, 4) + " C, " + r.name + " accrues at most " +
+             num(rate * 60.0, 3) + " min of F per hour against " + num(r.F_required_s / 60.0, 4) + " min required";
+    }
+  }
+  return why;
+}
+
+struct Setup {
+  std::function<Scenario(double)> apply;   ///< scenario with the parameter set to x
+  FeasibleSide side = FeasibleSide::above;
+  double lo = 0, hi = 0;
+  RootOptions ro;
+  double unit = 0;
+  double domain_lo = -1e300, domain_hi = 1e300;  ///< one-unit-less must stay inside
+  std::vector<int> considered;
+  std::string why_none;
+  int stage = -1;
+};
+
+Check check_at(const Setup& st, const Libraries& libs, double x) {
+  Check c;
+  c.value = x;
+  c.eval = evaluate(st.apply(x), libs, st.considered);
+  return c;
+}
+
+/// Rounds toward the safe side, verifies, and re-runs one unit on the unsafe side.
+void round_and_verify(SolveResult& res, const Setup& st, const Libraries& libs) {
+  const double sign = st.side == FeasibleSide::above ? 1.0 : -1.0;
+  res.unit_step = st.unit;
+  res.rounded = round_to_unit(res.answer, st.unit, st.side);
+  res.verification = check_at(st, libs, res.rounded);
+  // A root within binary noise of a multiple rounds onto it; a tie is not "met", so step once.
+  for (int k = 0; k < 3 && !res.verification.eval.considered_met; ++k) {
+    res.rounded += sign * st.unit;
+    res.notes.push_back("the answer rounded to " + num(res.rounded - sign * st.unit) +
+                        " did not meet every target on re-run; one more unit taken");
+    res.verification = check_at(st, libs, res.rounded);
+  }
+  if (!res.verification.eval.considered_met)
+    throw NotConverged(std::string(to_string(res.question)) + ": the rounded answer " + num(res.rounded) +
+                       " does not meet every target on re-run (margin " + num(res.verification.eval.margin) +
+                       "); the margin is not monotone in the parameter");
+  const double less = res.rounded - sign * st.unit;
+  if (less >= st.domain_lo && less <= st.domain_hi) {
+    res.one_unit_less = check_at(st, libs, less);
+    if (res.one_unit_less->eval.considered_met)
+      res.notes.push_back("one unit less (" + num(less) + ") also meets every target: the answer is limited by the "
+                          "search bound, not by the targets");
+  } else {
+    res.notes.push_back("one unit less (" + num(less) + ") is outside the parameter's domain; not re-run");
+  }
+}
+
+SolveResult run(Question q, const Setup& st, const Scenario& s, const Libraries& libs) {
+  SolveResult res;
+  res.question = q;
+  for (int i : st.considered) res.considered.push_back(s.targets[static_cast<std::size_t>(i)].name);
+  const auto margin = [&](double x) {
+    return evaluate(st.apply(x), libs, st.considered, search_history_options()).margin;
+  };
+  try {
+    res.root = solve_margin(margin, st.lo, st.hi, st.side, st.ro, st.why_none);
+  } catch (const NoSolution&) {
+    // Say why: the verdicts at the bound and, where it applies, the physical limit.
+    const double bound = st.ro.expand ? st.ro.limit : (st.side == FeasibleSide::above ? st.hi : st.lo);
+    const Evaluation e = evaluate(st.apply(bound), libs, st.considered, search_history_options());
+    std::string why = st.why_none + ": at the bound " + num(bound) + " " + shortfalls(e, st.considered);
+    if (st.stage >= 0) why += physical_reason(s, e, st.stage, st.considered);
+    throw NoSolution(why);
+  }
+  res.answer = res.root.x;
+  if (res.root.met_at_bound)
+    res.notes.push_back("every target is already met at the bound " + num(res.root.x) +
+                        " of the search; the answer is that bound");
+  round_and_verify(res, st, libs);
+  return res;
+}
+
+std::vector<int> all_targets(const Scenario& s) {
+  std::vector<int> v;
+  for (std::size_t i = 0; i < s.targets.size(); ++i) v.push_back(static_cast<int>(i));
+  if (v.empty()) throw InputError(s.origin + ": target: missing: the question needs at least one [[target]]");
+  return v;
+}
+
+double stage_duration_s(const Scenario& s, int idx) {
+  const Stage& st = s.stages[static_cast<std::size_t>(idx)];
+  if (st.end.kind == StageEndKind::duration) return st.end.duration_s;
+  const History h = simulate(s.product, s.stages, search_history_options());
+  const auto& rec = h.stages[static_cast<std::size_t>(idx)];
+  return rec.end_s - rec.start_s;
+}
+
+SolveResult hold_time(const Scenario& s, const Libraries& libs, const SolveOptions& o) {
+  Setup st;
+  st.stage = o.stage.empty() ? default_stage(s, true) : stage_index(s, o.stage, "--stage");
+  for (std::size_t i = 0; i < s.targets.size(); ++i)
+    if (is_lethality(s.targets[i].kind) || s.targets[i].kind == TargetKind::centre_min_temperature ||
+        s.targets[i].kind == TargetKind::cooking_table)
+      st.considered.push_back(static_cast<int>(i));
+  if (st.considered.empty())
+    throw InputError(s.origin + ": target: missing: hold-time needs a log-reduction, F-value or "
+                     "centre-min-temperature target");
+  const std::size_t k = static_cast<std::size_t>(st.stage);
+  const double nominal = stage_duration_s(s, st.stage);
+  st.apply = [s, k](double x) {
+    Scenario c = s;
+    c.stages[k].end = StageEnd{};
+    c.stages[k].end.kind = StageEndKind::duration;
+    c.stages[k].end.duration_s = std::max(0.0, x);
+    return c;
+  };
+  st.side = FeasibleSide::above;
+  // 1 s, not 0: a stage of zero length is not a process the engine and the checks accept.
+  st.lo = 1.0;
+  st.hi = std::clamp(nominal, 60.0, o.max_hold_s);
+  st.ro.expand = true;
+  st.ro.limit = o.max_hold_s;
+  st.ro.rel_tol = o.rel_tol;
+  st.ro.abs_tol = 1e-3;
+  st.unit = o.unit_s;
+  st.domain_lo = 0;
+  st.why_none = "no hold time of stage \"" + s.stages[k].name + "\" up to " + num(o.max_hold_s / 3600.0) +
+                " h meets every lethality target";
+  SolveResult r = run(Question::hold_time, st, s, libs);
+  r.stage = s.stages[k].name;
+  r.quantity = "duration";
+  r.unit = "s";
+  r.nominal = nominal;
+  if (s.stages[k].end.kind != StageEndKind::duration)
+    r.assumptions.push_back("stage \"" + r.stage + "\" ends by a temperature condition in the file; for this question "
+                            "it is given a fixed duration");
+  r.assumptions.push_back("solved for the lethality and minimum-temperature targets, each with its own stage credit; "
+                          "cooling rules are re-checked on the re-run only");
+  return r;
+}
+
+SolveResult chill_time(const Scenario& s, const Libraries& libs, const SolveOptions& o) {
+  const int idx = o.stage.empty() ? default_stage(s, false) : stage_index(s, o.stage, "--stage");
+  const std::size_t k = static_cast<std::size_t>(idx);
+  const Stage& stg = s.stages[k];
+  double end_C = 0;
+  bool mean = o.mean;
+  if (o.end_C) {
+    end_C = *o.end_C;
+  } else if (stg.end.kind != StageEndKind::duration) {
+    end_C = stg.end.target_C;
+    mean = mean || stg.end.kind == StageEndKind::until_mean;
+  } else {
+    throw InputError("--end-C: missing: stage \"" + stg.name + "\" ends by duration; give the end temperature");
+  }
+  const double nominal = stage_duration_s(s, idx);
+  // One long run of the chill stage: its exact evaluation gives the temperature at any duration.
+  Scenario longrun = s;
+  longrun.stages[k].end = StageEnd{};
+  longrun.stages[k].end.duration_s = o.max_hold_s;
+  longrun.stages.resize(k + 1);
+  const History h = simulate(longrun.product, longrun.stages);
+  const double t0 = h.stages[k].start_s;
+  const auto where = [&](double t) {
+    const HistorySample smp = h.evaluate(t0 + t);
+    return mean ? smp.mean_C : smp.centre_C;
+  };
+  Setup st;
+  st.stage = idx;
+  st.apply = [s, k](double x) {
+    Scenario c = s;
+    c.stages[k].end = StageEnd{};
+    c.stages[k].end.duration_s = std::max(0.0, x);
+    return c;
+  };
+  st.considered = all_targets(s);
+  st.unit = o.unit_s;
+  st.domain_lo = 0;
+  RootOptions ro;
+  ro.expand = true;
+  ro.limit = o.max_hold_s;
+  ro.rel_tol = o.rel_tol;
+  ro.abs_tol = 1e-3;
+  SolveResult res;
+  res.question = Question::chill_time;
+  res.stage = stg.name;
+  res.quantity = "duration";
+  res.unit = "s";
+  res.nominal = nominal;
+  const std::string point = mean ? "mass average" : "centre";
+  try {
+    res.root = solve_margin([&](double t) { return end_C - where(t); }, 0.0, std::clamp(nominal, 60.0, o.max_hold_s),
+                            FeasibleSide::above, ro, "");
+  } catch (const NoSolution&) {
+    const double final_C = where(o.max_hold_s);
+    std::string why = "the " + point + " does not fall to " + num(end_C, 4) + " C within " +
+                      num(o.max_hold_s / 3600.0) + " h of stage \"" + stg.name + "\" (it is at " + num(final_C, 4) +
+                      " C then)";
+    const double medium_min = [&] {
+      double m = 1e300;
+      for (const auto& p : stg.medium.points) m = std::min(m, p.temp_C);
+      return m;
+    }();
+    if (medium_min >= end_C)
+      why += "; the medium (at least " + num(medium_min, 4) + " C) is not below the end temperature, so it never can";
+    throw NoSolution(why);
+  }
+  res.answer = res.root.x;
+  res.unit_step = o.unit_s;
+  res.rounded = round_to_unit(res.answer, o.unit_s, FeasibleSide::above);
+  if (where(res.rounded) >= end_C) res.rounded += o.unit_s;  // a tie is not "reached"
+  res.verification = check_at(st, libs, res.rounded);
+  if (res.rounded - o.unit_s >= 0) res.one_unit_less = check_at(st, libs, res.rounded - o.unit_s);
+  res.end_C = end_C;
+  res.end_point = point;
+  res.end_at_rounded_C = where(res.rounded);
+  if (res.one_unit_less) res.end_at_less_C = where(res.rounded - o.unit_s);
+  res.considered = {point + " at or below " + num(end_C, 4) + " C"};
+  res.notes.push_back("the " + point + " reaches " + num(end_C, 4) + " C after " + num(res.answer, 7) +
+                      " s of the stage; at the rounded duration it is " + num(where(res.rounded), 6) + " C");
+  if (res.one_unit_less)
+    res.notes.push_back("one unit less (" + num(res.rounded - o.unit_s) + " s) leaves the " + point + " at " +
+                        num(where(res.rounded - o.unit_s), 6) + " C, above the end temperature");
+  res.assumptions.push_back("chill-time answers the end temperature; the cooling rules are checked on the re-run "
+                            "and reported as they come out, met or not");
+  return res;
+}
+
+SolveResult max_size(const Scenario& s, const Libraries& libs, const SolveOptions& o) {
+  std::string name;
+  double nominal = 0;
+  std::function<void(Product&, double)> set;
+  const Dimensions& d = s.product.dims;
+  switch (s.product.shape) {
+    case Shape::sphere:
+    case Shape::cylinder:
+    case Shape::finite_cylinder:
+      name = "diameter";
+      nominal = d.diameter_m;
+      set = [](Product& p, double x) { p.dims.diameter_m = x; };
+      break;
+    case Shape::slab:
+      name = "thickness";
+      nominal = d.thickness_m;
+      set = [](Product& p, double x) { p.dims.thickness_m = x; };
+      break;
+    case Shape::brick: {
+      name = "smallest edge";
+      const int j = static_cast<int>(std::min_element(d.size_m, d.size_m + 3) - d.size_m);
+      nominal = d.size_m[j];
+      set = [j](Product& p, double x) { p.dims.size_m[j] = x; };
+      break;
+    }
+  }
+  Setup st;
+  st.apply = [s, set](double x) {
+    Scenario c = s;
+    set(c.product, x);
+    return c;
+  };
+  st.considered = all_targets(s);
+  st.side = FeasibleSide::below;
+  st.lo = nominal * o.min_size_factor;
+  st.hi = nominal * o.max_size_factor;
+  st.ro.rel_tol = o.rel_tol;
+  st.ro.abs_tol = 1e-9;
+  st.unit = o.unit_m;
+  st.domain_lo = 1e-9;
+  st.why_none = "no " + name + " from " + num(st.lo * 1000) + " to " + num(st.hi * 1000) +
+                " mm meets every target with the scheduled process";
+  // Met even at the largest size tried: no largest size within the bounds.
+  {
+    const Evaluation e = evaluate(st.apply(st.hi), libs, st.considered, search_history_options());
+    if (e.considered_met)
+      throw NoSolution("every target is still met at " + num(o.max_size_factor) + " x the nominal " + name + " (" +
+                       num(st.hi * 1000) + " mm), the search bound; the largest size lies beyond it");
+  }
+  // Bracket from the nominal size when it meets the targets: below it the margin need not be
+  // monotone (an until_* stage ends earlier for a small product, which may then lose a hold).
+  const bool nominal_met = evaluate(st.apply(nominal), libs, st.considered, search_history_options()).considered_met;
+  if (nominal_met) {
+    st.lo = nominal;
+  } else {
+    st.hi = nominal;
+    st.why_none = "the nominal " + name + " (" + num(nominal * 1000) + " mm) does not meet every target, nor does any " +
+                  name + " down to " + num(st.lo * 1000) + " mm";
+  }
+  SolveResult r = run(Question::max_size, st, s, libs);
+  r.assumptions.push_back(nominal_met ? "searched from the nominal " + name + " upward; smaller sizes are not examined"
+                                      : "the nominal " + name + " does not meet every target; searched below it");
+  r.quantity = name;
+  r.unit = "m";
+  r.nominal = nominal;
+  if (s.product.shape == Shape::finite_cylinder)
+    r.assumptions.push_back("finite cylinder: the diameter is varied, the length kept as in the file");
+  if (s.product.shape == Shape::brick)
+    r.assumptions.push_back("brick: the smallest edge is varied, the other edges kept as in the file");
+  r.assumptions.push_back("the stages as scheduled (durations, or their temperature conditions and caps) are kept");
+  return r;
+}
+
+SolveResult min_medium(const Scenario& s, const Libraries& libs, const SolveOptions& o) {
+  Setup st;
+  st.stage = o.stage.empty() ? default_stage(s, true) : stage_index(s, o.stage, "--stage");
+  const std::size_t k = static_cast<std::size_t>(st.stage);
+  st.apply = [s, k](double x) {
+    Scenario c = s;
+    c.stages[k].medium.points = {{0.0, x}};
+    c.stages[k].medium.description = "constant (solved)";
+    return c;
+  };
+  st.considered = all_targets(s);
+  st.side = FeasibleSide::above;
+  st.lo = s.product.initial_C;
+  st.hi = o.max_medium_C;
+  if (!(st.hi > st.lo))
+    throw InputError("--max-medium-C = " + num(st.hi) + ": must be above the initial temperature " + num(st.lo));
+  st.ro.rel_tol = o.rel_tol;
+  st.ro.abs_tol = 1e-6;
+  st.unit = o.unit_C;
+  st.why_none = "no constant medium temperature of stage \"" + s.stages[k].name + "\" up to " + num(o.max_medium_C) +
+                " C meets every target";
+  SolveResult r = run(Question::min_medium, st, s, libs);
+  r.stage = s.stages[k].name;
+  r.quantity = "medium";
+  r.unit = "C";
+  r.nominal = max_medium_C(s.stages[k]);
+  if (s.stages[k].medium.points.size() > 1)
+    r.assumptions.push_back("stage \"" + r.stage + "\" has a medium profile in the file; for this question it is "
+                            "replaced by a constant medium (nominal shown is the profile's highest point)");
+  r.assumptions.push_back("the search starts at the initial product temperature (" + num(st.lo, 4) + " C)");
+  return r;
+}
+
+}  // namespace
+
+SolveResult solve(Question q, const Scenario& s, const Libraries& libs, const SolveOptions& o) {
+  if (!(o.unit_s > 0) || !(o.unit_m > 0) || !(o.unit_C > 0))
+    throw InputError("--round: must be > 0");
+  switch (q) {
+    case Question::hold_time: return hold_time(s, libs, o);
+    case Question::chill_time: return chill_time(s, libs, o);
+    case Question::max_size: return max_size(s, libs, o);
+    case Question::min_medium: return min_medium(s, libs, o);
+  }
+  throw InputError("--for: unknown question");
+}
+
+}  // namespace coldcore::process

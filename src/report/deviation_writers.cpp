@@ -1,0 +1,228 @@
+#include <cmath>
+#include <ostream>
+
+#include "coldcore/report/assessment.hpp"
+#include "coldcore/report/cautions.hpp"
+#include "coldcore/report/deviation_report.hpp"
+#include "coldcore/report/json.hpp"
+#include "coldcore/report/solve_report.hpp"
+
+namespace coldcore {
+
+namespace {
+
+using process::DeviationResult;
+using process::DeviationTarget;
+
+std::string temp(double c, TempUnit u, int d = 2) { return fixed(display_temp(c, u), d) + " " + std::string(unit_symbol(u)); }
+
+std::string min_down(double s) { return shown_down(s / 60.0) + " min"; }
+
+std::string opt_num(const std::optional<double>& v) { return v ? JsonWriter::number(*v) : ""; }
+
+void json_opt(JsonWriter& w, const char* k, const std::optional<double>& v) {
+  w.key(k);
+  if (v) w.value(*v); else w.null();
+}
+
+}  // namespace
+
+const std::string& disposition_statement() {
+  static const std::string s =
+      "The disposition of the product (release, reprocess, hold or destroy) is for the process authority to "
+      "decide; this record computes delivered lethality and does not decide it.";
+  return s;
+}
+
+void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u) {
+  out << "coldcore deviation: " << i.product_name << "\n\n";
+  out << "DEVIATION RECORD\n";
+  out << "  lot:                 " << (i.lot.empty() ? "(not given)" : i.lot) << "\n";
+  if (!r.stage.empty()) {
+    out << "  deviated stage:      " << r.stage << " (starts " << duration_text(r.stage_start_s) << " into the process)\n";
+    if (r.event.found) {
+      out << "  deviation start:     " << duration_text(r.event.start_s) << " into the stage (" << fixed(r.event.start_s, 0) << " s)\n";
+      out << "  deviation end:       " << duration_text(r.event.end_s) << " into the stage (" << fixed(r.event.end_s, 0) << " s)\n";
+    } else {
+      out << "  deviation:           no logged reading below the schedule by more than the tolerance\n";
+    }
+    out << "  lowest medium:       " << temp(r.event.lowest_C, u) << " at " << fixed(r.event.lowest_at_s, 0)
+        << " s (scheduled " << temp(r.event.scheduled_at_lowest_C, u) << ")\n";
+    out << "  medium log:          " << i.medium_log << "\n  medium log SHA-256:  " << i.medium_log_sha256 << "\n";
+  }
+  if (!i.probe_log.empty())
+    out << "  probe log:           " << i.probe_log << "\n  probe log SHA-256:   " << i.probe_log_sha256 << "\n";
+  for (const auto& kv : i.provenance) out << "  " << kv.key << ": " << kv.value << "\n";
+
+  out << "\nSCHEDULED AGAINST DELIVERED" << (r.delivered ? " (model with the logged medium)" : " (measured probe)") << "\n";
+  for (const auto& t : r.targets) {
+    out << "  " << t.name << " (" << to_string(t.kind) << ")\n";
+    if (t.lethality) {
+      out << "    F scheduled " << min_down(t.scheduled_F_s) << ", delivered " << min_down(t.delivered_F_s);
+      if (t.scheduled_logs && t.delivered_logs)
+        out << "; log reduction scheduled " << shown_down(*t.scheduled_logs) << ", delivered " << shown_down(*t.delivered_logs);
+      out << "\n";
+    }
+    out << "    scheduled: " << t.scheduled.verdict_text << "\n    delivered: " << t.delivered.verdict_text
+        << " (required " << t.delivered.required_text << ", achieved " << t.delivered.achieved_text << ")\n";
+  }
+  if (r.probe && r.delivered) {
+    out << "  measured probe log:\n";
+    for (const auto& t : r.probe->targets) out << "    " << t.name << ": " << t.verdict_text << "\n";
+  }
+  out << "\n  every target met as delivered: " << (r.all_met_delivered ? "yes" : "NO") << "\n";
+  if (r.extra_hold_s && *r.extra_hold_s == 0) {
+    out << "  additional time at the scheduled medium: none needed (every lethality target met as delivered)\n";
+  } else if (r.extra_hold_s) {
+    out << "  additional time at the scheduled medium (" << temp(r.extension_medium_C, u) << ") in stage \"" << r.stage
+        << "\" that restores every lethality target: " << duration_text(*r.extra_hold_s) << " (" << fixed(*r.extra_hold_s, 0)
+        << " s, rounded up from " << fixed(*r.extra_hold_unrounded_s, 1) << " s)\n";
+    if (r.restored) {
+      out << "    re-run with the extension:";
+      for (const auto& t : r.restored->eval.assessment.targets) out << " " << t.name << " " << t.verdict_text << ";";
+      out << "\n";
+    }
+    if (r.restored_one_unit_less) {
+      out << "    one unit less (" << fixed(r.restored_one_unit_less->value, 0) << " s):";
+      for (const auto& t : r.restored_one_unit_less->eval.assessment.targets) out << " " << t.name << " " << t.verdict_text << ";";
+      out << "\n";
+    }
+  } else if (!r.extra_hold_note.empty()) {
+    out << "  additional time: none computed: " << r.extra_hold_note << "\n";
+  }
+  if (!r.notes.empty()) {
+    out << "\nNOTES\n";
+    for (const auto& n : r.notes) out << "  - " << n << "\n";
+  }
+  std::vector<std::string> warns = i.warnings;
+  if (r.delivered) warns.insert(warns.end(), r.delivered->history.warnings.begin(), r.delivered->history.warnings.end());
+  if (r.probe) warns.insert(warns.end(), r.probe->warnings.begin(), r.probe->warnings.end());
+  if (!warns.empty()) {
+    out << "\nWARNINGS\n";
+    for (const auto& n : warns) out << "  ! " << n << "\n";
+  }
+  out << "\nASSUMPTIONS\n";
+  for (const auto& n : r.assumptions) out << "  - " << n << "\n";
+  out << "\nDISPOSITION\n  " << disposition_statement() << "\n\n";
+  out << "  Reviewer name: ______________________________\n";
+  out << "  Date:          ______________________________\n";
+  out << "  Decision:      ______________________________\n";
+  out << "\nCAUTIONS\n";
+  for (const auto& cau : cautions()) out << "  * " << cau << "\n";
+}
+
+void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit) {
+  JsonWriter w(out);
+  w.begin_object();
+  w.key("product").value(i.product_name);
+  if (i.lot.empty()) w.key("lot").null(); else w.key("lot").value(i.lot);
+  if (r.stage.empty()) w.key("stage").null(); else w.key("stage").value(r.stage);
+  w.key("stage_start_s").value(r.stage_start_s);
+  w.key("deviation").begin_object();
+  w.key("found").value(r.event.found);
+  w.key("start_s").value(r.event.start_s);
+  w.key("end_s").value(r.event.end_s);
+  w.key("lowest_C").value(r.event.lowest_C);
+  w.key("lowest_at_s").value(r.event.lowest_at_s);
+  w.key("scheduled_at_lowest_C").value(r.event.scheduled_at_lowest_C);
+  w.key("largest_drop_K").value(r.event.largest_drop_K);
+  w.key("times_from").value("the start of the deviated stage");
+  w.end_object();
+  w.key("targets").begin_array();
+  for (const auto& t : r.targets) {
+    w.begin_object();
+    w.key("name").value(t.name);
+    w.key("kind").value(to_string(t.kind));
+    if (t.lethality) {
+      w.key("scheduled_F_min").value(t.scheduled_F_s / 60.0);
+      w.key("delivered_F_min").value(t.delivered_F_s / 60.0);
+      w.key("F_required_min").value(t.delivered.F_required_s / 60.0);
+      if (t.scheduled_logs) w.key("scheduled_log_reduction").value(*t.scheduled_logs);
+      if (t.delivered_logs) w.key("delivered_log_reduction").value(*t.delivered_logs);
+    } else {
+      w.key("scheduled_F_min").null();
+      w.key("delivered_F_min").null();
+    }
+    w.key("verdict").value(to_string(t.verdict));
+    w.key("scheduled_verdict").value(to_string(t.scheduled.verdict));
+    w.key("delivered_margin").value(t.delivered.margin);
+    w.key("delivered_verdict_text").value(t.delivered.verdict_text);
+    w.key("scheduled_verdict_text").value(t.scheduled.verdict_text);
+    w.end_object();
+  }
+  w.end_array();
+  w.key("all_met_delivered").value(r.all_met_delivered);
+  json_opt(w, "extra_hold_s", r.extra_hold_s);
+  json_opt(w, "extra_hold_unrounded_s", r.extra_hold_unrounded_s);
+  w.key("extension_medium_C").value(r.extension_medium_C);
+  if (!r.extra_hold_note.empty()) w.key("extra_hold_note").value(r.extra_hold_note);
+  w.key("restored");
+  if (r.restored) {
+    w.begin_object();
+    w.key("value_s").value(r.restored->value);
+    w.key("all_met").value(r.restored->eval.all_met);
+    w.key("targets").begin_array();
+    for (const auto& t : r.restored->eval.assessment.targets) write_target_json(w, t);
+    w.end_array();
+    w.end_object();
+  } else {
+    w.null();
+  }
+  if (r.probe) {
+    w.key("probe").begin_object();
+    w.key("all_met").value(r.probe->all_met());
+    w.key("targets").begin_array();
+    for (const auto& t : r.probe->targets) write_target_json(w, t);
+    w.end_array();
+    w.key("warnings").value(r.probe->warnings);
+    w.end_object();
+  }
+  w.key("record").begin_object();
+  w.key("lot").value(i.lot.empty() ? std::string("(not given)") : i.lot);
+  w.key("medium_log").value(i.medium_log);
+  w.key("medium_log_sha256").value(i.medium_log_sha256);
+  w.key("probe_log").value(i.probe_log);
+  w.key("probe_log_sha256").value(i.probe_log_sha256);
+  w.key("reviewer_name").value("");
+  w.key("review_date").value("");
+  w.key("decision").value("");
+  w.end_object();
+  w.key("disposition").value(disposition_statement());
+  w.key("notes").value(r.notes);
+  w.key("assumptions").value(r.assumptions);
+  w.key("warnings").value(i.warnings);
+  w.key("provenance").begin_object();
+  for (const auto& kv : i.provenance) w.key(kv.key).value(kv.value);
+  w.end_object();
+  w.key("cautions").value(cautions());
+  w.end_object();
+  out << "\n";
+}
+
+void write_deviation_csv(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit) {
+  for (const auto& cau : cautions()) out << "# caution: " << cau << "\n";
+  out << "# disposition: " << disposition_statement() << "\n";
+  out << "# lot: " << (i.lot.empty() ? "(not given)" : i.lot) << "\n";
+  if (!r.stage.empty()) {
+    out << "# stage: " << r.stage << "\n";
+    out << "# deviation found: " << (r.event.found ? "yes" : "no") << "; start_s " << JsonWriter::number(r.event.start_s)
+        << "; end_s " << JsonWriter::number(r.event.end_s) << "; lowest_C " << JsonWriter::number(r.event.lowest_C)
+        << " (times from the stage start)\n";
+    out << "# medium log: " << i.medium_log << " (SHA-256 " << i.medium_log_sha256 << ")\n";
+  }
+  if (!i.probe_log.empty()) out << "# probe log: " << i.probe_log << " (SHA-256 " << i.probe_log_sha256 << ")\n";
+  for (const auto& kv : i.provenance) out << "# " << kv.key << ": " << kv.value << "\n";
+  out << "# extra_hold_s: " << (r.extra_hold_s ? JsonWriter::number(*r.extra_hold_s) : "none: " + r.extra_hold_note) << "\n";
+  for (const auto& n : r.assumptions) out << "# assumption: " << n << "\n";
+  for (const auto& n : r.notes) out << "# note: " << n << "\n";
+  out << "# reviewer name: \n# review date: \n# decision: \n";
+  out << "target,kind,scheduled_F_min,delivered_F_min,scheduled_log_reduction,delivered_log_reduction,verdict\n";
+  for (const auto& t : r.targets) {
+    out << t.name << "," << to_string(t.kind) << ",";
+    if (t.lethality) out << JsonWriter::number(t.scheduled_F_s / 60.0) << "," << JsonWriter::number(t.delivered_F_s / 60.0);
+    else out << ",";
+    out << "," << opt_num(t.scheduled_logs) << "," << opt_num(t.delivered_logs) << "," << to_string(t.verdict) << "\n";
+  }
+}
+
+}  // namespace coldcore

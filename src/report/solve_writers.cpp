@@ -1,0 +1,243 @@
+#include <cmath>
+#include <ostream>
+
+#include "coldcore/report/cautions.hpp"
+#include "coldcore/report/json.hpp"
+#include "coldcore/report/solve_report.hpp"
+
+namespace coldcore {
+
+namespace {
+
+using process::Check;
+using process::Question;
+using process::SolveResult;
+
+/// The answer in display form: durations as h/min/s, sizes in mm, temperatures in --units.
+std::string shown(const SolveResult& r, double v, TempUnit u) {
+  if (r.unit == "s") return duration_text(v) + " (" + fixed(v, 0) + " s)";
+  if (r.unit == "m") return fixed(v * 1000.0, 3) + " mm";
+  return fixed(display_temp(v, u), 2) + " " + std::string(unit_symbol(u));
+}
+
+/// Unrounded values are shown with enough digits to see the rounding went the safe way.
+std::string shown_raw(const SolveResult& r, double v, TempUnit u) {
+  if (r.unit == "s") return fixed(v, 2) + " s";
+  if (r.unit == "m") return fixed(v * 1000.0, 4) + " mm";
+  return fixed(display_temp(v, u), 4) + " " + std::string(unit_symbol(u));
+}
+
+void text_check(std::ostream& out, const SolveResult& r, const Check& c, const char* label, TempUnit u) {
+  out << label << shown(r, c.value, u) << ": "
+      << (c.eval.all_met ? "every target met" : "NOT every target met") << "\n";
+  for (const auto& t : c.eval.assessment.targets)
+    out << "    " << t.name << " (" << to_string(t.kind) << "): required " << t.required_text << ", achieved "
+        << t.achieved_text << " -> " << t.verdict_text << "\n";
+}
+
+void json_check(JsonWriter& w, const SolveResult& r, const Check& c) {
+  w.begin_object();
+  w.key("value_" + r.unit).value(c.value);
+  w.key("all_met").value(c.eval.all_met);
+  w.key("considered_met").value(c.eval.considered_met);
+  w.key("margin").value(c.eval.margin);
+  w.key("targets").begin_array();
+  for (const auto& t : c.eval.assessment.targets) write_target_json(w, t);
+  w.end_array();
+  w.key("warnings").value(c.eval.history.warnings);
+  w.end_object();
+}
+
+/// Unit of TargetResult's raw numbers (its `unit` names the unit of the texts).
+const char* raw_unit(const TargetResult& t) {
+  if (t.kind == TargetKind::log_reduction) return "log10";
+  if (t.kind == TargetKind::cooking_table) return "fraction";  // of the table's required equivalent time
+  return "s";
+}
+
+std::string csv_cell(const std::string& s) {
+  if (s.find_first_of(",\"\n") == std::string::npos) return s;
+  std::string o = "\"";
+  for (char ch : s) {
+    if (ch == '"') o += '"';
+    o += ch;
+  }
+  return o + "\"";
+}
+
+}  // namespace
+
+void write_target_json(JsonWriter& w, const TargetResult& t) {
+  w.begin_object();
+  w.key("name").value(t.name);
+  w.key("kind").value(to_string(t.kind));
+  w.key("unit").value(raw_unit(t));
+  w.key("required").value(t.required);
+  w.key("achieved").value(t.achieved);
+  w.key("margin").value(t.margin);
+  w.key("verdict").value(to_string(t.verdict));
+  w.key("required_text").value(t.required_text);
+  w.key("achieved_text").value(t.achieved_text);
+  w.key("verdict_text").value(t.verdict_text);
+  if (t.kinetics) {
+    w.key("F_s").value(t.F_s);
+    w.key("F_required_s").value(t.F_required_s);
+  }
+  w.key("notes").value(t.notes);
+  w.end_object();
+}
+
+void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u) {
+  out << "coldcore solve --for " << to_string(r.question) << ": " << c.product_name << "\n\n";
+  if (!r.stage.empty()) out << "  stage:            " << r.stage << "\n";
+  out << "  question:         " << (r.question == Question::max_size ? "largest " : "") << r.quantity
+      << (r.question == Question::min_medium ? " (lowest constant)" : "") << "\n";
+  out << "  scheduled:        " << shown(r, r.nominal, u) << "\n";
+  out << "  answer:           " << shown_raw(r, r.answer, u) << " (unrounded)\n";
+  out << "  use:              " << shown(r, r.rounded, u) << "  (rounded "
+      << (r.question == Question::max_size ? "down" : "up") << " to "
+      << (r.unit == "C" ? fixed(display_temp_difference(r.unit_step, u), 2) + " " + std::string(unit_symbol(u))
+                        : shown(r, r.unit_step, u))
+      << ")\n";
+  out << "  solved for:       ";
+  for (std::size_t i = 0; i < r.considered.size(); ++i) out << (i ? ", " : "") << r.considered[i];
+  out << "\n\nVERIFICATION (forward re-run)\n";
+  text_check(out, r, r.verification, "  at ", u);
+  if (r.end_C)
+    out << "    " << r.end_point << " at the end of the stage: " << fixed(display_temp(r.end_at_rounded_C, u), 3)
+        << " " << unit_symbol(u) << " (end temperature " << fixed(display_temp(*r.end_C, u), 2) << " "
+        << unit_symbol(u) << ": " << (r.end_at_rounded_C < *r.end_C ? "reached" : "NOT reached") << ")\n";
+  if (r.one_unit_less) {
+    text_check(out, r, *r.one_unit_less, "  one unit less, at ", u);
+    if (r.end_C && r.end_at_less_C)
+      out << "    " << r.end_point << " at the end of the stage: " << fixed(display_temp(*r.end_at_less_C, u), 3) << " "
+          << unit_symbol(u) << " (" << (*r.end_at_less_C < *r.end_C ? "reached" : "not reached") << ")\n";
+  }
+  if (!r.notes.empty()) {
+    out << "\nNOTES\n";
+    for (const auto& n : r.notes) out << "  - " << n << "\n";
+  }
+  if (c.conservative) {
+    const auto& cs = *c.conservative;
+    out << "\nCONSERVATIVE (documented worst case of the file's ranges)\n  choices:";
+    for (const auto& ch : cs.choices) out << " " << ch << ";";
+    out << "\n";
+    if (cs.result) {
+      out << "  answer:           " << shown_raw(r, cs.result->answer, u) << " (unrounded)\n";
+      out << "  use:              " << shown(r, cs.result->rounded, u) << "  (nominal: " << shown(r, r.rounded, u) << ")\n";
+      text_check(out, *cs.result, cs.result->verification, "  re-run at ", u);
+    } else {
+      out << "  no solution: " << cs.no_solution << "\n";
+    }
+    for (const auto& a : cs.alone)
+      out << "  alone: " << a.label << " -> " << (a.rounded ? shown(r, *a.rounded, u) : "no solution") << "\n";
+    out << "  driven by: " << cs.driven_by << "\n";
+  }
+  std::vector<std::string> warns = c.warnings;
+  warns.insert(warns.end(), r.verification.eval.history.warnings.begin(), r.verification.eval.history.warnings.end());
+  warns.insert(warns.end(), r.verification.eval.assessment.warnings.begin(),
+               r.verification.eval.assessment.warnings.end());
+  if (!warns.empty()) {
+    out << "\nWARNINGS\n";
+    for (const auto& n : warns) out << "  ! " << n << "\n";
+  }
+  out << "\nASSUMPTIONS\n";
+  for (const auto& n : r.assumptions) out << "  - " << n << "\n";
+  out << "\nPROVENANCE\n";
+  for (const auto& kv : c.provenance) out << "  " << kv.key << ": " << kv.value << "\n";
+  out << "\nCAUTIONS\n";
+  for (const auto& cau : cautions()) out << "  * " << cau << "\n";
+}
+
+void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit) {
+  JsonWriter w(out);
+  w.begin_object();
+  w.key("question").value(to_string(r.question));
+  if (r.stage.empty()) w.key("stage").null(); else w.key("stage").value(r.stage);
+  w.key("product").value(c.product_name);
+  w.key("quantity").value(r.quantity);
+  w.key("answer_" + r.unit).value(r.answer);
+  w.key("rounded_" + r.unit).value(r.rounded);
+  w.key("unit_" + r.unit).value(r.unit_step);
+  w.key("nominal_" + r.unit).value(r.nominal);
+  w.key("verification");
+  json_check(w, r, r.verification);
+  w.key("one_unit_less");
+  if (r.one_unit_less) json_check(w, r, *r.one_unit_less); else w.null();
+  if (r.end_C) {
+    w.key("end").begin_object();
+    w.key("point").value(r.end_point);
+    w.key("end_C").value(*r.end_C);
+    w.key("at_rounded_C").value(r.end_at_rounded_C);
+    w.key("reached_at_rounded").value(r.end_at_rounded_C < *r.end_C);
+    if (r.end_at_less_C) w.key("at_one_unit_less_C").value(*r.end_at_less_C);
+    w.end_object();
+  }
+  if (c.conservative) {
+    const auto& cs = *c.conservative;
+    w.key("conservative").begin_object();
+    w.key("choices").value(cs.choices);
+    if (cs.result) {
+      w.key("answer_" + r.unit).value(cs.result->answer);
+      w.key("rounded_" + r.unit).value(cs.result->rounded);
+      w.key("verification");
+      json_check(w, *cs.result, cs.result->verification);
+    } else {
+      w.key("rounded_" + r.unit).null();
+      w.key("no_solution").value(cs.no_solution);
+    }
+    w.key("alone").begin_array();
+    for (const auto& a : cs.alone) {
+      w.begin_object();
+      w.key("choice").value(a.label);
+      w.key("rounded_" + r.unit);
+      if (a.rounded) w.value(*a.rounded); else w.null();
+      if (!a.no_solution.empty()) w.key("no_solution").value(a.no_solution);
+      w.end_object();
+    }
+    w.end_array();
+    w.key("driven_by").value(cs.driven_by);
+    w.end_object();
+  }
+  w.key("considered_targets").value(r.considered);
+  w.key("root_evaluations").value(r.root.evaluations);
+  w.key("notes").value(r.notes);
+  w.key("assumptions").value(r.assumptions);
+  w.key("warnings").value(c.warnings);
+  w.key("provenance").begin_object();
+  for (const auto& kv : c.provenance) w.key(kv.key).value(kv.value);
+  w.end_object();
+  w.key("cautions").value(cautions());
+  w.end_object();
+  out << "\n";
+}
+
+void write_solve_csv(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit) {
+  for (const auto& cau : cautions()) out << "# caution: " << cau << "\n";
+  for (const auto& kv : c.provenance) out << "# " << kv.key << ": " << kv.value << "\n";
+  out << "# question: " << to_string(r.question) << (r.stage.empty() ? "" : "; stage: " + r.stage) << "\n";
+  out << "# answer_" << r.unit << " (unrounded): " << JsonWriter::number(r.answer) << "\n";
+  out << "# rounded_" << r.unit << " (to use): " << JsonWriter::number(r.rounded) << "\n";
+  for (const auto& n : r.notes) out << "# note: " << n << "\n";
+  for (const auto& n : r.assumptions) out << "# assumption: " << n << "\n";
+  for (const auto& n : c.warnings) out << "# warning: " << n << "\n";
+  if (c.conservative) {
+    const auto& cs = *c.conservative;
+    for (const auto& ch : cs.choices) out << "# conservative choice: " << ch << "\n";
+    out << "# conservative rounded_" << r.unit << ": "
+        << (cs.result ? JsonWriter::number(cs.result->rounded) : "no solution: " + cs.no_solution) << "\n";
+    out << "# conservative driven by: " << cs.driven_by << "\n";
+  }
+  out << "run,value_" << r.unit << ",target,kind,required,achieved,margin,unit,verdict\n";
+  const auto rows = [&](const char* run, const Check& ch) {
+    for (const auto& t : ch.eval.assessment.targets)
+      out << run << "," << JsonWriter::number(ch.value) << "," << csv_cell(t.name) << "," << to_string(t.kind) << ","
+          << JsonWriter::number(t.required) << "," << JsonWriter::number(t.achieved) << ","
+          << JsonWriter::number(t.margin) << "," << raw_unit(t) << "," << to_string(t.verdict) << "\n";
+  };
+  rows("rounded", r.verification);
+  if (r.one_unit_less) rows("one-unit-less", *r.one_unit_less);
+  if (c.conservative && c.conservative->result) rows("conservative", c.conservative->result->verification);
+}
+
+}  // namespace coldcore

@@ -1,0 +1,112 @@
+// media.toml: the library as committed, bad entries refused, and stages that name medium_type.
+#include <doctest/doctest.h>
+
+#include "../lethality/lethality_support.hpp"
+#include "coldcore/error.hpp"
+#include "coldcore/io/media.hpp"
+#include "coldcore/io/product_file.hpp"
+
+using namespace coldcore;
+
+TEST_CASE("media.toml: every medium parses with a source and status") {
+  const auto lib = io::parse_media(test::read_source_file("products/media.toml"), "media.toml");
+  CHECK(lib.media.size() == 7);
+  const auto& steam = lib.at("condensing-steam", "t");
+  // boiling and condensation 2 500–100 000 W/m2K (Çengel, as cited in media.toml)
+  CHECK(steam.h_max_W_m2K == 100000);
+  for (const auto& m : lib.media) {
+    CHECK_FALSE(m.source.empty());
+    CHECK(m.h_min_W_m2K <= m.h_max_W_m2K);
+  }
+  CHECK_THROWS_WITH_AS(lib.at("blast-chil", "p.toml: stage[2].medium_type"),
+                       doctest::Contains("p.toml: stage[2].medium_type = \"blast-chil\": not in media.toml; did you mean \"blast-chill\"?"),
+                       InputError);
+}
+
+TEST_CASE("media.toml: bad ranges and unknown keys are refused") {
+  CHECK_THROWS_WITH_AS(io::parse_media("schema = 1\n[media.x]\ndescription = \"d\"\nh_min_W_m2K = 50\nh_max_W_m2K = 20\n"
+                                       "source = \"s\"\nstatus = \"confirmed\"\n", "m.toml"),
+                       "m.toml: media.x.h_max_W_m2K = 20: must be >= h_min_W_m2K (50)", InputError);
+  CHECK_THROWS_AS(io::parse_media("schema = 1\n[media.x]\ndescription = \"d\"\nh_min_W_m2K = 5\nh_max_W_m2K = 20\n"
+                                  "source = \"s\"\nstatus = \"confirmed\"\nh_mean = 3\n", "m.toml"),
+                  InputError);
+}
+
+namespace {
+const char* kBase = R"(schema = 1
+[product]
+name = "p"
+shape = "sphere"
+diameter_mm = 40
+initial_C = 4
+[product.properties]
+conductivity_W_mK = 0.5
+density_kg_m3 = 1050
+specific_heat_J_kgK = 3600
+[[stage]]
+name = "cook"
+medium_C = 90
+h_W_m2K = 200
+h_range_W_m2K = [150, 250]
+duration_min = 20
+[[stage]]
+name = "chill"
+medium_C = 0
+medium_type = "blast-chill"
+until_centre_C = 5
+max_duration_h = 4
+[[target]]
+kind = "F-value"
+name = "P70"
+reference_C = 70
+z_C = 7.5
+F_min = 2
+)";
+}
+
+TEST_CASE("product file: medium_type takes the low end of the medium's range and says why; h_range kept") {
+  auto pf = io::parse_product(kBase, "p.toml");
+  REQUIRE(pf.stage_h.size() == 2);
+  REQUIRE(pf.stage_h[0].h_range_W_m2K);
+  CHECK((*pf.stage_h[0].h_range_W_m2K)[0] == 150);
+  CHECK(pf.stages[0].h_W_m2K == 200);
+  CHECK(pf.stage_h[1].medium_type == "blast-chill");
+  CHECK(io::needs_media(pf));
+  const auto lib = io::parse_media(test::read_source_file("products/media.toml"), "media.toml");
+  io::apply_media(pf, lib);
+  CHECK(pf.stages[1].h_W_m2K == 20);  // blast-chill 20–60 in media.toml: the low end
+  CHECK(pf.stage_h[1].note.find("slower cooling, conservative for a cooling rule") != std::string::npos);
+  // P70 credits every stage, the chill included: the low end overstates the chill's lethality, said so
+  bool warned = false;
+  for (const auto& w : pf.warnings) warned = warned || w.find("overstates the lethality") != std::string::npos;
+  CHECK(warned);
+}
+
+TEST_CASE("product file: medium_type with h_W_m2K, and h outside its range, are refused") {
+  std::string both = kBase;
+  both.replace(both.find("medium_type = \"blast-chill\""), 27, "medium_type = \"blast-chill\"\nh_W_m2K = 30");
+  CHECK_THROWS_WITH_AS(io::parse_product(both, "p.toml"),
+                       "p.toml: stage[2].medium_type = \"blast-chill\": given together with h_W_m2K; give one", InputError);
+  std::string out = kBase;
+  out.replace(out.find("[150, 250]"), 10, "[250, 300]");
+  CHECK_THROWS_WITH_AS(io::parse_product(out, "p.toml"),
+                       "p.toml: stage[1].h_range_W_m2K = [250, 300]: must contain h_W_m2K = 200", InputError);
+}
+
+TEST_CASE("product file: [product.ranges] parse in SI and must contain the nominal value") {
+  std::string t = kBase;
+  t.replace(t.find("[product.properties]"), 20,
+            "[product.ranges]\ndiameter_mm = [38, 44]\ninitial_C = [2, 6]\nconductivity_W_mK = [0.45, 0.55]\n[product.properties]");
+  const auto pf = io::parse_product(t, "p.toml");
+  REQUIRE(pf.ranges.diameter_m);
+  CHECK((*pf.ranges.diameter_m)[1] == doctest::Approx(0.044));
+  CHECK((*pf.ranges.initial_C)[0] == 2);
+  CHECK((*pf.ranges.conductivity_W_mK)[0] == 0.45);
+  std::string bad = kBase;
+  bad.replace(bad.find("[product.properties]"), 20, "[product.ranges]\ndiameter_mm = [41, 44]\n[product.properties]");
+  CHECK_THROWS_WITH_AS(io::parse_product(bad, "p.toml"),
+                       "p.toml: product.ranges.diameter_mm = [41, 44]: must contain the nominal value 0.04 (SI)", InputError);
+  std::string unused = kBase;
+  unused.replace(unused.find("[product.properties]"), 20, "[product.ranges]\nthickness_mm = [41, 44]\n[product.properties]");
+  CHECK_THROWS_AS(io::parse_product(unused, "p.toml"), InputError);
+}
