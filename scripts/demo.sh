@@ -22,6 +22,10 @@ for p in kofta-balls chicken-sausage-log corned-beef-can lasagne-tray; do
 done
 say "coldcore probe products/logs/kofta-probe.csv (an invented measured log)"
 $cc probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --target-log 6 --rule two-stage-6h || true
+say "coldcore solve products/corned-beef-can.toml --for hold-time"
+$cc solve products/corned-beef-can.toml --for hold-time || true
+say "coldcore deviation: the invented retort dip of the corned beef hold"
+$cc deviation products/corned-beef-can.toml --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 || true
 say "Example reports"
 scripts/make_reports.sh "$cc" reports
 ls -1 reports

@@ -41,6 +41,7 @@ int run_deviation(const DeviationArgs& a, std::ostream& out) {
   if (!(a.tolerance_K > 0)) throw InputError("--tolerance-K = " + std::to_string(a.tolerance_K) + ": must be > 0");
   if (!(a.round_min > 0)) throw InputError("--round-min = " + std::to_string(a.round_min) + ": must be > 0");
   const io::ProductFile file = io::load_product(a.file);
+  io::require_constant_properties(file);
   const LibraryFiles libs = load_libraries(a.library, a.file);
   process::DeviationInput in;
   in.scheduled = process::Scenario{file.product, file.stages, file.targets, file.origin};

@@ -31,6 +31,7 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
   if (f == Format::md && a.output.out.empty())
     throw InputError("--format md writes its plots as SVG files beside the report: give --out PATH.md");
   const io::ProductFile file = io::load_product(a.file);
+  io::require_constant_properties(file);
   const io::DataLibraries lib = io::load_libraries(data_dir());
   const History history = simulate(file.product, file.stages);
   AssessOptions assess_opts;

@@ -57,6 +57,7 @@ int run_solve(const SolveArgs& a, std::ostream& out) {
   if (!(a.round_C > 0)) throw InputError("--round-C = " + std::to_string(a.round_C) + ": must be > 0");
   if (!(a.max_hold_h > 0)) throw InputError("--max-hold-h = " + std::to_string(a.max_hold_h) + ": must be > 0");
   const io::ProductFile file = io::load_product(a.file);
+  io::require_constant_properties(file);
   const LibraryFiles libs = load_libraries(a.library, a.file);
   process::Scenario s{file.product, file.stages, file.targets, file.origin};
   process::SolveOptions o;

@@ -270,6 +270,14 @@ std::string read_text_file(const std::filesystem::path& path) {
   return ss.str();
 }
 
+void require_constant_properties(const ProductFile& file) {
+  if (file.composition && !(file.product.properties.conductivity_W_mK > 0))
+    throw InputError(file.origin +
+                     ": product.composition: run, solve and deviation need constant [product.properties] "
+                     "(k, rho, cp); temperature-dependent properties from a composition are not wired into them "
+                     "yet; `coldcore props --composition ...` lists the Choi-Okos values to choose from");
+}
+
 ProductFile load_product(const std::filesystem::path& path) {
   const std::string text = read_text_file(path);
   const LogReader disk = [](const std::filesystem::path& p) -> std::optional<std::string> {

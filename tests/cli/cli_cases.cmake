@@ -192,3 +192,7 @@ list(APPEND COLDCORE_CAUTION_CASES
 add_test(NAME cli.cautions_every_verb_and_format
          COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
                  "-DEXTRA_CASES=${COLDCORE_CAUTION_CASES}" -P ${PROJECT_SOURCE_DIR}/tests/cli/cautions_all.cmake)
+
+# A composition-only product is refused by the process verbs with a message saying what to do.
+cli_expect(run_composition_only 2 ARGS run tests/cli/composition_only.toml
+           STDERR_HAS "product.composition: run, solve and deviation need constant [product.properties]")

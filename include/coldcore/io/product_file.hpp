@@ -119,6 +119,11 @@ bool needs_media(const ProductFile& file);
 /// apply_media() applied (InputError when it is missing).
 ProductFile load_product(const std::filesystem::path& path);
 
+/// Refuses a file that gives only [product.composition]: the series engine needs constant
+/// [product.properties], and temperature-dependent properties are not wired into the process
+/// verbs yet. InputError "<origin>: product.composition: ...".
+void require_constant_properties(const ProductFile& file);
+
 /// The bytes of a file; InputError `<path>: cannot read file` when it cannot be opened.
 std::string read_text_file(const std::filesystem::path& path);
 
