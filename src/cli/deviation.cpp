@@ -24,15 +24,6 @@ struct DeviationArgs {
   OutputArgs output;
 };
 
-std::string today_utc() {
-  std::time_t now = std::time(nullptr);
-  std::tm tm{};
-  gmtime_r(&now, &tm);
-  char buf[16];
-  std::strftime(buf, sizeof buf, "%Y-%m-%d", &tm);
-  return buf;
-}
-
 int run_deviation(const DeviationArgs& a, std::ostream& out) {
   const Format f = parse_format(a.output.format, {Format::text, Format::json, Format::csv});
   const TempUnit u = parse_temp_unit(a.output.units);

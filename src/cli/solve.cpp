@@ -39,15 +39,6 @@ process::Question parse_question(const std::string& s) {
   throw InputError("--for = " + s + ": must be hold-time, chill-time, max-size or min-medium");
 }
 
-std::string today_utc() {
-  std::time_t now = std::time(nullptr);
-  std::tm tm{};
-  gmtime_r(&now, &tm);
-  char buf[16];
-  std::strftime(buf, sizeof buf, "%Y-%m-%d", &tm);
-  return buf;
-}
-
 int run_solve(const SolveArgs& a, std::ostream& out) {
   const Format f = parse_format(a.output.format, {Format::text, Format::json, Format::csv});
   const TempUnit u = parse_temp_unit(a.output.units);

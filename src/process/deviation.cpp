@@ -7,18 +7,14 @@
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/kinetics.hpp"
 
+#include "process/detail/inverse_text.hpp"
+
 namespace coldcore::process {
 
 namespace {
 
-std::string num(double x, int prec = 6) {
-  std::ostringstream s;
-  s.precision(prec);
-  s << x;
-  return s.str();
-}
-
-bool is_lethality(TargetKind k) { return k == TargetKind::log_reduction || k == TargetKind::f_value; }
+using detail::num;
+using detail::is_lethality;
 
 std::optional<double> logs_of(const TargetResult& r, double F_s) {
   if (r.kind == TargetKind::log_reduction) {

@@ -8,18 +8,14 @@
 #include "coldcore/lethality/kinetics.hpp"
 #include "coldcore/process/inverse.hpp"
 
+#include "process/detail/inverse_text.hpp"
+
 namespace coldcore::process {
 
 namespace {
 
-std::string num(double x, int prec = 6) {
-  std::ostringstream s;
-  s.precision(prec);
-  s << x;
-  return s.str();
-}
-
-bool is_lethality(TargetKind k) { return k == TargetKind::log_reduction || k == TargetKind::f_value; }
+using detail::num;
+using detail::is_lethality;
 
 /// Which targets' verdicts at a bound explain a NoSolution, in words.
 std::string shortfalls(const Evaluation& e, const std::vector<int>& considered) {
