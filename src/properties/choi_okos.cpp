@@ -20,7 +20,7 @@ struct ComponentFit {
 };
 
 // Each line is one row of the §5.3 table; the 0 °C value of every fit is its constant term,
-// which the tests use to guard against the transcription traps listed in REFERENCES §7.
+// which the tests use to guard against the copying errors of public implementations listed in REFERENCES §7.
 constexpr ComponentFit protein_fit{{0.17881, 1.1958e-3, -2.7178e-6}, {1329.9, -0.51840, 0.0},
                                    {2.0082, 1.2089e-3, -1.3129e-6}};
 constexpr ComponentFit fat_fit{{0.18071, -2.7604e-4, -1.7749e-7}, {925.59, -0.41757, 0.0},

@@ -20,8 +20,8 @@ Composition lean_beef() {  // 74/22/3/1 water/protein/fat/ash, REFERENCES §5.2 
 }
 }  // namespace
 
-TEST_CASE("Choi-Okos: every component at 0 C equals its constant term (transcription-trap guard)") {
-  // REFERENCES §5.3 table constants; §7 "known transcription traps" guard.
+TEST_CASE("Choi-Okos: every component at 0 C equals its constant term (guard against copying errors)") {
+  // REFERENCES §5.3 table constants; §7 guard against known copying errors in public implementations.
   struct Row {
     FoodComponent c;
     double k, rho, cp_kJ;
