@@ -69,10 +69,9 @@ int run_deviation(const DeviationArgs& a, std::ostream& out) {
   info.provenance = {{"tool", std::string("coldcore ") + kVersion},
                      {"input", file.origin},
                      {"input SHA-256", file.sha256_hex},
-                     {"organisms", libs.organisms.origin + " (SHA-256 " + libs.organisms_sha256 + ")"},
-                     {"cooling rules", libs.rules.origin + " (SHA-256 " + libs.rules_sha256 + ")"},
-                     {"cooking tables", libs.cooking.origin + " (SHA-256 " + libs.cooking_sha256 + ")"},
                      {"date", a.date.empty() ? today_utc() : a.date}};
+  const auto lib_rows = library_provenance(libs);
+  info.provenance.insert(info.provenance.end() - 1, lib_rows.begin(), lib_rows.end());
   switch (f) {
     case Format::json: write_deviation_json(r, info, out, u); break;
     case Format::csv: write_deviation_csv(r, info, out, u); break;

@@ -1,10 +1,9 @@
 // coldcore organisms | rules: the data libraries with their sources.
 #include <iostream>
 
-#include "cli/data_dir.hpp"
+#include "cli/library_files.hpp"
 #include "cli/output.hpp"
 #include "cli/verbs.hpp"
-#include "coldcore/io/libraries.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
 
@@ -23,7 +22,7 @@ void write_cautions_text(std::ostream& out) {
 int list_organisms(const OutputArgs& a, std::ostream& out) {
   const Format f = parse_format(a.format, {Format::text, Format::json, Format::csv});
   const TempUnit u = parse_temp_unit(a.units);
-  const auto lib = io::load_libraries(data_dir());
+  const auto lib = load_libraries("", "");
   if (f == Format::json) {
     JsonWriter w(out);
     w.begin_object().key("library").value(lib.organisms.origin).key("organisms").begin_array();
@@ -73,7 +72,7 @@ int list_organisms(const OutputArgs& a, std::ostream& out) {
 int list_rules(const OutputArgs& a, std::ostream& out) {
   const Format f = parse_format(a.format, {Format::text, Format::json, Format::csv});
   const TempUnit u = parse_temp_unit(a.units);
-  const auto lib = io::load_libraries(data_dir());
+  const auto lib = load_libraries("", "");
   if (f == Format::json) {
     JsonWriter w(out);
     w.begin_object().key("library").value(lib.rules.origin).key("rules").begin_array();

@@ -1,5 +1,7 @@
 #include "cli/library_files.hpp"
 
+#include <cstdlib>
+
 #include "coldcore/error.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/sha256.hpp"
@@ -17,6 +19,10 @@ std::filesystem::path library_path(const std::string& name, const std::string& l
   if (!product_file.empty()) {
     const fs::path beside = fs::path(product_file).parent_path() / name;
     if (fs::exists(beside)) return beside;
+  }
+  if (const char* env = std::getenv("COLDCORE_DATA_DIR"); env != nullptr && *env != '\0') {
+    const fs::path p = fs::path(env) / name;
+    if (fs::exists(p)) return p;
   }
   const fs::path src = fs::path(COLDCORE_SOURCE_DIR) / "products" / name;
   if (fs::exists(src)) return src;
@@ -38,6 +44,12 @@ LibraryFiles load_libraries(const std::string& library_dir, const std::string& p
   d.organisms_sha256 = io::sha256_hex(ot);
   d.rules_sha256 = io::sha256_hex(rt);
   return d;
+}
+
+std::vector<KeyValue> library_provenance(const LibraryFiles& libs) {
+  return {{"organisms", libs.organisms.origin + " (SHA-256 " + libs.organisms_sha256 + ")"},
+          {"cooling rules", libs.rules.origin + " (SHA-256 " + libs.rules_sha256 + ")"},
+          {"cooking tables", libs.cooking.origin + " (SHA-256 " + libs.cooking_sha256 + ")"}};
 }
 
 }  // namespace coldcore::cli

@@ -1,12 +1,15 @@
 #pragma once
 // The data libraries (organisms.toml, cooling-rules.toml, media.toml) a verb needs, found beside
-// the product file, else in --library DIR, else in the source tree's products/ folder.
+// the product file, else in --library DIR, else in $COLDCORE_DATA_DIR, else in the source tree's
+// products/ folder. The one loader every verb uses.
 #include <filesystem>
 #include <string>
+#include <vector>
 
 #include "coldcore/lethality/cooking_tables.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
+#include "coldcore/report/run_report.hpp"
 
 namespace coldcore::cli {
 
@@ -18,10 +21,13 @@ struct LibraryFiles {
 };
 
 /// Path of library file `name`: `library_dir`/name when library_dir is given; else beside
-/// `product_file`; else COLDCORE_SOURCE_DIR/products/name. InputError when none exists.
+/// `product_file`; else $COLDCORE_DATA_DIR/name; else COLDCORE_SOURCE_DIR/products/name. InputError when none exists.
 std::filesystem::path library_path(const std::string& name, const std::string& library_dir,
                                    const std::string& product_file);
 
 LibraryFiles load_libraries(const std::string& library_dir, const std::string& product_file);
+
+/// Provenance rows naming each library file and its SHA-256.
+std::vector<KeyValue> library_provenance(const LibraryFiles& libs);
 
 }  // namespace coldcore::cli

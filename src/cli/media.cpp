@@ -19,15 +19,6 @@ struct MediaArgs {
   OutputArgs output;
 };
 
-std::string csv_cell(const std::string& s) {
-  if (s.find_first_of(",\"\n") == std::string::npos) return s;
-  std::string o = "\"";
-  for (char ch : s) {
-    if (ch == '"') o += '"';
-    o += ch;
-  }
-  return o + "\"";
-}
 
 int run_media(const MediaArgs& a, std::ostream& out) {
   const Format f = parse_format(a.output.format, {Format::text, Format::json, Format::csv});

@@ -3,11 +3,10 @@
 #include <iostream>
 #include <optional>
 
-#include "cli/data_dir.hpp"
+#include "cli/library_files.hpp"
 #include "cli/output.hpp"
 #include "cli/verbs.hpp"
 #include "coldcore/error.hpp"
-#include "coldcore/io/libraries.hpp"
 #include "coldcore/io/logger_csv.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/sha256.hpp"
@@ -102,7 +101,7 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
   lo.max_gap_s = a.max_gap_s;
   lo.temp_column = a.temp_column;
   const io::TimeSeries log = io::parse_log_csv(bytes, a.log, lo);
-  const io::DataLibraries lib = io::load_libraries(data_dir());
+  const LibraryFiles lib = load_libraries("", "");
   AssessOptions opts;
   opts.origin = a.log;
   opts.cooking_tables = &lib.cooking;

@@ -2,12 +2,11 @@
 #include <filesystem>
 #include <iostream>
 
-#include "cli/data_dir.hpp"
+#include "cli/library_files.hpp"
 #include "cli/output.hpp"
 #include "cli/verbs.hpp"
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/error.hpp"
-#include "coldcore/io/libraries.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/report/assessment.hpp"
 #include "coldcore/report/html.hpp"
@@ -32,7 +31,7 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
     throw InputError("--format md writes its plots as SVG files beside the report: give --out PATH.md");
   const io::ProductFile file = io::load_product(a.file);
   io::require_constant_properties(file);
-  const io::DataLibraries lib = io::load_libraries(data_dir());
+  const LibraryFiles lib = load_libraries("", a.file);
   const History history = simulate(file.product, file.stages);
   AssessOptions assess_opts;
   assess_opts.origin = file.origin;

@@ -5,16 +5,13 @@
 
 #include "coldcore/error.hpp"
 
+#include "process/detail/inverse_text.hpp"
+
 namespace coldcore::process {
 
 namespace {
 
-std::string num(double x) {
-  std::ostringstream s;
-  s.precision(6);
-  s << x;
-  return s.str();
-}
+using detail::num;
 
 bool heating_question(Question q, const Scenario& s) {
   switch (q) {

@@ -41,6 +41,16 @@ double display_temp_difference(double delta_K, TempUnit u) { return u == TempUni
 std::string_view unit_symbol(TempUnit u) { return u == TempUnit::C ? "°C" : "°F"; }
 std::string_view unit_suffix(TempUnit u) { return u == TempUnit::C ? "C" : "F"; }
 
+std::string csv_cell(const std::string& s) {
+  if (s.find_first_of(",\"\n") == std::string::npos) return s;
+  std::string o = "\"";
+  for (char ch : s) {
+    if (ch == '"') o += '"';
+    o += ch;
+  }
+  return o + "\"";
+}
+
 std::string fixed(double x, int digits) {
   if (std::isnan(x)) return "-";
   if (std::isinf(x)) return x > 0 ? "inf" : "-inf";

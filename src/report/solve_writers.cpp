@@ -55,15 +55,6 @@ const char* raw_unit(const TargetResult& t) {
   return "s";
 }
 
-std::string csv_cell(const std::string& s) {
-  if (s.find_first_of(",\"\n") == std::string::npos) return s;
-  std::string o = "\"";
-  for (char ch : s) {
-    if (ch == '"') o += '"';
-    o += ch;
-  }
-  return o + "\"";
-}
 
 }  // namespace
 

@@ -22,6 +22,10 @@ double display_temp_difference(double delta_K, TempUnit u);
 std::string_view unit_symbol(TempUnit u);  ///< "°C" or "°F"
 std::string_view unit_suffix(TempUnit u);  ///< "C" or "F", for column names
 
+/// A CSV field (RFC 4180): as is, or in double quotes with inner quotes doubled when it holds
+/// a comma, a quote or a line break.
+std::string csv_cell(const std::string& s);
+
 /// Fixed-point text of x with `digits` decimals; "-" for NaN.
 std::string fixed(double x, int digits);
 /// A duration as "1 h 05 min 30 s" style text, rounded UP to whole seconds.
