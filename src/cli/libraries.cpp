@@ -50,7 +50,7 @@ int list_organisms(const OutputArgs& a, std::ostream& out) {
     for (const auto& o : lib.organisms.organisms)
       for (const auto& [key, v] : o.values)
         out << o.kinetics.key << "," << key << "," << JsonWriter::number(v.value) << "," << v.status << ","
-            << JsonWriter::escape(v.source) << "\n";
+            << csv_cell(v.source) << "\n";
     return kAllMet;
   }
   out << "Organism heat-resistance library (" << lib.organisms.origin << ")\n";
@@ -97,7 +97,7 @@ int list_rules(const OutputArgs& a, std::ostream& out) {
       for (const auto& s : r.steps)
         out << r.key << "," << ++n << "," << JsonWriter::number(s.from_C) << "," << JsonWriter::number(s.to_C) << ","
             << JsonWriter::number(s.within_s) << "," << (s.advisory ? "yes" : "no") << "," << s.status << ","
-            << JsonWriter::escape(s.source) << "\n";
+            << csv_cell(s.source) << "\n";
     }
     return kAllMet;
   }
