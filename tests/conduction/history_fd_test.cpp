@@ -3,8 +3,10 @@
 // the convergence table: centre error estimate <= 1e-6 K).
 #include <doctest/doctest.h>
 
+#include <algorithm>
 #include <cmath>
 #include <string>
+#include <vector>
 
 #include "coldcore/conduction/history.hpp"
 #include "support/csv_table.hpp"
@@ -71,6 +73,36 @@ TEST_CASE("ramp-hold-step medium: sphere and cylinder centre vs finite-volume re
   const std::vector<Stage> st = {stage({{0, 20.0}, {600, 90.0}}, 200.0, 1800.0), stage({{0, 2.0}}, 200.0, 1800.0)};
   compare(simulate(fd_product(Shape::sphere), st), "ramp-hold-step-sphere", 0.02, 0.02);
   compare(simulate(fd_product(Shape::cylinder), st), "ramp-hold-step-cylinder", 0.02, 0.02);
+}
+
+TEST_CASE("the same ramp-hold-step medium logged every second (the regular-log fast path) vs the reference") {
+  // Source: tests/reference/history_fd.csv, cases ramp-hold-step-*. The medium is the same piecewise
+  // linear one, given as a 1 s log over the whole cook stage (1801 points on the ramp and the hold):
+  // the engine then takes its lean path for runs of equal short steps, and its samples and
+  // checkpoints (read by evaluate) must meet the reference as the two-point schedule does.
+  std::vector<MediumPoint> logged;
+  for (int i = 0; i <= 1800; ++i) logged.push_back({double(i), i <= 600 ? 20.0 + 70.0 * i / 600.0 : 90.0});
+  const std::vector<Stage> st = {stage(logged, 200.0, 1800.0), stage({{0, 2.0}}, 200.0, 1800.0)};
+  const std::vector<Stage> two = {stage({{0, 20.0}, {600, 90.0}}, 200.0, 1800.0), stage({{0, 2.0}}, 200.0, 1800.0)};
+  for (Shape sh : {Shape::sphere, Shape::cylinder}) {
+    const History h = simulate(fd_product(sh), st);
+    compare(h, sh == Shape::sphere ? "ramp-hold-step-sphere" : "ramp-hold-step-cylinder", 0.02, 0.02);
+    // every sample of the logged run against the two-point run's exact evaluation (same medium):
+    // the engine's tolerance (1e-4 K default) bounds their difference
+    const History g = simulate(fd_product(sh), two);
+    double worst = 0;
+    std::size_t n = 0;
+    for (const auto& x : h.samples) {
+      if (x.time_s <= 0 || x.time_s > 1800) continue;
+      const auto y = g.evaluate(x.time_s);
+      worst = std::max({worst, std::abs(x.centre_C - y.centre_C), std::abs(x.surface_C - y.surface_C),
+                        std::abs(x.mean_C - y.mean_C)});
+      ++n;
+    }
+    MESSAGE(to_string(sh) << ": 1 s log samples vs two-point schedule, worst " << worst << " K over " << n << " samples");
+    CHECK(n >= 1800);
+    CHECK(worst <= 1e-4);
+  }
 }
 
 TEST_CASE("cook in hot water then chill in cold air (two h): vs reference to 0.05 K and chill end within 10 s") {

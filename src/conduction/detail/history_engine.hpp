@@ -1,6 +1,7 @@
 #pragma once
 // State of the history engine, shared by simulate() and History::evaluate. Private.
 #include <algorithm>
+#include <cmath>
 #include <cstddef>
 #include <memory>
 #include <vector>
@@ -17,10 +18,14 @@ struct EpochSums {
   double jump = 0;   // Σ J_j
 };
 
+/// K rounded up to whole groups of four: the stepping kernel works on whole groups, and the
+/// padding modes (zero amplitude, zero decay factor) stay exactly zero.
+inline std::size_t padded_modes(std::size_t K) { return (K + 3) & ~std::size_t{3}; }
+
 /// Modal state at one instant: amplitudes of u = T − T∞ on the kept modes, plus the centre's
 /// transient memory of recent events, held for two epochs (see history.cpp).
 struct ModalState {
-  std::vector<double> a, w_prev, w_cur;
+  std::vector<double> a, w_prev, w_cur;  // K entries; simulate's own state is padded (padded_modes)
   EpochSums s_prev, s_cur;
   long epoch = 0;
 };
@@ -40,7 +45,18 @@ class FlatBuffer {
     size_ += n;
     return out;
   }
+  void push_back(double v) { *append(1) = v; }
+  /// room for n more values: write them from the returned pointer, then commit() how many
+  double* room(std::size_t n) {
+    reserve(size_ + n);
+    return p_.get() + size_;
+  }
+  void commit(std::size_t n) { size_ += n; }
   const double* data() const { return p_.get(); }
+  const double* begin() const { return p_.get(); }
+  const double* end() const { return p_.get() + size_; }
+  double operator[](std::size_t i) const { return p_[i]; }
+  double back() const { return p_[size_ - 1]; }
   std::size_t size() const { return size_; }
   bool empty() const { return size_ == 0; }
 
@@ -60,10 +76,10 @@ struct StageModel {
   bool projected = false;
   double start_s = 0, end_s = 0;
   double origin_s = 0;          // epoch origin (start of the run of stages sharing this basis)
-  std::vector<double> step_t;   // absolute start of each internal step
-  std::vector<double> step_tm;  // medium at the step start
-  std::vector<double> step_slope;
-  std::vector<double> step_ds;  // slope change applied at the step start (before advancing)
+  FlatBuffer step_t;   // absolute start of each internal step
+  FlatBuffer step_tm;  // medium at the step start
+  FlatBuffer step_slope;
+  FlatBuffer step_ds;  // slope change applied at the step start (before advancing)
   int stride = 1;                     // a checkpoint every `stride` steps
   // state at step_t[k·stride], after its event, flat: a, w_prev, w_cur (K each), then
   // s_prev (3), s_cur (3), epoch: 3K + 7 doubles per checkpoint
@@ -83,7 +99,8 @@ struct StageModel {
 struct StepCache {
   double dt = -1;
   const Basis* basis = nullptr;
-  std::vector<double> e, g, bg;  // bg = b·g
+  std::vector<double> e, g, bg;  // bg = b·g; e and bg padded with zeros to padded_modes(K)
+  std::vector<double> bl, vs, vm;  // the basis' b/λ, surface and mean values, padded likewise
   std::vector<double> axis_e[3];  // products: per-axis exponentials e^{−λ_n dt}
 };
 
@@ -126,14 +143,15 @@ struct Engine {
   ModalSums sums(const Basis& B, const ModalState& st) const;
   /// add_event at t_event, then advance by dt, then sum, in one pass over the modes (the hot path
   /// of a 1 s log). If `checkpoint` is set, the state after the event is appended to it.
-  ModalSums event_advance_sum(const Basis& B, ModalState& st, double origin, double t_event, double ds, double jump,
-                              double dt, double slope, StepCache& cache, FlatBuffer* checkpoint) const;
+  /// (inline: defined in history.cpp, used there only)
+  inline ModalSums event_advance_sum(const Basis& B, ModalState& st, double origin, double t_event, double ds, double jump,
+                                     double dt, double slope, StepCache& cache, FlatBuffer* checkpoint) const;
   /// fills `cache` for step length dt in basis B (if it does not already hold them)
   void fill_cache(const Basis& B, double dt, StepCache& cache) const;
-  double centre_from(const Basis& B, const ModalState& st, const ModalSums& s, double origin, double t, double tm,
-                     double slope) const;
+  inline double centre_from(const Basis& B, const ModalState& st, const ModalSums& s, double origin, double t, double tm,
+                            double slope) const;
   void add_event(const Basis& B, ModalState& st, double origin, double t, double ds, double jump) const;
-  long epoch_of(double origin, double t) const;
+  inline long epoch_of(double origin, double t) const;
   double centre(const Basis& B, const ModalState& st, double origin, double t, double tm, double slope) const;
   double surface(const Basis& B, const ModalState& st, double tm, double slope) const;
   double mean(const Basis& B, const ModalState& st, double tm, double slope) const;
@@ -146,6 +164,35 @@ struct Engine {
   HistorySample sample(int i, double t) const;
   double profile(int i, double t, const Point& p) const;
 };
+
+/// Starts epoch e of the centre's transient memory: the current epoch's becomes the previous one.
+void roll_epoch(ModalState& st, long e);
+
+// Inline: called once per step of a 1 s log.
+inline long Engine::epoch_of(double origin, double t) const {
+  // t >= origin always: truncation is floor (and avoids a libm call on plain x86-64)
+  const double x = (t - origin) * inv_epoch_s;
+  return x >= 0 ? static_cast<long>(x) : static_cast<long>(std::floor(x));
+}
+
+inline double Engine::centre_from(const Basis& B, const ModalState& st, const ModalSums& s, double origin, double t,
+                                  double tm, double slope) const {
+  const long d = epoch_of(origin, t) - st.epoch;
+  if (s.combined && d != 0) return centre_from(B, st, sums(B, st), origin, t, tm, slope);
+  const bool use_prev = d <= 0, use_cur = d <= 1;
+  double corr = 0.0;
+  const double tau0 = t - origin;
+  auto add = [&](const EpochSums& e) { corr += e.ds * B.full_centre - (e.ds * tau0 - e.ds_t) + e.jump; };
+  if (use_prev) {
+    add(st.s_prev);
+    corr -= s.w_prev;
+  }
+  if (use_cur) {
+    add(st.s_cur);
+    corr -= s.w_cur;
+  }
+  return tm + s.a - slope * B.q_centre + corr;
+}
 
 /// Coefficients on `to`'s kept modes of the profile T − tm_to of state `st` in basis `from`
 /// (medium tm_from, slope slope_from at that instant): closed-form inner products per axis.
