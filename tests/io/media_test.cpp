@@ -5,6 +5,7 @@
 #include "coldcore/error.hpp"
 #include "coldcore/io/media.hpp"
 #include "coldcore/io/product_file.hpp"
+#include "coldcore/io/scenario.hpp"
 
 using namespace coldcore;
 
@@ -64,7 +65,7 @@ F_min = 2
 )";
 }
 
-TEST_CASE("product file: medium_type takes the low end of the medium's range and says why; h_range kept") {
+TEST_CASE("product file: medium_type keeps the medium's range for per-target ends and says why; h_range kept") {
   auto pf = io::parse_product(kBase, "p.toml");
   REQUIRE(pf.stage_h.size() == 2);
   REQUIRE(pf.stage_h[0].h_range_W_m2K);
@@ -74,12 +75,21 @@ TEST_CASE("product file: medium_type takes the low end of the medium's range and
   CHECK(io::needs_media(pf));
   const auto lib = io::parse_media(test::read_source_file("products/media.toml"), "media.toml");
   io::apply_media(pf, lib);
-  CHECK(pf.stages[1].h_W_m2K == 20);  // blast-chill 20–60 in media.toml: the low end
-  CHECK(pf.stage_h[1].note.find("slower cooling, conservative for a cooling rule") != std::string::npos);
-  // P70 credits every stage, the chill included: the low end overstates the chill's lethality, said so
-  bool warned = false;
-  for (const auto& w : pf.warnings) warned = warned || w.find("overstates the lethality") != std::string::npos;
-  CHECK(warned);
+  CHECK(pf.stages[1].h_W_m2K == 20);  // blast-chill 20–60 in media.toml: the stage's listed h is the low end
+  CHECK(pf.stage_h[1].note.find("each target evaluated at the end conservative for it") != std::string::npos);
+  // The range goes to the process layer for the medium_type stage only (the cook keeps h = 200).
+  const auto s = io::scenario_of(pf);
+  REQUIRE(s.per_target_h.size() == 2);
+  CHECK_FALSE(s.per_target_h[0]);
+  REQUIRE(s.per_target_h[1]);
+  CHECK(s.per_target_h[1]->low_W_m2K == 20);
+  CHECK(s.per_target_h[1]->high_W_m2K == 60);
+  // P70 credits every stage, the chill included: it is evaluated at the chill's high end
+  // (common practice: faster cooling, less lethality accrues in the chill).
+  const auto ch = process::h_choices_for(s, 0);
+  REQUIRE(ch.size() == 1);
+  CHECK(ch[0].end == process::HEnd::high);
+  CHECK(ch[0].h_W_m2K == 60);
 }
 
 TEST_CASE("product file: medium_type with h_W_m2K, and h outside its range, are refused") {
