@@ -120,3 +120,30 @@ TEST_CASE("product file: [product.ranges] parse in SI and must contain the nomin
   unused.replace(unused.find("[product.properties]"), 20, "[product.ranges]\nthickness_mm = [41, 44]\n[product.properties]");
   CHECK_THROWS_AS(io::parse_product(unused, "p.toml"), InputError);
 }
+
+TEST_CASE("medium_type per target, from the file: F as with the high h given, cooling rule as with the low h") {
+  // The invented tests/cli/media-split/chill-credited.toml, and the same text with the chill's
+  // medium_type replaced by h_W_m2K = 60 (the high end) and = 20 (the low end) given explicitly.
+  const std::string text = test::read_source_file("tests/cli/media-split/chill-credited.toml");
+  const auto lib = io::parse_media(test::read_source_file("tests/cli/media-split/media.toml"), "media.toml");
+  const auto with_h = [&](const char* h) {
+    std::string t = text;
+    const std::string key = "medium_type = \"blast-chill\"";
+    t.replace(t.find(key), key.size(), std::string("h_W_m2K = ") + h);
+    return io::scenario_of(io::parse_product(t, "explicit.toml"));
+  };
+  auto pf = io::parse_product(text, "chill-credited.toml");
+  io::apply_media(pf, lib);
+  const OrganismLibrary organisms = parse_organisms(test::read_source_file("products/organisms.toml"), "o.toml");
+  const RuleLibrary rules = parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "r.toml");
+  const process::Libraries libs{&organisms, &rules, nullptr};
+  const auto e = process::evaluate(io::scenario_of(pf), libs);
+  const auto hi = process::evaluate(with_h("60"), libs);
+  const auto lo = process::evaluate(with_h("20"), libs);
+  // common practice: higher h cools faster, so less lethality accrues in a credited cooling stage
+  CHECK(e.assessment.targets[0].F_s == doctest::Approx(hi.assessment.targets[0].F_s).epsilon(1e-12));
+  CHECK(e.assessment.targets[0].F_s < lo.assessment.targets[0].F_s * (1 - 1e-4));
+  // common practice: lower h cools slower, the conservative side of a cooling rule
+  CHECK(e.assessment.targets[1].achieved == doctest::Approx(lo.assessment.targets[1].achieved).epsilon(1e-12));
+  CHECK(e.assessment.targets[1].achieved > hi.assessment.targets[1].achieved);
+}

@@ -117,3 +117,19 @@ TEST_CASE("h ends: solve hold-time over two scenarios needs the high-end chill's
   for (const auto& n : split.notes) said = said || n.find("least favourable") != std::string::npos;
   CHECK(said);
 }
+
+TEST_CASE("h ends: a minimum-temperature target joins the lethality side in a cooling stage") {
+  auto s = split_sphere();
+  Target hold;
+  hold.kind = TargetKind::centre_min_temperature;
+  hold.name = "70 C for 2 min";  // UK chilled-food benchmark temperature (REFERENCES 1.3), as a hold
+  hold.min_temp_C = 70;
+  hold.hold_s = 120;
+  s.targets.push_back(hold);
+  const auto groups = process::group_targets_by_h(s);
+  REQUIRE(groups.size() == 2);
+  // faster cooling shortens the time at or above the temperature: the high end (common practice)
+  CHECK(groups[0].targets == std::vector<int>{0, 2});
+  CHECK(groups[0].choices[0].end == process::HEnd::high);
+  CHECK(groups[1].targets == std::vector<int>{1});
+}
