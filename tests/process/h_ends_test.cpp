@@ -2,6 +2,7 @@
 // stage, the cooling rule on the low end, each equal to an explicit run at that h.
 #include <doctest/doctest.h>
 
+#include "coldcore/process/conservative.hpp"
 #include "coldcore/process/h_ends.hpp"
 #include "coldcore/process/inverse.hpp"
 #include "inverse_support.hpp"
@@ -132,4 +133,23 @@ TEST_CASE("h ends: a minimum-temperature target joins the lethality side in a co
   CHECK(groups[0].targets == std::vector<int>{0, 2});
   CHECK(groups[0].choices[0].end == process::HEnd::high);
   CHECK(groups[1].targets == std::vector<int>{1});
+}
+
+TEST_CASE("solve --conservative: an h_range on a credited chill is taken at its high end for lethality") {
+  const test::Libs libs;
+  auto s = test::dip_sphere({test::f_target("P70 all stages", 120.0)});
+  process::Ranges r;
+  r.stage_h_W_m2K = {std::nullopt, std::array<double, 2>{20.0, 60.0}};
+  const auto c = process::solve_conservative(process::Question::hold_time, s, r, libs.get());
+  REQUIRE(c.choices.size() == 1);
+  CHECK(c.choices[0].find("at the conservative end per target") != std::string::npos);
+  REQUIRE(c.result);
+  // common practice: the high h cools faster, less lethality in the credited chill: a longer cook
+  auto hi = s;
+  hi.stages[1].h_W_m2K = 60.0;
+  const auto explicit_hi = process::solve(process::Question::hold_time, hi, libs.get());
+  CHECK(c.result->rounded == explicit_hi.rounded);
+  CHECK(c.result->answer == doctest::Approx(explicit_hi.answer).epsilon(1e-5));
+  const auto nominal = process::solve(process::Question::hold_time, s, libs.get());  // chill h 30
+  CHECK(c.result->answer > nominal.answer);
 }
