@@ -5,10 +5,10 @@
 ///   h_range_W_m2K at the end conservative for each target (process/h_ends.hpp: the LOW end, except
 ///   the HIGH end in a cooling stage for the lethality and minimum-temperature targets it affects;
 ///   a stage naming medium_type is taken that way nominally already, so it adds no choice), and
-///   the COLDEST initial
-///   temperature for heating questions (hold-time, min-medium, and max-size when a lethality or
-///   minimum-temperature target exists) or the WARMEST for chilling (chill-time, and max-size with
-///   cooling rules only).
+///   the COLDEST initial temperature for heating questions (hold-time, min-medium, and max-size
+///   when a lethality or minimum-temperature target exists) or the WARMEST for chilling
+///   (chill-time, and max-size with cooling rules only).
+/// deviation --conservative uses the same choices (process/deviation_conservative.hpp).
 /// Which choice drove it: each choice is applied alone and the question re-solved; the choice whose
 /// answer alone is the least favourable (longest time, smallest size, highest medium) is named.
 #include <array>

@@ -54,7 +54,6 @@ struct Libraries {
   const CookingTables* cooking = nullptr;      ///< needed only by cooking-table targets
 };
 
-/// One forward run: history, assessment and the process margin over `considered` targets.
 /// One scenario of h choices and the targets evaluated on it (process/h_ends.hpp).
 struct HScenarioRun {
   std::vector<int> targets;
@@ -62,6 +61,7 @@ struct HScenarioRun {
   History history;
 };
 
+/// One forward run: history, assessment and the process margin over `considered` targets.
 struct Evaluation {
   /// The history of the (first) scenario; with per-target h ranges that split the targets, the
   /// scenario of the first target's group (the others in h_scenarios).
