@@ -1,6 +1,7 @@
-// coldcore deviation FILE --medium-log LOG.csv [--stage NAME] [--probe-log LOG.csv] [--lot ID]
+// coldcore deviation FILE --medium-log LOG.csv [--stage NAME] [--probe-log LOG.csv] [--lot ID] [--conservative]
 #include <ctime>
 #include <memory>
+#include <optional>
 
 #include "cli/library_files.hpp"
 #include "cli/output.hpp"
@@ -8,8 +9,10 @@
 #include "coldcore/error.hpp"
 #include "coldcore/io/logger_csv.hpp"
 #include "coldcore/io/product_file.hpp"
+#include "coldcore/io/scenario.hpp"
 #include "coldcore/io/sha256.hpp"
 #include "coldcore/process/deviation.hpp"
+#include "coldcore/process/deviation_conservative.hpp"
 #include "coldcore/report/deviation_report.hpp"
 #include "coldcore/version.hpp"
 
@@ -21,6 +24,7 @@ struct DeviationArgs {
   std::string file, medium_log, probe_log, stage, lot, library, date, column;
   double tolerance_K = 0.5;
   double round_min = 1;
+  bool conservative = false;
   OutputArgs output;
 };
 
@@ -35,7 +39,7 @@ int run_deviation(const DeviationArgs& a, std::ostream& out) {
   io::require_constant_properties(file);
   const LibraryFiles libs = load_libraries(a.library, a.file);
   process::DeviationInput in;
-  in.scheduled = process::Scenario{file.product, file.stages, file.targets, file.origin};
+  in.scheduled = io::scenario_of(file);
   DeviationRecordInfo info;
   info.product_name = file.product.name;
   info.lot = a.lot;
@@ -66,6 +70,11 @@ int run_deviation(const DeviationArgs& a, std::ostream& out) {
   o.tolerance_K = a.tolerance_K;
   o.unit_s = a.round_min * 60.0;
   const process::DeviationResult r = process::evaluate_deviation(in, {&libs.organisms, &libs.rules, &libs.cooking}, o);
+  std::optional<process::ConservativeDeviation> cons;
+  if (a.conservative) {
+    cons = process::evaluate_deviation_conservative(in, io::ranges_of(file), {&libs.organisms, &libs.rules, &libs.cooking}, o);
+    info.conservative = &*cons;
+  }
   info.provenance = {{"tool", std::string("coldcore ") + kVersion},
                      {"input", file.origin},
                      {"input SHA-256", file.sha256_hex},
@@ -77,7 +86,8 @@ int run_deviation(const DeviationArgs& a, std::ostream& out) {
     case Format::csv: write_deviation_csv(r, info, out, u); break;
     default: write_deviation_text(r, info, out, u); break;
   }
-  return r.all_met_delivered ? kAllMet : kNotDemonstrated;
+  // The worst case not met is not a demonstrated process either.
+  return r.all_met_delivered && (!cons || cons->result.all_met_delivered) ? kAllMet : kNotDemonstrated;
 }
 
 }  // namespace
@@ -93,6 +103,8 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--column", args->column, "temperature column of the medium log, when it has several");
   sub->add_option("--tolerance-K", args->tolerance_K, "a reading this far below the schedule is deviated")->capture_default_str();
   sub->add_option("--round-min", args->round_min, "additional time rounded UP to this, min")->capture_default_str();
+  sub->add_flag("--conservative", args->conservative,
+                "also evaluate the deviation at the documented worst case of the file's ranges and name the choice that drove it");
   sub->add_option("--library", args->library, "folder with organisms.toml and cooling-rules.toml");
   sub->add_option("--date", args->date, "record date, YYYY-MM-DD (default: today, UTC)");
   add_output_options(*sub, args->output);

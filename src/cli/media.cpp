@@ -25,8 +25,11 @@ int run_media(const MediaArgs& a, std::ostream& out) {
   const auto path = library_path("media.toml", a.library, "");
   const io::MediaLibrary lib = io::parse_media(io::read_text_file(path), path.generic_string());
   const std::string use =
-      "a stage naming medium_type uses the LOW end of the range: slower heating (conservative for lethality) and "
-      "slower cooling (conservative for a cooling rule)";
+      "a stage naming medium_type uses, for each target, the end of the range conservative for it: the LOW end in "
+      "a heating stage (slower heating, conservative for lethality and minimum temperatures) and for a cooling "
+      "rule (slower cooling); the HIGH end in a cooling stage for the lethality and minimum-temperature targets it "
+      "affects (faster cooling, less lethality accrues); when targets differ they are evaluated on separate "
+      "scenarios and each report says which h each target used";
   if (f == Format::json) {
     JsonWriter w(out);
     w.begin_object();

@@ -8,6 +8,8 @@
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/io/product_file.hpp"
+#include "coldcore/io/scenario.hpp"
+#include "coldcore/process/inverse.hpp"
 #include "coldcore/report/assessment.hpp"
 #include "coldcore/report/html.hpp"
 #include "coldcore/report/markdown.hpp"
@@ -32,17 +34,25 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
   const io::ProductFile file = io::load_product(a.file);
   io::require_constant_properties(file);
   const LibraryFiles lib = load_libraries("", a.file);
-  const History history = simulate(file.product, file.stages);
-  AssessOptions assess_opts;
-  assess_opts.origin = file.origin;
-  assess_opts.cooking_tables = &lib.cooking;
-  const Assessment assessment = assess(history, file.targets, lib.organisms, lib.rules, assess_opts);
+  // process::evaluate: each target on the h scenario conservative for it (process/h_ends.hpp).
+  const process::Scenario scenario = io::scenario_of(file);
+  const process::Evaluation eval = process::evaluate(scenario, {&lib.organisms, &lib.rules, &lib.cooking});
+  // The stage table shows the h of the scenario whose history is shown (the first target's).
+  io::ProductFile shown = file;
+  const std::vector<process::TargetGroup> groups = process::group_targets_by_h(scenario);
+  for (const auto& c : groups.front().choices) shown.stages[c.stage].h_W_m2K = c.h_W_m2K;
+  const History& history = eval.history;
+  const Assessment& assessment = eval.assessment;
   RunReportOptions opts;
   opts.step_s = a.output.step_s;
   opts.date = a.date.empty() ? today_utc() : a.date;
   opts.version = kVersion;
-  RunReport report = build_run_report(file, history, opts);
-  add_assessment(report, history, assessment, file.targets);
+  RunReport report = build_run_report(shown, history, opts);
+  std::vector<const History*> history_of(assessment.targets.size(), &history);
+  for (std::size_t t = 0; t < eval.target_scenario.size(); ++t)
+    history_of[t] = &eval.h_scenarios[static_cast<std::size_t>(eval.target_scenario[t])].history;
+  add_assessment(report, history_of, assessment, file.targets);
+  add_h_assumptions(report, eval);
   switch (f) {
     case Format::json: write_run_json(report, out, u); break;
     case Format::csv: write_run_csv(report, out, u); break;
@@ -57,13 +67,18 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
     default: write_run_text(report, out, u); break;
   }
   // A stage that hit its cap did not run as scheduled: say so on stderr and never exit 0.
+  // (In every h scenario: a stage capped in any of them was not demonstrated as scheduled.)
   bool capped = false;
-  for (const auto& st : history.stages)
-    if (st.ended_by == StageEndedBy::cap) {
-      capped = true;
-      std::cerr << "coldcore: " << file.origin << ": stage '" << st.name << "' reached its cap at "
-                << duration_text(st.end_s - st.start_s) << " before its end condition was met\n";
-    }
+  std::vector<const History*> runs{&history};
+  for (std::size_t i = 1; i < eval.h_scenarios.size(); ++i) runs.push_back(&eval.h_scenarios[i].history);
+  for (const History* h : runs)
+    for (const auto& st : h->stages)
+      if (st.ended_by == StageEndedBy::cap) {
+        capped = true;
+        std::cerr << "coldcore: " << file.origin << ": stage '" << st.name << "' reached its cap at "
+                  << duration_text(st.end_s - st.start_s) << " before its end condition was met"
+                  << (runs.size() > 1 ? " (in one of the h scenarios)" : "") << "\n";
+      }
   if (capped) return kNotDemonstrated;
   return assessment.targets.empty() || assessment.all_met() ? kAllMet : kNotDemonstrated;
 }

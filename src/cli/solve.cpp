@@ -7,6 +7,7 @@
 #include "cli/verbs.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/io/product_file.hpp"
+#include "coldcore/io/scenario.hpp"
 #include "coldcore/process/conservative.hpp"
 #include "coldcore/process/inverse.hpp"
 #include "coldcore/report/solve_report.hpp"
@@ -50,7 +51,7 @@ int run_solve(const SolveArgs& a, std::ostream& out) {
   const io::ProductFile file = io::load_product(a.file);
   io::require_constant_properties(file);
   const LibraryFiles libs = load_libraries(a.library, a.file);
-  process::Scenario s{file.product, file.stages, file.targets, file.origin};
+  const process::Scenario s = io::scenario_of(file);
   process::SolveOptions o;
   o.stage = a.stage;
   o.unit_s = a.round_min * 60.0;
@@ -62,14 +63,7 @@ int run_solve(const SolveArgs& a, std::ostream& out) {
   const process::SolveResult r = process::solve(q, s, {&libs.organisms, &libs.rules, &libs.cooking}, o);
   std::optional<process::ConservativeSolve> cons;
   if (a.conservative) {
-    process::Ranges rg;
-    rg.diameter_m = file.ranges.diameter_m;
-    rg.length_m = file.ranges.length_m;
-    rg.thickness_m = file.ranges.thickness_m;
-    rg.conductivity_W_mK = file.ranges.conductivity_W_mK;
-    rg.initial_C = file.ranges.initial_C;
-    for (const auto& sh : file.stage_h) rg.stage_h_W_m2K.push_back(sh.h_range_W_m2K);
-    cons = process::solve_conservative(q, s, rg, {&libs.organisms, &libs.rules, &libs.cooking}, o);
+    cons = process::solve_conservative(q, s, io::ranges_of(file), {&libs.organisms, &libs.rules, &libs.cooking}, o);
   }
   SolveReportContext c;
   c.product_name = file.product.name;

@@ -35,10 +35,9 @@ bool Ranges::any() const {
   return false;
 }
 
-std::vector<RangeChoice> worst_case_choices(Question q, const Scenario& s, const Ranges& r) {
+std::vector<RangeChoice> worst_case_choices(const Scenario& s, const Ranges& r, bool heating, bool sizes) {
   std::vector<RangeChoice> c;
-  // max-size varies the size itself: a size range does not apply to it.
-  if (q != Question::max_size) {
+  if (sizes) {
     if (r.diameter_m) {
       const double v = (*r.diameter_m)[1];
       c.push_back({"diameter " + num(v * 1000) + " mm (largest)", [v](Scenario& x) { x.product.dims.diameter_m = v; }});
@@ -59,17 +58,37 @@ std::vector<RangeChoice> worst_case_choices(Question q, const Scenario& s, const
   }
   for (std::size_t i = 0; i < r.stage_h_W_m2K.size() && i < s.stages.size(); ++i) {
     if (!r.stage_h_W_m2K[i] || s.stages[i].h_infinite) continue;
-    const double v = (*r.stage_h_W_m2K[i])[0];
-    c.push_back({"stage \"" + s.stages[i].name + "\" h " + num(v) + " W/m2K (lowest)",
-                 [v, i](Scenario& x) { x.stages[i].h_W_m2K = v; }});
+    // A stage already taken per target (medium_type) is at its conservative ends nominally.
+    if (i < s.per_target_h.size() && s.per_target_h[i]) continue;
+    const double lo = (*r.stage_h_W_m2K[i])[0], hi = (*r.stage_h_W_m2K[i])[1];
+    const StageHRange range{lo, hi, "h_range_W_m2K"};
+    const auto apply = [range, i](Scenario& x) {
+      x.per_target_h.resize(x.stages.size());
+      x.per_target_h[i] = range;
+    };
+    Scenario probe = s;
+    apply(probe);
+    bool any_high = false;
+    for (std::size_t t = 0; t < s.targets.size(); ++t)
+      for (const auto& ch : h_choices_for(probe, static_cast<int>(t)))
+        any_high = any_high || (ch.stage == i && ch.end == HEnd::high);
+    const std::string label = any_high ? "stage \"" + s.stages[i].name + "\" h " + num(lo) + "-" + num(hi) +
+                                             " W/m2K at the conservative end per target (high where a credited "
+                                             "cooling stage, low otherwise)"
+                                       : "stage \"" + s.stages[i].name + "\" h " + num(lo) + " W/m2K (lowest)";
+    c.push_back({label, apply});
   }
   if (r.initial_C) {
-    const bool heat = heating_question(q, s);
-    const double v = heat ? (*r.initial_C)[0] : (*r.initial_C)[1];
-    c.push_back({"initial " + num(v) + " C (" + (heat ? "coldest, for heating" : "warmest, for chilling") + ")",
+    const double v = heating ? (*r.initial_C)[0] : (*r.initial_C)[1];
+    c.push_back({"initial " + num(v) + " C (" + (heating ? "coldest, for heating" : "warmest, for chilling") + ")",
                  [v](Scenario& x) { x.product.initial_C = v; }});
   }
   return c;
+}
+
+std::vector<RangeChoice> worst_case_choices(Question q, const Scenario& s, const Ranges& r) {
+  // max-size varies the size itself: a size range does not apply to it.
+  return worst_case_choices(s, r, heating_question(q, s), q != Question::max_size);
 }
 
 ConservativeSolve solve_conservative(Question q, const Scenario& s, const Ranges& r, const Libraries& libs,
@@ -77,7 +96,8 @@ ConservativeSolve solve_conservative(Question q, const Scenario& s, const Ranges
   const auto choices = worst_case_choices(q, s, r);
   if (choices.empty())
     throw InputError(s.origin + ": --conservative: the file gives no range that applies to " + to_string(q) +
-                     " ([product.ranges], h_range_W_m2K or medium_type)");
+                     " ([product.ranges] or h_range_W_m2K; a medium_type stage is already taken at the end "
+                     "conservative for each target)");
   ConservativeSolve out;
   Scenario all = s;
   for (const auto& c : choices) {

@@ -73,6 +73,7 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
     throw InputError("deviation: give --medium-log or --probe-log (nothing to compare with the schedule)");
   DeviationResult r;
   r.scheduled = evaluate(s, libs);
+  add_h_notes(r.scheduled, r.notes);
   r.assumptions.push_back("the scheduled process is the product file as written; the delivered one differs only "
                           "where the logs say so");
   std::vector<int> considered;

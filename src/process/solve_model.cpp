@@ -32,16 +32,63 @@ double target_margin(const TargetResult& r) {
   return m;
 }
 
+namespace {
+
+std::string target_names(const Scenario& s, const std::vector<int>& idx) {
+  if (idx.size() == s.targets.size()) return "every target";
+  std::string out;
+  for (int i : idx) out += (out.empty() ? "" : ", ") + ("\"" + s.targets[static_cast<std::size_t>(i)].name + "\"");
+  return out.empty() ? "no target" : out;
+}
+
+void push_unique(std::vector<std::string>& v, const std::string& x) {
+  if (std::find(v.begin(), v.end(), x) == v.end()) v.push_back(x);
+}
+
+}  // namespace
+
 Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<int>& considered,
                     const HistoryOptions& hopts) {
   if (libs.organisms == nullptr || libs.rules == nullptr)
     throw InputError("evaluate: organism and rule libraries are required");
   Evaluation e;
-  e.history = simulate(s.product, s.stages, hopts);
   AssessOptions ao;
   ao.origin = s.origin;
   ao.cooking_tables = libs.cooking;
-  e.assessment = assess(e.history, s.targets, *libs.organisms, *libs.rules, ao);
+  const std::vector<TargetGroup> groups = group_targets_by_h(s);
+  for (const auto& g : groups)
+    for (const auto& c : g.choices) e.h_notes.push_back(describe(s, c) + "; used for " + target_names(s, g.targets));
+  if (groups.size() == 1) {
+    if (groups[0].choices.empty()) {
+      e.history = simulate(s.product, s.stages, hopts);
+    } else {
+      const Scenario one = apply_h_choices(s, groups[0].choices);
+      e.history = simulate(one.product, one.stages, hopts);
+    }
+    e.assessment = assess(e.history, s.targets, *libs.organisms, *libs.rules, ao);
+  } else {
+    // Each target from the scenario conservative for it; every scenario assesses every target so
+    // that input errors name the same target[i] whichever scenario meets them first.
+    e.target_scenario.assign(s.targets.size(), 0);
+    e.assessment.targets.resize(s.targets.size());
+    for (std::size_t gi = 0; gi < groups.size(); ++gi) {
+      const Scenario one = apply_h_choices(s, groups[gi].choices);
+      HScenarioRun run{groups[gi].targets, groups[gi].choices, simulate(one.product, one.stages, hopts)};
+      Assessment a = assess(run.history, s.targets, *libs.organisms, *libs.rules, ao);
+      for (int t : groups[gi].targets) {
+        const auto ti = static_cast<std::size_t>(t);
+        e.assessment.targets[ti] = std::move(a.targets[ti]);
+        e.target_scenario[ti] = static_cast<int>(gi);
+      }
+      for (const auto& w : a.warnings) push_unique(e.assessment.warnings, w);
+      e.h_scenarios.push_back(std::move(run));
+    }
+    e.history = e.h_scenarios.front().history;
+  }
+  for (const auto& g : groups)
+    for (int t : g.targets)
+      for (const auto& c : g.choices)
+        e.assessment.targets[static_cast<std::size_t>(t)].notes.push_back("h used: " + describe(s, c));
   e.all_met = e.assessment.all_met();
   double m = std::numeric_limits<double>::infinity();
   const auto& t = e.assessment.targets;
@@ -54,6 +101,15 @@ Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<
   e.margin = m;
   e.considered_met = m > 0;
   return e;
+}
+
+void add_h_notes(const Evaluation& e, std::vector<std::string>& notes) {
+  if (e.h_scenarios.size() > 1)
+    push_unique(notes, "the targets need different ends of an h range, so they were evaluated on " +
+                           std::to_string(e.h_scenarios.size()) +
+                           " scenarios, each target on the one conservative for it; the result is the least "
+                           "favourable over them");
+  for (const auto& n : e.h_notes) push_unique(notes, "h per target: " + n);
 }
 
 HistoryOptions search_history_options() {

@@ -203,7 +203,8 @@ SolveResult chill_time(const Scenario& s, const Libraries& libs, const SolveOpti
   }
   const double nominal = stage_duration_s(s, idx);
   // One long run of the chill stage: its exact evaluation gives the temperature at any duration.
-  Scenario longrun = s;
+  // Slower cooling is the conservative side of an end temperature: every h range at its low end.
+  Scenario longrun = apply_h_choices(s, h_choices_for(s, -1));
   longrun.stages[k].end = StageEnd{};
   longrun.stages[k].end.duration_s = o.max_hold_s;
   longrun.stages.resize(k + 1);
@@ -385,13 +386,18 @@ SolveResult min_medium(const Scenario& s, const Libraries& libs, const SolveOpti
 SolveResult solve(Question q, const Scenario& s, const Libraries& libs, const SolveOptions& o) {
   if (!(o.unit_s > 0) || !(o.unit_m > 0) || !(o.unit_C > 0))
     throw InputError("--round: must be > 0");
+  SolveResult r;
   switch (q) {
-    case Question::hold_time: return hold_time(s, libs, o);
-    case Question::chill_time: return chill_time(s, libs, o);
-    case Question::max_size: return max_size(s, libs, o);
-    case Question::min_medium: return min_medium(s, libs, o);
+    case Question::hold_time: r = hold_time(s, libs, o); break;
+    case Question::chill_time: r = chill_time(s, libs, o); break;
+    case Question::max_size: r = max_size(s, libs, o); break;
+    case Question::min_medium: r = min_medium(s, libs, o); break;
+    default: throw InputError("--for: unknown question");
   }
-  throw InputError("--for: unknown question");
+  add_h_notes(r.verification.eval, r.notes);
+  if (q == Question::chill_time && !s.per_target_h.empty())
+    r.notes.push_back("the end temperature is reached with every h range at its low end (slower cooling)");
+  return r;
 }
 
 }  // namespace coldcore::process

@@ -1,3 +1,4 @@
+#include <algorithm>
 #include <cmath>
 #include <ostream>
 
@@ -23,6 +24,102 @@ std::string opt_num(const std::optional<double>& v) { return v ? JsonWriter::num
 void json_opt(JsonWriter& w, const char* k, const std::optional<double>& v) {
   w.key(k);
   if (v) w.value(*v); else w.null();
+}
+
+std::string hold_text(const DeviationResult& d) {
+  if (d.extra_hold_s && *d.extra_hold_s == 0) return "none needed";
+  if (d.extra_hold_s) return duration_text(*d.extra_hold_s) + " (" + fixed(*d.extra_hold_s, 0) + " s)";
+  return "none computed: " + d.extra_hold_note;
+}
+
+void text_conservative(const process::ConservativeDeviation& c, const DeviationResult& nominal, std::ostream& out,
+                       TempUnit u) {
+  const DeviationResult& r = c.result;
+  out << "\nCONSERVATIVE (documented worst case of the file's ranges, model with the logged medium)\n  choices:";
+  for (const auto& ch : c.choices) out << " " << ch << ";";
+  out << "\n";
+  if (!c.initial_reason.empty()) out << "  initial temperature: " << c.initial_reason << "\n";
+  for (std::size_t k = 0; k < r.targets.size(); ++k) {
+    const DeviationTarget& t = r.targets[k];
+    out << "  " << t.name << " (" << to_string(t.kind) << ")\n";
+    if (t.lethality) {
+      out << "    F scheduled " << min_down(t.scheduled_F_s) << ", delivered " << min_down(t.delivered_F_s);
+      if (k < nominal.targets.size() && nominal.targets[k].lethality)
+        out << " (nominal delivered " << min_down(nominal.targets[k].delivered_F_s) << ")";
+      out << "\n";
+    }
+    out << "    scheduled: " << t.scheduled.verdict_text << "\n    delivered: " << t.delivered.verdict_text << "\n";
+  }
+  out << "  every target met as delivered, worst case: " << (r.all_met_delivered ? "yes" : "NO") << "\n";
+  out << "  additional time at the scheduled medium (" << temp(r.extension_medium_C, u) << "), worst case: "
+      << hold_text(r) << "\n";
+  for (const auto& a : c.alone) {
+    out << "  alone: " << a.label << " -> delivered " << (a.all_met_delivered ? "met" : "NOT met") << ", least margin "
+        << fixed(a.least_margin, 4) << ", additional time ";
+    if (a.extra_hold_s && *a.extra_hold_s == 0) out << "none needed";
+    else if (a.extra_hold_s) out << fixed(*a.extra_hold_s, 0) << " s";
+    else out << "none computed";
+    out << "\n";
+  }
+  out << "  driven by: " << c.driven_by << "\n";
+  // Only what the nominal record does not already say.
+  const auto fresh = [](const std::vector<std::string>& v, const std::vector<std::string>& nominal_v) {
+    std::vector<std::string> out_v;
+    for (const auto& x : v)
+      if (std::find(nominal_v.begin(), nominal_v.end(), x) == nominal_v.end()) out_v.push_back(x);
+    return out_v;
+  };
+  for (const auto& n : fresh(r.notes, nominal.notes)) out << "  - " << n << "\n";
+  for (const auto& n : fresh(r.assumptions, nominal.assumptions)) out << "  - assumption: " << n << "\n";
+}
+
+void json_conservative(JsonWriter& w, const process::ConservativeDeviation& c) {
+  const DeviationResult& r = c.result;
+  w.key("conservative").begin_object();
+  w.key("choices").value(c.choices);
+  w.key("initial_reason").value(c.initial_reason);
+  w.key("targets").begin_array();
+  for (const auto& t : r.targets) {
+    w.begin_object();
+    w.key("name").value(t.name);
+    w.key("kind").value(to_string(t.kind));
+    if (t.lethality) {
+      w.key("scheduled_F_min").value(t.scheduled_F_s / 60.0);
+      w.key("delivered_F_min").value(t.delivered_F_s / 60.0);
+      w.key("F_required_min").value(t.delivered.F_required_s / 60.0);
+      if (t.scheduled_logs) w.key("scheduled_log_reduction").value(*t.scheduled_logs);
+      if (t.delivered_logs) w.key("delivered_log_reduction").value(*t.delivered_logs);
+    } else {
+      w.key("scheduled_F_min").null();
+      w.key("delivered_F_min").null();
+    }
+    w.key("verdict").value(to_string(t.verdict));
+    w.key("scheduled_verdict").value(to_string(t.scheduled.verdict));
+    w.key("delivered_margin").value(t.delivered.margin);
+    w.key("delivered_verdict_text").value(t.delivered.verdict_text);
+    w.end_object();
+  }
+  w.end_array();
+  w.key("all_met_delivered").value(r.all_met_delivered);
+  json_opt(w, "extra_hold_s", r.extra_hold_s);
+  json_opt(w, "extra_hold_unrounded_s", r.extra_hold_unrounded_s);
+  w.key("extension_medium_C").value(r.extension_medium_C);
+  if (!r.extra_hold_note.empty()) w.key("extra_hold_note").value(r.extra_hold_note);
+  w.key("alone").begin_array();
+  for (const auto& a : c.alone) {
+    w.begin_object();
+    w.key("choice").value(a.label);
+    w.key("all_met_delivered").value(a.all_met_delivered);
+    w.key("least_margin").value(a.least_margin);
+    json_opt(w, "extra_hold_s", a.extra_hold_s);
+    if (!a.extra_hold_note.empty()) w.key("extra_hold_note").value(a.extra_hold_note);
+    w.end_object();
+  }
+  w.end_array();
+  w.key("driven_by").value(c.driven_by);
+  w.key("notes").value(r.notes);
+  w.key("assumptions").value(r.assumptions);
+  w.end_object();
 }
 
 }  // namespace
@@ -94,6 +191,7 @@ void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i
     out << "\nNOTES\n";
     for (const auto& n : r.notes) out << "  - " << n << "\n";
   }
+  if (i.conservative) text_conservative(*i.conservative, r, out, u);
   std::vector<std::string> warns = i.warnings;
   if (r.delivered) warns.insert(warns.end(), r.delivered->history.warnings.begin(), r.delivered->history.warnings.end());
   if (r.probe) warns.insert(warns.end(), r.probe->warnings.begin(), r.probe->warnings.end());
@@ -187,6 +285,7 @@ void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i
   w.key("review_date").value("");
   w.key("decision").value("");
   w.end_object();
+  if (i.conservative) json_conservative(w, *i.conservative);
   w.key("disposition").value(disposition_statement());
   w.key("notes").value(r.notes);
   w.key("assumptions").value(r.assumptions);
@@ -216,13 +315,35 @@ void write_deviation_csv(const DeviationResult& r, const DeviationRecordInfo& i,
   for (const auto& n : r.assumptions) out << "# assumption: " << n << "\n";
   for (const auto& n : r.notes) out << "# note: " << n << "\n";
   out << "# reviewer name: \n# review date: \n# decision: \n";
-  out << "target,kind,scheduled_F_min,delivered_F_min,scheduled_log_reduction,delivered_log_reduction,verdict\n";
-  for (const auto& t : r.targets) {
-    out << t.name << "," << to_string(t.kind) << ",";
-    if (t.lethality) out << JsonWriter::number(t.scheduled_F_s / 60.0) << "," << JsonWriter::number(t.delivered_F_s / 60.0);
-    else out << ",";
-    out << "," << opt_num(t.scheduled_logs) << "," << opt_num(t.delivered_logs) << "," << to_string(t.verdict) << "\n";
+  const auto* cons = i.conservative;
+  if (cons) {
+    for (const auto& ch : cons->choices) out << "# conservative choice: " << ch << "\n";
+    if (!cons->initial_reason.empty()) out << "# conservative initial temperature: " << cons->initial_reason << "\n";
+    out << "# conservative extra_hold_s: "
+        << (cons->result.extra_hold_s ? JsonWriter::number(*cons->result.extra_hold_s)
+                                      : "none: " + cons->result.extra_hold_note)
+        << "\n";
+    out << "# conservative all met as delivered: " << (cons->result.all_met_delivered ? "yes" : "no") << "\n";
+    for (const auto& a : cons->alone)
+      out << "# conservative alone: " << a.label << "; least margin " << JsonWriter::number(a.least_margin)
+          << "; extra_hold_s " << (a.extra_hold_s ? JsonWriter::number(*a.extra_hold_s) : "none") << "\n";
+    out << "# conservative driven by: " << cons->driven_by << "\n";
+    for (const auto& n : cons->result.notes) out << "# conservative note: " << n << "\n";
   }
+  out << "target,kind,scheduled_F_min,delivered_F_min,scheduled_log_reduction,delivered_log_reduction,verdict"
+      << (cons ? ",case" : "") << "\n";
+  const auto rows = [&](const DeviationResult& d, const char* which) {
+    for (const auto& t : d.targets) {
+      out << csv_cell(t.name) << "," << to_string(t.kind) << ",";
+      if (t.lethality) out << JsonWriter::number(t.scheduled_F_s / 60.0) << "," << JsonWriter::number(t.delivered_F_s / 60.0);
+      else out << ",";
+      out << "," << opt_num(t.scheduled_logs) << "," << opt_num(t.delivered_logs) << "," << to_string(t.verdict);
+      if (cons) out << "," << which;
+      out << "\n";
+    }
+  };
+  rows(r, "nominal");
+  if (cons) rows(cons->result, "conservative");
 }
 
 }  // namespace coldcore

@@ -223,13 +223,29 @@ VerdictRow verdict_row(const TargetResult& t) {
 
 void add_assessment(RunReport& report, const History& history, const Assessment& assessment,
                     const std::vector<Target>& targets) {
+  add_assessment(report, std::vector<const History*>(assessment.targets.size(), &history), assessment, targets);
+}
+
+void add_h_assumptions(RunReport& report, const process::Evaluation& e) {
+  if (e.h_scenarios.size() > 1)
+    report.assumptions.push_back(
+        "The targets need different ends of an h range, so they were evaluated on " +
+        std::to_string(e.h_scenarios.size()) +
+        " scenarios, each target on the one conservative for it; the history and plots show the scenario of the "
+        "first target, every verdict (and its F column) its own.");
+  for (const auto& n : e.h_notes) report.assumptions.push_back("h per target: " + n + ".");
+}
+
+void add_assessment(RunReport& report, const std::vector<const History*>& history_of, const Assessment& assessment,
+                    const std::vector<Target>& targets) {
   std::vector<double> times;
   times.reserve(report.history.rows.size());
   for (const auto& row : report.history.rows) times.push_back(row[0]);
-  for (const auto& t : assessment.targets) {
+  for (std::size_t ti = 0; ti < assessment.targets.size(); ++ti) {
+    const TargetResult& t = assessment.targets[ti];
     report.verdicts.push_back(verdict_row(t));
     if (t.kinetics && !t.column.empty()) {
-      const std::vector<double> f = cumulative_f_s(history, t, times);
+      const std::vector<double> f = cumulative_f_s(*history_of.at(ti), t, times);
       // F columns follow mean_C (DESIGN.md csv order); the lumped comparison stays last.
       auto& cols = report.history.columns;
       size_t at = cols.size();

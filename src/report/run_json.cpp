@@ -91,6 +91,10 @@ void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
   for (const auto& v : r.verdicts)
     out << "# verdict: " << v.name << ": " << verdict_word(v.met) << " (required " << v.required
         << ", achieved " << v.achieved << ", margin " << v.margin << ")\n";
+  // Which end of an h range each target was evaluated at (process/h_ends.hpp), when one was.
+  for (const auto& v : r.verdicts)
+    for (const auto& d : v.details)
+      if (d.rfind("h used: ", 0) == 0) out << "# verdict note: " << v.name << ": " << d << "\n";
   for (size_t i = 0; i < r.history.columns.size(); ++i)
     out << (i ? "," : "") << display_column(r.history.columns[i], u);
   out << "\n";

@@ -96,6 +96,43 @@ cli_expect(solve_conservative_sausage_json 0 ARGS solve products/chicken-sausage
 cli_expect(solve_conservative_no_ranges 2 ARGS solve products/corned-beef-can.toml --for min-medium --conservative
            STDERR_HAS "--conservative: the file gives no range that applies to min-medium")
 
+# deviation --conservative: the deviation again at the worst case of the ranges, and its driver.
+cli_expect(deviation_conservative_kofta 0 ARGS deviation products/kofta-balls.toml
+           --medium-log products/logs/kofta-oven-deviation.csv --conservative
+           STDOUT_HAS "CONSERVATIVE (documented worst case" "diameter 40 mm (largest)" "initial 2 C (coldest, for heating)"
+                      "the deviated stage \"combi-oven steam cook\" heats" "driven by: " "every target met as delivered, worst case: yes")
+cli_expect(deviation_conservative_kofta_json 0 ARGS deviation products/kofta-balls.toml
+           --medium-log products/logs/kofta-oven-deviation.csv --conservative --format json
+           STDOUT_HAS "\"conservative\": {" "\"driven_by\"" "\"alone\"" "\"initial_reason\"")
+# Invented: the nominal deviation meets F 100 min, the worst case (40 mm, 2 C) does not: exit 1.
+cli_expect(deviation_conservative_not_met 1 ARGS deviation tests/cli/media-split/chill-credited-tight.toml
+           --medium-log tests/cli/media-split/chill-credited-log.csv --stage cook --conservative --format csv
+           STDOUT_HAS "# conservative driven by: diameter 40 mm (largest)" "# conservative all met as delivered: no"
+                      "delivered_log_reduction,verdict,case" ",met,nominal" ",not demonstrated,conservative")
+cli_expect(deviation_conservative_no_ranges 2 ARGS deviation products/corned-beef-can.toml
+           --medium-log products/logs/corned-beef-hold-deviation.csv --conservative
+           STDERR_HAS "--conservative: the file gives no range that applies to the deviation")
+cli_expect(deviation_conservative_probe_only 2 ARGS deviation products/kofta-balls.toml
+           --probe-log products/logs/kofta-probe.csv --conservative
+           STDERR_HAS "deviation --conservative: needs --medium-log")
+
+# medium_type per target (invented product, tests/cli/media-split/): lethality credited in the chill
+# at the chill's HIGH h, the cooling rule at its LOW h, said in every verb and format.
+cli_expect(media_split_run_text 0 ARGS run tests/cli/media-split/chill-credited.toml
+           STDOUT_HAS "P70: h used: stage \"blast chill\": h 60 W/m2K, the high end of 20-60"
+                      "two-stage-6h: h used: stage \"blast chill\": h 20 W/m2K, the low end of 20-60"
+                      "evaluated on 2 scenarios")
+cli_expect(media_split_run_csv 0 ARGS run tests/cli/media-split/chill-credited.toml --format csv
+           STDOUT_HAS "# verdict note: P70: h used: stage \"blast chill\": h 60 W/m2K")
+cli_expect(media_split_run_json 0 ARGS run tests/cli/media-split/chill-credited.toml --format json
+           STDOUT_HAS "h per target: stage \\\"blast chill\\\": h 20 W/m2K")
+cli_expect(media_split_solve 0 ARGS solve tests/cli/media-split/chill-credited.toml --for hold-time
+           STDOUT_HAS "evaluated on 2 scenarios" "the result is the least favourable over them")
+cli_expect(media_split_deviation 0 ARGS deviation tests/cli/media-split/chill-credited.toml
+           --medium-log tests/cli/media-split/chill-credited-log.csv --stage cook
+           STDOUT_HAS "h per target: stage \"blast chill\": h 60 W/m2K, the high end")
+cli_expect(media_footnote 0 ARGS media STDOUT_HAS "the HIGH end in a cooling stage for the lethality")
+
 # Bad product files: refused by `coldcore run` with exit 2 and the exact message on their first line.
 file(GLOB COLDCORE_BAD_FILES ${PROJECT_SOURCE_DIR}/tests/cli/bad/*.toml)
 foreach(f IN LISTS COLDCORE_BAD_FILES)

@@ -5,6 +5,7 @@
 #include "coldcore/error.hpp"
 #include "coldcore/io/media.hpp"
 #include "coldcore/io/product_file.hpp"
+#include "coldcore/io/scenario.hpp"
 
 using namespace coldcore;
 
@@ -64,7 +65,7 @@ F_min = 2
 )";
 }
 
-TEST_CASE("product file: medium_type takes the low end of the medium's range and says why; h_range kept") {
+TEST_CASE("product file: medium_type keeps the medium's range for per-target ends and says why; h_range kept") {
   auto pf = io::parse_product(kBase, "p.toml");
   REQUIRE(pf.stage_h.size() == 2);
   REQUIRE(pf.stage_h[0].h_range_W_m2K);
@@ -74,12 +75,21 @@ TEST_CASE("product file: medium_type takes the low end of the medium's range and
   CHECK(io::needs_media(pf));
   const auto lib = io::parse_media(test::read_source_file("products/media.toml"), "media.toml");
   io::apply_media(pf, lib);
-  CHECK(pf.stages[1].h_W_m2K == 20);  // blast-chill 20–60 in media.toml: the low end
-  CHECK(pf.stage_h[1].note.find("slower cooling, conservative for a cooling rule") != std::string::npos);
-  // P70 credits every stage, the chill included: the low end overstates the chill's lethality, said so
-  bool warned = false;
-  for (const auto& w : pf.warnings) warned = warned || w.find("overstates the lethality") != std::string::npos;
-  CHECK(warned);
+  CHECK(pf.stages[1].h_W_m2K == 20);  // blast-chill 20–60 in media.toml: the stage's listed h is the low end
+  CHECK(pf.stage_h[1].note.find("each target evaluated at the end conservative for it") != std::string::npos);
+  // The range goes to the process layer for the medium_type stage only (the cook keeps h = 200).
+  const auto s = io::scenario_of(pf);
+  REQUIRE(s.per_target_h.size() == 2);
+  CHECK_FALSE(s.per_target_h[0]);
+  REQUIRE(s.per_target_h[1]);
+  CHECK(s.per_target_h[1]->low_W_m2K == 20);
+  CHECK(s.per_target_h[1]->high_W_m2K == 60);
+  // P70 credits every stage, the chill included: it is evaluated at the chill's high end
+  // (common practice: faster cooling, less lethality accrues in the chill).
+  const auto ch = process::h_choices_for(s, 0);
+  REQUIRE(ch.size() == 1);
+  CHECK(ch[0].end == process::HEnd::high);
+  CHECK(ch[0].h_W_m2K == 60);
 }
 
 TEST_CASE("product file: medium_type with h_W_m2K, and h outside its range, are refused") {
@@ -109,4 +119,31 @@ TEST_CASE("product file: [product.ranges] parse in SI and must contain the nomin
   std::string unused = kBase;
   unused.replace(unused.find("[product.properties]"), 20, "[product.ranges]\nthickness_mm = [41, 44]\n[product.properties]");
   CHECK_THROWS_AS(io::parse_product(unused, "p.toml"), InputError);
+}
+
+TEST_CASE("medium_type per target, from the file: F as with the high h given, cooling rule as with the low h") {
+  // The invented tests/cli/media-split/chill-credited.toml, and the same text with the chill's
+  // medium_type replaced by h_W_m2K = 60 (the high end) and = 20 (the low end) given explicitly.
+  const std::string text = test::read_source_file("tests/cli/media-split/chill-credited.toml");
+  const auto lib = io::parse_media(test::read_source_file("tests/cli/media-split/media.toml"), "media.toml");
+  const auto with_h = [&](const char* h) {
+    std::string t = text;
+    const std::string key = "medium_type = \"blast-chill\"";
+    t.replace(t.find(key), key.size(), std::string("h_W_m2K = ") + h);
+    return io::scenario_of(io::parse_product(t, "explicit.toml"));
+  };
+  auto pf = io::parse_product(text, "chill-credited.toml");
+  io::apply_media(pf, lib);
+  const OrganismLibrary organisms = parse_organisms(test::read_source_file("products/organisms.toml"), "o.toml");
+  const RuleLibrary rules = parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "r.toml");
+  const process::Libraries libs{&organisms, &rules, nullptr};
+  const auto e = process::evaluate(io::scenario_of(pf), libs);
+  const auto hi = process::evaluate(with_h("60"), libs);
+  const auto lo = process::evaluate(with_h("20"), libs);
+  // common practice: higher h cools faster, so less lethality accrues in a credited cooling stage
+  CHECK(e.assessment.targets[0].F_s == doctest::Approx(hi.assessment.targets[0].F_s).epsilon(1e-12));
+  CHECK(e.assessment.targets[0].F_s < lo.assessment.targets[0].F_s * (1 - 1e-4));
+  // common practice: lower h cools slower, the conservative side of a cooling rule
+  CHECK(e.assessment.targets[1].achieved == doctest::Approx(lo.assessment.targets[1].achieved).epsilon(1e-12));
+  CHECK(e.assessment.targets[1].achieved > hi.assessment.targets[1].achieved);
 }

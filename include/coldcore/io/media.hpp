@@ -8,12 +8,14 @@
 ///   [media.<key>]  description, h_min_W_m2K > 0, h_max_W_m2K >= h_min, source, status
 ///                  (status "confirmed" | "from memory" | "derived"); unknown keys refused.
 ///
-/// Conservative end (apply_media): a stage is taken as HEATING when its highest medium point is
-/// not below the lowest medium point of the stage before it (the first stage: not below the
-/// product's initial temperature), else COOLING. The LOW end of the range is used for every stage:
-/// it slows heating (conservative for lethality and minimum temperatures) and slows cooling
-/// (conservative for cooling rules). Where a lethality target credits a COOLING stage that uses a
-/// range, the low end overstates that stage's lethality; a warning says so and names the target.
+/// Conservative end: apply_media() sets the stage's h to the LOW end and keeps the range in
+/// ProductFile::stage_h; io::scenario_of() (io/scenario.hpp) hands it to the process layer, where
+/// each target is evaluated at the end conservative for it (process/h_ends.hpp): the LOW end in a
+/// heating stage (slower heating: less lethality, a later minimum temperature) and for a cooling
+/// rule (slower cooling); the HIGH end in a cooling stage for the lethality targets that credit it
+/// (or a later stage) and for minimum-temperature / cooking-table targets (faster cooling: less
+/// lethality accrues, less time at temperature). When these choices differ between targets, the
+/// targets are evaluated on separate scenarios; every report says which h each target used.
 /// A stage may also give `h_range_W_m2K = [lo, hi]` beside its `h_W_m2K`: the nominal h is used by
 /// default and the range is kept for conservative evaluation (ProductFile::stage_h).
 #include <optional>

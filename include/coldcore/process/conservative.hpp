@@ -1,14 +1,18 @@
 #pragma once
 /// Conservative evaluation: the documented worst case of the product's tolerance ranges, solved
 /// beside the nominal answer. The worst case takes, where a range is given:
-///   the LARGEST size (diameter, length, thickness), the LOWEST conductivity k, the LOWEST h of
-///   every stage with an h range (h_range_W_m2K or medium_type), and the COLDEST initial
-///   temperature for heating questions (hold-time, min-medium, and max-size when a lethality or
-///   minimum-temperature target exists) or the WARMEST for chilling (chill-time, and max-size with
-///   cooling rules only).
+///   the LARGEST size (diameter, length, thickness), the LOWEST conductivity k, every stage's
+///   h_range_W_m2K at the end conservative for each target (process/h_ends.hpp: the LOW end, except
+///   the HIGH end in a cooling stage for the lethality and minimum-temperature targets it affects;
+///   a stage naming medium_type is taken that way nominally already, so it adds no choice), and
+///   the COLDEST initial temperature for heating questions (hold-time, min-medium, and max-size
+///   when a lethality or minimum-temperature target exists) or the WARMEST for chilling
+///   (chill-time, and max-size with cooling rules only).
+/// deviation --conservative uses the same choices (process/deviation_conservative.hpp).
 /// Which choice drove it: each choice is applied alone and the question re-solved; the choice whose
 /// answer alone is the least favourable (longest time, smallest size, highest medium) is named.
 #include <array>
+#include <functional>
 #include <optional>
 #include <string>
 #include <vector>
@@ -32,6 +36,9 @@ struct RangeChoice {
 
 /// The choices for question q (see above). Empty when no range applies.
 std::vector<RangeChoice> worst_case_choices(Question q, const Scenario& s, const Ranges& r);
+/// The same with the initial-temperature direction given (`heating`: the coldest start) and the
+/// size ranges included or not.
+std::vector<RangeChoice> worst_case_choices(const Scenario& s, const Ranges& r, bool heating, bool sizes);
 
 struct ChoiceAnswer {
   std::string label;

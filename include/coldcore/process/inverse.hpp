@@ -29,6 +29,7 @@
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
+#include "coldcore/process/h_ends.hpp"
 #include "coldcore/process/schedule.hpp"
 #include "coldcore/process/solve.hpp"
 #include "coldcore/process/targets.hpp"
@@ -42,6 +43,9 @@ struct Scenario {
   std::vector<Stage> stages;
   std::vector<Target> targets;
   std::string origin = "product";  ///< for messages
+  /// Parallel to stages (or empty): a stage with a range takes, for each target, the end that is
+  /// conservative for it (process/h_ends.hpp); its h_W_m2K is then replaced at evaluation.
+  std::vector<std::optional<StageHRange>> per_target_h = {};
 };
 
 struct Libraries {
@@ -50,21 +54,41 @@ struct Libraries {
   const CookingTables* cooking = nullptr;      ///< needed only by cooking-table targets
 };
 
+/// One scenario of h choices and the targets evaluated on it (process/h_ends.hpp).
+struct HScenarioRun {
+  std::vector<int> targets;
+  std::vector<HChoice> choices;
+  History history;
+};
+
 /// One forward run: history, assessment and the process margin over `considered` targets.
 struct Evaluation {
+  /// The history of the (first) scenario; with per-target h ranges that split the targets, the
+  /// scenario of the first target's group (the others in h_scenarios).
   History history;
   Assessment assessment;
   double margin = 0;          ///< min over considered targets (> 0 iff all considered are met)
   bool all_met = false;       ///< every target (considered or not) met
   bool considered_met = false;
+  /// Filled only when the targets were split over two or more h scenarios; then every target's
+  /// result comes from the scenario holding it (target_scenario[i] indexes h_scenarios).
+  std::vector<HScenarioRun> h_scenarios;
+  std::vector<int> target_scenario;
+  /// Which h each per-target-range stage took, for which targets and why (also when not split).
+  std::vector<std::string> h_notes;
 };
 
 /// Margin of one target result as described above.
 double target_margin(const TargetResult& r);
 
-/// Runs simulate + assess. `considered`: indices of targets entering the margin (empty = all).
+/// Runs simulate + assess, once per h scenario (Scenario::per_target_h, process/h_ends.hpp).
+/// `considered`: indices of targets entering the margin (empty = all).
 Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<int>& considered = {},
                     const HistoryOptions& hopts = {});
+
+/// Adds to `notes` (once each) which h every per-target-range stage took and, when the targets
+/// were split over h scenarios, that the result is the least favourable over them.
+void add_h_notes(const Evaluation& e, std::vector<std::string>& notes);
 
 /// Engine options used while SEARCHING (root-finder trials, stage classification, bracket
 /// guesses): tol_K 1e-3 K, sample_tol_K 0.05 K — a brick costs far less at these. Answers are

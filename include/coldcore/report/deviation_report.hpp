@@ -7,15 +7,23 @@
 ///        "delivered_log_reduction", "verdict", "scheduled_verdict", "delivered_margin", ...}],
 ///        "all_met_delivered", "extra_hold_s" (rounded up, to use; null when none), "extra_hold_unrounded_s",
 ///        "extension_medium_C", "restored": {...}, "record": {...}, "disposition", "notes", "assumptions",
-///        "warnings", "provenance", "cautions"}
+///        "warnings", "provenance", "cautions",
+///        "conservative" (with --conservative): {"choices", "initial_reason", "targets": [{"name",
+///        "kind", "scheduled_F_min", "delivered_F_min", "verdict", "delivered_margin", ...}],
+///        "all_met_delivered", "extra_hold_s", "extra_hold_unrounded_s", "extra_hold_note",
+///        "alone": [{"choice", "all_met_delivered", "least_margin", "extra_hold_s"}], "driven_by",
+///        "notes", "assumptions"}}
 /// csv: '# ' comment lines (cautions, record, provenance), then one row per target:
 ///        target,kind,scheduled_F_min,delivered_F_min,scheduled_log_reduction,delivered_log_reduction,verdict
+///      with --conservative: '# conservative ...' comment lines (choices, extra hold, driver), a last
+///      column `case` ("nominal" | "conservative") and one more row per target for the worst case.
 /// Shown F and log reductions are rounded DOWN, extra time UP.
 #include <iosfwd>
 #include <string>
 #include <vector>
 
 #include "coldcore/process/deviation.hpp"
+#include "coldcore/process/deviation_conservative.hpp"
 #include "coldcore/report/format.hpp"
 #include "coldcore/report/run_report.hpp"
 
@@ -28,6 +36,8 @@ struct DeviationRecordInfo {
   std::string probe_log, probe_log_sha256;
   std::vector<KeyValue> provenance;   ///< tool, input, SHA-256s, date
   std::vector<std::string> warnings;
+  /// --conservative: the worst case beside the nominal result (JSON key "conservative"); not owned.
+  const process::ConservativeDeviation* conservative = nullptr;
 };
 
 /// The sentence every deviation output carries.

@@ -7,6 +7,7 @@
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/report/assessment.hpp"
 #include "coldcore/io/product_file.hpp"
+#include "coldcore/process/inverse.hpp"
 #include "coldcore/report/run_report.hpp"
 
 namespace coldcore {
@@ -31,6 +32,16 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
 /// report's rows, the required F lines and the cooling-rule boxes for the plots.
 void add_assessment(RunReport& report, const History& history, const Assessment& assessment,
                     const std::vector<Target>& targets);
+/// The same with each target's own history (the h scenario it was evaluated on,
+/// process/h_ends.hpp): history_of[i] for assessment.targets[i]. The report's rows and plots show
+/// the first target's scenario. REQUIRES history_of.size() == assessment.targets.size().
+void add_assessment(RunReport& report, const std::vector<const History*>& history_of, const Assessment& assessment,
+                    const std::vector<Target>& targets);
+
+/// Which h each per-target-range stage used, for which targets and why, as report assumptions
+/// (every format shows them); when the targets were split, also that the shown history is the
+/// first target's scenario and each verdict comes from its own.
+void add_h_assumptions(RunReport& report, const process::Evaluation& e);
 
 /// Verdict row of one target, shared by every verb that reports targets.
 VerdictRow verdict_row(const TargetResult& t);

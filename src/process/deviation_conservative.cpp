@@ -1,0 +1,89 @@
+#include "coldcore/process/deviation_conservative.hpp"
+
+#include <algorithm>
+#include <limits>
+
+#include "coldcore/error.hpp"
+
+namespace coldcore::process {
+
+namespace {
+
+double least_margin(const DeviationResult& r) {
+  double m = std::numeric_limits<double>::infinity();
+  for (const auto& t : r.targets) m = std::min(m, target_margin(t.delivered));
+  return m;
+}
+
+/// How much extra hold a result needs; none computable because nothing restores it: +inf.
+double hold_need(const DeviationResult& r) {
+  if (r.extra_hold_s) return *r.extra_hold_s;
+  if (r.extra_hold_note.rfind("no extension", 0) == 0) return std::numeric_limits<double>::infinity();
+  return 0;
+}
+
+}  // namespace
+
+std::vector<RangeChoice> deviation_worst_case_choices(const DeviationInput& in, const Ranges& r, std::string* reason) {
+  const Scenario& s = in.scheduled;
+  bool has_rule = false;
+  for (const auto& t : s.targets) has_rule = has_rule || t.kind == TargetKind::cooling_rule;
+  const bool stage_ok = in.stage >= 0 && in.stage < static_cast<int>(s.stages.size());
+  const bool heats = stage_ok && heating_stage(s, static_cast<std::size_t>(in.stage));
+  const bool heating = heats || !has_rule;
+  if (reason != nullptr && r.initial_C) {
+    const std::string st = stage_ok ? "\"" + s.stages[static_cast<std::size_t>(in.stage)].name + "\"" : "(none)";
+    *reason = heats ? "the deviated stage " + st + " heats: a colder start delivers less lethality"
+          : heating ? "the deviated stage " + st + " cools but no cooling rule is among the targets: the coldest "
+                      "start is the conservative one for the lethality and minimum-temperature targets"
+                    : "the deviated stage " + st + " cools and a cooling rule is among the targets: a warmer start "
+                      "cools later";
+  }
+  return worst_case_choices(s, r, heating, true);
+}
+
+ConservativeDeviation evaluate_deviation_conservative(const DeviationInput& in, const Ranges& r, const Libraries& libs,
+                                                      const DeviationOptions& o) {
+  if (!in.medium_log)
+    throw InputError("deviation --conservative: needs --medium-log; a measured probe log does not depend on the "
+                     "file's ranges");
+  ConservativeDeviation out;
+  const auto choices = deviation_worst_case_choices(in, r, &out.initial_reason);
+  if (choices.empty())
+    throw InputError(in.scheduled.origin + ": --conservative: the file gives no range that applies to the deviation "
+                     "([product.ranges] or h_range_W_m2K; a medium_type stage is already taken at the end "
+                     "conservative for each target)");
+  DeviationInput base = in;  // the probe is a measurement: not re-evaluated under the ranges
+  base.probe_time_s.clear();
+  base.probe_temp_C.clear();
+  DeviationInput all = base;
+  for (const auto& c : choices) {
+    out.choices.push_back(c.label);
+    c.apply(all.scheduled);
+  }
+  out.result = evaluate_deviation(all, libs, o);
+  out.result.assumptions.push_back("worst case of the file's ranges: every choice applied together to the scheduled "
+                                   "process, and the same medium log replayed on it");
+  double worst_hold = -1, worst_margin = std::numeric_limits<double>::infinity();
+  for (const auto& c : choices) {
+    DeviationInput one = base;
+    c.apply(one.scheduled);
+    const DeviationResult d = evaluate_deviation(one, libs, o);
+    DeviationChoiceResult a;
+    a.label = c.label;
+    a.all_met_delivered = d.all_met_delivered;
+    a.least_margin = least_margin(d);
+    a.extra_hold_s = d.extra_hold_s;
+    a.extra_hold_note = d.extra_hold_note;
+    const double need = hold_need(d);
+    if (need > worst_hold || (need == worst_hold && a.least_margin < worst_margin)) {
+      worst_hold = need;
+      worst_margin = a.least_margin;
+      out.driven_by = c.label;
+    }
+    out.alone.push_back(std::move(a));
+  }
+  return out;
+}
+
+}  // namespace coldcore::process

@@ -1,0 +1,117 @@
+#include "coldcore/process/h_ends.hpp"
+
+#include <algorithm>
+
+#include "coldcore/process/inverse.hpp"
+
+#include "process/detail/inverse_text.hpp"
+
+namespace coldcore::process {
+
+namespace {
+
+using detail::is_lethality;
+using detail::num;
+
+double medium_min(const Stage& s) {
+  double m = 1e300;
+  for (const auto& p : s.medium.points) m = std::min(m, p.temp_C);
+  return m;
+}
+double medium_max(const Stage& s) {
+  double m = -1e300;
+  for (const auto& p : s.medium.points) m = std::max(m, p.temp_C);
+  return m;
+}
+
+bool credits(const Target& t, const std::string& stage) {
+  return t.stages.empty() || std::find(t.stages.begin(), t.stages.end(), stage) != t.stages.end();
+}
+
+/// A lethality target credits stage i or a later one: the h of cooling stage i then matters to it.
+bool credits_from(const Scenario& s, const Target& t, std::size_t i) {
+  for (std::size_t j = i; j < s.stages.size(); ++j)
+    if (credits(t, s.stages[j].name)) return true;
+  return false;
+}
+
+HChoice choose(const Scenario& s, std::size_t i, const Target* t) {
+  const StageHRange& r = *s.per_target_h[i];
+  HChoice c;
+  c.stage = i;
+  const auto low = [&](std::string why) { c.end = HEnd::low; c.h_W_m2K = r.low_W_m2K; c.why = std::move(why); };
+  const auto high = [&](std::string why) { c.end = HEnd::high; c.h_W_m2K = r.high_W_m2K; c.why = std::move(why); };
+  if (heating_stage(s, i)) {
+    if (t != nullptr && t->kind == TargetKind::cooling_rule)
+      low("a heating stage; the cooling rule is timed in the cooling stages and the low end is kept for it");
+    else
+      low("slower heating, conservative for lethality and minimum temperatures");
+    return c;
+  }
+  if (t == nullptr || t->kind == TargetKind::cooling_rule) {
+    low("slower cooling, conservative for a cooling rule");
+  } else if (is_lethality(t->kind)) {
+    if (credits_from(s, *t, i))
+      high("a cooling stage credited by this lethality target: faster cooling, less lethality accrues, "
+           "conservative for it");
+    else
+      low("a cooling stage this lethality target does not credit (nor any stage after it): its h does not "
+          "change the target");
+  } else {
+    high("a cooling stage: faster cooling shortens the time at or above the temperature, conservative for it");
+  }
+  return c;
+}
+
+bool same(const std::vector<HChoice>& a, const std::vector<HChoice>& b) {
+  if (a.size() != b.size()) return false;
+  for (std::size_t k = 0; k < a.size(); ++k)
+    if (a[k].stage != b[k].stage || a[k].end != b[k].end) return false;
+  return true;
+}
+
+}  // namespace
+
+bool heating_stage(const Scenario& s, std::size_t i) {
+  const double before = i == 0 ? s.product.initial_C : medium_min(s.stages[i - 1]);
+  return medium_max(s.stages[i]) >= before;
+}
+
+std::vector<HChoice> h_choices_for(const Scenario& s, int t) {
+  std::vector<HChoice> out;
+  const Target* target = t >= 0 ? &s.targets.at(static_cast<std::size_t>(t)) : nullptr;
+  for (std::size_t i = 0; i < s.per_target_h.size() && i < s.stages.size(); ++i)
+    if (s.per_target_h[i] && !s.stages[i].h_infinite) out.push_back(choose(s, i, target));
+  return out;
+}
+
+std::vector<TargetGroup> group_targets_by_h(const Scenario& s) {
+  std::vector<TargetGroup> g;
+  if (s.targets.empty()) {
+    g.push_back({{}, h_choices_for(s, -1)});
+    return g;
+  }
+  for (std::size_t t = 0; t < s.targets.size(); ++t) {
+    auto c = h_choices_for(s, static_cast<int>(t));
+    auto it = std::find_if(g.begin(), g.end(), [&](const TargetGroup& x) { return same(x.choices, c); });
+    if (it == g.end()) g.push_back({{static_cast<int>(t)}, std::move(c)});
+    else it->targets.push_back(static_cast<int>(t));
+  }
+  return g;
+}
+
+Scenario apply_h_choices(const Scenario& s, const std::vector<HChoice>& choices) {
+  Scenario c = s;
+  for (const auto& ch : choices) c.stages.at(ch.stage).h_W_m2K = ch.h_W_m2K;
+  c.per_target_h.clear();
+  return c;
+}
+
+std::string describe(const Scenario& s, const HChoice& c) {
+  const StageHRange& r = *s.per_target_h.at(c.stage);
+  return "stage \"" + s.stages.at(c.stage).name + "\": h " + num(c.h_W_m2K) + " W/m2K, the " +
+         (c.end == HEnd::low ? "low" : "high") + " end of " + num(r.low_W_m2K) + "-" + num(r.high_W_m2K) +
+         (r.label.empty() ? "" : " (" + r.label + ")") + ": " + c.why;
+}
+
+}  // namespace coldcore::process
