@@ -79,13 +79,16 @@ void record_section(RichDoc& d, const DeviationResult& r, const DeviationRecordI
 void comparison_section(RichDoc& d, const DeviationResult& r) {
   d.section_begin("comparison", r.delivered ? "Scheduled against delivered (model with the logged medium)"
                                             : "Scheduled against delivered (measured probe log)");
-  TextTable t = {{"target", "kind", "F scheduled", "F delivered", "log reduction scheduled",
-                  "log reduction delivered", "required", "delivered margin", "scheduled verdict", "delivered verdict"}};
+  TextTable t = {{"target", "F scheduled → delivered", "log reduction scheduled → delivered", "required",
+                  "delivered margin", "verdict as scheduled", "verdict as delivered"}};
   std::vector<bool> met;
   for (const auto& tg : r.targets) {
-    t.push_back({tg.name, std::string(to_string(tg.kind)), tg.lethality ? min_down(tg.scheduled_F_s) : "-",
-                 tg.lethality ? min_down(tg.delivered_F_s) : "-", logs_down(tg.scheduled_logs),
-                 logs_down(tg.delivered_logs), tg.delivered.required_text, detail::margin_cell(tg.delivered),
+    t.push_back({tg.name + " (" + std::string(to_string(tg.kind)) + ")",
+                 tg.lethality ? min_down(tg.scheduled_F_s) + " → " + min_down(tg.delivered_F_s) : "-",
+                 tg.scheduled_logs || tg.delivered_logs
+                     ? logs_down(tg.scheduled_logs) + " → " + logs_down(tg.delivered_logs)
+                     : "-",
+                 tg.delivered.required_text, detail::margin_cell(tg.delivered),
                  std::string(verdict_word(tg.scheduled.verdict == Verdict::met)),
                  std::string(verdict_word(tg.verdict == Verdict::met))});
     met.push_back(tg.verdict == Verdict::met);
