@@ -170,6 +170,7 @@ void write_deviation_doc(RichDoc& d, const DeviationResult& r, const DeviationRe
   probe_section(d, r);
   extra_hold_section(d, r, u);
   plot_section(d, r, i, u);
+  // A conservative worst-case section belongs here, as one more function of (d, r, i, u).
   notes_section(d, r);
   disposition_section(d);
   closing_sections(d, r, i);

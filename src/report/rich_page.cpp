@@ -47,7 +47,7 @@ table.sign-off td.line { border-bottom: 1px solid #000000; width: 75%; }
 }  // namespace
 
 std::string margin_cell(const TargetResult& t) {
-  return t.margin > 0 ? t.margin_text : "shortfall " + t.margin_text;
+  return t.margin > 0 || t.margin_text == "-" ? t.margin_text : "shortfall " + t.margin_text;
 }
 
 TextTable target_table(const std::vector<TargetResult>& targets, std::vector<bool>& met) {

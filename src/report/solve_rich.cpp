@@ -1,6 +1,7 @@
 // Markdown and HTML answers of `coldcore solve`. The content is written once, a function per
 // section, into a RichDoc; html_doc / md_doc make the markup. Only formatting: every number is a
 // field of the SolveResult or of the verification re-run the solver made.
+#include <cctype>
 #include <sstream>
 
 #include "coldcore/report/cautions.hpp"
@@ -87,10 +88,14 @@ void verification_section(RichDoc& d, const SolveResult& r, TempUnit u) {
 
   if (r.one_unit_less) {
     d.section_begin("one-unit-less", "One unit less: re-run at " + detail::solve_shown(r, r.one_unit_less->value, u));
-    d.paragraph(std::string("The value one rounding unit on the unsafe side, re-run forward: ") +
-                (r.one_unit_less->eval.all_met ? "every target is still met (see the notes for why)."
-                                               : "not every target is met, so the answer is not more than one "
-                                                 "unit from the limit."));
+    if (r.end_C)  // chill-time: the end temperature decides; the targets are shown beside it
+      d.paragraph("The duration one rounding unit shorter, re-run forward; the end temperature below says whether "
+                  "it is still reached.");
+    else
+      d.paragraph(std::string("The value one rounding unit on the unsafe side, re-run forward: ") +
+                  (r.one_unit_less->eval.considered_met
+                       ? "every target solved for is still met (see the notes for why)."
+                       : "not every target solved for is met, so the answer is within one unit of the limit."));
     check_table(d, *r.one_unit_less);
     if (r.end_C && r.end_at_less_C) d.paragraph(end_line(r, *r.end_at_less_C, u));
     d.section_end();
@@ -105,6 +110,7 @@ void plot_section(RichDoc& d, const SolveReportContext& c, TempUnit u) {
   if (!c.verification_plot) return;
   auto figures = detail::run_figures(*c.verification_plot, u);
   for (auto& f : figures) {
+    if (!f.plot.title.empty()) f.plot.title[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(f.plot.title[0])));
     f.plot.title = "Verification re-run: " + f.plot.title;
     f.caption = "The forward re-run at the answer to use. " + f.caption;
   }

@@ -187,6 +187,9 @@ cli_expect(solve_hold_kofta_html 0 ARGS solve products/kofta-balls.toml --for ho
                       "<td class=\"verdict-met\">met</td>" "One unit less: re-run at 13 min 00 s (780 s)"
                       "<td class=\"verdict-not\">not demonstrated</td>" "<figure id=\"figure-lethality\">"
                       "<td>date</td><td>2026-12-01</td>" "id=\"cautions\"")
+cli_expect(solve_chill_sausage_html 0 ARGS solve products/chicken-sausage-log.toml --for chill-time --format html
+           STDOUT_HAS "(end temperature 4.00 °C: reached)" "(end temperature 4.00 °C: not reached)"
+                      "The duration one rounding unit shorter")
 cli_expect(solve_md_needs_out 2 ARGS solve products/kofta-balls.toml --for hold-time --format md
            STDERR_HAS "give --out PATH.md")
 cli_expect(solve_min_medium_sausage_html_F 0 ARGS solve products/chicken-sausage-log.toml --for min-medium --format html
