@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # Regenerates the example reports: one HTML and one Markdown report (with its SVG plots) per
-# demo product, and one for the invented probe log. The date is fixed so that the same inputs
-# give byte-identical files (tests/cli/reports_current.cmake checks the committed ones).
+# demo product, one for the invented probe log, one `solve` answer and one `deviation` record.
+# The date is fixed so that the same inputs give byte-identical files
+# (tests/cli/reports_current.cmake checks the committed ones).
 # usage: scripts/make_reports.sh COLDCORE_BINARY OUT_DIR     (run from anywhere)
 set -euo pipefail
 cc="$(cd "$(dirname "$1")" && pwd)/$(basename "$1")"
@@ -21,3 +22,10 @@ done
   --rule two-stage-6h --format html --out "$out/kofta-probe.html" --date "$date" || [ $? -eq 1 ]
 "$cc" probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --target-log 6 \
   --rule two-stage-6h --format md --out "$out/kofta-probe.md" --date "$date" || [ $? -eq 1 ]
+# An inverse answer (with the worst case of the file's ranges) and a deviation record.
+for fmt in html md; do
+  "$cc" solve products/kofta-balls.toml --for hold-time --conservative \
+    --format "$fmt" --out "$out/kofta-balls-solve.$fmt" --date "$date" || [ $? -eq 1 ]
+  "$cc" deviation products/corned-beef-can.toml --medium-log products/logs/corned-beef-hold-deviation.csv \
+    --lot CB-0412 --format "$fmt" --out "$out/corned-beef-can-deviation.$fmt" --date "$date" || [ $? -eq 1 ]
+done

@@ -1,5 +1,6 @@
 // coldcore deviation FILE --medium-log LOG.csv [--stage NAME] [--probe-log LOG.csv] [--lot ID] [--conservative]
 #include <ctime>
+#include <filesystem>
 #include <memory>
 #include <optional>
 
@@ -14,6 +15,7 @@
 #include "coldcore/process/deviation.hpp"
 #include "coldcore/process/deviation_conservative.hpp"
 #include "coldcore/report/deviation_report.hpp"
+#include "coldcore/report/run_builder.hpp"
 #include "coldcore/version.hpp"
 
 namespace coldcore::cli {
@@ -28,9 +30,11 @@ struct DeviationArgs {
   OutputArgs output;
 };
 
-int run_deviation(const DeviationArgs& a, std::ostream& out) {
-  const Format f = parse_format(a.output.format, {Format::text, Format::json, Format::csv});
+int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side) {
+  const Format f = parse_format(a.output.format, {Format::text, Format::md, Format::html, Format::json, Format::csv});
   const TempUnit u = parse_temp_unit(a.output.units);
+  if (f == Format::md && a.output.out.empty())
+    throw InputError("--format md writes its plots as SVG files beside the report: give --out PATH.md");
   if (a.medium_log.empty() && a.probe_log.empty())
     throw InputError("deviation: give --medium-log LOG.csv and/or --probe-log LOG.csv");
   if (!(a.tolerance_K > 0)) throw InputError("--tolerance-K = " + std::to_string(a.tolerance_K) + ": must be > 0");
@@ -81,7 +85,27 @@ int run_deviation(const DeviationArgs& a, std::ostream& out) {
                      {"date", a.date.empty() ? today_utc() : a.date}};
   const auto lib_rows = library_provenance(libs);
   info.provenance.insert(info.provenance.end() - 1, lib_rows.begin(), lib_rows.end());
+  // The rich formats plot the runs evaluate_deviation already made (sampled, not re-run).
+  std::optional<RunReport> sched_plot, deliv_plot;
+  if (f == Format::md || f == Format::html) {
+    sched_plot = build_rerun_report(r.scheduled.history, r.scheduled.assessment, in.scheduled.targets, a.output.step_s);
+    info.scheduled_plot = &*sched_plot;
+    if (r.delivered) {
+      deliv_plot = build_rerun_report(r.delivered->history, r.delivered->assessment, in.scheduled.targets,
+                                      a.output.step_s);
+      info.delivered_plot = &*deliv_plot;
+    }
+    info.probe_time_s = in.probe_time_s;
+    info.probe_temp_C = in.probe_temp_C;
+  }
   switch (f) {
+    case Format::html: write_deviation_html(r, info, out, u); break;
+    case Format::md: {
+      MarkdownReport md = write_deviation_markdown(r, info, u, std::filesystem::path(a.output.out).stem().string());
+      out << md.markdown;
+      side = std::move(md.svg_files);
+      break;
+    }
     case Format::json: write_deviation_json(r, info, out, u); break;
     case Format::csv: write_deviation_csv(r, info, out, u); break;
     default: write_deviation_text(r, info, out, u); break;
@@ -107,9 +131,12 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
                 "also evaluate the deviation at the documented worst case of the file's ranges and name the choice that drove it");
   sub->add_option("--library", args->library, "folder with organisms.toml and cooling-rules.toml");
   sub->add_option("--date", args->date, "record date, YYYY-MM-DD (default: today, UTC)");
-  add_output_options(*sub, args->output);
+  add_output_options(*sub, args->output, /*with_step=*/true);
   sub->callback([&ctx, args] {
-    ctx.run = [args] { return with_output(args->output, [&](std::ostream& out) { return run_deviation(*args, out); }); };
+    ctx.run = [args] {
+      return with_output(args->output,
+                         [&](std::ostream& out, SideFiles& side) { return run_deviation(*args, out, side); });
+    };
   });
 }
 

@@ -1,5 +1,6 @@
 // coldcore solve FILE --for hold-time|chill-time|max-size|min-medium: inverse questions.
 #include <ctime>
+#include <filesystem>
 #include <memory>
 
 #include "cli/library_files.hpp"
@@ -10,6 +11,7 @@
 #include "coldcore/io/scenario.hpp"
 #include "coldcore/process/conservative.hpp"
 #include "coldcore/process/inverse.hpp"
+#include "coldcore/report/run_builder.hpp"
 #include "coldcore/report/solve_report.hpp"
 #include "coldcore/version.hpp"
 
@@ -40,9 +42,11 @@ process::Question parse_question(const std::string& s) {
   throw InputError("--for = " + s + ": must be hold-time, chill-time, max-size or min-medium");
 }
 
-int run_solve(const SolveArgs& a, std::ostream& out) {
-  const Format f = parse_format(a.output.format, {Format::text, Format::json, Format::csv});
+int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side) {
+  const Format f = parse_format(a.output.format, {Format::text, Format::md, Format::html, Format::json, Format::csv});
   const TempUnit u = parse_temp_unit(a.output.units);
+  if (f == Format::md && a.output.out.empty())
+    throw InputError("--format md writes its plots as SVG files beside the report: give --out PATH.md");
   const process::Question q = parse_question(a.question);
   if (!(a.round_min > 0)) throw InputError("--round-min = " + std::to_string(a.round_min) + ": must be > 0");
   if (!(a.round_mm > 0)) throw InputError("--round-mm = " + std::to_string(a.round_mm) + ": must be > 0");
@@ -75,7 +79,20 @@ int run_solve(const SolveArgs& a, std::ostream& out) {
                   {"date", a.date.empty() ? today_utc() : a.date}};
   const auto lib_rows = library_provenance(libs);
   c.provenance.insert(c.provenance.end() - 1, lib_rows.begin(), lib_rows.end());
+  // The rich formats plot the verification re-run the solver already made (sampled, not re-run).
+  std::optional<RunReport> plot;
+  if (f == Format::md || f == Format::html) {
+    plot = build_rerun_report(r.verification.eval.history, r.verification.eval.assessment, s.targets, a.output.step_s);
+    c.verification_plot = &*plot;
+  }
   switch (f) {
+    case Format::html: write_solve_html(r, c, out, u); break;
+    case Format::md: {
+      MarkdownReport md = write_solve_markdown(r, c, u, std::filesystem::path(a.output.out).stem().string());
+      out << md.markdown;
+      side = std::move(md.svg_files);
+      break;
+    }
     case Format::json: write_solve_json(r, c, out, u); break;
     case Format::csv: write_solve_csv(r, c, out, u); break;
     default: write_solve_text(r, c, out, u); break;
@@ -106,9 +123,12 @@ void add_solve_verb(CLI::App& app, VerbContext& ctx) {
                 "also solve the documented worst case of the file's ranges and name the choice that drove it");
   sub->add_option("--library", args->library, "folder with organisms.toml and cooling-rules.toml");
   sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
-  add_output_options(*sub, args->output);
+  add_output_options(*sub, args->output, /*with_step=*/true);
   sub->callback([&ctx, args] {
-    ctx.run = [args] { return with_output(args->output, [&](std::ostream& out) { return run_solve(*args, out); }); };
+    ctx.run = [args] {
+      return with_output(args->output,
+                         [&](std::ostream& out, SideFiles& side) { return run_solve(*args, out, side); });
+    };
   });
 }
 

@@ -157,6 +157,36 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
   return r;
 }
 
+RunReport build_rerun_report(const History& history, const Assessment& assessment,
+                             const std::vector<Target>& targets, double step_s) {
+  if (!(step_s > 0) || !std::isfinite(step_s))
+    throw InputError("--step-s = " + fixed(step_s, 3) + ": must be > 0");
+  RunReport r;
+  for (const StageRecord& rec : history.stages) {
+    StageRow row;
+    row.name = rec.name;
+    row.start_s = rec.start_s;
+    row.end_s = rec.end_s;
+    row.ended_by = ended_by_text(rec.ended_by);
+    row.h_W_m2K = rec.h_W_m2K;
+    row.biot = rec.biot;
+    row.centre_C = rec.at_end.centre_C;
+    row.surface_C = rec.at_end.surface_C;
+    row.mean_C = rec.at_end.mean_C;
+    r.stages.push_back(row);
+  }
+  r.history.columns = {{"time_s", false}, {"medium_C", true}, {"centre_C", true}, {"surface_C", true}, {"mean_C", true}};
+  if (history.evaluate)
+    for (double t : output_times(history, step_s)) {
+      const HistorySample s = history.evaluate(t);
+      r.history.rows.push_back({t, s.medium_C, s.centre_C, s.surface_C, s.mean_C});
+    }
+  add_assessment(r, history, assessment, targets);
+  r.warnings.clear();  // the verbs list the run's warnings themselves
+  r.cautions = cautions();
+  return r;
+}
+
 }  // namespace coldcore
 
 namespace coldcore {

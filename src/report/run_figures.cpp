@@ -18,45 +18,6 @@ namespace {
 using svg::Dash;
 namespace oi = svg::okabe_ito;
 
-std::optional<size_t> column_index(const HistoryTable& h, std::string_view name) {
-  for (size_t i = 0; i < h.columns.size(); ++i)
-    if (h.columns[i].name == name) return i;
-  return std::nullopt;
-}
-
-bool is_f_column(std::string_view n) {
-  return n.size() > 6 && n.substr(0, 2) == "F_" && n.substr(n.size() - 4) == "_min";
-}
-
-std::string f_name(std::string_view column) { return std::string(column.substr(2, column.size() - 6)); }
-
-std::vector<double> column_values(const HistoryTable& h, size_t i, bool temperature, TempUnit u) {
-  std::vector<double> v;
-  v.reserve(h.rows.size());
-  for (const auto& row : h.rows) {
-    const double x = i < row.size() ? row[i] : std::numeric_limits<double>::quiet_NaN();
-    v.push_back(temperature ? display_temp(x, u) : x);
-  }
-  return v;
-}
-
-// Minutes for processes up to 3 h, hours beyond: readable tick labels either way.
-struct TimeScale {
-  double seconds_per_unit;
-  std::string label;
-};
-
-TimeScale time_scale(const RunReport& r) {
-  double end_s = 0;
-  if (auto t = column_index(r.history, "time_s"))
-    for (const auto& row : r.history.rows)
-      if (*t < row.size() && std::isfinite(row[*t])) end_s = std::max(end_s, row[*t]);
-  for (const auto& s : r.stages) end_s = std::max(end_s, s.end_s);
-  for (const auto& b : r.rule_boxes) end_s = std::max(end_s, b.t1_s);
-  if (end_s <= 3 * 3600.0) return {60.0, "time since process start (min)"};
-  return {3600.0, "time since process start (h)"};
-}
-
 struct CurveStyle {
   const char* column;
   const char* legend;
@@ -130,6 +91,46 @@ std::string biot_text(const StageRow& s) {
 }
 
 }  // namespace
+
+std::optional<size_t> column_index(const HistoryTable& h, std::string_view name) {
+  for (size_t i = 0; i < h.columns.size(); ++i)
+    if (h.columns[i].name == name) return i;
+  return std::nullopt;
+}
+
+bool is_f_column(std::string_view n) {
+  return n.size() > 6 && n.substr(0, 2) == "F_" && n.substr(n.size() - 4) == "_min";
+}
+
+std::string f_name(std::string_view column) { return std::string(column.substr(2, column.size() - 6)); }
+
+std::vector<double> column_values(const HistoryTable& h, size_t i, bool temperature, TempUnit u) {
+  std::vector<double> v;
+  v.reserve(h.rows.size());
+  for (const auto& row : h.rows) {
+    const double x = i < row.size() ? row[i] : std::numeric_limits<double>::quiet_NaN();
+    v.push_back(temperature ? display_temp(x, u) : x);
+  }
+  return v;
+}
+
+double report_end_s(const RunReport& r) {
+  double end_s = 0;
+  if (auto t = column_index(r.history, "time_s"))
+    for (const auto& row : r.history.rows)
+      if (*t < row.size() && std::isfinite(row[*t])) end_s = std::max(end_s, row[*t]);
+  for (const auto& s : r.stages) end_s = std::max(end_s, s.end_s);
+  for (const auto& b : r.rule_boxes) end_s = std::max(end_s, b.t1_s);
+  return end_s;
+}
+
+// Minutes for processes up to 3 h, hours beyond: readable tick labels either way.
+TimeScale time_scale_for(double end_s) {
+  if (end_s <= 3 * 3600.0) return {60.0, "time since process start (min)"};
+  return {3600.0, "time since process start (h)"};
+}
+
+TimeScale time_scale(const RunReport& r) { return time_scale_for(report_end_s(r)); }
 
 std::string display_column_name(const Column& c, TempUnit u) {
   if (!c.temperature || u == TempUnit::C) return c.name;

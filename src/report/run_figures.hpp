@@ -2,7 +2,9 @@
 // Content shared by the html and markdown writers: the plots built from a RunReport, the
 // "Reading this report" paragraphs and the formatted table cells. Plain text here; each writer
 // escapes for its own markup.
+#include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "coldcore/report/run_report.hpp"
@@ -19,6 +21,22 @@ struct RunFigure {
 /// The plots the history supports: temperatures (if time_s and a temperature column exist),
 /// cumulative lethality (if F_*_min columns exist), cooling (if rule_boxes exist).
 std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u);
+
+/// History-table helpers for the figure builders.
+std::optional<size_t> column_index(const HistoryTable& h, std::string_view name);
+bool is_f_column(std::string_view name);          ///< "F_<name>_min"
+std::string f_name(std::string_view f_column);    ///< "F_F70_min" -> "F70"
+/// Column i as plotted: temperatures converted to `u`, NaN where a row is short.
+std::vector<double> column_values(const HistoryTable& h, size_t i, bool temperature, TempUnit u);
+
+struct TimeScale {
+  double seconds_per_unit;
+  std::string label;
+};
+/// Last time the report shows: history, stage ends, rule-box deadlines (s).
+double report_end_s(const RunReport& r);
+TimeScale time_scale_for(double end_s);  ///< minutes up to 3 h, hours beyond
+TimeScale time_scale(const RunReport& r);
 
 /// "Reading this report" in plain words, one paragraph per string.
 std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u);

@@ -4,6 +4,7 @@
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
 #include "coldcore/report/solve_report.hpp"
+#include "solve_text.hpp"
 
 namespace coldcore {
 
@@ -13,19 +14,8 @@ using process::Check;
 using process::Question;
 using process::SolveResult;
 
-/// The answer in display form: durations as h/min/s, sizes in mm, temperatures in --units.
-std::string shown(const SolveResult& r, double v, TempUnit u) {
-  if (r.unit == "s") return duration_text(v) + " (" + fixed(v, 0) + " s)";
-  if (r.unit == "m") return fixed(v * 1000.0, 3) + " mm";
-  return fixed(display_temp(v, u), 2) + " " + std::string(unit_symbol(u));
-}
-
-/// Unrounded values are shown with enough digits to see the rounding went the safe way.
-std::string shown_raw(const SolveResult& r, double v, TempUnit u) {
-  if (r.unit == "s") return fixed(v, 2) + " s";
-  if (r.unit == "m") return fixed(v * 1000.0, 4) + " mm";
-  return fixed(display_temp(v, u), 4) + " " + std::string(unit_symbol(u));
-}
+std::string shown(const SolveResult& r, double v, TempUnit u) { return detail::solve_shown(r, v, u); }
+std::string shown_raw(const SolveResult& r, double v, TempUnit u) { return detail::solve_shown_raw(r, v, u); }
 
 void text_check(std::ostream& out, const SolveResult& r, const Check& c, const char* label, TempUnit u) {
   out << label << shown(r, c.value, u) << ": "
@@ -85,11 +75,7 @@ void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::os
       << (r.question == Question::min_medium ? " (lowest constant)" : "") << "\n";
   out << "  scheduled:        " << shown(r, r.nominal, u) << "\n";
   out << "  answer:           " << shown_raw(r, r.answer, u) << " (unrounded)\n";
-  out << "  use:              " << shown(r, r.rounded, u) << "  (rounded "
-      << (r.question == Question::max_size ? "down" : "up") << " to "
-      << (r.unit == "C" ? fixed(display_temp_difference(r.unit_step, u), 2) + " " + std::string(unit_symbol(u))
-                        : shown(r, r.unit_step, u))
-      << ")\n";
+  out << "  use:              " << shown(r, r.rounded, u) << "  (" << detail::solve_rounding_text(r, u) << ")\n";
   out << "  solved for:       ";
   for (std::size_t i = 0; i < r.considered.size(); ++i) out << (i ? ", " : "") << r.considered[i];
   out << "\n\nVERIFICATION (forward re-run)\n";

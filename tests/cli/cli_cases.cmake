@@ -215,14 +215,57 @@ if(NOT COLDCORE_SANITIZE)
                    -P ${PROJECT_SOURCE_DIR}/tests/cli/reports_current.cmake)
 endif()
 
+# solve and deviation as md and html: the verdict rows, the disposition statement, --units F.
+cli_expect(solve_hold_kofta_html 0 ARGS solve products/kofta-balls.toml --for hold-time --format html --date 2026-12-01
+           STDOUT_HAS "<h1>coldcore solve --for hold-time: shortest hold time"
+                      "Use 14 min 00 s (840 s) (rounded up to 1 min 00 s (60 s), toward the safe side)."
+                      "Verification: forward re-run at 14 min 00 s (840 s)"
+                      "<td>listeria-monocytogenes</td><td>log-reduction</td><td>6.00 log10</td>"
+                      "<td class=\"verdict-met\">met</td>" "One unit less: re-run at 13 min 00 s (780 s)"
+                      "<td class=\"verdict-not\">not demonstrated</td>" "<figure id=\"figure-lethality\">"
+                      "<td>date</td><td>2026-12-01</td>" "id=\"cautions\"")
+cli_expect(solve_chill_sausage_html 0 ARGS solve products/chicken-sausage-log.toml --for chill-time --format html
+           STDOUT_HAS "(end temperature 4.00 °C: reached)" "(end temperature 4.00 °C: not reached)"
+                      "The duration one rounding unit shorter")
+cli_expect(solve_md_needs_out 2 ARGS solve products/kofta-balls.toml --for hold-time --format md
+           STDERR_HAS "give --out PATH.md")
+cli_expect(solve_min_medium_sausage_html_F 0 ARGS solve products/chicken-sausage-log.toml --for min-medium --format html
+           --units F STDOUT_HAS "°F" "temperature (°F)" "rounded up to 0.90 °F")
+# 113.1 °C (the log's lowest reading) = 235.58 °F, 121.1 °C = 249.98 °F, an 8 K drop = 14.40 °F
+# (definition of the Fahrenheit scale).
+cli_expect(deviation_corned_html_F 0 ARGS deviation products/corned-beef-can.toml
+           --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 --format html --units F
+           STDOUT_HAS "<h1>coldcore deviation record: lot CB-0412" "<td>lowest medium temperature</td><td>235.58 °F"
+                      "(scheduled 249.98 °F)" "<td>14.40 °F</td>" "<td>deviation start</td><td>40 min 00 s (2400 s)"
+                      "<td>medium log SHA-256</td>" "is for the process authority to decide" "<td>Reviewer name</td>"
+                      "<td class=\"line\"> </td>" "class=\"verdict-met\">met<" "temperature (°F)")
+cli_expect(deviation_md_needs_out 2 ARGS deviation products/corned-beef-can.toml
+           --medium-log products/logs/corned-beef-hold-deviation.csv --format md STDERR_HAS "give --out PATH.md")
+# Same input and --date: the same bytes, in the report and in every SVG beside it.
+foreach(fmt md html)
+  add_test(NAME cli.solve_same_bytes_${fmt}
+           COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DWORK=${CMAKE_BINARY_DIR} -DNAME=solve-${fmt}
+                   -DOUT=answer.${fmt} "-DARGS=solve;products/kofta-balls.toml;--for;hold-time;--format;${fmt};--date;2026-12-01"
+                   -P ${PROJECT_SOURCE_DIR}/tests/cli/same_bytes.cmake
+           WORKING_DIRECTORY ${PROJECT_SOURCE_DIR})
+  add_test(NAME cli.deviation_same_bytes_${fmt}
+           COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DWORK=${CMAKE_BINARY_DIR} -DNAME=deviation-${fmt}
+                   -DOUT=record.${fmt}
+                   "-DARGS=deviation;products/kofta-balls.toml;--medium-log;products/logs/kofta-oven-deviation.csv;--format;${fmt};--date;2026-12-01"
+                   -P ${PROJECT_SOURCE_DIR}/tests/cli/same_bytes.cmake
+           WORKING_DIRECTORY ${PROJECT_SOURCE_DIR})
+endforeach()
+
 # A cooking time-temperature table as a target (FSIS Appendix A 7-log column, REFERENCES 1.4).
 cli_expect(run_cooking_table 0 ARGS run products/chicken-sausage-log.toml
            STDOUT_HAS "fsis-appendix-a-7-log" "instant row reached")
 
 # solve, deviation and media join the cautions walk below.
 list(APPEND COLDCORE_CAUTION_CASES
-     "solve|products/kofta-balls.toml --for hold-time|text,json,csv"
-     "deviation|products/kofta-balls.toml --medium-log products/logs/kofta-oven-deviation.csv|text,json,csv"
+     "solve|products/kofta-balls.toml --for hold-time|text,md,html,json,csv"
+     "solve|products/kofta-balls.toml --for hold-time --conservative --units F|md,html"
+     "deviation|products/kofta-balls.toml --medium-log products/logs/kofta-oven-deviation.csv|text,md,html,json,csv"
+     "deviation|products/kofta-balls.toml --probe-log products/logs/kofta-probe.csv --units F|md,html"
      "media|-|text,json,csv")
 
 # Every reporting verb in every format carries the cautions (one walk over verbs x formats).

@@ -1,5 +1,5 @@
 #pragma once
-/// Writers of `coldcore deviation`: the comparison and the deviation record (text, json, csv;
+/// Writers of `coldcore deviation`: the comparison and the deviation record (text, json, csv, md, html;
 /// cautions always; the statement that disposition is for the process authority always).
 ///
 /// JSON: {"lot", "stage", "deviation": {"found", "start_s", "end_s", "lowest_C", ...},
@@ -25,6 +25,7 @@
 #include "coldcore/process/deviation.hpp"
 #include "coldcore/process/deviation_conservative.hpp"
 #include "coldcore/report/format.hpp"
+#include "coldcore/report/markdown.hpp"
 #include "coldcore/report/run_report.hpp"
 
 namespace coldcore {
@@ -38,6 +39,12 @@ struct DeviationRecordInfo {
   std::vector<std::string> warnings;
   /// --conservative: the worst case beside the nominal result (JSON key "conservative"); not owned.
   const process::ConservativeDeviation* conservative = nullptr;
+  /// md/html plots (null or empty: that curve is not drawn). The scheduled and the delivered
+  /// (logged-medium) runs' own histories and assessments, sampled by build_rerun_report
+  /// (run_builder.hpp); the measured probe log as read (time from the process start, °C).
+  const RunReport* scheduled_plot = nullptr;
+  const RunReport* delivered_plot = nullptr;
+  std::vector<double> probe_time_s, probe_temp_C;
 };
 
 /// The sentence every deviation output carries.
@@ -46,5 +53,18 @@ const std::string& disposition_statement();
 void write_deviation_text(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
 void write_deviation_json(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
 void write_deviation_csv(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
+
+/// Self-contained HTML (inline CSS and SVG, nothing fetched; well-formed XML after the doctype):
+/// title with the lot; the deviation record (lot, deviated stage, deviation start/end, lowest
+/// medium, log files and their SHA-256, tool version, assumptions); per target scheduled against
+/// delivered F and log reductions with the delivered margin and verdicts; the additional time that
+/// restores the targets with its re-run; plots of scheduled against delivered medium and centre
+/// temperature and cumulative F when the plot data are set; notes; the disposition statement and
+/// printable lines for reviewer name, date and decision; warnings, provenance, the cautions box.
+/// Temperatures in `u`, F-values in minutes. Same input ⇒ same bytes.
+void write_deviation_html(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
+/// The same content as Markdown; plots as `<svg_basename>-<plot>.svg` files (see markdown.hpp).
+MarkdownReport write_deviation_markdown(const process::DeviationResult& r, const DeviationRecordInfo& i, TempUnit u,
+                                        std::string_view svg_basename);
 
 }  // namespace coldcore

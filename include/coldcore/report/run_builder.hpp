@@ -43,6 +43,15 @@ void add_assessment(RunReport& report, const std::vector<const History*>& histor
 /// first target's scenario and each verdict comes from its own.
 void add_h_assumptions(RunReport& report, const process::Evaluation& e);
 
+/// The report model of one forward re-run, for the plots of other verbs' rich reports (solve's
+/// verification, deviation's scheduled and delivered runs): stage rows from the history's own
+/// records (no medium text or Biot notes), the history sampled every `step_s` (> 0) and at every
+/// stage end, then add_assessment (F columns, required lines, rule boxes). No product rows,
+/// provenance or lumped-capacitance column. Sampling only: the history and assessment are the
+/// ones the process layer computed.
+RunReport build_rerun_report(const History& history, const Assessment& assessment,
+                             const std::vector<Target>& targets, double step_s = 60);
+
 /// Verdict row of one target, shared by every verb that reports targets.
 VerdictRow verdict_row(const TargetResult& t);
 

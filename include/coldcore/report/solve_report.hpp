@@ -1,5 +1,5 @@
 #pragma once
-/// Writers of `coldcore solve` answers: text, json, csv (cautions always). They format a
+/// Writers of `coldcore solve` answers: text, json, csv, md, html (cautions always). They format a
 /// process::SolveResult; nothing is recomputed.
 ///
 /// JSON: {"question", "stage", "quantity", "answer_<u>" (unrounded), "rounded_<u>" (to use),
@@ -17,6 +17,7 @@
 #include "coldcore/process/conservative.hpp"
 #include "coldcore/process/inverse.hpp"
 #include "coldcore/report/format.hpp"
+#include "coldcore/report/markdown.hpp"
 #include "coldcore/report/run_report.hpp"
 
 namespace coldcore {
@@ -27,11 +28,27 @@ struct SolveReportContext {
   std::vector<std::string> warnings;  ///< file warnings
   /// --conservative: the worst case beside the nominal answer (JSON key "conservative").
   const process::ConservativeSolve* conservative = nullptr;
+  /// md/html plots: the verification re-run's own history and assessment, sampled by
+  /// build_rerun_report (run_builder.hpp). Null: the rich reports have no plots.
+  const RunReport* verification_plot = nullptr;
 };
 
 void write_solve_text(const process::SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
 void write_solve_json(const process::SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
 void write_solve_csv(const process::SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
+
+/// Self-contained HTML (inline CSS and SVG, nothing fetched; well-formed XML after the doctype):
+/// title naming the question; question and product; the answer (unrounded and the value to use,
+/// in the question's unit); the verification re-run and the one-unit-less re-run, one row per
+/// target (required, achieved, margin, verdict "met" / "not demonstrated"); the plots of the
+/// verification re-run when `c.verification_plot` is set; the --conservative section when
+/// `c.conservative` is set; notes, warnings, assumptions, provenance, the cautions box.
+/// Temperatures in `u`, F-values in minutes. Same input ⇒ same bytes (no clock is read).
+void write_solve_html(const process::SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
+/// The same content as Markdown; plots as `<svg_basename>-<plot>.svg` files (see markdown.hpp).
+/// REQUIRES: svg_basename a plain, non-empty file name.
+MarkdownReport write_solve_markdown(const process::SolveResult& r, const SolveReportContext& c, TempUnit u,
+                                    std::string_view svg_basename);
 
 /// Shared by the solve and deviation writers: one target result in JSON.
 void write_target_json(class JsonWriter& w, const TargetResult& t);

@@ -1,0 +1,197 @@
+// Markdown and HTML deviation record. Written once, a function per section, into a RichDoc
+// (html_doc / md_doc make the markup), so a new section (e.g. a conservative worst case) is one
+// more function called from write_deviation_doc. Only formatting: every number is a field of the
+// DeviationResult or of the runs the process layer made.
+#include <sstream>
+
+#include "coldcore/report/assessment.hpp"
+#include "coldcore/report/cautions.hpp"
+#include "coldcore/report/deviation_report.hpp"
+#include "deviation_figures.hpp"
+#include "rich_page.hpp"
+
+namespace coldcore {
+
+namespace {
+
+using detail::RichDoc;
+using detail::TextTable;
+using process::Check;
+using process::DeviationResult;
+
+std::string temp(double c, TempUnit u) { return fixed(display_temp(c, u), 2) + " " + std::string(unit_symbol(u)); }
+std::string min_down(double s) { return shown_down(s / 60.0) + " min"; }
+std::string logs_down(const std::optional<double>& v) { return v ? shown_down(*v) + " log10" : "-"; }
+std::string at_time(double s) { return duration_text(s) + " (" + fixed(s, 0) + " s)"; }
+
+std::string lot_text(const DeviationRecordInfo& i) { return i.lot.empty() ? "(not given)" : i.lot; }
+
+std::string provenance_value(const DeviationRecordInfo& i, const std::string& key) {
+  for (const auto& kv : i.provenance)
+    if (kv.key == key) return kv.value;
+  return "";
+}
+
+/// One row per target of a re-run: required, achieved, margin, verdict.
+void check_table(RichDoc& d, const std::vector<TargetResult>& targets) {
+  std::vector<bool> met;
+  const TextTable t = detail::target_table(targets, met);
+  if (met.empty()) d.paragraph("No targets to assess.");
+  else d.verdict_table(t, met);
+}
+void check_table(RichDoc& d, const Check& c) { check_table(d, c.eval.assessment.targets); }
+
+void record_section(RichDoc& d, const DeviationResult& r, const DeviationRecordInfo& i, TempUnit u) {
+  d.section_begin("record", "Deviation record");
+  std::vector<KeyValue> kv = {{"product", i.product_name}, {"lot", lot_text(i)}};
+  if (!r.stage.empty()) {
+    kv.push_back({"deviated stage", r.stage + " (starts " + duration_text(r.stage_start_s) + " into the process)"});
+    if (r.event.found) {
+      kv.push_back({"deviation start", at_time(r.event.start_s) + " into the stage"});
+      kv.push_back({"deviation end", at_time(r.event.end_s) + " into the stage"});
+    } else {
+      kv.push_back({"deviation", "no logged reading below the schedule by more than the tolerance"});
+    }
+    kv.push_back({"lowest medium temperature", temp(r.event.lowest_C, u) + " at " + at_time(r.event.lowest_at_s) +
+                                                   " into the stage (scheduled " +
+                                                   temp(r.event.scheduled_at_lowest_C, u) + ")"});
+    kv.push_back({"largest drop below the schedule",
+                  fixed(display_temp_difference(r.event.largest_drop_K, u), 2) + " " + std::string(unit_symbol(u))});
+    kv.push_back({"medium log", i.medium_log});
+    kv.push_back({"medium log SHA-256", i.medium_log_sha256});
+  }
+  if (!i.probe_log.empty()) {
+    kv.push_back({"probe log", i.probe_log});
+    kv.push_back({"probe log SHA-256", i.probe_log_sha256});
+  }
+  for (const char* key : {"tool", "input", "input SHA-256", "date"}) {
+    const std::string v = provenance_value(i, key);
+    if (!v.empty()) kv.push_back({std::string(key == std::string("date") ? "record date" : key), v});
+  }
+  d.key_value(kv);
+  if (!r.assumptions.empty()) {
+    d.paragraph("Assumptions of this record:");
+    d.list(r.assumptions);
+  }
+  d.section_end();
+}
+
+void comparison_section(RichDoc& d, const DeviationResult& r) {
+  d.section_begin("comparison", r.delivered ? "Scheduled against delivered (model with the logged medium)"
+                                            : "Scheduled against delivered (measured probe log)");
+  TextTable t = {{"target", "F scheduled → delivered", "log reduction scheduled → delivered", "required",
+                  "delivered margin", "verdict as scheduled", "verdict as delivered"}};
+  std::vector<bool> met;
+  for (const auto& tg : r.targets) {
+    t.push_back({tg.name + " (" + std::string(to_string(tg.kind)) + ")",
+                 tg.lethality ? min_down(tg.scheduled_F_s) + " → " + min_down(tg.delivered_F_s) : "-",
+                 tg.scheduled_logs || tg.delivered_logs
+                     ? logs_down(tg.scheduled_logs) + " → " + logs_down(tg.delivered_logs)
+                     : "-",
+                 tg.delivered.required_text, detail::margin_cell(tg.delivered),
+                 std::string(verdict_word(tg.scheduled.verdict == Verdict::met)),
+                 std::string(verdict_word(tg.verdict == Verdict::met))});
+    met.push_back(tg.verdict == Verdict::met);
+  }
+  d.verdict_table(t, met);
+  d.paragraph("F and log reductions are rounded down. Every target met as delivered: " +
+              std::string(r.all_met_delivered ? "yes." : "NO."));
+  d.section_end();
+}
+
+void probe_section(RichDoc& d, const DeviationResult& r) {
+  if (!(r.probe && r.delivered)) return;  // probe only: the comparison above is the probe
+  d.section_begin("probe", "Measured probe log");
+  check_table(d, r.probe->targets);
+  d.section_end();
+}
+
+void extra_hold_section(RichDoc& d, const DeviationResult& r, TempUnit u) {
+  d.section_begin("extra-hold", "Additional time that restores the targets");
+  if (r.extra_hold_s && *r.extra_hold_s == 0) {
+    d.paragraph("None needed: every lethality target is met as delivered.");
+  } else if (r.extra_hold_s) {
+    d.statement("Additional time at the scheduled medium (" + temp(r.extension_medium_C, u) + ") in stage \"" +
+                r.stage + "\": " + at_time(*r.extra_hold_s) + ", rounded up from " +
+                fixed(*r.extra_hold_unrounded_s, 1) + " s.");
+    if (r.restored) {
+      d.paragraph("Forward re-run with the extension (" + at_time(r.restored->value) + "): " +
+                  (r.restored->eval.all_met ? "every target met." : "NOT every target met."));
+      check_table(d, *r.restored);
+    }
+    if (r.restored_one_unit_less) {
+      d.paragraph("One unit less (" + at_time(r.restored_one_unit_less->value) + "):");
+      check_table(d, *r.restored_one_unit_less);
+    }
+  } else {
+    d.paragraph("None computed: " + (r.extra_hold_note.empty() ? std::string("no deviated stage") : r.extra_hold_note));
+  }
+  d.section_end();
+}
+
+void plot_section(RichDoc& d, const DeviationResult& r, const DeviationRecordInfo& i, TempUnit u) {
+  d.figures(detail::deviation_figures(r, i, u));
+}
+
+void notes_section(RichDoc& d, const DeviationResult& r) {
+  if (r.notes.empty()) return;
+  d.section_begin("notes", "Notes");
+  d.list(r.notes);
+  d.section_end();
+}
+
+void disposition_section(RichDoc& d) {
+  d.section_begin("disposition", "Disposition");
+  d.statement(disposition_statement());
+  d.sign_off({"Reviewer name", "Date", "Decision"});
+  d.section_end();
+}
+
+void closing_sections(RichDoc& d, const DeviationResult& r, const DeviationRecordInfo& i) {
+  std::vector<std::string> warns = i.warnings;
+  if (r.delivered) warns.insert(warns.end(), r.delivered->history.warnings.begin(), r.delivered->history.warnings.end());
+  if (r.probe) warns.insert(warns.end(), r.probe->warnings.begin(), r.probe->warnings.end());
+  if (!warns.empty()) {
+    d.section_begin("warnings", "Warnings");
+    d.list(warns, true);
+    d.section_end();
+  }
+  if (!i.provenance.empty()) {
+    d.section_begin("provenance", "Provenance");
+    d.key_value(i.provenance);
+    d.section_end();
+  }
+}
+
+void write_deviation_doc(RichDoc& d, const DeviationResult& r, const DeviationRecordInfo& i, TempUnit u) {
+  d.begin("coldcore deviation record: lot " + lot_text(i) + " — " + i.product_name);
+  record_section(d, r, i, u);
+  comparison_section(d, r);
+  probe_section(d, r);
+  extra_hold_section(d, r, u);
+  plot_section(d, r, i, u);
+  // A conservative worst-case section belongs here, as one more function of (d, r, i, u).
+  notes_section(d, r);
+  disposition_section(d);
+  closing_sections(d, r, i);
+  d.end(cautions());
+}
+
+}  // namespace
+
+void write_deviation_html(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u) {
+  const auto d = detail::html_doc(out);
+  write_deviation_doc(*d, r, i, u);
+}
+
+MarkdownReport write_deviation_markdown(const DeviationResult& r, const DeviationRecordInfo& i, TempUnit u,
+                                        std::string_view svg_basename) {
+  MarkdownReport rep;
+  std::ostringstream o;
+  const auto d = detail::md_doc(o, svg_basename, rep.svg_files);
+  write_deviation_doc(*d, r, i, u);
+  rep.markdown = o.str();
+  return rep;
+}
+
+}  // namespace coldcore
