@@ -133,6 +133,47 @@ void plot_section(RichDoc& d, const DeviationResult& r, const DeviationRecordInf
   d.figures(detail::deviation_figures(r, i, u));
 }
 
+/// --conservative: the worst case of the file's ranges beside the nominal record.
+void conservative_section(RichDoc& d, const DeviationResult& nominal, const DeviationRecordInfo& i, TempUnit u) {
+  if (!i.conservative) return;
+  const process::ConservativeDeviation& c = *i.conservative;
+  const DeviationResult& r = c.result;
+  d.section_begin("conservative", "Conservative evaluation (documented worst case of the file's ranges)");
+  d.paragraph("Choices applied together:");
+  d.list(c.choices);
+  if (!c.initial_reason.empty()) d.paragraph("Initial temperature: " + c.initial_reason + ".");
+  TextTable t = {{"target", "F scheduled → delivered (worst case)", "nominal delivered F", "delivered margin",
+                  "verdict as delivered (worst case)"}};
+  std::vector<bool> met;
+  for (std::size_t k = 0; k < r.targets.size(); ++k) {
+    const auto& tg = r.targets[k];
+    const bool nom = k < nominal.targets.size() && nominal.targets[k].lethality;
+    t.push_back({tg.name + " (" + std::string(to_string(tg.kind)) + ")",
+                 tg.lethality ? min_down(tg.scheduled_F_s) + " → " + min_down(tg.delivered_F_s) : "-",
+                 nom ? min_down(nominal.targets[k].delivered_F_s) : "-", detail::margin_cell(tg.delivered),
+                 std::string(verdict_word(tg.verdict == Verdict::met))});
+    met.push_back(tg.verdict == Verdict::met);
+  }
+  d.verdict_table(t, met);
+  std::string hold;
+  if (r.extra_hold_s && *r.extra_hold_s == 0) hold = "none needed";
+  else if (r.extra_hold_s) hold = at_time(*r.extra_hold_s);
+  else hold = "none computed" + (r.extra_hold_note.empty() ? std::string() : ": " + r.extra_hold_note);
+  d.paragraph("Every target met as delivered, worst case: " + std::string(r.all_met_delivered ? "yes" : "NO") +
+              ". Additional time at the scheduled medium (" + temp(r.extension_medium_C, u) + "), worst case: " + hold +
+              ".");
+  TextTable alone = {{"choice alone", "delivered", "least margin", "additional time"}};
+  for (const auto& a : c.alone) {
+    std::string extra = "none computed";
+    if (a.extra_hold_s && *a.extra_hold_s == 0) extra = "none needed";
+    else if (a.extra_hold_s) extra = at_time(*a.extra_hold_s);
+    alone.push_back({a.label, a.all_met_delivered ? "met" : "not demonstrated", fixed(a.least_margin, 4), extra});
+  }
+  d.table(alone);
+  d.statement("Driven by: " + c.driven_by + ".");
+  d.section_end();
+}
+
 void notes_section(RichDoc& d, const DeviationResult& r) {
   if (r.notes.empty()) return;
   d.section_begin("notes", "Notes");
@@ -170,7 +211,7 @@ void write_deviation_doc(RichDoc& d, const DeviationResult& r, const DeviationRe
   probe_section(d, r);
   extra_hold_section(d, r, u);
   plot_section(d, r, i, u);
-  // A conservative worst-case section belongs here, as one more function of (d, r, i, u).
+  conservative_section(d, r, i, u);
   notes_section(d, r);
   disposition_section(d);
   closing_sections(d, r, i);

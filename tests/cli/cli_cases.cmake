@@ -109,6 +109,10 @@ cli_expect(deviation_conservative_not_met 1 ARGS deviation tests/cli/media-split
            --medium-log tests/cli/media-split/chill-credited-log.csv --stage cook --conservative --format csv
            STDOUT_HAS "# conservative driven by: diameter 40 mm (largest)" "# conservative all met as delivered: no"
                       "delivered_log_reduction,verdict,case" ",met,nominal" ",not demonstrated,conservative")
+cli_expect(deviation_conservative_not_met_html 1 ARGS deviation tests/cli/media-split/chill-credited-tight.toml
+           --medium-log tests/cli/media-split/chill-credited-log.csv --stage cook --conservative --format html
+           STDOUT_HAS "Conservative evaluation (documented worst case of the file&#39;s ranges)"
+                      "Driven by: diameter 40 mm (largest)." "worst case: NO" "choice alone")
 cli_expect(deviation_conservative_no_ranges 2 ARGS deviation products/corned-beef-can.toml
            --medium-log products/logs/corned-beef-hold-deviation.csv --conservative
            STDERR_HAS "--conservative: the file gives no range that applies to the deviation")
