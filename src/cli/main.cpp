@@ -3,6 +3,7 @@
 
 #include "cli/verbs.hpp"
 #include "coldcore/error.hpp"
+#include "coldcore/report/temperature_text.hpp"
 #include "coldcore/version.hpp"
 
 namespace {
@@ -42,13 +43,13 @@ int main(int argc, char** argv) {
   try {
     return real_main(argc, argv);
   } catch (const coldcore::InputError& e) {
-    std::cerr << "coldcore: " << e.what() << "\n";
+    std::cerr << "coldcore: " << coldcore::render_temperatures(e.what(), coldcore::TempUnit::C) << "\n";
     return coldcore::cli::kBadInput;
   } catch (const coldcore::NoSolution& e) {
-    std::cerr << "coldcore: no solution: " << e.what() << "\n";
+    std::cerr << "coldcore: no solution: " << coldcore::render_temperatures(e.what(), coldcore::TempUnit::C) << "\n";
     return coldcore::cli::kNotDemonstrated;
   } catch (const coldcore::Error& e) {
-    std::cerr << "coldcore: " << e.what() << "\n";
+    std::cerr << "coldcore: " << coldcore::render_temperatures(e.what(), coldcore::TempUnit::C) << "\n";
     return coldcore::cli::kBadInput;
   } catch (const std::exception& e) {
     std::cerr << "coldcore: internal error: " << e.what() << "\n";

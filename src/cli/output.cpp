@@ -7,6 +7,7 @@
 #include <sstream>
 
 #include "coldcore/error.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 namespace coldcore::cli {
 
@@ -57,13 +58,17 @@ int with_output(const OutputArgs& a, const std::function<int(std::ostream&, Side
   std::ostringstream buf;
   SideFiles side;
   const int code = body(buf, side);
+  // Temperatures inside free text reach here as tokens (report/temperature_text.hpp): shown in
+  // the display unit now, for every verb and format (the body has validated --units).
+  const TempUnit u = parse_temp_unit(a.units);
+  const std::string text = render_temperatures(buf.str(), u);
   if (a.out.empty()) {
-    std::cout << buf.str();
+    std::cout << text;
     return code;
   }
   const std::filesystem::path target(a.out);
-  for (const auto& [name, content] : side) write_whole_file(target.parent_path() / name, content);
-  write_whole_file(target, buf.str());
+  for (const auto& [name, content] : side) write_whole_file(target.parent_path() / name, render_temperatures(content, u));
+  write_whole_file(target, text);
   return code;
 }
 

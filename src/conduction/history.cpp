@@ -11,6 +11,7 @@
 // τ_ins/2 are dropped a whole epoch at a time, by which time their left-out part has decayed
 // below tol (the mode cut is chosen for that), so only two epochs are ever held.
 #include "coldcore/conduction/history.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 #include <algorithm>
 #include <boost/math/tools/toms748_solve.hpp>
@@ -721,7 +722,7 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     if (ended_at_start) {
       ended_by = StageEndedBy::condition;
       H.warnings.push_back("stage[" + std::to_string(i) + "] '" + stg.name + "': " + (on_mean ? "mean" : "centre") +
-                           " is already at or past " + fmt(stg.end.target_C) + " C at the stage start; the stage ends at once");
+                           " is already at or past " + temp_token(stg.end.target_C) + " at the stage start; the stage ends at once");
     }
 
     ModalState end_st, mid_st, start_st;
@@ -1060,9 +1061,9 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     H.stages.push_back(rec);
     if (until && ended_by == StageEndedBy::cap) {
       H.warnings.push_back("stage[" + std::to_string(i) + "] '" + stg.name + "': " + (on_mean ? "mean" : "centre") +
-                           " did not reach " + fmt(stg.end.target_C) + " C within the cap of " + fmt(limit) +
+                           " did not reach " + temp_token(stg.end.target_C) + " within the cap of " + fmt(limit) +
                            " s; stage ended at the cap with the " + (on_mean ? "mean" : "centre") + " at " +
-                           fmt(value_of(last)) + " C");
+                           temp_token(value_of(last)));
     }
     prev_tm = S.end_tm;
     prev_slope = S.end_slope;

@@ -1,4 +1,5 @@
 #include "coldcore/lethality/integrate.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 #include <algorithm>
 #include <boost/math/quadrature/gauss_kronrod.hpp>
@@ -261,8 +262,8 @@ std::vector<std::string> check_log_sampling(std::span<const double> times_s,
     if (std::abs(temps_C[i + 1] - temps_C[i]) > 0.1 * z_here && total > 0 &&
         contrib[i] >= 0.01 * total) {
       if (++coarse <= 3)
-        w.push_back("coarse sampling: " + detail::num(temps_C[i]) + " -> " +
-                    detail::num(temps_C[i + 1]) + " C between t = " + detail::num(times_s[i]) +
+        w.push_back("coarse sampling: " + temp_token(temps_C[i], 10) + " -> " +
+                    temp_token(temps_C[i + 1], 10) + " between t = " + detail::num(times_s[i]) +
                     " and " + detail::num(times_s[i + 1]) + " s (more than z/10 in one interval)");
     }
   }

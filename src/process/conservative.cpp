@@ -1,4 +1,5 @@
 #include "coldcore/process/conservative.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 #include <cmath>
 #include <sstream>
@@ -80,7 +81,7 @@ std::vector<RangeChoice> worst_case_choices(const Scenario& s, const Ranges& r, 
   }
   if (r.initial_C) {
     const double v = heating ? (*r.initial_C)[0] : (*r.initial_C)[1];
-    c.push_back({"initial " + num(v) + " C (" + (heating ? "coldest, for heating" : "warmest, for chilling") + ")",
+    c.push_back({"initial " + temp_token(v) + " (" + (heating ? "coldest, for heating" : "warmest, for chilling") + ")",
                  [v](Scenario& x) { x.product.initial_C = v; }});
   }
   return c;

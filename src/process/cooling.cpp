@@ -1,4 +1,5 @@
 #include "coldcore/process/cooling.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 #include <cmath>
 #include <set>
@@ -107,7 +108,7 @@ RuleLibrary parse_cooling_rules(std::string_view toml_text, std::string_view ori
       if (!s) throw InputError(std::string(origin) + ": " + sp + ": must be a table");
       detail::check_keys(*s,
                          {"from_C", "from_F", "to_C", "to_F", "within_s", "within_min", "within_h",
-                          "advisory", "source", "status", "label"},
+                          "advisory", "source", "status", "label", "from_label"},
                          origin, sp);
       CoolingStep st;
       st.from_C = temperature(*s, "from", origin, sp);
@@ -125,9 +126,12 @@ RuleLibrary parse_cooling_rules(std::string_view toml_text, std::string_view ori
       st.status = detail::get_string(*s, "status", origin, sp);
       detail::check_status(st.status, origin, sp);
       st.label = detail::get_string(*s, "label", origin, sp, false);
+      // from_label words the start ("ambient") and keeps the end a temperature (shown in --units)
+      const std::string from_label = detail::get_string(*s, "from_label", origin, sp, false);
       if (st.label.empty())
-        st.label = detail::num(std::round(st.from_C * 10) / 10) + " -> " +
-                   detail::num(std::round(st.to_C * 10) / 10) + " C";
+        st.label = (from_label.empty() ? temp_token_text(detail::num(std::round(st.from_C * 10) / 10), st.from_C)
+                                       : from_label) +
+                   " -> " + temp_token_text(detail::num(std::round(st.to_C * 10) / 10), st.to_C);
       r.steps.push_back(st);
     }
     lib.rules.push_back(std::move(r));
@@ -149,13 +153,13 @@ CoolingCheck check_curve(const detail::Curve& c, const CoolingRule& rule, const 
       const auto [max_T, max_at] = c.max_on_grid();
       if (max_T <= st.from_C) {
         start = max_at;
-        r.notes.push_back(ctx.where + " never exceeds " + detail::num(st.from_C) +
-                          " C in the record; the clock starts at its highest temperature (" +
-                          detail::num(max_T) + " C at " + minutes(max_at - c.start()) +
+        r.notes.push_back(ctx.where + " never exceeds " + temp_token(st.from_C, 10) +
+                          " in the record; the clock starts at its highest temperature (" +
+                          temp_token(max_T, 10) + " at " + minutes(max_at - c.start()) +
                           ") and any earlier time above it is not counted");
       } else {
-        r.notes.push_back(ctx.where + " is still above " + detail::num(st.from_C) +
-                          " C at the end of the record: the step's clock never started");
+        r.notes.push_back(ctx.where + " is still above " + temp_token(st.from_C, 10) +
+                          " at the end of the record: the step's clock never started");
       }
     }
     if (start) {
@@ -165,13 +169,13 @@ CoolingCheck check_curve(const detail::Curve& c, const CoolingRule& rule, const 
       r.elapsed_s = (r.reached ? *r.end_s : c.end()) - *start;
       r.margin_s = st.within_s - r.elapsed_s;
       if (!r.reached)
-        r.notes.push_back(ctx.where + " did not reach " + detail::num(st.to_C) +
-                          " C within the record (" + minutes(r.elapsed_s) + " after the clock start)");
+        r.notes.push_back(ctx.where + " did not reach " + temp_token(st.to_C, 10) +
+                          " within the record (" + minutes(r.elapsed_s) + " after the clock start)");
       // Re-heating above from_C after the clock started: the clock is not restarted.
       const double stop = r.reached ? *r.end_s : c.end();
       for (const auto& [a, b] : c.intervals_at_or_above(st.from_C, *start)) {
         if (a > *start + 1e-6 && a < stop && c.temp_C_at(0.5 * (a + b)) > st.from_C) {
-          r.notes.push_back(ctx.where + " rose above " + detail::num(st.from_C) + " C again at " +
+          r.notes.push_back(ctx.where + " rose above " + temp_token(st.from_C, 10) + " again at " +
                             minutes(a - c.start()) + "; the clock was not restarted");
           break;
         }

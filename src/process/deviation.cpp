@@ -1,4 +1,5 @@
 #include "coldcore/process/deviation.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -38,7 +39,7 @@ Scenario extended(const Scenario& base, std::size_t k, const MediumProfile& medi
     while (!pts.empty() && pts.back().time_s >= d) pts.pop_back();
     pts.push_back({d, at_d});
     pts.push_back({d + std::min(1e-3, x / 2), hold_C});
-    st.medium.description += " + " + num(x) + " s at " + num(hold_C, 5) + " C";
+    st.medium.description += " + " + num(x) + " s at " + temp_token(hold_C, 5);
     st.end.duration_s = d + x;
   }
   return c;
@@ -139,7 +140,7 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
           r.restored_one_unit_less = Check{less, evaluate(apply(less), libs, considered)};
         }
       } catch (const NoSolution&) {
-        r.extra_hold_note = "no extension of stage \"" + st.name + "\" at " + num(hold_C, 5) + " C up to " +
+        r.extra_hold_note = "no extension of stage \"" + st.name + "\" at " + temp_token(hold_C, 5) + " up to " +
                             num(o.max_extra_s / 3600.0) + " h restores every lethality target";
       }
     }

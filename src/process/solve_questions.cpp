@@ -5,6 +5,7 @@
 #include <sstream>
 
 #include "coldcore/error.hpp"
+#include "coldcore/report/temperature_text.hpp"
 #include "coldcore/lethality/kinetics.hpp"
 #include "coldcore/process/inverse.hpp"
 
@@ -45,11 +46,11 @@ std::string physical_reason(const Scenario& s, const Evaluation& at_bound, int s
     const TargetResult& r = at_bound.assessment.targets[static_cast<std::size_t>(i)];
     if (r.verdict == Verdict::met) continue;
     if (t.kind == TargetKind::centre_min_temperature && tmax <= t.min_temp_C)
-      why += "; the stage's medium (at most " + num(tmax, 4) + " C) is not above " + r.name + "'s " +
-             num(t.min_temp_C, 4) + " C, so the " + t.at + " can never reach it";
+      why += "; the stage's medium (at most " + temp_token(tmax, 4) + ") is not above " + r.name + "'s " +
+             temp_token(t.min_temp_C, 4) + ", so the " + t.at + " can never reach it";
     if (is_lethality(t.kind) && r.kinetics) {
       const double rate = lethal_rate(tmax, *r.kinetics);
-      why += "; at the stage's highest medium temperature, " + num(tmax, 4) + " C, " + r.name + " accrues at most " +
+      why += "; at the stage's highest medium temperature, " + temp_token(tmax, 4) + ", " + r.name + " accrues at most " +
              num(rate * 60.0, 3) + " min of F per hour against " + num(r.F_required_s / 60.0, 4) + " min required";
     }
   }
@@ -242,16 +243,16 @@ SolveResult chill_time(const Scenario& s, const Libraries& libs, const SolveOpti
                             FeasibleSide::above, ro, "");
   } catch (const NoSolution&) {
     const double final_C = where(o.max_hold_s);
-    std::string why = "the " + point + " does not fall to " + num(end_C, 4) + " C within " +
-                      num(o.max_hold_s / 3600.0) + " h of stage \"" + stg.name + "\" (it is at " + num(final_C, 4) +
-                      " C then)";
+    std::string why = "the " + point + " does not fall to " + temp_token(end_C, 4) + " within " +
+                      num(o.max_hold_s / 3600.0) + " h of stage \"" + stg.name + "\" (it is at " +
+                      temp_token(final_C, 4) + " then)";
     const double medium_min = [&] {
       double m = 1e300;
       for (const auto& p : stg.medium.points) m = std::min(m, p.temp_C);
       return m;
     }();
     if (medium_min >= end_C)
-      why += "; the medium (at least " + num(medium_min, 4) + " C) is not below the end temperature, so it never can";
+      why += "; the medium (at least " + temp_token(medium_min, 4) + ") is not below the end temperature, so it never can";
     throw NoSolution(why);
   }
   res.answer = res.root.x;
@@ -264,12 +265,12 @@ SolveResult chill_time(const Scenario& s, const Libraries& libs, const SolveOpti
   res.end_point = point;
   res.end_at_rounded_C = where(res.rounded);
   if (res.one_unit_less) res.end_at_less_C = where(res.rounded - o.unit_s);
-  res.considered = {point + " at or below " + num(end_C, 4) + " C"};
-  res.notes.push_back("the " + point + " reaches " + num(end_C, 4) + " C after " + num(res.answer, 7) +
-                      " s of the stage; at the rounded duration it is " + num(where(res.rounded), 6) + " C");
+  res.considered = {point + " at or below " + temp_token(end_C, 4)};
+  res.notes.push_back("the " + point + " reaches " + temp_token(end_C, 4) + " after " + num(res.answer, 7) +
+                      " s of the stage; at the rounded duration it is " + temp_token(where(res.rounded), 6));
   if (res.one_unit_less)
     res.notes.push_back("one unit less (" + num(res.rounded - o.unit_s) + " s) leaves the " + point + " at " +
-                        num(where(res.rounded - o.unit_s), 6) + " C, above the end temperature");
+                        temp_token(where(res.rounded - o.unit_s), 6) + ", above the end temperature");
   res.assumptions.push_back("chill-time answers the end temperature; the cooling rules are checked on the re-run "
                             "and reported as they come out, met or not");
   return res;
@@ -367,8 +368,8 @@ SolveResult min_medium(const Scenario& s, const Libraries& libs, const SolveOpti
   st.ro.rel_tol = o.rel_tol;
   st.ro.abs_tol = 1e-6;
   st.unit = o.unit_C;
-  st.why_none = "no constant medium temperature of stage \"" + s.stages[k].name + "\" up to " + num(o.max_medium_C) +
-                " C meets every target";
+  st.why_none = "no constant medium temperature of stage \"" + s.stages[k].name + "\" up to " + temp_token(o.max_medium_C) +
+                " meets every target";
   SolveResult r = run(Question::min_medium, st, s, libs);
   r.stage = s.stages[k].name;
   r.quantity = "medium";
@@ -377,7 +378,7 @@ SolveResult min_medium(const Scenario& s, const Libraries& libs, const SolveOpti
   if (s.stages[k].medium.points.size() > 1)
     r.assumptions.push_back("stage \"" + r.stage + "\" has a medium profile in the file; for this question it is "
                             "replaced by a constant medium (nominal shown is the profile's highest point)");
-  r.assumptions.push_back("the search starts at the initial product temperature (" + num(st.lo, 4) + " C)");
+  r.assumptions.push_back("the search starts at the initial product temperature (" + temp_token(st.lo, 4) + ")");
   return r;
 }
 

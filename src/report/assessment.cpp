@@ -1,4 +1,5 @@
 #include "coldcore/report/assessment.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -249,7 +250,7 @@ void lethality_verdict(TargetResult& r, const Target& t, const Resolved& res, co
       r.achieved = log_reduction_weibull(r.F_s, k);
       r.F_required_s = k.weibull->delta_ref_s * std::pow(t.log_reduction, 1.0 / k.weibull->p);
       r.notes.push_back("Weibull survival (delta = " + shown_down(k.weibull->delta_ref_s / 60) +
-                        " min at " + detail::num(k.reference_C) + " C, p = " +
+                        " min at " + temp_token(k.reference_C, 10) + ", p = " +
                         detail::num(k.weibull->p) + "): log10 reduction = (F/delta)^p");
     } else {
       r.achieved = log_reduction_linear(r.F_s, k);
@@ -273,7 +274,7 @@ std::string label_of(const Target& t) {
   if (!t.organism.empty()) return t.organism;
   if (!t.rule.empty()) return t.rule;
   if (t.kind == TargetKind::centre_min_temperature)
-    return t.at + " >= " + detail::num(t.min_temp_C) + " C";
+    return t.at + " >= " + temp_token(t.min_temp_C, 10);
   return to_string(t.kind);
 }
 
@@ -347,7 +348,7 @@ void min_temperature_result(TargetResult& r, const Target& t, const detail::Curv
   r.achieved = longest;
   r.margin = longest - t.hold_s;
   if (runs.empty())
-    r.notes.push_back(t.at + " never reached " + detail::num(t.min_temp_C) + " C");
+    r.notes.push_back(t.at + " never reached " + temp_token(t.min_temp_C, 10));
   r.source = "target";
   finish(r, false);
 }
@@ -445,7 +446,7 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         if (r.F_s > 0 && r.F_outside_range_s > opts.out_of_range_flag_fraction * r.F_s)
           r.notes.push_back("flag: " + shown_up(100 * r.F_outside_range_s / r.F_s, 2) +
                             " % of the credited F accrued outside the data's valid range " +
-                            detail::num(res.k.valid_min_C) + " to " + detail::num(res.k.valid_max_C) + " C");
+                            temp_token(res.k.valid_min_C, 10) + " to " + temp_token(res.k.valid_max_C, 10));
         break;
       }
       case TargetKind::cooling_rule: {
@@ -568,8 +569,8 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
           if (total > 0 && outside > opts.out_of_range_flag_fraction * total)
             r.notes.push_back("flag: " + shown_up(100 * outside / total, 2) +
                               " % of the credited F accrued outside the data's valid range " +
-                              detail::num(res.k.valid_min_C) + " to " +
-                              detail::num(res.k.valid_max_C) + " C");
+                              temp_token(res.k.valid_min_C, 10) + " to " +
+                              temp_token(res.k.valid_max_C, 10));
         }
         lethality_verdict(r, t, res, opts, place);
         provenance_notes(r, res);

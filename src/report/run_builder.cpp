@@ -1,4 +1,5 @@
 #include "coldcore/report/run_builder.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -100,7 +101,7 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
   r.product = {
       {"name", p.name},
       {"shape", shape_dims(p)},
-      {"initial temperature", fixed(p.initial_C, 2) + " °C"},
+      {"initial temperature", temp_token_fixed(p.initial_C, 2)},
       {"conductivity k", fixed(p.properties.conductivity_W_mK, 4) + " W/m·K"},
       {"density rho", fixed(p.properties.density_kg_m3, 1) + " kg/m³"},
       {"specific heat cp", fixed(p.properties.specific_heat_J_kgK, 1) + " J/kg·K"},
@@ -212,13 +213,13 @@ VerdictRow verdict_row(const TargetResult& t) {
   v.value_unit = t.unit == "log10" ? "log10" : "s";
   if (t.kinetics) {
     const Kinetics& k = *t.kinetics;
-    v.details.push_back("credited F = " + minutes_down(t.F_s) + " at " + fixed(k.reference_C, 1) + " °C (z " +
-                        fixed(k.z_C, 2) + " °C); F needed " + minutes_up(t.F_required_s));
+    v.details.push_back("credited F = " + minutes_down(t.F_s) + " at " + temp_token_fixed(k.reference_C, 1) + " (z " +
+                        temp_difference_token_fixed(k.z_C, 2) + "); F needed " + minutes_up(t.F_required_s));
     for (const auto& s : t.stages)
       v.details.push_back("stage '" + s.stage + "': F " + s.F_text + (s.credited ? "" : " (not credited)"));
     if (t.F_outside_range_s > 0)
-      v.details.push_back("F credited outside the data's valid range (" + fixed(k.valid_min_C, 1) + " to " +
-                          fixed(k.valid_max_C, 1) + " °C): " + minutes_down(t.F_outside_range_s));
+      v.details.push_back("F credited outside the data's valid range (" + temp_token_fixed(k.valid_min_C, 1) + " to " +
+                          temp_token_fixed(k.valid_max_C, 1) + "): " + minutes_down(t.F_outside_range_s));
   }
   if (t.cooling) {
     for (const auto& st : t.cooling->steps) {

@@ -3,6 +3,7 @@
 #include <ostream>
 
 #include "coldcore/report/run_report.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 namespace coldcore {
 
@@ -10,22 +11,29 @@ std::string_view verdict_word(bool met) { return met ? "met" : "not demonstrated
 
 namespace {
 
-std::string pad(std::string s, size_t width) {
-  // Pads by code points, not bytes, so °C columns stay aligned.
+size_t code_points(const std::string& s) {
   size_t cps = 0;
   for (unsigned char c : s) cps += (c & 0xC0) != 0x80;
+  return cps;
+}
+
+std::string pad(std::string s, size_t width) {
+  // Pads by code points, not bytes, so °C columns stay aligned.
+  const size_t cps = code_points(s);
   if (cps < width) s.append(width - cps, ' ');
   return s;
 }
 
-void print_table(std::ostream& out, const std::vector<std::vector<std::string>>& rows) {
+void print_table(std::ostream& out, const std::vector<std::vector<std::string>>& raw, TempUnit u) {
+  // cells measured as shown: temperatures in free text rendered in the display unit first
+  std::vector<std::vector<std::string>> rows = raw;
+  for (auto& row : rows)
+    for (auto& cell : row) cell = render_temperatures(cell, u);
   std::vector<size_t> width;
   for (const auto& row : rows)
     for (size_t i = 0; i < row.size(); ++i) {
-      size_t cps = 0;
-      for (unsigned char c : row[i]) cps += (c & 0xC0) != 0x80;
       if (width.size() <= i) width.push_back(0);
-      width[i] = std::max(width[i], cps);
+      width[i] = std::max(width[i], code_points(row[i]));
     }
   for (const auto& row : rows) {
     std::string line = " ";
@@ -57,7 +65,7 @@ void write_run_text(const RunReport& r, std::ostream& out, TempUnit u) {
       rows.push_back({s.name, duration_text(s.start_s), duration_text(s.end_s), s.ended_by, h_text(s),
                       s.h_infinite ? "inf" : fixed(s.biot, 3), fixed(display_temp(s.centre_C, u), 2),
                       fixed(display_temp(s.surface_C, u), 2), fixed(display_temp(s.mean_C, u), 2)});
-    print_table(out, rows);
+    print_table(out, rows, u);
     out << "\n  Media:\n";
     for (const auto& s : r.stages) out << "    " << s.name << ": " << s.medium << "\n";
     out << "\n  What the Biot number says:\n";
@@ -69,7 +77,7 @@ void write_run_text(const RunReport& r, std::ostream& out, TempUnit u) {
     std::vector<std::vector<std::string>> rows = {{"target", "required", "achieved", "margin", "verdict"}};
     for (const auto& v : r.verdicts)
       rows.push_back({v.name, v.required, v.achieved, v.margin, std::string(verdict_word(v.met))});
-    print_table(out, rows);
+    print_table(out, rows, u);
     for (const auto& v : r.verdicts)
       for (const auto& d : v.details) out << "    " << v.name << ": " << d << "\n";
     out << "\n";

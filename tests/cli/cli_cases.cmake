@@ -13,10 +13,11 @@ cli_case(unknown_verb 2 frobnicate)
 
 # coldcore modes (foundation issue)
 function(cli_expect name expect_exit)
-  cmake_parse_arguments(C "" "" "ARGS;STDOUT_HAS;STDERR_HAS" ${ARGN})
+  cmake_parse_arguments(C "" "" "ARGS;STDOUT_HAS;STDERR_HAS;STDOUT_LACKS" ${ARGN})
   add_test(NAME cli.${name}
            COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DEXPECT=${expect_exit}
                    "-DARGS=${C_ARGS}" "-DSTDOUT_HAS=${C_STDOUT_HAS}" "-DSTDERR_HAS=${C_STDERR_HAS}"
+                   "-DSTDOUT_LACKS=${C_STDOUT_LACKS}"
                    -P ${PROJECT_SOURCE_DIR}/tests/cli/expect_exit.cmake
            WORKING_DIRECTORY ${PROJECT_SOURCE_DIR})
 endfunction()
@@ -89,17 +90,26 @@ cli_expect(media_csv 0 ARGS media --format csv STDOUT_HAS "key,h_min_W_m2K,h_max
 
 # --conservative: the worst case of [product.ranges] and h_range_W_m2K beside the nominal answer.
 cli_expect(solve_conservative_kofta 0 ARGS solve products/kofta-balls.toml --for hold-time --conservative
-           STDOUT_HAS "CONSERVATIVE (documented worst case" "diameter 40 mm (largest)" "initial 2 C (coldest, for heating)"
+           STDOUT_HAS "CONSERVATIVE (documented worst case" "diameter 40 mm (largest)" "initial 2 °C (coldest, for heating)"
                       "driven by: stage \"combi-oven steam cook\" h 80 W/m2K (lowest)")
 cli_expect(solve_conservative_sausage_json 0 ARGS solve products/chicken-sausage-log.toml --for chill-time --conservative --format json
-           STDOUT_HAS "\"conservative\"" "initial 5 C (warmest, for chilling)" "\"driven_by\"")
+           STDOUT_HAS "\"conservative\"" "initial 5 °C (warmest, for chilling)" "\"driven_by\"")
 cli_expect(solve_conservative_no_ranges 2 ARGS solve products/corned-beef-can.toml --for min-medium --conservative
            STDERR_HAS "--conservative: the file gives no range that applies to min-medium")
 
+# --units F reaches temperatures inside free text too (choice labels, notes, cooling-step labels):
+# 2 °C = 35.6 °F (°F = °C x 9/5 + 32); the FSIS option-1 steps are set in °F (USDA FSIS Appendix B)
+# and read back as 130 -> 80 -> 40 °F.
+cli_expect(solve_conservative_kofta_units_f 0 ARGS solve products/kofta-balls.toml --for hold-time --conservative --units F
+           STDOUT_HAS "initial 35.6 °F (coldest, for heating)" STDOUT_LACKS "°C")
+cli_expect(run_sausage_units_f_labels 0 ARGS run products/chicken-sausage-log.toml --units F
+           STDOUT_HAS "130 °F -> 80 °F" "80 °F -> 40 °F" STDOUT_LACKS "°C")
+cli_expect(run_sausage_units_f_json 0 ARGS run products/chicken-sausage-log.toml --units F --format json
+           STDOUT_HAS "130 °F -> 80 °F" "80 °F -> 40 °F" STDOUT_LACKS "°C")
 # deviation --conservative: the deviation again at the worst case of the ranges, and its driver.
 cli_expect(deviation_conservative_kofta 0 ARGS deviation products/kofta-balls.toml
            --medium-log products/logs/kofta-oven-deviation.csv --conservative
-           STDOUT_HAS "CONSERVATIVE (documented worst case" "diameter 40 mm (largest)" "initial 2 C (coldest, for heating)"
+           STDOUT_HAS "CONSERVATIVE (documented worst case" "diameter 40 mm (largest)" "initial 2 °C (coldest, for heating)"
                       "the deviated stage \"combi-oven steam cook\" heats" "driven by: " "every target met as delivered, worst case: yes")
 cli_expect(deviation_conservative_kofta_json 0 ARGS deviation products/kofta-balls.toml
            --medium-log products/logs/kofta-oven-deviation.csv --conservative --format json

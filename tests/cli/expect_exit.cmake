@@ -1,5 +1,6 @@
 # Runs EXE with ARGS (a ;-list) and fails unless the exit code equals EXPECT.
-# Optional: STDOUT_HAS / STDERR_HAS (;-lists of substrings that must appear).
+# Optional: STDOUT_HAS / STDERR_HAS (;-lists of substrings that must appear), STDOUT_LACKS
+# (substrings that must not).
 execute_process(COMMAND ${EXE} ${ARGS} RESULT_VARIABLE rc OUTPUT_VARIABLE out ERROR_VARIABLE err)
 if(NOT rc EQUAL EXPECT)
   message(FATAL_ERROR "exit ${rc}, expected ${EXPECT}\nstdout:\n${out}\nstderr:\n${err}")
@@ -14,5 +15,11 @@ foreach(s IN LISTS STDERR_HAS)
   string(FIND "${err}" "${s}" pos)
   if(pos EQUAL -1)
     message(FATAL_ERROR "stderr lacks '${s}'\nstderr:\n${err}")
+  endif()
+endforeach()
+foreach(s IN LISTS STDOUT_LACKS)
+  string(FIND "${out}" "${s}" pos)
+  if(NOT pos EQUAL -1)
+    message(FATAL_ERROR "stdout has '${s}', which it must not\nstdout:\n${out}")
   endif()
 endforeach()

@@ -1,6 +1,7 @@
 // deviation --conservative: the worst case of the ranges beside the nominal deviation.
 #include <doctest/doctest.h>
 
+#include "coldcore/report/temperature_text.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/process/deviation_conservative.hpp"
 #include "inverse_support.hpp"
@@ -51,7 +52,7 @@ TEST_CASE("deviation --conservative: worst-case delivered F below the nominal, e
   REQUIRE(c.result.extra_hold_s);
   CHECK(*c.result.extra_hold_s >= *nominal.extra_hold_s);
   // the deviated stage heats: the coldest start (2 C) is the one taken
-  CHECK(c.choices[2] == "initial 2 C (coldest, for heating)");
+  CHECK(render_temperatures(c.choices[2], TempUnit::C) == "initial 2 °C (coldest, for heating)");
   CHECK(c.initial_reason.find("heats") != std::string::npos);
   // The worst case is the scenario with every choice applied by hand (independent of the choice code).
   auto by_hand = in;
@@ -94,7 +95,7 @@ TEST_CASE("deviation --conservative: a deviated cooling stage with a cooling rul
   std::string why;
   const auto ch = process::deviation_worst_case_choices(in, ranges(), &why);
   REQUIRE_FALSE(ch.empty());
-  CHECK(ch.back().label == "initial 6 C (warmest, for chilling)");  // a warmer start cools later
+  CHECK(render_temperatures(ch.back().label, TempUnit::C) == "initial 6 °C (warmest, for chilling)");  // a warmer start cools later
   CHECK(why.find("cools and a cooling rule") != std::string::npos);
 }
 

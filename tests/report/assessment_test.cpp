@@ -6,6 +6,7 @@
 #include <cmath>
 #include <vector>
 
+#include "coldcore/report/temperature_text.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/integrate.hpp"
 #include "coldcore/report/assessment.hpp"
@@ -84,7 +85,8 @@ TEST_CASE("log-reduction target: per-stage F, credited stages, margin and range 
   const double below = f_linear(1200.0 * 40 / 52, 20, 60, ref, z) + f_linear(3600.0 * 58 / 70, 60, 2, ref, z);
   CHECK(all.F_outside_range_s == doctest::Approx(below).epsilon(1e-5));
   bool flagged = false;
-  for (const auto& n : all.notes) flagged |= n.find("outside the data's valid range 60 to 80 C") != std::string::npos;
+  for (const auto& n : all.notes)
+    flagged |= render_temperatures(n, TempUnit::C).find("outside the data's valid range 60 °C to 80 °C") != std::string::npos;
   CHECK(flagged);
   bool memory = false;
   for (const auto& n : all.notes) memory |= n.find("z_C of listeria-monocytogenes is from memory") == 0;

@@ -27,13 +27,13 @@ using Lanes = double __attribute__((vector_size(32)));  // four doubles (GCC/Cla
   std::memcpy(&v, p, sizeof v);
   return v;
 }
-[[gnu::always_inline]] inline void store4(double* p, Lanes v) { std::memcpy(p, &v, sizeof v); }
-[[gnu::always_inline]] inline double lane_sum(Lanes v) { return (v[0] + v[1]) + (v[2] + v[3]); }
+[[gnu::always_inline]] inline void store4(double* p, const Lanes& v) { std::memcpy(p, &v, sizeof v); }
+[[gnu::always_inline]] inline double lane_sum(const Lanes& v) { return (v[0] + v[1]) + (v[2] + v[3]); }
 
 using LaneIndex = long long __attribute__((vector_size(32)));
 /// {lane_sum(a), lane_sum(b), lane_sum(c), lane_sum(d)} by a transpose: the same additions in the
 /// same order, in fewer instructions.
-[[gnu::always_inline]] inline Lanes lane_sums(Lanes a, Lanes b, Lanes c, Lanes d) {
+[[gnu::always_inline]] inline Lanes lane_sums(const Lanes& a, const Lanes& b, const Lanes& c, const Lanes& d) {
   const Lanes ab = __builtin_shuffle(a, b, LaneIndex{0, 4, 2, 6}) + __builtin_shuffle(a, b, LaneIndex{1, 5, 3, 7});
   const Lanes cd = __builtin_shuffle(c, d, LaneIndex{0, 4, 2, 6}) + __builtin_shuffle(c, d, LaneIndex{1, 5, 3, 7});
   return __builtin_shuffle(ab, cd, LaneIndex{0, 1, 4, 5}) + __builtin_shuffle(ab, cd, LaneIndex{2, 3, 6, 7});
@@ -44,7 +44,7 @@ using LaneIndex = long long __attribute__((vector_size(32)));
 [[gnu::always_inline]] inline Lanes load_tail(const double* p, std::size_t n) {
   return Lanes{p[0], n > 1 ? p[1] : 0.0, n > 2 ? p[2] : 0.0, n > 3 ? p[3] : 0.0};
 }
-[[gnu::always_inline]] inline void store_tail(double* p, Lanes v, std::size_t n) {
+[[gnu::always_inline]] inline void store_tail(double* p, const Lanes& v, std::size_t n) {
   p[0] = v[0];
   if (n > 1) p[1] = v[1];
   if (n > 2) p[2] = v[2];

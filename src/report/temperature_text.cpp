@@ -1,0 +1,95 @@
+#include "coldcore/report/temperature_text.hpp"
+
+#include <cmath>
+#include <cstdio>
+#include <cstdlib>
+
+namespace coldcore {
+
+namespace {
+
+constexpr std::string_view kOpen = "\xEE\x80\x80";   // U+E000
+constexpr std::string_view kSep = "\xEE\x80\x82";    // U+E002: between the °C text and the exact value
+constexpr std::string_view kClose = "\xEE\x80\x81";  // U+E001
+
+std::string printf_text(const char* format, int digits, double v) {
+  char buf[64];
+  std::snprintf(buf, sizeof buf, format, digits, v);
+  return buf;
+}
+
+std::string token(char kind, std::string_view celsius_text, double exact) {
+  std::string s(kOpen);
+  s += kind;
+  s += celsius_text;
+  s += kSep;
+  s += printf_text("%.*g", 17, exact);
+  s += kClose;
+  return s;
+}
+
+int decimals_of(std::string_view text) {
+  const auto dot = text.find('.');
+  if (dot == std::string_view::npos) return 0;
+  std::size_t n = 0;
+  for (std::size_t i = dot + 1; i < text.size() && text[i] >= '0' && text[i] <= '9'; ++i) ++n;
+  return static_cast<int>(n);
+}
+
+// The °F text: from the exact value, one more decimal than the °C text had, trailing zeros dropped.
+std::string fahrenheit_text(std::string_view celsius_text, double exact, bool difference) {
+  const double f = difference ? exact * 1.8 : exact * 1.8 + 32.0;
+  if (celsius_text.find_first_of("eE") != std::string_view::npos) return printf_text("%.*g", 6, f);
+  std::string s = printf_text("%.*f", decimals_of(celsius_text) + 1, f);
+  if (s.find('.') != std::string::npos) {
+    while (!s.empty() && s.back() == '0') s.pop_back();
+    if (!s.empty() && s.back() == '.') s.pop_back();
+  }
+  if (s == "-0") s = "0";
+  return s;
+}
+
+}  // namespace
+
+std::string temp_token(double celsius, int significant) {
+  return token('T', printf_text("%.*g", significant, celsius), celsius);
+}
+std::string temp_difference_token(double kelvin, int significant) {
+  return token('D', printf_text("%.*g", significant, kelvin), kelvin);
+}
+std::string temp_token_fixed(double celsius, int decimals) {
+  return token('T', printf_text("%.*f", decimals, celsius), celsius);
+}
+std::string temp_difference_token_fixed(double kelvin, int decimals) {
+  return token('D', printf_text("%.*f", decimals, kelvin), kelvin);
+}
+std::string temp_token_text(std::string_view celsius_text, double exact_celsius) {
+  return token('T', celsius_text, exact_celsius);
+}
+
+std::string render_temperatures(std::string_view text, TempUnit u) {
+  if (text.find(kOpen) == std::string_view::npos) return std::string(text);
+  std::string out;
+  out.reserve(text.size());
+  std::size_t pos = 0;
+  for (;;) {
+    const std::size_t open = text.find(kOpen, pos);
+    if (open == std::string_view::npos) break;
+    const std::size_t body = open + kOpen.size();
+    const std::size_t close = text.find(kClose, body);
+    const std::size_t sep = text.find(kSep, body);
+    if (close == std::string_view::npos || sep == std::string_view::npos || sep > close || sep == body) break;
+    out.append(text.substr(pos, open - pos));
+    const bool difference = text[body] == 'D';
+    const std::string_view c = text.substr(body + 1, sep - body - 1);
+    const std::string exact(text.substr(sep + kSep.size(), close - sep - kSep.size()));
+    out += u == TempUnit::C ? std::string(c) : fahrenheit_text(c, std::strtod(exact.c_str(), nullptr), difference);
+    out += ' ';
+    out += unit_symbol(u);
+    pos = close + kClose.size();
+  }
+  out.append(text.substr(pos));
+  return out;
+}
+
+}  // namespace coldcore
