@@ -48,6 +48,8 @@ COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
   samples.resize(samples0 + max_steps);  // cheaper than a push_back per step; cut back below
   HistorySample* out_samples = samples.data() + samples0;
   std::size_t steps = 0;
+  double prev_tb = -1.0;  // (no step yet: ta >= origin >= 0 never equals it)
+  long prev_ep_b = 0;
   while (piece + 1 < n_points && P[piece + 1].time_s <= t_local) ++piece;
   for (;;) {
     if (piece + 1 >= n_points) break;
@@ -71,7 +73,8 @@ COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
     ring_pos = (ring_pos + 1) & 63;
     ++run;
     // Engine::event_advance_sum for a slope event (no jump), with the kernel inlined
-    const long ep = eng.epoch_of(origin, ta);
+    // the epoch of the step start is the last step end's when the times are the same number
+    const long ep = ta == prev_tb ? prev_ep_b : eng.epoch_of(origin, ta);
     if (ep != st.epoch) roll_epoch(st, ep);
     st.s_cur.ds += ds;
     st.s_cur.ds_t += ds * (ta - origin);
@@ -103,8 +106,16 @@ COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
     e.time_s = tb;
     e.medium_C = tm_b;
     e.stage = r.stage;
-    if (eng.epoch_of(origin, tb) == st.epoch) {
-      e.centre_C = eng.centre_from(B, st, sm, origin, tb, tm_b, slope);
+    const long ep_b = eng.epoch_of(origin, tb);
+    prev_tb = tb;
+    prev_ep_b = ep_b;
+    if (ep_b == st.epoch) {
+      // Engine::centre_from for a step ending in the same epoch (the same arithmetic)
+      const double tau0 = tb - origin;
+      double corr = 0.0;
+      corr += st.s_prev.ds * B.full_centre - (st.s_prev.ds * tau0 - st.s_prev.ds_t) + st.s_prev.jump;
+      corr += st.s_cur.ds * B.full_centre - (st.s_cur.ds * tau0 - st.s_cur.ds_t) + st.s_cur.jump;
+      e.centre_C = tm_b + sm.a - slope * B.q_centre + corr;
     } else {
       // the step ends in a later epoch (once per epoch): the memory sums are needed apart
       Lanes lp = {0, 0, 0, 0}, lc = lp;
