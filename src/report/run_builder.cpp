@@ -8,6 +8,7 @@
 #include "coldcore/conduction/lumped_history.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/report/cautions.hpp"
+#include "rich_page.hpp"
 
 namespace coldcore {
 
@@ -205,7 +206,7 @@ VerdictRow verdict_row(const TargetResult& t) {
   v.kind = to_string(t.kind);
   v.required = t.required_text;
   v.achieved = t.achieved_text;
-  v.margin = t.margin_text;
+  v.margin = detail::margin_cell(t);  // a shortfall says so, not a bare amount
   v.met = t.verdict == Verdict::met;
   v.required_value = t.required;
   v.achieved_value = t.achieved;
