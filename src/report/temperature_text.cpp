@@ -36,11 +36,14 @@ int decimals_of(std::string_view text) {
   return static_cast<int>(n);
 }
 
-// The °F text: from the exact value, one more decimal than the °C text had, trailing zeros dropped.
+// The °F text: from the exact value, trailing zeros dropped.
 std::string fahrenheit_text(std::string_view celsius_text, double exact, bool difference) {
   const double f = difference ? exact * 1.8 : exact * 1.8 + 32.0;
   if (celsius_text.find_first_of("eE") != std::string_view::npos) return printf_text("%.*g", 6, f);
-  std::string s = printf_text("%.*f", decimals_of(celsius_text) + 1, f);
+  // one more decimal than the °C text (a °F is 5/9 of a kelvin), but no more than three unless
+  // the °C text itself had more
+  const int dc = decimals_of(celsius_text);
+  std::string s = printf_text("%.*f", dc < 3 ? dc + 1 : dc, f);
   if (s.find('.') != std::string::npos) {
     while (!s.empty() && s.back() == '0') s.pop_back();
     if (!s.empty() && s.back() == '.') s.pop_back();

@@ -17,6 +17,8 @@ TEST_CASE("temperature tokens render in °C as written and in °F by the scale's
   // 5 °C = 41 °F exactly: trailing zeros dropped; one more decimal than the °C text had
   CHECK(render_temperatures("to " + temp_token(5), TempUnit::F) == "to 41 °F");
   CHECK(render_temperatures(temp_token_fixed(4.04, 2), TempUnit::F) == "39.272 °F");
+  // a °C text with five decimals keeps five in °F: 3.87611 °C = 38.976998 °F -> 38.97700 -> 38.977
+  CHECK(render_temperatures(temp_token(3.87611), TempUnit::F) == "38.977 °F");
   CHECK(render_temperatures(temp_token_fixed(70, 1), TempUnit::C) == "70.0 °C");
   CHECK(render_temperatures(temp_token_fixed(70, 1), TempUnit::F) == "158 °F");
   // −40 is the same on both scales

@@ -28,7 +28,8 @@ std::string temp_difference_token_fixed(double kelvin, int decimals);
 std::string temp_token_text(std::string_view celsius_text, double exact_celsius);
 
 /// `text` with every token written in unit u: in °C its °C text; in °F the exact value with one
-/// more decimal than the °C text had (57 -> 134.6, 4.04 -> 39.272), trailing zeros dropped. Text without tokens is
+/// more decimal than the °C text had, up to three (57 -> 134.6, 4.04 -> 39.272; a °C text with
+/// more decimals keeps its count: 3.87611 -> 38.97700 -> "38.977"), trailing zeros dropped. Text without tokens is
 /// returned unchanged.
 std::string render_temperatures(std::string_view text, TempUnit u);
 
