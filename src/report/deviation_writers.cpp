@@ -73,11 +73,9 @@ void text_conservative(const process::ConservativeDeviation& c, const DeviationR
   for (const auto& n : fresh(r.assumptions, nominal.assumptions)) out << "  - assumption: " << n << "\n";
 }
 
-void json_conservative(JsonWriter& w, const process::ConservativeDeviation& c) {
-  const DeviationResult& r = c.result;
-  w.key("conservative").begin_object();
-  w.key("choices").value(c.choices);
-  w.key("initial_reason").value(c.initial_reason);
+/// Per target scheduled against delivered, then the extra hold: the same keys for the nominal
+/// record and for its conservative worst case.
+void json_targets_and_hold(JsonWriter& w, const DeviationResult& r) {
   w.key("targets").begin_array();
   for (const auto& t : r.targets) {
     w.begin_object();
@@ -97,6 +95,7 @@ void json_conservative(JsonWriter& w, const process::ConservativeDeviation& c) {
     w.key("scheduled_verdict").value(to_string(t.scheduled.verdict));
     w.key("delivered_margin").value(t.delivered.margin);
     w.key("delivered_verdict_text").value(t.delivered.verdict_text);
+    w.key("scheduled_verdict_text").value(t.scheduled.verdict_text);
     w.end_object();
   }
   w.end_array();
@@ -105,6 +104,14 @@ void json_conservative(JsonWriter& w, const process::ConservativeDeviation& c) {
   json_opt(w, "extra_hold_unrounded_s", r.extra_hold_unrounded_s);
   w.key("extension_medium_C").value(r.extension_medium_C);
   if (!r.extra_hold_note.empty()) w.key("extra_hold_note").value(r.extra_hold_note);
+}
+
+void json_conservative(JsonWriter& w, const process::ConservativeDeviation& c) {
+  const DeviationResult& r = c.result;
+  w.key("conservative").begin_object();
+  w.key("choices").value(c.choices);
+  w.key("initial_reason").value(c.initial_reason);
+  json_targets_and_hold(w, r);
   w.key("alone").begin_array();
   for (const auto& a : c.alone) {
     w.begin_object();
@@ -226,34 +233,7 @@ void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i
   w.key("largest_drop_K").value(r.event.largest_drop_K);
   w.key("times_from").value("the start of the deviated stage");
   w.end_object();
-  w.key("targets").begin_array();
-  for (const auto& t : r.targets) {
-    w.begin_object();
-    w.key("name").value(t.name);
-    w.key("kind").value(to_string(t.kind));
-    if (t.lethality) {
-      w.key("scheduled_F_min").value(t.scheduled_F_s / 60.0);
-      w.key("delivered_F_min").value(t.delivered_F_s / 60.0);
-      w.key("F_required_min").value(t.delivered.F_required_s / 60.0);
-      if (t.scheduled_logs) w.key("scheduled_log_reduction").value(*t.scheduled_logs);
-      if (t.delivered_logs) w.key("delivered_log_reduction").value(*t.delivered_logs);
-    } else {
-      w.key("scheduled_F_min").null();
-      w.key("delivered_F_min").null();
-    }
-    w.key("verdict").value(to_string(t.verdict));
-    w.key("scheduled_verdict").value(to_string(t.scheduled.verdict));
-    w.key("delivered_margin").value(t.delivered.margin);
-    w.key("delivered_verdict_text").value(t.delivered.verdict_text);
-    w.key("scheduled_verdict_text").value(t.scheduled.verdict_text);
-    w.end_object();
-  }
-  w.end_array();
-  w.key("all_met_delivered").value(r.all_met_delivered);
-  json_opt(w, "extra_hold_s", r.extra_hold_s);
-  json_opt(w, "extra_hold_unrounded_s", r.extra_hold_unrounded_s);
-  w.key("extension_medium_C").value(r.extension_medium_C);
-  if (!r.extra_hold_note.empty()) w.key("extra_hold_note").value(r.extra_hold_note);
+  json_targets_and_hold(w, r);
   w.key("restored");
   if (r.restored) {
     w.begin_object();
