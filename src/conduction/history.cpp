@@ -25,6 +25,7 @@
 #include "conduction/detail/history_engine.hpp"
 #include "conduction/detail/lanes.hpp"
 #include "conduction/detail/lean_steps.hpp"
+#include "conduction/detail/medium_scan.hpp"
 
 namespace coldcore {
 namespace detail {
@@ -555,8 +556,7 @@ void validate(const Product& p, const std::vector<Stage>& stages, const HistoryO
     // a plain scan first (a 4 h log at 1 s has 14,401 points); the message only for a bad one
     const MediumPoint* pts = s.medium.points.data();
     const std::size_t n = s.medium.points.size();
-    std::size_t k = 0;
-    while (k < n && std::isfinite(pts[k].temp_C) && (k == 0 || pts[k].time_s > pts[k - 1].time_s)) ++k;
+    const std::size_t k = detail::first_bad_point(pts, n);
     if (k < n) {
       const std::string key = at + ".medium.points[" + std::to_string(k) + "]";
       if (!std::isfinite(pts[k].temp_C)) bad(key + ".temp_C", pts[k].temp_C, "must be finite");
@@ -574,11 +574,7 @@ void validate(const Product& p, const std::vector<Stage>& stages, const HistoryO
 
 double pick_lambda_cut(const Product& p, const std::vector<Stage>& stages, double tau_ins, double tol) {
   double lo = p.initial_C, hi = p.initial_C;
-  for (const auto& s : stages)
-    for (const auto& mp : s.medium.points) {
-      lo = std::min(lo, mp.temp_C);
-      hi = std::max(hi, mp.temp_C);
-    }
+  for (const auto& s : stages) detail::widen_temperature_range(s.medium.points.data(), s.medium.points.size(), lo, hi);
   const double span = hi - lo + 1.0;
   // Left-out modes must decay below tol over half the insulated time (epoch length):
   // e^{−λ_cut·τ/2}·(10·span) <= tol.
@@ -733,11 +729,10 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     // events of this stage whose surface/mean transient still counts; slope events share one
     // window from the stage's largest slope change (no logarithm per step)
     // the medium's slope on each piece, computed once
-    std::vector<double> piece_slope(pts.size() > 1 ? pts.size() - 1 : 0);
-    for (std::size_t k = 0; k + 1 < pts.size(); ++k)
-      piece_slope[k] = (pts[k + 1].temp_C - pts[k].temp_C) / (pts[k + 1].time_s - pts[k].time_s);
-    double max_ds = std::abs(S.start_ds);
-    for (std::size_t k = 1; k < piece_slope.size(); ++k) max_ds = std::max(max_ds, std::abs(piece_slope[k] - piece_slope[k - 1]));
+    detail::FlatBuffer piece_slope;  // (written whole below: no zero-fill first)
+    detail::piece_slopes(pts.data(), pts.size(), piece_slope.room(pts.size() - 1));
+    piece_slope.commit(pts.size() - 1);
+    double max_ds = std::max(std::abs(S.start_ds), detail::largest_slope_change(piece_slope.data(), piece_slope.size()));
     if (!piece_slope.empty()) max_ds = std::max(max_ds, std::abs(piece_slope.back()));
     const double slope_window = eng->expiry(B, 0.0, max_ds, 0.0);
     auto note_event = [&](double t, double ds, double jump) {

@@ -1,5 +1,10 @@
-// The lean path of the stepping loop (see detail/lean_steps.hpp). Built with AVX2 clones: the
-// modal kernel and the ring filter are inlined into one loop.
+// The lean path of the stepping loop (see detail/lean_steps.hpp). Built with AVX2 clones.
+//
+// The run is taken in three passes: a scan that finds how many steps it holds and their start
+// times, a pass that fills their medium, slope and slope change (no dependence between steps, so
+// it vectorises), and the recurrence over the modes. The recurrence is instantiated for each
+// small count of mode groups, so the modal kernel is fully unrolled. Each value is the same
+// expression, in the same order, as in the general step.
 #include "conduction/detail/lean_steps.hpp"
 
 #include <algorithm>
@@ -8,159 +13,241 @@
 
 namespace coldcore::detail {
 
-COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
+namespace {
+
+/// What the recurrence reads and writes besides LeanRun (one run of n steps, inputs filled).
+struct LeanPass {
+  std::size_t n = 0;
+  const double* step_t = nullptr;   // n step starts
+  const double* step_tm = nullptr;  // medium at each step start
+  const double* step_slope = nullptr;
+  const double* step_ds = nullptr;  // the slope change at each step start; the run's earlier
+                                    // changes lie just before it (step_ds[-1], ...)
+  HistorySample* out = nullptr;     // n samples
+};
+
+template <std::size_t Groups>
+[[gnu::always_inline]] inline void recurrence(LeanRun& r, const LeanPass& p) {
   const Engine& eng = *r.eng;
   const Basis& B = *r.basis;
   StageModel& S = *r.stage_model;
   ModalState& st = *r.st;
-  StepCache& c = *r.cache;
-  std::vector<HistorySample>& samples = *r.samples;
+  const StepCache& c = *r.cache;
   const std::size_t K = B.lambda.size();
-  const MediumPoint* P = r.points;
-  const std::size_t n_points = r.n_points;
-  const double* piece_slope = r.piece_slope;
-  const double origin = S.origin_s, tau_ins = eng.tau_insulated_s, start_s = S.start_s;
-  const bool projected = S.projected;
-  const double t_abs = r.t_abs, limit = r.limit, run_dt = r.run_dt;
+  // a fixed group count unrolls the kernel; 0: as many groups as the padded modes need
+  const std::size_t KL = Groups > 0 ? 4 * Groups : K;
+  const std::size_t Kp = padded_modes(K);
+  const double origin = S.origin_s, run_dt = r.run_dt;
+  const double full_centre = B.full_centre, q_centre = B.q_centre, q_surface = B.q_surface, q_mean = B.q_mean;
   const long taps = r.run_taps;
   const double* tab_gs = r.tab_gs;
   const double* tab_gm = r.tab_gm;
-  double* ring_ds = r.ring_ds;
-  double* ring2 = r.ring2;
-  double* ring_t = r.ring_t;
-  // the loop state in locals (stores through the pointers above cannot then alias it)
-  std::size_t piece = r.piece;
-  double t_local = r.t_local, slope = r.slope, pending_ds = r.pending_ds;
+  const double *e_ = c.e.data(), *bg = c.bg.data(), *bl = c.bl.data(), *vs = c.vs.data(), *vm = c.vm.data();
+  double* a = st.a.data();
+  // the centre's transient memory in locals (stores into the mode arrays cannot alias them)
+  double* wp = st.w_prev.data();
+  double* wc = st.w_cur.data();
+  bool swapped = false;
+  EpochSums sp = st.s_prev, sc = st.s_cur;
+  long epoch = st.epoch;
   int until_checkpoint = r.until_checkpoint;
   const int stride = S.stride;
-  int ring_pos = r.ring_pos;
   long run = r.run;
   HistorySample e = r.end_s;
-  bool finished = false;
-  if (c.dt != run_dt || c.basis != &B) eng.fill_cache(B, run_dt, c);
+  e.stage = r.stage;
+  double prev_tb = -1.0;  // (no step yet: ta >= origin >= 0 never equals it)
+  long prev_ep_b = 0;
+  for (std::size_t i = 0; i < p.n; ++i) {
+    const double ta = p.step_t[i], ds = p.step_ds[i], slope = p.step_slope[i], tm_a = p.step_tm[i];
+    const double tb = ta + run_dt;
+    const bool checkpoint_here = --until_checkpoint == 0;
+    if (checkpoint_here) until_checkpoint = stride;
+    ++run;
+    // Engine::event_advance_sum for a slope event (no jump), with the kernel inlined; the epoch
+    // of the step start is the last step end's when the times are the same number
+    const long ep = ta == prev_tb ? prev_ep_b : eng.epoch_of(origin, ta);
+    if (ep != epoch) {  // roll_epoch
+      if (ep == epoch + 1) {
+        std::swap(wp, wc);
+        swapped = !swapped;
+        std::fill(wc, wc + Kp, 0.0);
+        sp = sc;
+        sc = EpochSums{};
+      } else if (ep > epoch + 1) {
+        std::fill(wp, wp + Kp, 0.0);
+        std::fill(wc, wc + Kp, 0.0);
+        sp = sc = EpochSums{};
+      }
+      epoch = std::max(epoch, ep);
+    }
+    sc.ds += ds;
+    sc.ds_t += ds * (ta - origin);
+    Lanes l0, l1, l2;
+    if (checkpoint_here) {
+      double* ck = S.checkpoints.append(3 * K + 7);
+      const double tail[7] = {sp.ds, sp.ds_t, sp.jump, sc.ds, sc.ds_t, sc.jump, static_cast<double>(epoch)};
+      std::copy(tail, tail + 7, ck + 3 * K);
+      step_kernel_lanes<true>(K, a, wp, wc, e_, bg, bl, vs, vm, ds, slope, ck, l0, l1, l2, Groups);
+    } else {
+      step_kernel_lanes<false>(K, a, wp, wc, e_, bg, bl, vs, vm, ds, slope, nullptr, l0, l1, l2, Groups);
+    }
+    // the ring's left-out-mode correction (the ring filter of simulate) over the last
+    // min(run, taps) slope changes, oldest first: step_ds[i − taps + 1 + from ...]
+    const std::size_t from = static_cast<std::size_t>(taps - std::min(run, taps));
+    const std::ptrdiff_t first = static_cast<std::ptrdiff_t>(i) + 1 - taps + static_cast<std::ptrdiff_t>(from);
+    Lanes la, lb;
+    fir_pair_lanes(p.step_ds + first, tab_gs + from, tab_gm + from, 0, static_cast<std::size_t>(taps) - from, la, lb);
+    const Lanes sums = lane_sums(l0, l1, l2, la);
+    const double cs = sums[3], cm = lane_sum(lb);
+    const double tm_b = tm_a + slope * run_dt;
+    e.time_s = tb;
+    e.medium_C = tm_b;
+    const long ep_b = eng.epoch_of(origin, tb);
+    prev_tb = tb;
+    prev_ep_b = ep_b;
+    const double tau0 = tb - origin;
+    if (ep_b == epoch) {
+      // Engine::centre_from for a step ending in the same epoch (the same arithmetic)
+      double corr = 0.0;
+      corr += sp.ds * full_centre - (sp.ds * tau0 - sp.ds_t) + sp.jump;
+      corr += sc.ds * full_centre - (sc.ds * tau0 - sc.ds_t) + sc.jump;
+      e.centre_C = tm_b + sums[0] - slope * q_centre + corr;
+    } else {
+      // the step ends in a later epoch (once per epoch): Engine::centre_from with the memory sums
+      Lanes lp = {0, 0, 0, 0}, lc = lp;
+      for (std::size_t k = 0; k < KL; k += 4) {
+        lp += load4(wp + k);
+        lc += load4(wc + k);
+      }
+      const double w_prev = lane_sum(lp), w_cur = lane_sum(lc);
+      const double full_a = sums[0] + w_prev + w_cur;
+      const long d = ep_b - epoch;
+      double corr = 0.0;
+      if (d <= 0) {
+        corr += sp.ds * full_centre - (sp.ds * tau0 - sp.ds_t) + sp.jump;
+        corr -= w_prev;
+      }
+      if (d <= 1) {
+        corr += sc.ds * full_centre - (sc.ds * tau0 - sc.ds_t) + sc.jump;
+        corr -= w_cur;
+      }
+      e.centre_C = tm_b + full_a - slope * q_centre + corr;
+    }
+    e.surface_C = tm_b + sums[1] - slope * q_surface;
+    e.mean_C = tm_b + sums[2] - slope * q_mean;
+    e.surface_C += cs;
+    e.mean_C += cm;
+    p.out[i] = e;
+  }
+  if (swapped) st.w_prev.swap(st.w_cur);
+  st.s_prev = sp;
+  st.s_cur = sc;
+  st.epoch = epoch;
+  r.until_checkpoint = until_checkpoint;
+  r.run = run;
+  r.end_s = e;
+}
+
+}  // namespace
+
+COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
+  const Engine& eng = *r.eng;
+  StageModel& S = *r.stage_model;
+  const MediumPoint* P = r.points;
+  const std::size_t n_points = r.n_points;
+  const double t_abs = r.t_abs, limit = r.limit, run_dt = r.run_dt;
+  const double tau_ins = eng.tau_insulated_s, start_s = S.start_s;
+  const bool projected = S.projected;
+  if (r.cache->dt != run_dt || r.cache->basis != r.basis) eng.fill_cache(*r.basis, run_dt, *r.cache);
+  std::size_t piece = r.piece;
+  while (piece + 1 < n_points && P[piece + 1].time_s <= r.t_local) ++piece;
   // at most one step per remaining medium piece: room for that many, committed at the end
   const std::size_t max_steps = n_points - 1 - std::min(piece, n_points - 1);
   double* out_t = S.step_t.room(max_steps);
   double* out_tm = S.step_tm.room(max_steps);
   double* out_slope = S.step_slope.room(max_steps);
   double* out_ds = S.step_ds.room(max_steps);
-  const std::size_t samples0 = samples.size();
-  samples.resize(samples0 + max_steps);  // cheaper than a push_back per step; cut back below
-  HistorySample* out_samples = samples.data() + samples0;
-  std::size_t steps = 0;
-  double prev_tb = -1.0;  // (no step yet: ta >= origin >= 0 never equals it)
-  long prev_ep_b = 0;
-  while (piece + 1 < n_points && P[piece + 1].time_s <= t_local) ++piece;
+
+  // 1. the steps of the run: each a whole medium piece of length run_dt
+  const std::size_t piece0 = piece;
+  const double t_local0 = r.t_local;
+  double t_local = t_local0;
+  std::size_t n = 0;
+  bool finished = false;
   for (;;) {
     if (piece + 1 >= n_points) break;
     const double piece_end = std::min(P[piece + 1].time_s, limit);
     const double h = piece_end - t_local;
     const double ta = t_abs + t_local, tb = ta + h;
     if (h != run_dt || (projected && tb - start_s <= tau_ins)) break;
-    const double ds = piece_slope[piece] - slope;
-    pending_ds = ds;
-    slope = piece_slope[piece];
-    const double tm_a = P[piece].temp_C + slope * (t_local - P[piece].time_s);
-    const bool checkpoint_here = --until_checkpoint == 0;
-    if (checkpoint_here) until_checkpoint = stride;
-    out_t[steps] = ta;
-    out_tm[steps] = tm_a;
-    out_slope[steps] = slope;
-    out_ds[steps] = ds;
-    ring_ds[ring_pos] = ds;
-    ring2[ring_pos] = ring2[ring_pos + 64] = ds;
-    ring_t[ring_pos] = ta;
-    ring_pos = (ring_pos + 1) & 63;
-    ++run;
-    // Engine::event_advance_sum for a slope event (no jump), with the kernel inlined
-    // the epoch of the step start is the last step end's when the times are the same number
-    const long ep = ta == prev_tb ? prev_ep_b : eng.epoch_of(origin, ta);
-    if (ep != st.epoch) roll_epoch(st, ep);
-    st.s_cur.ds += ds;
-    st.s_cur.ds_t += ds * (ta - origin);
-    Lanes l0, l1, l2;
-    if (checkpoint_here) {
-      double* ck = S.checkpoints.append(3 * K + 7);
-      const double tail[7] = {st.s_prev.ds, st.s_prev.ds_t, st.s_prev.jump, st.s_cur.ds, st.s_cur.ds_t, st.s_cur.jump,
-                              static_cast<double>(st.epoch)};
-      std::copy(tail, tail + 7, ck + 3 * K);
-      step_kernel_lanes<true>(K, st.a.data(), st.w_prev.data(), st.w_cur.data(), c.e.data(), c.bg.data(), c.bl.data(),
-                              c.vs.data(), c.vm.data(), ds, slope, ck, l0, l1, l2);
-    } else {
-      step_kernel_lanes<false>(K, st.a.data(), st.w_prev.data(), st.w_cur.data(), c.e.data(), c.bg.data(), c.bl.data(),
-                               c.vs.data(), c.vm.data(), ds, slope, nullptr, l0, l1, l2);
-    }
-    // the ring's left-out-mode correction (the ring filter of simulate)
-    const long jw = std::min(run, taps);
-    Lanes la, lb;
-    fir_pair_lanes(ring2 + ring_pos + 64 - taps, tab_gs, tab_gm, static_cast<std::size_t>(taps - jw),
-                   static_cast<std::size_t>(taps), la, lb);
-    const Lanes sums = lane_sums(l0, l1, l2, la);
-    ModalSums sm;
-    sm.a = sums[0];
-    sm.a_surface = sums[1];
-    sm.a_mean = sums[2];
-    sm.combined = true;
-    const double cs = sums[3], cm = lane_sum(lb);
-    const double tm_b = tm_a + slope * h;
-    e.time_s = tb;
-    e.medium_C = tm_b;
-    e.stage = r.stage;
-    const long ep_b = eng.epoch_of(origin, tb);
-    prev_tb = tb;
-    prev_ep_b = ep_b;
-    if (ep_b == st.epoch) {
-      // Engine::centre_from for a step ending in the same epoch (the same arithmetic)
-      const double tau0 = tb - origin;
-      double corr = 0.0;
-      corr += st.s_prev.ds * B.full_centre - (st.s_prev.ds * tau0 - st.s_prev.ds_t) + st.s_prev.jump;
-      corr += st.s_cur.ds * B.full_centre - (st.s_cur.ds * tau0 - st.s_cur.ds_t) + st.s_cur.jump;
-      e.centre_C = tm_b + sm.a - slope * B.q_centre + corr;
-    } else {
-      // the step ends in a later epoch (once per epoch): the memory sums are needed apart
-      Lanes lp = {0, 0, 0, 0}, lc = lp;
-      const double* wp = st.w_prev.data();
-      const double* wc = st.w_cur.data();
-      for (std::size_t k = 0; k < K; k += 4) {
-        lp += load4(wp + k);
-        lc += load4(wc + k);
-      }
-      ModalSums full;
-      full.w_prev = lane_sum(lp);
-      full.w_cur = lane_sum(lc);
-      full.a = sm.a + full.w_prev + full.w_cur;
-      full.a_surface = sm.a_surface;
-      full.a_mean = sm.a_mean;
-      e.centre_C = eng.centre_from(B, st, full, origin, tb, tm_b, slope);
-    }
-    e.surface_C = tm_b + sm.a_surface - slope * B.q_surface;
-    e.mean_C = tm_b + sm.a_mean - slope * B.q_mean;
-    e.surface_C += cs;
-    e.mean_C += cm;
+    out_t[n++] = ta;
     t_local = piece_end;
-    out_samples[steps] = e;
-    ++steps;
     if (t_local >= limit) {
       finished = true;
       break;
     }
     ++piece;  // t_local is this piece's end, and times strictly increase (validated): the next starts here
   }
-  samples.resize(samples0 + steps);
-  S.step_t.commit(steps);
-  S.step_tm.commit(steps);
-  S.step_slope.commit(steps);
-  S.step_ds.commit(steps);
+  if (n == 0) return 0;
+
+  // 2. medium, slope and slope change at each step start (a step after the first starts at its
+  // piece's first point)
+  const double* piece_slope = r.piece_slope;
+  out_slope[0] = piece_slope[piece0];
+  out_ds[0] = out_slope[0] - r.slope;
+  out_tm[0] = P[piece0].temp_C + out_slope[0] * (t_local0 - P[piece0].time_s);
+  for (std::size_t i = 1; i < n; ++i) {
+    const MediumPoint& q = P[piece0 + i];
+    const double s = piece_slope[piece0 + i];
+    out_slope[i] = s;
+    out_ds[i] = s - piece_slope[piece0 + i - 1];
+    out_tm[i] = q.temp_C + s * (q.time_s - q.time_s);
+  }
+
+  // 3. the recurrence
+  std::vector<HistorySample>& samples = *r.samples;
+  const std::size_t samples0 = samples.size();
+  samples.resize(samples0 + n);
+  LeanPass pass;
+  pass.n = n;
+  pass.step_t = out_t;
+  pass.step_tm = out_tm;
+  pass.step_slope = out_slope;
+  pass.step_ds = out_ds;
+  pass.out = samples.data() + samples0;
+  switch (padded_modes(r.basis->lambda.size()) / 4) {
+    case 1: recurrence<1>(r, pass); break;
+    case 2: recurrence<2>(r, pass); break;
+    case 3: recurrence<3>(r, pass); break;
+    case 4: recurrence<4>(r, pass); break;
+    case 5: recurrence<5>(r, pass); break;
+    case 6: recurrence<6>(r, pass); break;
+    case 7: recurrence<7>(r, pass); break;
+    case 8: recurrence<8>(r, pass); break;
+    default: recurrence<0>(r, pass); break;
+  }
+  S.step_t.commit(n);
+  S.step_tm.commit(n);
+  S.step_slope.commit(n);
+  S.step_ds.commit(n);
+
+  // the ring of simulate holds the run's last 64 slope changes (at the positions it would have
+  // had, had each step been pushed)
+  const std::size_t ring_from = n > 64 ? n - 64 : 0;
+  r.ring_pos = static_cast<int>((static_cast<std::size_t>(r.ring_pos) + ring_from) & 63);
+  for (std::size_t i = ring_from; i < n; ++i) {
+    const int q = r.ring_pos;
+    r.ring_ds[q] = out_ds[i];
+    r.ring2[q] = r.ring2[q + 64] = out_ds[i];
+    r.ring_t[q] = out_t[i];
+    r.ring_pos = (q + 1) & 63;
+  }
   r.piece = piece;
   r.t_local = t_local;
-  r.slope = slope;
-  r.pending_ds = pending_ds;
-  r.until_checkpoint = until_checkpoint;
-  r.ring_pos = ring_pos;
-  r.run = run;
-  r.end_s = e;
+  r.slope = out_slope[n - 1];
+  r.pending_ds = out_ds[n - 1];
   r.finished = finished;
-  return steps;
+  return n;
 }
 
 }  // namespace coldcore::detail

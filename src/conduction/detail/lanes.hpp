@@ -57,19 +57,22 @@ using LaneIndex = long long __attribute__((vector_size(32)));
 /// (before the decay) is written to ck in the checkpoint layout (a, w_prev, w_cur; K each).
 /// REQUIRES: every array holds padded_modes(K) entries, the padding zero (it then stays zero and
 /// adds exact zeros to the sums).
-/// The sums are left in lanes (combine them with lane_sum or lane_sums).
+/// The sums are left in lanes (combine them with lane_sum or lane_sums). `groups`, if given, is
+/// padded_modes(K)/4 as a constant, so that the loop unrolls.
 template <bool Store>
 [[gnu::always_inline]] inline void step_kernel_lanes(std::size_t K, double* __restrict a, double* __restrict wp,
                                                      double* __restrict wc, const double* __restrict e,
                                                      const double* __restrict bg, const double* __restrict bl,
                                                      const double* __restrict vs, const double* __restrict vm,
                                                      double ds, double slope, double* __restrict ck, Lanes& s0,
-                                                     Lanes& s1, Lanes& s2) {
+                                                     Lanes& s1, Lanes& s2, std::size_t groups = 0) {
   s0 = Lanes{0, 0, 0, 0};
   s1 = s0;
   s2 = s0;
   const Lanes dsv = {ds, ds, ds, ds}, slv = {slope, slope, slope, slope};
-  for (std::size_t k = 0; k < K; k += 4) {
+  const std::size_t n = groups > 0 ? 4 * groups : K;
+#pragma GCC unroll 8
+  for (std::size_t k = 0; k < n; k += 4) {
     const Lanes ek = load4(e + k), ak0 = load4(a + k), wpk0 = load4(wp + k);
     const Lanes wce = load4(wc + k) + load4(bl + k) * dsv;
     if constexpr (Store) {
