@@ -689,12 +689,13 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
     // evaluate() re-advances at most `stride` exact steps from the nearest checkpoint, and the
     // lethality quadrature calls it very often, so memory is traded for speed here. With few
     // modes a checkpoint at every step is not worth its memory traffic (it cost simulate() more
-    // than the stepping itself): re-advancing up to ~64 mode-steps is small beside the O(K)
-    // exponentials evaluate() needs anyway.
+    // than the stepping itself): re-advancing up to ~256 mode-steps is small beside the O(K)
+    // exponentials and the recent-event corrections evaluate() needs anyway (a 1 s sphere log:
+    // a checkpoint every 14 steps, 0.6 MB per 4 h).
     const std::size_t K = B.lambda.size();
     const double est_steps = static_cast<double>(pts.size()) + 64.0;
     const double budget = std::max(4194304.0, 48.0 * (3.0 * K + 7.0));  // and at least ~48 checkpoints
-    const int min_stride = std::max(1, static_cast<int>(128 / std::max<std::size_t>(K, 1)));
+    const int min_stride = std::max(1, static_cast<int>(256 / std::max<std::size_t>(K, 1)));
     S.stride = std::max(min_stride, static_cast<int>(std::ceil(est_steps * (3.0 * K + 7.0) / budget)));
     S.step_t.reserve(static_cast<std::size_t>(est_steps));
     S.step_tm.reserve(static_cast<std::size_t>(est_steps));

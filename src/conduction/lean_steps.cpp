@@ -39,9 +39,6 @@ template <std::size_t Groups>
   const std::size_t Kp = padded_modes(K);
   const double origin = S.origin_s, run_dt = r.run_dt;
   const double full_centre = B.full_centre, q_centre = B.q_centre, q_surface = B.q_surface, q_mean = B.q_mean;
-  const long taps = r.run_taps;
-  const double* tab_gs = r.tab_gs;
-  const double* tab_gm = r.tab_gm;
   const double *e_ = c.e.data(), *bg = c.bg.data(), *bl = c.bl.data(), *vs = c.vs.data(), *vm = c.vm.data();
   double* a = st.a.data();
   // the centre's transient memory in locals (stores into the mode arrays cannot alias them)
@@ -91,14 +88,7 @@ template <std::size_t Groups>
     } else {
       step_kernel_lanes<false>(K, a, wp, wc, e_, bg, bl, vs, vm, ds, slope, nullptr, l0, l1, l2, Groups);
     }
-    // the ring's left-out-mode correction (the ring filter of simulate) over the last
-    // min(run, taps) slope changes, oldest first: step_ds[i − taps + 1 + from ...]
-    const std::size_t from = static_cast<std::size_t>(taps - std::min(run, taps));
-    const std::ptrdiff_t first = static_cast<std::ptrdiff_t>(i) + 1 - taps + static_cast<std::ptrdiff_t>(from);
-    Lanes la, lb;
-    fir_pair_lanes(p.step_ds + first, tab_gs + from, tab_gm + from, 0, static_cast<std::size_t>(taps) - from, la, lb);
-    const Lanes sums = lane_sums(l0, l1, l2, la);
-    const double cs = sums[3], cm = lane_sum(lb);
+    const Lanes sums = lane_sums(l0, l1, l2, Lanes{0, 0, 0, 0});
     const double tm_b = tm_a + slope * run_dt;
     e.time_s = tb;
     e.medium_C = tm_b;
@@ -135,9 +125,7 @@ template <std::size_t Groups>
     }
     e.surface_C = tm_b + sums[1] - slope * q_surface;
     e.mean_C = tm_b + sums[2] - slope * q_mean;
-    e.surface_C += cs;
-    e.mean_C += cm;
-    p.out[i] = e;
+    p.out[i] = e;  // surface and mean without the ring's correction yet (ring_correction)
   }
   if (swapped) st.w_prev.swap(st.w_cur);
   st.s_prev = sp;
@@ -145,7 +133,38 @@ template <std::size_t Groups>
   st.epoch = epoch;
   r.until_checkpoint = until_checkpoint;
   r.run = run;
-  r.end_s = e;
+}
+
+/// Adds the ring filter's left-out-mode correction (the ring filter of simulate) to the surface
+/// and mean of the run's samples: over the last min(run, taps) slope changes at each step,
+/// oldest first, step_ds[i − taps + 1 + from ...]. run0 is the run's length before these steps.
+/// Four outputs at a time once the run is longer than the filter (the same sums as one by one).
+[[gnu::always_inline]] inline void ring_correction(const LeanRun& r, const LeanPass& p, long run0) {
+  const long taps = r.run_taps;
+  const double* gs = r.tab_gs;
+  const double* gm = r.tab_gm;
+  const std::size_t ut = static_cast<std::size_t>(taps);
+  std::size_t i = 0;
+  while (i < p.n) {
+    const long run = run0 + static_cast<long>(i) + 1;
+    const std::ptrdiff_t first = static_cast<std::ptrdiff_t>(i) + 1 - taps;
+    if (run >= taps && i + 4 <= p.n) {
+      Lanes cs, cm;
+      fir_pair_four(p.step_ds + first, gs, gm, ut, cs, cm);
+      for (int l = 0; l < 4; ++l) {
+        p.out[i + static_cast<std::size_t>(l)].surface_C += cs[l];
+        p.out[i + static_cast<std::size_t>(l)].mean_C += cm[l];
+      }
+      i += 4;
+      continue;
+    }
+    const std::size_t from = static_cast<std::size_t>(taps - std::min(run, taps));
+    Lanes la, lb;
+    fir_pair_lanes(p.step_ds + first + static_cast<std::ptrdiff_t>(from), gs + from, gm + from, 0, ut - from, la, lb);
+    p.out[i].surface_C += lane_sum(la);
+    p.out[i].mean_C += lane_sum(lb);
+    ++i;
+  }
 }
 
 }  // namespace
@@ -215,6 +234,7 @@ COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
   pass.step_slope = out_slope;
   pass.step_ds = out_ds;
   pass.out = samples.data() + samples0;
+  const long run0 = r.run;
   switch (padded_modes(r.basis->lambda.size()) / 4) {
     case 1: recurrence<1>(r, pass); break;
     case 2: recurrence<2>(r, pass); break;
@@ -226,6 +246,8 @@ COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
     case 8: recurrence<8>(r, pass); break;
     default: recurrence<0>(r, pass); break;
   }
+  ring_correction(r, pass, run0);
+  r.end_s = pass.out[n - 1];
   S.step_t.commit(n);
   S.step_tm.commit(n);
   S.step_slope.commit(n);

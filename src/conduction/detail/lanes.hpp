@@ -132,6 +132,32 @@ template <bool Store>
   }
 }
 
+/// fir_pair_lanes (from = 0, then lane_sum) for four consecutive outputs at once, one per lane:
+/// output l sums d[l + i]·ga[i] and d[l + i]·gb[i] over i < n. Each output gets the same
+/// additions in the same order as fir_pair_lanes followed by lane_sum, so the bits are the same.
+[[gnu::always_inline]] inline void fir_pair_four(const double* __restrict d, const double* __restrict ga,
+                                                 const double* __restrict gb, std::size_t n, Lanes& sa_out,
+                                                 Lanes& sb_out) {
+  Lanes a0 = {0, 0, 0, 0}, a1 = a0, a2 = a0, a3 = a0, b0 = a0, b1 = a0, b2 = a0, b3 = a0;
+  auto tap = [&](std::size_t i, Lanes& sa, Lanes& sb) {
+    const Lanes di = load4(d + i);
+    sa += di * Lanes{ga[i], ga[i], ga[i], ga[i]};
+    sb += di * Lanes{gb[i], gb[i], gb[i], gb[i]};
+  };
+  std::size_t i = 0;
+  for (; i + 4 <= n; i += 4) {
+    tap(i, a0, b0);
+    tap(i + 1, a1, b1);
+    tap(i + 2, a2, b2);
+    tap(i + 3, a3, b3);
+  }
+  if (i < n) tap(i, a0, b0);
+  if (i + 1 < n) tap(i + 1, a1, b1);
+  if (i + 2 < n) tap(i + 2, a2, b2);
+  sa_out = (a0 + a1) + (a2 + a3);
+  sb_out = (b0 + b1) + (b2 + b3);
+}
+
 /// fir_pair_lanes with the sums combined.
 [[gnu::always_inline]] inline void fir_pair_body(const double* __restrict d, const double* __restrict ga,
                                                  const double* __restrict gb, std::size_t from, std::size_t n,
