@@ -3,8 +3,9 @@
 // The run is taken in three passes: a scan that finds how many steps it holds and their start
 // times, a pass that fills their medium, slope and slope change (no dependence between steps, so
 // it vectorises), and the recurrence over the modes. The recurrence is instantiated for each
-// small count of mode groups, so the modal kernel is fully unrolled. Each value is the same
-// expression, in the same order, as in the general step.
+// small count of mode groups, so the modal kernel is fully unrolled. The ring filter, which does
+// not depend on the modal state, then corrects the run's samples four at a time. Each value is
+// the same expression, in the same order, as in the general step.
 #include "conduction/detail/lean_steps.hpp"
 
 #include <algorithm>

@@ -44,7 +44,9 @@ struct LeanRun {
 /// Takes steps while the next one is a step of length run_dt that ends inside the limit and,
 /// for a projected stage, after the insulated time. Returns the number of steps taken.
 /// REQUIRES: a duration stage, no pending recent events (their corrections are the general
-/// step's), run > 0 (the ring holds this run's events) and the filter taps built for run_dt.
+/// step's), run > 0 (the ring holds this run's events), the stage's step_ds ending with the
+/// run's slope changes so far (simulate records each ring event there too; the filter reads
+/// them from it) and the filter taps built for run_dt.
 std::size_t lean_steps(LeanRun& r);
 
 }  // namespace coldcore::detail
