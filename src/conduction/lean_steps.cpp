@@ -225,7 +225,7 @@ COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
   }
 
   // 3. the recurrence
-  std::vector<HistorySample>& samples = *r.samples;
+  SampleVector& samples = *r.samples;
   const std::size_t samples0 = samples.size();
   samples.resize(samples0 + n);
   LeanPass pass;

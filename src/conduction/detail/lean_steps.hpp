@@ -17,7 +17,7 @@ struct LeanRun {
   const Engine* eng = nullptr;
   const Basis* basis = nullptr;
   StageModel* stage_model = nullptr;
-  std::vector<HistorySample>* samples = nullptr;
+  SampleVector* samples = nullptr;
   const MediumPoint* points = nullptr;
   std::size_t n_points = 0;
   const double* piece_slope = nullptr;
