@@ -4,7 +4,10 @@
 #include <doctest/doctest.h>
 
 #include <boost/math/special_functions/bessel.hpp>
+#include <boost/math/tools/toms748_solve.hpp>
 #include <cmath>
+#include <cstdint>
+#include <limits>
 #include <string>
 
 #include "coldcore/error.hpp"
@@ -240,4 +243,36 @@ TEST_CASE("modes: bad input is refused with the place, value and requirement") {
   CHECK_THROWS_WITH_AS(eigenvalue(Geometry::slab, 1.0, 0), "eigenvalue: n = 0: must be >= 1", InputError);
   CHECK_THROWS_AS(modes(Geometry::slab, 1.0, -1), InputError);
   CHECK_THROWS_AS(centre_coefficient(Geometry::slab, 1.0, -0.5), InputError);
+}
+
+TEST_CASE("higher slab and sphere roots equal Boost's bracketed solve of the characteristic equation to 4 ulps") {
+  // The engine finds roots n >= 2 of slab and sphere by Newton's method (history setup needs up
+  // to ~100 of them); the reference is Boost.Math toms748 on the characteristic equation in
+  // ζ = (n−1)π + δ, the form the engine solved before: slab (a+δ) sin δ = Bi cos δ, sphere
+  // (a+δ) cos δ = (1 − Bi) sin δ. Bi spans 1e-6 … 1e8, including both sides of Bi = 1.
+  const double bis[] = {1e-6, 1e-3, 0.1, 0.5, 0.999, 1.0, 1.001, 2.0, 10.0, 1e3, 1e6, 1e8};
+  double worst = 0;
+  std::string where;
+  for (const Geometry g : {Geometry::slab, Geometry::sphere}) {
+    for (const double bi : bis) {
+      for (int n = 2; n <= 400; n += (n < 20 ? 1 : 37)) {
+        const double a = (n - 1) * kPi;
+        auto f = [&](double x) {
+          return g == Geometry::slab ? (a + x) * std::sin(x) - bi * std::cos(x) : (a + x) * std::cos(x) - (1 - bi) * std::sin(x);
+        };
+        const double hi = g == Geometry::slab ? kPi / 2 : kPi;
+        std::uintmax_t it = 200;
+        const auto r = boost::math::tools::toms748_solve(f, 0.0, hi, boost::math::tools::eps_tolerance<double>(std::numeric_limits<double>::digits - 2), it);
+        const double ref = a + 0.5 * (r.first + r.second);
+        const double z = eigenvalue(g, bi, n);
+        const double ulps = std::abs(z - ref) / (std::numeric_limits<double>::epsilon() * ref);
+        if (ulps > worst) {
+          worst = ulps;
+          where = std::string(g == Geometry::slab ? "slab" : "sphere") + " Bi=" + std::to_string(bi) + " n=" + std::to_string(n);
+        }
+      }
+    }
+  }
+  MESSAGE("worst difference " << worst << " ulps at " << where);
+  CHECK(worst <= 4.0);
 }
