@@ -46,10 +46,13 @@ LibraryFiles load_libraries(const std::string& library_dir, const std::string& p
   return d;
 }
 
-std::vector<KeyValue> library_provenance(const LibraryFiles& libs) {
-  return {{"organisms", libs.organisms.origin + " (SHA-256 " + libs.organisms_sha256 + ")"},
-          {"cooling rules", libs.rules.origin + " (SHA-256 " + libs.rules_sha256 + ")"},
-          {"cooking tables", libs.cooking.origin + " (SHA-256 " + libs.cooking_sha256 + ")"}};
+std::vector<KeyValue> library_provenance(const LibraryFiles& libs, bool names_only) {
+  auto shown = [names_only](const std::string& origin) {
+    return names_only ? std::filesystem::path(origin).filename().string() : origin;
+  };
+  return {{"organisms", shown(libs.organisms.origin) + " (SHA-256 " + libs.organisms_sha256 + ")"},
+          {"cooling rules", shown(libs.rules.origin) + " (SHA-256 " + libs.rules_sha256 + ")"},
+          {"cooking tables", shown(libs.cooking.origin) + " (SHA-256 " + libs.cooking_sha256 + ")"}};
 }
 
 }  // namespace coldcore::cli

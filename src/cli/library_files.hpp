@@ -27,7 +27,9 @@ std::filesystem::path library_path(const std::string& name, const std::string& l
 
 LibraryFiles load_libraries(const std::string& library_dir, const std::string& product_file);
 
-/// Provenance rows naming each library file and its SHA-256.
-std::vector<KeyValue> library_provenance(const LibraryFiles& libs);
+/// Provenance rows naming each library file and its SHA-256. names_only: the file names without
+/// their folders (for libraries found by the fallbacks, whose absolute paths would make the same
+/// report differ between machines; the SHA-256 identifies the content).
+std::vector<KeyValue> library_provenance(const LibraryFiles& libs, bool names_only = false);
 
 }  // namespace coldcore::cli

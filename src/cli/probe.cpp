@@ -157,8 +157,11 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
   r.assumptions = {"The log is the temperature at the product's slowest-heating point; its placement and the probe's calibration are the user's to verify.",
                    "Temperatures between logged rows are taken as linear in time.",
                    "Lethality uses log-linear (Bigelow) kinetics with the D and z values stated."};
-  r.provenance = {{"tool", std::string("coldcore ") + kVersion}, {"input", a.log}, {"input SHA-256", io::sha256_hex(bytes)},
-                  {"date", a.date.empty() ? today_utc() : a.date}};
+  r.provenance = {{"tool", std::string("coldcore ") + kVersion}, {"input", a.log}, {"input SHA-256", io::sha256_hex(bytes)}};
+  // the data libraries the assessment read (found without a product file: names only)
+  const auto lib_rows = library_provenance(lib, /*names_only=*/true);
+  r.provenance.insert(r.provenance.end(), lib_rows.begin(), lib_rows.end());
+  r.provenance.push_back({"date", a.date.empty() ? today_utc() : a.date});
   r.cautions = cautions();
   switch (f) {
     case Format::json: write_run_json(r, out, u); break;

@@ -48,6 +48,10 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
   opts.date = a.date.empty() ? today_utc() : a.date;
   opts.version = kVersion;
   RunReport report = build_run_report(shown, history, opts);
+  // the data libraries the assessment read, with their SHA-256, before the date
+  const auto lib_rows = library_provenance(lib);
+  const bool dated = !report.provenance.empty() && report.provenance.back().key == "date";
+  report.provenance.insert(report.provenance.end() - (dated ? 1 : 0), lib_rows.begin(), lib_rows.end());
   std::vector<const History*> history_of(assessment.targets.size(), &history);
   for (std::size_t t = 0; t < eval.target_scenario.size(); ++t)
     history_of[t] = &eval.h_scenarios[static_cast<std::size_t>(eval.target_scenario[t])].history;

@@ -166,6 +166,19 @@ foreach(p kofta-balls chicken-sausage-log corned-beef-can lasagne-tray)
 endforeach()
 cli_expect(run_units_F 0 ARGS run products/kofta-balls.toml --format csv --units F --date 2026-12-01
            STDOUT_HAS "time_s,medium_F,centre_F,surface_F,mean_F,F_listeria-monocytogenes_min" "\n0,204.8,39.2,39.2,39.2,0")
+# run and probe name the data libraries they read in their provenance, with the SHA-256 that
+# CMake's own file(SHA256) computes (FIPS 180-4).
+file(SHA256 ${PROJECT_SOURCE_DIR}/products/organisms.toml organisms_sha)
+file(SHA256 ${PROJECT_SOURCE_DIR}/products/cooling-rules.toml rules_sha)
+file(SHA256 ${PROJECT_SOURCE_DIR}/products/cooking-tables.toml cooking_sha)
+cli_expect(run_library_provenance 0 ARGS run products/kofta-balls.toml --date 2026-12-01
+           STDOUT_HAS "organisms: products/organisms.toml (SHA-256 ${organisms_sha})"
+                      "cooling rules: products/cooling-rules.toml (SHA-256 ${rules_sha})"
+                      "cooking tables: products/cooking-tables.toml (SHA-256 ${cooking_sha})\n  date: 2026-12-01")
+cli_expect(probe_library_provenance 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes
+           --target-log 6 --format json --date 2026-12-01
+           STDOUT_HAS "\"organisms\": \"organisms.toml (SHA-256 ${organisms_sha})\""
+                      "\"cooling rules\": \"cooling-rules.toml (SHA-256 ${rules_sha})\"")
 cli_expect(run_md_needs_out 2 ARGS run products/kofta-balls.toml --format md STDERR_HAS "give --out PATH.md")
 cli_expect(run_missing_file 2 ARGS run products/no-such-file.toml STDERR_HAS "products/no-such-file.toml: cannot read file")
 cli_expect(run_bad_step 2 ARGS run products/kofta-balls.toml --step-s -5 STDERR_HAS "--step-s = -5.000: must be > 0")
