@@ -24,9 +24,17 @@ std::filesystem::path library_path(const std::string& name, const std::string& l
     const fs::path p = fs::path(env) / name;
     if (fs::exists(p)) return p;
   }
+  // An installed executable (P/bin/coldcore) reads P/share/coldcore.
+  std::error_code ec;
+  const fs::path exe = fs::read_symlink("/proc/self/exe", ec);
+  if (!ec) {
+    const fs::path installed = exe.parent_path().parent_path() / COLDCORE_DATA_SUBDIR / name;
+    if (fs::exists(installed)) return installed;
+  }
   const fs::path src = fs::path(COLDCORE_SOURCE_DIR) / "products" / name;
   if (fs::exists(src)) return src;
-  throw InputError(name + ": not found beside the product file nor in " + src.parent_path().generic_string() +
+  throw InputError(name + ": not found beside the product file, in $COLDCORE_DATA_DIR, in " COLDCORE_DATA_SUBDIR
+                   " beside the executable's folder nor in " + src.parent_path().generic_string() +
                    "; give --library DIR");
 }
 

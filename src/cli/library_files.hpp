@@ -1,7 +1,8 @@
 #pragma once
-// The data libraries (organisms.toml, cooling-rules.toml, media.toml) a verb needs, found beside
-// the product file, else in --library DIR, else in $COLDCORE_DATA_DIR, else in the source tree's
-// products/ folder. The one loader every verb uses.
+// The data libraries (organisms.toml, cooling-rules.toml, media.toml) a verb needs, found in
+// --library DIR, else beside the product file, else in $COLDCORE_DATA_DIR, else in share/coldcore
+// beside the executable's folder (an installed coldcore), else in the source tree's products/
+// folder. The one loader every verb uses.
 #include <filesystem>
 #include <string>
 #include <vector>
@@ -21,7 +22,8 @@ struct LibraryFiles {
 };
 
 /// Path of library file `name`: `library_dir`/name when library_dir is given; else beside
-/// `product_file`; else $COLDCORE_DATA_DIR/name; else COLDCORE_SOURCE_DIR/products/name. InputError when none exists.
+/// `product_file`; else $COLDCORE_DATA_DIR/name; else <exe>/../share/coldcore/name; else
+/// COLDCORE_SOURCE_DIR/products/name. InputError when none exists.
 std::filesystem::path library_path(const std::string& name, const std::string& library_dir,
                                    const std::string& product_file);
 
