@@ -1,5 +1,8 @@
 #include "coldcore/io/product_file.hpp"
 
+#include <cerrno>
+#include <cstring>
+
 #include <array>
 #include <cmath>
 #include <fstream>
@@ -262,11 +265,28 @@ ProductFile parse_product(std::string_view toml_text, std::string_view origin_sv
 }
 
 std::string read_text_file(const std::filesystem::path& path) {
+  namespace fs = std::filesystem;
+  const std::string where = path.generic_string() + ": cannot read file: ";
+  // Look before opening: opening a FIFO blocks until a writer appears, and a device never ends.
+  std::error_code ec;
+  const fs::file_status st = fs::status(path, ec);
+  if (ec) throw InputError(where + ec.message());
+  if (fs::is_directory(st)) throw InputError(where + "it is a directory; give a regular file");
+  if (!fs::is_regular_file(st)) {
+    const char* what = fs::is_fifo(st) ? "a FIFO" : fs::is_socket(st) ? "a socket"
+                     : (fs::is_character_file(st) || fs::is_block_file(st)) ? "a device" : "not a plain file";
+    throw InputError(where + "it is " + what + "; give a regular file");
+  }
+  const auto size = fs::file_size(path, ec);
+  if (!ec && size > kMaxInputFileBytes)
+    throw InputError(where + std::to_string(size) + " bytes is over the limit of " +
+                     std::to_string(kMaxInputFileBytes) + " bytes");
+  errno = 0;
   std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError(path.generic_string() + ": cannot read file");
+  if (!in) throw InputError(where + (errno != 0 ? std::strerror(errno) : "cannot open it"));
   std::ostringstream ss;
   ss << in.rdbuf();
-  if (in.bad()) throw InputError(path.generic_string() + ": cannot read file");
+  if (in.bad()) throw InputError(where + "a read error occurred");
   return ss.str();
 }
 
@@ -281,11 +301,11 @@ void require_constant_properties(const ProductFile& file) {
 ProductFile load_product(const std::filesystem::path& path) {
   const std::string text = read_text_file(path);
   const LogReader disk = [](const std::filesystem::path& p) -> std::optional<std::string> {
-    std::ifstream in(p, std::ios::binary);
-    if (!in) return std::nullopt;
-    std::ostringstream ss;
-    ss << in.rdbuf();
-    return ss.str();
+    try {
+      return read_text_file(p);  // refuses directories, FIFOs and devices before opening
+    } catch (const InputError&) {
+      return std::nullopt;
+    }
   };
   ProductFile pf = parse_product(text, path.generic_string(), path.parent_path(), disk);
   if (needs_media(pf)) {

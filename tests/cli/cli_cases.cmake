@@ -180,7 +180,12 @@ cli_expect(probe_library_provenance 0 ARGS probe products/logs/kofta-probe.csv -
            STDOUT_HAS "\"organisms\": \"organisms.toml (SHA-256 ${organisms_sha})\""
                       "\"cooling rules\": \"cooling-rules.toml (SHA-256 ${rules_sha})\"")
 cli_expect(run_md_needs_out 2 ARGS run products/kofta-balls.toml --format md STDERR_HAS "give --out PATH.md")
-cli_expect(run_missing_file 2 ARGS run products/no-such-file.toml STDERR_HAS "products/no-such-file.toml: cannot read file")
+cli_expect(run_missing_file 2 ARGS run products/no-such-file.toml
+           STDERR_HAS "products/no-such-file.toml: cannot read file: No such file or directory")
+# issue 18: a directory or a device given as a file is refused before reading, with what to give.
+cli_expect(run_directory_as_file 2 ARGS run products STDERR_HAS "products: cannot read file: it is a directory; give a regular file")
+cli_expect(probe_device_as_log 2 ARGS probe /dev/zero --organism listeria-monocytogenes
+           STDERR_HAS "/dev/zero: cannot read file: it is a device; give a regular file")
 cli_expect(run_bad_step 2 ARGS run products/kofta-balls.toml --step-s -5 STDERR_HAS "--step-s = -5.000: must be > 0")
 # A chill that cannot reach its end temperature within the cap is reported and exits 1.
 cli_expect(run_cap_reached 1 ARGS run tests/cli/cap_reached.toml

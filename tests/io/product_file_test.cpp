@@ -281,7 +281,7 @@ TEST_CASE("load_product reads the file and its logs from disk") {
   CHECK(pf.sha256_hex == io::sha256_hex(text));
   CHECK(pf.stages[0].end.duration_s == 30);
   CHECK_THROWS_WITH_AS(io::load_product(dir / "nope.toml"), ((dir / "nope.toml").generic_string() +
-                                                             ": cannot read file").c_str(),
+                                                             ": cannot read file: No such file or directory").c_str(),
                        InputError);
   std::filesystem::remove_all(dir);
 }

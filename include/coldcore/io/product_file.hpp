@@ -45,6 +45,7 @@
 ///              kind = centre-min-temperature: min_*, hold_* >= 0, optional at, name
 ///              z_F is a temperature difference: z_C = z_F / 1.8. Target names are unique.
 #include <array>
+#include <cstdint>
 #include <filesystem>
 #include <functional>
 #include <optional>
@@ -124,7 +125,13 @@ ProductFile load_product(const std::filesystem::path& path);
 /// verbs yet. InputError "<origin>: product.composition: ...".
 void require_constant_properties(const ProductFile& file);
 
-/// The bytes of a file; InputError `<path>: cannot read file` when it cannot be opened.
+/// Largest input file read (product files, logs, libraries): 256 MiB. A 1-s log of a year is
+/// about 20 MiB, so this only stops a wrong file (an image, a disk) from exhausting memory.
+inline constexpr std::uintmax_t kMaxInputFileBytes = 256u * 1024u * 1024u;
+
+/// The bytes of a regular file. InputError `<path>: cannot read file: <why>` when it is missing
+/// or unreadable (the system's reason), a directory, a FIFO, socket or device (refused before
+/// opening, so nothing blocks), or larger than kMaxInputFileBytes.
 std::string read_text_file(const std::filesystem::path& path);
 
 }  // namespace coldcore::io
