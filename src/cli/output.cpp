@@ -7,6 +7,7 @@
 #include <sstream>
 
 #include "coldcore/error.hpp"
+#include "coldcore/io/product_file.hpp"
 #include "coldcore/report/temperature_text.hpp"
 
 namespace coldcore::cli {
@@ -29,22 +30,66 @@ std::string today_utc() {
 
 namespace {
 
-// Write beside the target and rename, so a failed write never leaves half a file.
-void write_whole_file(const std::filesystem::path& target, const std::string& content) {
-  std::filesystem::path tmp = target;
+namespace fs = std::filesystem;
+
+// The temporary a file is written to before the rename: beside its target, so the rename stays
+// within one file system.
+fs::path temporary_for(const fs::path& target) {
+  fs::path tmp = target;
   tmp += ".tmp-coldcore";
-  {
-    std::ofstream f(tmp, std::ios::binary);
-    if (!f) throw InputError("--out = " + target.string() + ": cannot be opened for writing");
-    f << content;
-    f.flush();
-    if (!f) throw InputError("--out = " + target.string() + ": write failed");
-  }
+  return tmp;
+}
+
+// Refuses a target that would destroy an input or cannot be a file.
+void check_target(const fs::path& target, const std::string& shown) {
   std::error_code ec;
-  std::filesystem::rename(tmp, target, ec);
-  if (ec) {
-    std::filesystem::remove(tmp, ec);
-    throw InputError("--out = " + target.string() + ": cannot be written");
+  if (fs::is_directory(target, ec)) throw InputError(shown + ": is a directory; give a file name");
+  // Replacing a device or FIFO by a rename would destroy it (root may): only plain files are replaced.
+  if (fs::exists(target, ec) && !fs::is_regular_file(target, ec))
+    throw InputError(shown + ": exists and is not a regular file; give a file name");
+  const fs::path canonical = fs::weakly_canonical(target, ec);
+  for (const auto& input : io::inputs_read()) {
+    std::error_code e1;
+    const bool same = (!ec && canonical == fs::weakly_canonical(input, e1)) || fs::equivalent(target, input, e1);
+    if (same)
+      throw InputError(shown + ": is the input file " + input.generic_string() +
+                       "; choose another name (coldcore never overwrites what it reads)");
+  }
+}
+
+// All or nothing: every file is written to its temporary first; only when all were written are
+// they renamed into place. On any failure every temporary is removed and no target is touched
+// (a rename that fails part-way leaves the earlier targets complete, never half-written).
+void write_all_or_nothing(const std::vector<std::pair<fs::path, std::string>>& files,
+                          const std::vector<std::string>& shown) {
+  std::vector<fs::path> written;
+  auto discard = [&written] {
+    std::error_code ec;
+    for (const auto& t : written) fs::remove(t, ec);
+  };
+  for (std::size_t i = 0; i < files.size(); ++i) {
+    const fs::path tmp = temporary_for(files[i].first);
+    std::ofstream f(tmp, std::ios::binary);
+    if (!f) {
+      discard();
+      throw InputError(shown[i] + ": cannot be opened for writing");
+    }
+    written.push_back(tmp);
+    f << files[i].second;
+    f.flush();
+    if (!f) {
+      f.close();
+      discard();
+      throw InputError(shown[i] + ": write failed (disk full or not writable?)");
+    }
+  }
+  for (std::size_t i = 0; i < files.size(); ++i) {
+    std::error_code ec;
+    fs::rename(written[i], files[i].first, ec);
+    if (ec) {
+      for (std::size_t j = i; j < written.size(); ++j) fs::remove(written[j], ec);
+      throw InputError(shown[i] + ": cannot be written: " + ec.message());
+    }
   }
 }
 
@@ -66,9 +111,17 @@ int with_output(const OutputArgs& a, const std::function<int(std::ostream&, Side
     std::cout << text;
     return code;
   }
-  const std::filesystem::path target(a.out);
-  for (const auto& [name, content] : side) write_whole_file(target.parent_path() / name, render_temperatures(content, u));
-  write_whole_file(target, text);
+  const fs::path target(a.out);
+  std::vector<std::pair<fs::path, std::string>> files;
+  std::vector<std::string> shown;
+  for (const auto& [name, content] : side) {
+    files.emplace_back(target.parent_path() / name, render_temperatures(content, u));
+    shown.push_back("--out = " + a.out + ": side file " + (target.parent_path() / name).generic_string());
+  }
+  files.emplace_back(target, text);
+  shown.push_back("--out = " + a.out);
+  for (std::size_t i = 0; i < files.size(); ++i) check_target(files[i].first, shown[i]);
+  write_all_or_nothing(files, shown);
   return code;
 }
 

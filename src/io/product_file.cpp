@@ -2,6 +2,7 @@
 
 #include <cerrno>
 #include <cstring>
+#include <mutex>
 
 #include <array>
 #include <cmath>
@@ -264,6 +265,17 @@ ProductFile parse_product(std::string_view toml_text, std::string_view origin_sv
   return out;
 }
 
+namespace {
+std::mutex& inputs_mutex() {
+  static std::mutex m;
+  return m;
+}
+std::vector<std::filesystem::path>& inputs_list() {
+  static std::vector<std::filesystem::path> files;
+  return files;
+}
+}  // namespace
+
 std::string read_text_file(const std::filesystem::path& path) {
   namespace fs = std::filesystem;
   const std::string where = path.generic_string() + ": cannot read file: ";
@@ -287,7 +299,16 @@ std::string read_text_file(const std::filesystem::path& path) {
   std::ostringstream ss;
   ss << in.rdbuf();
   if (in.bad()) throw InputError(where + "a read error occurred");
+  {
+    const std::lock_guard lock(inputs_mutex());
+    inputs_list().push_back(path);
+  }
   return ss.str();
+}
+
+std::vector<std::filesystem::path> inputs_read() {
+  const std::lock_guard lock(inputs_mutex());
+  return inputs_list();
 }
 
 void require_constant_properties(const ProductFile& file) {

@@ -308,3 +308,9 @@ add_test(NAME cli.cautions_every_verb_and_format
 # A composition-only product is refused by the process verbs with a message saying what to do.
 cli_expect(run_composition_only 2 ARGS run tests/cli/composition_only.toml
            STDERR_HAS "product.composition: run, solve and deviation need constant [product.properties]")
+
+# issue 18: --out never overwrites an input (product file, log, library), never replaces a
+# directory or a device, and a failed write leaves no partial file or temporary.
+add_test(NAME cli.out_safety
+         COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
+                 -P ${PROJECT_SOURCE_DIR}/tests/cli/out_safety.cmake)

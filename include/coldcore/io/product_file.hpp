@@ -134,4 +134,8 @@ inline constexpr std::uintmax_t kMaxInputFileBytes = 256u * 1024u * 1024u;
 /// opening, so nothing blocks), or larger than kMaxInputFileBytes.
 std::string read_text_file(const std::filesystem::path& path);
 
+/// Every file read_text_file has read in this process, as given (the CLI refuses an --out or a
+/// side file that is one of them: a report must never overwrite its product file or a log).
+std::vector<std::filesystem::path> inputs_read();
+
 }  // namespace coldcore::io
