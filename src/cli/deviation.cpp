@@ -82,7 +82,7 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side) {
   info.provenance = {{"tool", std::string("coldcore ") + kVersion},
                      {"input", file.origin},
                      {"input SHA-256", file.sha256_hex},
-                     {"date", a.date.empty() ? today_utc() : a.date}};
+                     {"date", report_date(a.date)}};
   const auto lib_rows = library_provenance(libs);
   info.provenance.insert(info.provenance.end() - 1, lib_rows.begin(), lib_rows.end());
   // The rich formats plot the runs evaluate_deviation already made (sampled, not re-run).

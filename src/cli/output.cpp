@@ -1,5 +1,6 @@
 #include "cli/output.hpp"
 
+#include <cstdio>
 #include <ctime>
 #include <filesystem>
 #include <fstream>
@@ -26,6 +27,20 @@ std::string today_utc() {
   char buf[16];
   std::strftime(buf, sizeof buf, "%Y-%m-%d", &tm);
   return buf;
+}
+
+std::string report_date(const std::string& given) {
+  if (given.empty()) return today_utc();
+  int y = 0, m = 0, d = 0;
+  char tail = 0;
+  const bool shaped = given.size() == 10 && given[4] == '-' && given[7] == '-' &&
+                      std::sscanf(given.c_str(), "%4d-%2d-%2d%c", &y, &m, &d, &tail) == 3;
+  static constexpr int kDays[] = {31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31};
+  const bool leap = (y % 4 == 0 && y % 100 != 0) || y % 400 == 0;
+  const bool valid = shaped && y >= 1900 && m >= 1 && m <= 12 && d >= 1 &&
+                     d <= kDays[m - 1] + (m == 2 && leap ? 1 : 0);
+  if (!valid) throw InputError("--date = " + given + ": must be a calendar date YYYY-MM-DD, e.g. 2026-12-01");
+  return given;
 }
 
 namespace {

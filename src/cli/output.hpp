@@ -25,6 +25,11 @@ void add_output_options(CLI::App& sub, OutputArgs& a, bool with_step = false);
 /// Today's date in UTC, YYYY-MM-DD, for report provenance.
 std::string today_utc();
 
+/// The report date: `given` when it is a calendar date YYYY-MM-DD (years 1900-9999), today in
+/// UTC when it is empty; anything else is an InputError
+/// `--date = 2026-13-45: must be a calendar date YYYY-MM-DD, e.g. 2026-12-01`.
+std::string report_date(const std::string& given);
+
 /// Runs `body` writing into a buffer; on success writes the buffer to --out (or stdout) and
 /// returns body's exit code. On an exception nothing is written.
 int with_output(const OutputArgs& a, const std::function<int(std::ostream&)>& body);

@@ -161,7 +161,7 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
   // the data libraries the assessment read (found without a product file: names only)
   const auto lib_rows = library_provenance(lib, /*names_only=*/true);
   r.provenance.insert(r.provenance.end(), lib_rows.begin(), lib_rows.end());
-  r.provenance.push_back({"date", a.date.empty() ? today_utc() : a.date});
+  r.provenance.push_back({"date", report_date(a.date)});
   r.cautions = cautions();
   switch (f) {
     case Format::json: write_run_json(r, out, u); break;

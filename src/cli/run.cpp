@@ -45,7 +45,7 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
   const Assessment& assessment = eval.assessment;
   RunReportOptions opts;
   opts.step_s = a.output.step_s;
-  opts.date = a.date.empty() ? today_utc() : a.date;
+  opts.date = report_date(a.date);
   opts.version = kVersion;
   RunReport report = build_run_report(shown, history, opts);
   // the data libraries the assessment read, with their SHA-256, before the date

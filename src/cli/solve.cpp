@@ -76,7 +76,7 @@ int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side) {
   c.provenance = {{"tool", std::string("coldcore ") + kVersion},
                   {"input", file.origin},
                   {"input SHA-256", file.sha256_hex},
-                  {"date", a.date.empty() ? today_utc() : a.date}};
+                  {"date", report_date(a.date)}};
   const auto lib_rows = library_provenance(libs);
   c.provenance.insert(c.provenance.end() - 1, lib_rows.begin(), lib_rows.end());
   // The rich formats plot the verification re-run the solver already made (sampled, not re-run).

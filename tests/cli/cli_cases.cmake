@@ -314,3 +314,9 @@ cli_expect(run_composition_only 2 ARGS run tests/cli/composition_only.toml
 add_test(NAME cli.out_safety
          COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
                  -P ${PROJECT_SOURCE_DIR}/tests/cli/out_safety.cmake)
+# issue 18: an impossible --date is refused with the accepted form (2026 is not a leap year).
+cli_expect(run_bad_date 2 ARGS run products/kofta-balls.toml --date 2026-13-45
+           STDERR_HAS "--date = 2026-13-45: must be a calendar date YYYY-MM-DD, e.g. 2026-12-01")
+cli_expect(probe_bad_date 2 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --date 2026-02-29
+           STDERR_HAS "--date = 2026-02-29: must be a calendar date")
+cli_expect(solve_leap_date 0 ARGS solve products/kofta-balls.toml --for hold-time --date 2028-02-29 STDOUT_HAS "2028-02-29")
