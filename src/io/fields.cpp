@@ -2,6 +2,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
+#include <cstdlib>
 #include <map>
 #include <sstream>
 
@@ -67,6 +69,31 @@ std::string short_form(const KeySpec& s) {
 }
 
 }  // namespace
+
+double from_si(Quantity q, double si, std::string_view unit) {
+  // to_si is a + b·x for every unit; invert it from two points.
+  const double a = *to_si(q, 0.0, unit), b = *to_si(q, 1.0, unit) - a;
+  return (si - a) / b;
+}
+
+std::string range_text(const limits::Range& r, std::optional<Quantity> q, std::string_view unit) {
+  // Nine significant figures drop the conversion's last-bit noise (-328, not -328.00000000000006).
+  const auto tidy = [](double v) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.9g", v);
+    return format_number(std::strtod(buf, nullptr));
+  };
+  const double lo = q ? from_si(*q, r.low, unit) : r.low, hi = q ? from_si(*q, r.high, unit) : r.high;
+  return "from " + tidy(lo) + " to " + tidy(hi) + (unit.empty() ? "" : " ") + std::string(unit);
+}
+
+void Fields::require_range(std::string_view key, double si, const limits::Range& r, std::optional<Quantity> q,
+                           std::string_view unit, std::string_view why) const {
+  if (r.contains(si)) return;
+  std::string need = "must be " + range_text(r, q, unit);
+  if (!why.empty()) need += " (" + std::string(why) + ")";
+  fail(key, need);
+}
 
 std::string spellings(std::string_view base, Quantity q) {
   std::string out;

@@ -45,6 +45,7 @@ double positive_length(const Fields& f, std::string_view base, const std::string
   const auto v = f.quantity_si(base, &found);
   if (!v) f.missing(std::string(base) + "_*", why + " (" + detail::spellings(base, Quantity::length) + ", > 0)");
   if (!(*v > 0)) f.fail(found.key, "must be > 0");
+  f.require_range(found.key, *v, limits::length_m, Quantity::length, found.unit);
   return *v;
 }
 
@@ -74,6 +75,9 @@ ThermalProperties parse_properties(const toml::table& t, const std::string& orig
   p.conductivity_W_mK = get("conductivity_W_mK", "thermal conductivity in W/(m K)");
   p.density_kg_m3 = get("density_kg_m3", "density in kg/m3");
   p.specific_heat_J_kgK = get("specific_heat_J_kgK", "specific heat in J/(kg K)");
+  f.require_range("conductivity_W_mK", p.conductivity_W_mK, limits::conductivity_W_mK, std::nullopt, "W/(m K)");
+  f.require_range("density_kg_m3", p.density_kg_m3, limits::density_kg_m3, std::nullopt, "kg/m3");
+  f.require_range("specific_heat_J_kgK", p.specific_heat_J_kgK, limits::specific_heat_J_kgK, std::nullopt, "J/(kg K)");
   return p;
 }
 
@@ -111,7 +115,7 @@ ProductRanges parse_ranges(const toml::table& t, const std::string& origin, cons
             quantity("initial", Quantity::temperature)});
   ProductRanges r;
   const auto pair = [&](const std::string& key, const toml::node& n, const std::string& unit, Quantity q, bool is_q,
-                        double nominal, bool positive) -> std::array<double, 2> {
+                        double nominal, bool positive, const limits::Range* plausible) -> std::array<double, 2> {
     const std::string need = "must be [low, high] with low <= high" + std::string(positive ? ", low > 0" : "");
     const toml::array* a = n.as_array();
     if (a == nullptr || a->size() != 2 || !a->get(0)->is_number() || !a->get(1)->is_number()) f.fail(key, need);
@@ -121,6 +125,9 @@ ProductRanges parse_ranges(const toml::table& t, const std::string& origin, cons
       hi = *to_si(q, hi, unit);
     }
     if (!(lo <= hi) || !std::isfinite(lo) || !std::isfinite(hi) || (positive && !(lo > 0))) f.fail(key, need);
+    if (plausible && !(plausible->contains(lo) && plausible->contains(hi)))
+      f.fail(key, "both ends must be " + detail::range_text(*plausible, is_q ? std::optional(q) : std::nullopt,
+                                                            is_q ? unit : std::string("W/(m K)")));
     if (nominal < lo - 1e-12 * std::abs(nominal) || nominal > hi + 1e-12 * std::abs(nominal))
       f.fail(key, "must contain the nominal value " + format_number(nominal) + " (SI)");
     return {lo, hi};
@@ -128,7 +135,7 @@ ProductRanges parse_ranges(const toml::table& t, const std::string& origin, cons
   const auto length = [&](const char* base, double nominal, std::optional<std::array<double, 2>>& out) {
     if (auto fd = f.find(base)) {
       if (!(nominal > 0)) f.fail(fd->key, "not used by shape = " + quote(to_string(p.shape)));
-      out = pair(fd->key, *fd->node, fd->unit, Quantity::length, true, nominal, true);
+      out = pair(fd->key, *fd->node, fd->unit, Quantity::length, true, nominal, true, &limits::length_m);
     }
   };
   length("diameter", p.dims.diameter_m, r.diameter_m);
@@ -136,9 +143,11 @@ ProductRanges parse_ranges(const toml::table& t, const std::string& origin, cons
   length("thickness", p.dims.thickness_m, r.thickness_m);
   if (const toml::node* n = f.node("conductivity_W_mK")) {
     if (!has_k) f.fail("conductivity_W_mK", "needs [product.properties] (a composition gives k itself)");
-    r.conductivity_W_mK = pair("conductivity_W_mK", *n, "", Quantity::temperature, false, p.properties.conductivity_W_mK, true);
+    r.conductivity_W_mK = pair("conductivity_W_mK", *n, "", Quantity::temperature, false, p.properties.conductivity_W_mK, true,
+                               &limits::conductivity_W_mK);
   }
-  if (auto fi = f.find("initial")) r.initial_C = pair(fi->key, *fi->node, fi->unit, Quantity::temperature, true, p.initial_C, false);
+  if (auto fi = f.find("initial")) r.initial_C = pair(fi->key, *fi->node, fi->unit, Quantity::temperature, true, p.initial_C, false,
+                                   &limits::temperature_C);
   return r;
 }
 
@@ -195,6 +204,8 @@ Product parse_product_table(const toml::table& t, const std::string& origin, std
         const double v = el.value<double>().value_or(0);
         if (!(v > 0) || !std::isfinite(v)) f.fail(fd->key, need);
         p.dims.size_m[i] = *to_si(Quantity::length, v, fd->unit);
+        if (!limits::length_m.contains(p.dims.size_m[i]))
+          f.fail(fd->key, "each edge must be " + detail::range_text(limits::length_m, Quantity::length, fd->unit));
       }
       refuse_unused("diameter", "");
       refuse_unused("length", "");
@@ -207,6 +218,7 @@ Product parse_product_table(const toml::table& t, const std::string& origin, std
   const auto initial = f.quantity_si("initial", &fi);
   if (!initial) f.missing("initial_*", "the uniform initial temperature (initial_C or initial_F)");
   if (*initial < kAbsoluteZero_C) f.fail(fi.key, "below absolute zero (-273.15 C, -459.67 F)");
+  f.require_range(fi.key, *initial, limits::temperature_C, Quantity::temperature, fi.unit);
   p.initial_C = *initial;
 
   const toml::node* props = f.node("properties");

@@ -35,6 +35,7 @@ MediumProfile parse_medium_value(const Fields& f, const Found& m) {
                         format_value(n));
     const double temp_C = *to_si(Quantity::temperature, f.number_of(m.key, n, false, "temperature in " + m.unit), m.unit);
     if (temp_C < kAbsoluteZero_C) f.fail(m.key, "below absolute zero (-273.15 C, -459.67 F)");
+    f.require_range(m.key, temp_C, limits::temperature_C, Quantity::temperature, m.unit);
     prof.points.push_back({0.0, temp_C});
     prof.description = "constant";
     return prof;
@@ -63,7 +64,12 @@ MediumProfile parse_medium_value(const Fields& f, const Found& m) {
               " (times must increase)");
     const double temp_C = *to_si(Quantity::temperature, temp_raw, m.unit);
     if (temp_C < kAbsoluteZero_C) el_fail("below absolute zero (-273.15 C, -459.67 F)");
-    prof.points.push_back({*to_si(Quantity::time, t_raw, m.time_unit), temp_C});
+    if (!limits::temperature_C.contains(temp_C))
+      el_fail("temperature must be " + range_text(limits::temperature_C, Quantity::temperature, m.unit));
+    const double t_s = *to_si(Quantity::time, t_raw, m.time_unit);
+    if (!limits::duration_s.contains(t_s))
+      el_fail("time must be " + range_text(limits::duration_s, Quantity::time, m.time_unit));
+    prof.points.push_back({t_s, temp_C});
     prev_raw_t = t_raw;
   }
   prof.description = "points";
@@ -82,6 +88,7 @@ MediumProfile parse_medium_log(const Fields& f, const std::filesystem::path& bas
   Found gap;
   if (auto g = f.quantity_si("medium_log_max_gap", &gap)) {
     if (!(*g > 0)) f.fail(gap.key, "must be > 0");
+    f.require_range(gap.key, *g, limits::duration_s, Quantity::time, gap.unit);
     opts.max_gap_s = *g;
   }
   TimeSeries log = parse_log_csv(*text, path.generic_string(), opts);
@@ -106,6 +113,8 @@ bool parse_h_extras(const Fields& f, const Stage& s, StageH& out) {
     if (a == nullptr || a->size() != 2 || !a->get(0)->is_number() || !a->get(1)->is_number()) f.fail("h_range_W_m2K", need);
     const double lo = a->get(0)->value<double>().value_or(0), hi = a->get(1)->value<double>().value_or(0);
     if (!(lo > 0) || !(hi >= lo) || !std::isfinite(hi)) f.fail("h_range_W_m2K", need);
+    if (!limits::h_W_m2K.contains(lo) || !limits::h_W_m2K.contains(hi))
+      f.fail("h_range_W_m2K", "both ends must be " + range_text(limits::h_W_m2K, std::nullopt, "W/(m2 K)"));
     (void)s;
     out.h_range_W_m2K = {lo, hi};
   }
@@ -126,6 +135,7 @@ void parse_h(const Fields& f, Stage& s) {
   const double h = n->value<double>().value_or(0);
   // h = 0 is an insulated surface: the product never exchanges heat, almost always a slip.
   if (!(h > 0)) f.fail("h_W_m2K", need);
+  if (!std::isinf(h)) f.require_range("h_W_m2K", h, limits::h_W_m2K, std::nullopt, "W/(m2 K)", "or inf");
   s.h_W_m2K = h;
   s.h_infinite = std::isinf(h);
 }
@@ -145,6 +155,7 @@ void parse_end(const Fields& f, Stage& s, std::optional<double> log_length_s, Pr
   }
   if (duration) {
     if (!(*duration > 0)) f.fail(fd.key, "must be > 0");
+    f.require_range(fd.key, *duration, limits::duration_s, Quantity::time, fd.unit);
     if (cap) f.fail(fx.key, "only used with until_centre_* or until_mean_* (a duration needs no cap)");
     s.end.kind = StageEndKind::duration;
     s.end.duration_s = *duration;
@@ -158,10 +169,12 @@ void parse_end(const Fields& f, Stage& s, std::optional<double> log_length_s, Pr
     const Found& fu = centre ? fc : fm;
     const double target = centre ? *centre : *mean;
     if (target < kAbsoluteZero_C) f.fail(fu.key, "below absolute zero (-273.15 C, -459.67 F)");
+    f.require_range(fu.key, target, limits::temperature_C, Quantity::temperature, fu.unit);
     if (!cap)
       f.missing("max_duration_*", fu.key + " = " + format_value(*fu.node) +
                                       " needs a cap (max_duration_s, max_duration_min or max_duration_h, > 0)");
     if (!(*cap > 0)) f.fail(fx.key, "must be > 0");
+    f.require_range(fx.key, *cap, limits::duration_s, Quantity::time, fx.unit);
     s.end.kind = centre ? StageEndKind::until_centre : StageEndKind::until_mean;
     s.end.target_C = target;
     s.end.max_duration_s = *cap;

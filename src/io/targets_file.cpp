@@ -50,6 +50,7 @@ double reference_temperature(const Fields& f, const std::string& why) {
   const auto v = f.quantity_si("reference", &fr);
   if (!v) f.missing("reference_*", why + " (reference_C or reference_F)");
   if (*v < kAbsoluteZero_C) f.fail(fr.key, "below absolute zero (-273.15 C, -459.67 F)");
+  f.require_range(fr.key, *v, limits::temperature_C, Quantity::temperature, fr.unit);
   return *v;
 }
 
@@ -58,6 +59,7 @@ double z_value(const Fields& f, const std::string& why) {
   const auto v = f.quantity_si("z", &fz);
   if (!v) f.missing("z_*", why + " (z_C or z_F, > 0; z_F = 1.8 x z_C)");
   if (!(*v > 0)) f.fail(fz.key, "must be > 0");
+  f.require_range(fz.key, *v, limits::z_C, Quantity::temperature_difference, fz.unit);
   return *v;
 }
 
@@ -67,6 +69,7 @@ double positive_time(const Fields& f, std::string_view base, const std::string& 
   const auto v = f.quantity_si(base, &ft);
   if (!v) f.missing(std::string(base) + "_*", why + " (" + spellings(base, Quantity::time) + ", > 0)");
   if (!(*v > 0)) f.fail(ft.key, "must be > 0");
+  f.require_range(ft.key, *v, limits::duration_s, Quantity::time, ft.unit);
   return *v;
 }
 
@@ -182,9 +185,11 @@ Target parse_target(const Fields& f, TargetKind kind, std::size_t index, const s
       const auto min = f.quantity_si("min", &fm);
       if (!min) f.missing("min_*", "the temperature to reach (min_C or min_F)");
       if (*min < kAbsoluteZero_C) f.fail(fm.key, "below absolute zero (-273.15 C, -459.67 F)");
+      f.require_range(fm.key, *min, limits::temperature_C, Quantity::temperature, fm.unit);
       const auto hold = f.quantity_si("hold", &fh);
       if (!hold) f.missing("hold_*", "how long to stay at or above it (hold_s, hold_min or hold_h, >= 0)");
       if (!(*hold >= 0)) f.fail(fh.key, "must be >= 0");
+      f.require_range(fh.key, *hold, limits::duration_s, Quantity::time, fh.unit);
       t.min_temp_C = *min;
       t.hold_s = *hold;
       t.at = parse_at(f);

@@ -400,3 +400,45 @@ TEST_CASE("bad file: stages and composition") {
                        "one",
                        InputError);
 }
+
+// issue 18: every value is range-checked where it is read (model/limits.hpp), with the key as
+// written and the range in the key's own unit, so that no overflow or underflow reaches the
+// physics (these inputs used to fail deep inside with "modes: biot = 4e-302", "modes: count =
+// -2147483646", "stage[0].duration_s = inf", or UB in a float-to-integer conversion).
+TEST_CASE("issue 18: values outside the plausible ranges are refused where they are read") {
+  const std::map<std::string, std::pair<std::pair<std::string, std::string>, std::string>> cases = {
+      {"h tiny", {{"h_W_m2K = 180", "h_W_m2K = 1e-300"},
+                  "t.toml: stage[1].h_W_m2K = 1e-300: must be from 0.1 to 1e+06 W/(m2 K) (or inf)"}},
+      {"diameter tiny", {{"diameter_mm = 42", "diameter_mm = 1e-300"},
+                         "t.toml: product.diameter_mm = 1e-300: must be from 1 to 3000 mm"}},
+      {"k huge", {{"conductivity_W_mK = 0.48", "conductivity_W_mK = 1e308"},
+                  "t.toml: product.properties.conductivity_W_mK = 1e+308: must be from 0.01 to 10 W/(m K)"}},
+      {"density tiny", {{"density_kg_m3 = 1060", "density_kg_m3 = 1e-300"},
+                        "t.toml: product.properties.density_kg_m3 = 1e-300: must be from 50 to 3000 kg/m3"}},
+      {"cp huge", {{"specific_heat_J_kgK = 3450", "specific_heat_J_kgK = 345000"},
+                   "t.toml: product.properties.specific_heat_J_kgK = 345000: must be from 500 to 10000 J/(kg K)"}},
+      {"initial huge", {{"initial_C = 4", "initial_C = 1e308"},
+                        "t.toml: product.initial_C = 1e+308: must be from -200 to 400 C"}},
+      {"initial in F", {{"initial_C = 4", "initial_F = 900"},
+                        "t.toml: product.initial_F = 900: must be from -328 to 752 F"}},
+      {"duration huge", {{"duration_min = 22", "duration_h = 1e305"},
+                         "t.toml: stage[1].duration_h = 1e+305: must be from 0 to 8784 h"}},
+      {"cap over a year", {{"max_duration_h = 8", "max_duration_h = 9000"},
+                           "t.toml: stage[2].max_duration_h = 9000: must be from 0 to 8784 h"}},
+      {"medium hot", {{"medium_C = 92", "medium_C = 5000"}, "t.toml: stage[1].medium_C = 5000: must be from -200 to 400 C"}},
+      {"z tiny", {{"z_C = 7.5", "z_C = 1e-300"}, "t.toml: target[2].z_C = 1e-300: must be from 1 to 100 C"}},
+      {"F over a year", {{"F_min = 2", "F_min = 1e12"}, "t.toml: target[2].F_min = 1e+12: must be from 0 to 527040 min"}},
+      {"reference cold", {{"reference_C = 70", "reference_C = -250"},
+                          "t.toml: target[2].reference_C = -250: must be from -200 to 400 C"}},
+  };
+  for (const auto& [name, c] : cases) {
+    CAPTURE(name);
+    CHECK_THROWS_WITH_AS(parse(with(c.first.first, c.first.second)), c.second.c_str(), InputError);
+  }
+  // The ends of the ranges themselves are accepted (1 mm, 3000 mm, h 0.1, a year exactly).
+  CHECK_NOTHROW(parse(with("diameter_mm = 42", "diameter_mm = 1")));
+  CHECK_NOTHROW(parse(with("diameter_mm = 42", "diameter_mm = 3000")));
+  CHECK_NOTHROW(parse(with("h_W_m2K = 180", "h_W_m2K = 0.1")));
+  CHECK_NOTHROW(parse(with("h_W_m2K = 180", "h_W_m2K = \"inf\"")));
+  CHECK_NOTHROW(parse(with("max_duration_h = 8", "max_duration_h = 8784")));
+}

@@ -10,6 +10,7 @@
 #include <toml++/toml.h>
 
 #include "coldcore/io/quantity.hpp"
+#include "coldcore/model/limits.hpp"
 
 namespace coldcore::io::detail {
 
@@ -66,6 +67,12 @@ class Fields {
   /// A quantity key converted to SI; `found`, when given, receives the key as spelt.
   std::optional<double> quantity_si(std::string_view base, Found* found = nullptr) const;
 
+  /// Fails unless `si` lies in `r` (model/limits.hpp): `<key> = <value>: must be from <low> to
+  /// <high> <unit>`, the range given in `unit` as written (`q` converts it; plain keys: no q).
+  /// `why` is appended when given. NaN fails.
+  void require_range(std::string_view key, double si, const limits::Range& r, std::optional<Quantity> q,
+                     std::string_view unit, std::string_view why = {}) const;
+
   const std::string& origin() const { return origin_; }
   const std::string& path() const { return path_; }
   const toml::table& table() const { return table_; }
@@ -76,6 +83,12 @@ class Fields {
   std::string path_;
   std::vector<KeySpec> specs_;
 };
+
+/// `si` (m, s, °C, K) expressed in `unit` of quantity q: the inverse of to_si (linear).
+double from_si(Quantity q, double si, std::string_view unit);
+
+/// "from <low> to <high> <unit>" for messages, the range converted to `unit` (plain: SI as is).
+std::string range_text(const limits::Range& r, std::optional<Quantity> q, std::string_view unit);
 
 /// "diameter_m or diameter_mm" for messages.
 std::string spellings(std::string_view base, Quantity q);
