@@ -3,6 +3,7 @@
 #include <set>
 
 #include "coldcore/error.hpp"
+#include "coldcore/model/limits.hpp"
 #include "lethality/detail/text.hpp"
 #include "lethality/detail/toml_read.hpp"
 
@@ -33,6 +34,10 @@ const Organism& OrganismLibrary::at(std::string_view key, std::string_view place
 
 namespace {
 
+// Weibull shape p: published fits lie roughly within 0.2-5 (from memory); 0.05-20 only stops garbage.
+constexpr limits::Range kWeibullShape{0.05, 20.0};
+
+
 // Reads a sourced time given as <stem>_s or <stem>_min (exactly one of them).
 std::optional<Sourced> sourced_time(const toml::table& t, const std::string& stem,
                                     std::string_view origin, const std::string& place) {
@@ -49,6 +54,14 @@ void require_positive(const Sourced& v, std::string_view origin, const std::stri
   if (!(v.value > 0))
     throw InputError(std::string(origin) + ": " + where + " = " + detail::num(v.value) +
                      ": must be > 0");
+}
+
+// The plausibility ranges of model/limits.hpp, in the library's units (C, s).
+void require_in(double v, const limits::Range& r, std::string_view origin, const std::string& where,
+                const char* unit) {
+  if (!r.contains(v))
+    throw InputError(std::string(origin) + ": " + where + " = " + detail::num(v) + ": must be from " +
+                     detail::num(r.low) + " to " + detail::num(r.high) + " " + unit);
 }
 
 }  // namespace
@@ -88,10 +101,12 @@ OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view ori
                        "\": must be \"vegetative\", \"spore\" or \"quality\"");
     auto add = [&](const std::string& key, const Sourced& v) { o.values.emplace_back(key, v); };
     const Sourced ref = detail::get_sourced(*t, "reference_C", origin, place);
+    require_in(ref.value, limits::temperature_C, origin, place + ".reference_C", "C");
     add("reference_C", ref);
     k.reference_C = ref.value;
     const Sourced z = detail::get_sourced(*t, "z_C", origin, place);
     require_positive(z, origin, place + ".z_C");
+    require_in(z.value, limits::z_C, origin, place + ".z_C", "C");
     add("z_C", z);
     k.z_C = z.value;
     if (t->contains("z_below_C") != t->contains("split_C"))
@@ -100,7 +115,9 @@ OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view ori
     if (t->contains("z_below_C")) {
       const Sourced zb = detail::get_sourced(*t, "z_below_C", origin, place);
       require_positive(zb, origin, place + ".z_below_C");
+      require_in(zb.value, limits::z_C, origin, place + ".z_below_C", "C");
       const Sourced sp = detail::get_sourced(*t, "split_C", origin, place);
+      require_in(sp.value, limits::temperature_C, origin, place + ".split_C", "C");
       add("z_below_C", zb);
       add("split_C", sp);
       k.z_below_C = zb.value;
@@ -108,11 +125,14 @@ OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view ori
     }
     if (auto d = sourced_time(*t, "D_ref", origin, place)) {
       require_positive(*d, origin, place + ".D_ref");
+      require_in(d->value, limits::duration_s, origin, place + ".D_ref", "s");
       add("D_ref_s", *d);
       k.D_ref_s = d->value;
     }
     const Sourced vmin = detail::get_sourced(*t, "valid_min_C", origin, place);
     const Sourced vmax = detail::get_sourced(*t, "valid_max_C", origin, place);
+    require_in(vmin.value, limits::temperature_C, origin, place + ".valid_min_C", "C");
+    require_in(vmax.value, limits::temperature_C, origin, place + ".valid_max_C", "C");
     if (!(vmin.value < vmax.value))
       throw InputError(std::string(origin) + ": " + place + ".valid_min_C = " +
                        detail::num(vmin.value) + ": must be < valid_max_C = " +
@@ -131,8 +151,10 @@ OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view ori
       auto delta = sourced_time(*w, "delta_ref", origin, wp);
       if (!delta) throw InputError(std::string(origin) + ": " + wp + ".delta_ref_min: missing");
       require_positive(*delta, origin, wp + ".delta_ref");
+      require_in(delta->value, limits::duration_s, origin, wp + ".delta_ref", "s");
       const Sourced p = detail::get_sourced(*w, "p", origin, wp);
       require_positive(p, origin, wp + ".p");
+      require_in(p.value, kWeibullShape, origin, wp + ".p", "(dimensionless)");
       add("weibull.delta_ref_s", *delta);
       add("weibull.p", p);
       k.weibull = Weibull{delta->value, p.value};
@@ -148,15 +170,18 @@ OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view ori
       detail::check_status(eq.status, origin, ep);
       eq.note = detail::get_string(*e, "note", origin, ep, false);
       eq.F_ref_s = 60.0 * detail::get_number(*e, "F_ref_min", origin, ep);
+      require_in(eq.F_ref_s, limits::duration_s, origin, ep + ".F_ref_min (in s)", "s");
       const toml::array* rows = (*e)["rows_min"].as_array();
       if (!rows) throw InputError(std::string(origin) + ": " + ep + ".rows_min: missing");
       for (std::size_t r = 0; r < rows->size(); ++r) {
         const toml::array* row = (*rows)[r].as_array();
         const auto T = row && row->size() == 2 ? (*row)[0].value<double>() : std::nullopt;
         const auto m = row && row->size() == 2 ? (*row)[1].value<double>() : std::nullopt;
-        if (!T || !m || !(*m > 0))
+        if (!T || !m || !(*m > 0) || !limits::temperature_C.contains(*T) ||
+            !limits::duration_s.contains(*m * 60.0))
           throw InputError(std::string(origin) + ": " + ep + ".rows_min[" + std::to_string(r + 1) +
-                           "]: must be [temp_C, time_min] with time_min > 0");
+                           "]: must be [temp_C, time_min] with temp_C from " + detail::num(limits::temperature_C.low) +
+                           " to " + detail::num(limits::temperature_C.high) + " and time_min > 0, at most a year");
         eq.rows.push_back({*T, *m * 60.0});
       }
       o.equivalence = eq;

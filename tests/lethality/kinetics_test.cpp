@@ -232,3 +232,37 @@ reference_C = 100
                        "o.toml: organism[1].reference_C: must be { value = <number>, source = \"...\", status = \"...\" }",
                        InputError);
 }
+
+// issue 18: library values are range-checked where they are read (model/limits.hpp): an organism
+// whose D overflows a year, a z of 1e-300 or an equivalence row with a NaN temperature used to
+// run to a verdict with exit 0.
+TEST_CASE("issue 18: organism library values outside the plausible ranges are refused") {
+  const std::string base = R"(
+[[organism]]
+key = "x"
+name = "x"
+kind = "spore"
+reference_C = { value = 100, source = "s", status = "confirmed" }
+z_C = { value = 10, source = "s", status = "confirmed" }
+D_ref_min = { value = 1, source = "s", status = "confirmed" }
+valid_min_C = { value = 90, source = "s", status = "confirmed" }
+valid_max_C = { value = 110, source = "s", status = "confirmed" }
+)";
+  CHECK_NOTHROW(parse_organisms(base, "o.toml"));
+  const auto with = [&](const std::string& from, const std::string& to) {
+    std::string s = base;
+    const auto at = s.find(from);
+    REQUIRE(at != std::string::npos);
+    return s.replace(at, from.size(), to);
+  };
+  CHECK_THROWS_WITH_AS(parse_organisms(with("D_ref_min = { value = 1,", "D_ref_min = { value = 1e300,"), "o.toml"),
+                       "o.toml: organism[1].D_ref = 6e+301: must be from 0 to 31622400 s", InputError);
+  CHECK_THROWS_WITH_AS(parse_organisms(with("z_C = { value = 10,", "z_C = { value = 1e-300,"), "o.toml"),
+                       "o.toml: organism[1].z_C = 1e-300: must be from 1 to 100 C", InputError);
+  CHECK_THROWS_WITH_AS(
+      parse_organisms(base + "equivalence = { source = \"s\", status = \"confirmed\", F_ref_min = 1, rows_min = [[nan, 2]] }\n",
+                      "o.toml"),
+      "o.toml: organism[1].equivalence.rows_min[1]: must be [temp_C, time_min] with temp_C from -200 to 400 and "
+      "time_min > 0, at most a year",
+      InputError);
+}
