@@ -125,8 +125,8 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--probe-log", args->probe_log, "measured cold-spot log (CSV, first row = process start)");
   sub->add_option("--lot", args->lot, "lot or batch identifier for the record");
   sub->add_option("--column", args->column, "temperature column of the medium log, when it has several");
-  sub->add_option("--tolerance-K", args->tolerance_K, "a reading this far below the schedule is deviated")->capture_default_str();
-  sub->add_option("--round-min", args->round_min, "additional time rounded UP to this, min")->capture_default_str();
+  sub->add_option("--tolerance-K", args->tolerance_K, "a reading this far below the schedule is deviated")->capture_default_str()->check(within(0, 50, "K", true));
+  sub->add_option("--round-min", args->round_min, "additional time rounded UP to this, min")->capture_default_str()->check(within(0, 1440, "min", true));
   sub->add_flag("--conservative", args->conservative,
                 "also evaluate the deviation at the documented worst case of the file's ranges and name the choice that drove it");
   sub->add_option("--library", args->library, "folder with organisms.toml and cooling-rules.toml");

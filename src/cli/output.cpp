@@ -1,6 +1,8 @@
 #include "cli/output.hpp"
 
+#include <cmath>
 #include <cstdio>
+#include <cstdlib>
 #include <ctime>
 #include <filesystem>
 #include <fstream>
@@ -17,7 +19,29 @@ void add_output_options(CLI::App& sub, OutputArgs& a, bool with_step) {
   sub.add_option("--format", a.format, "text | md | html | json | csv (as the verb allows)")->capture_default_str();
   sub.add_option("--out", a.out, "write to this file instead of standard output");
   sub.add_option("--units", a.units, "temperatures in C or F")->capture_default_str();
-  if (with_step) sub.add_option("--step-s", a.step_s, "output sampling of history tables, s")->capture_default_str();
+  // Bounded below so that a history table stays within a few million rows.
+  if (with_step)
+    sub.add_option("--step-s", a.step_s, "output sampling of history tables, s")
+        ->capture_default_str()
+        ->check(within(0.1, limits::duration_s.high, "s"));
+}
+
+CLI::Validator within(double low, double high, const std::string& unit, bool low_open) {
+  const auto text = [](double v) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.9g", v);
+    return std::string(buf);
+  };
+  const std::string range = (low_open ? "greater than " + text(low) + " and at most " : "from " + text(low) + " to ") +
+                            text(high) + (unit.empty() ? "" : " " + unit);
+  return CLI::Validator(
+      [=](std::string& s) -> std::string {
+        char* end = nullptr;
+        const double v = std::strtod(s.c_str(), &end);
+        const bool ok = end != s.c_str() && *end == '\0' && std::isfinite(v) && (low_open ? v > low : v >= low) && v <= high;
+        return ok ? std::string() : s + ": must be " + range;
+      },
+      range);
 }
 
 std::string today_utc() {

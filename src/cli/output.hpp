@@ -9,6 +9,7 @@
 
 #include <CLI/CLI.hpp>
 
+#include "coldcore/model/limits.hpp"
 #include "coldcore/report/format.hpp"
 
 namespace coldcore::cli {
@@ -21,6 +22,10 @@ struct OutputArgs {
 };
 
 void add_output_options(CLI::App& sub, OutputArgs& a, bool with_step = false);
+
+/// A CLI11 check that a numeric option is finite and within [low, high] (`low_open`: > low),
+/// stated in `unit`; NaN and inf fail. Message: `--opt: nan: must be from 0 to 1 s`.
+CLI::Validator within(double low, double high, const std::string& unit, bool low_open = false);
 
 /// Today's date in UTC, YYYY-MM-DD, for report provenance.
 std::string today_utc();

@@ -191,14 +191,14 @@ void add_probe_verb(CLI::App& app, VerbContext& ctx) {
   auto* sub = app.add_subcommand("probe", "lethality and cooling compliance from a measured cold-spot log");
   sub->add_option("LOG", a->log, "CSV log: a time column (time_s, time_min, time_h or timestamp) and a temperature column (*_C or *_F)")->required();
   sub->add_option("--organism", a->organism, "organism key of the library (coldcore organisms)");
-  sub->add_option("--target-log", a->target_log, "required log10 reduction");
+  sub->add_option("--target-log", a->target_log, "required log10 reduction")->check(within(0, 100, "log10", true));
   sub->add_option("--rule", a->rule, "cooling-rule key of the library (coldcore rules)");
-  sub->add_option("--reference-C", a->reference_C, "own kinetics: reference temperature, °C");
-  sub->add_option("--z-C", a->z_C, "own kinetics: z, °C");
-  sub->add_option("--D-min", a->D_min, "own kinetics: D at the reference temperature, min");
-  sub->add_option("--F-min", a->F_min, "own kinetics: required F at the reference temperature, min");
+  sub->add_option("--reference-C", a->reference_C, "own kinetics: reference temperature, °C")->check(within(limits::temperature_C.low, limits::temperature_C.high, "C"));
+  sub->add_option("--z-C", a->z_C, "own kinetics: z, °C")->check(within(limits::z_C.low, limits::z_C.high, "C"));
+  sub->add_option("--D-min", a->D_min, "own kinetics: D at the reference temperature, min")->check(within(0, limits::duration_s.high / 60, "min", true));
+  sub->add_option("--F-min", a->F_min, "own kinetics: required F at the reference temperature, min")->check(within(0, limits::duration_s.high / 60, "min", true));
   sub->add_option("--temp-column", a->temp_column, "which temperature column to use when the log has several");
-  sub->add_option("--max-gap-s", a->max_gap_s, "gaps longer than this are reported, s")->capture_default_str();
+  sub->add_option("--max-gap-s", a->max_gap_s, "gaps longer than this are reported, s")->capture_default_str()->check(within(0, limits::duration_s.high, "s", true));
   sub->add_option("--date", a->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
   add_output_options(*sub, a->output);
   sub->callback([&ctx, a] {

@@ -120,9 +120,9 @@ void add_props_verb(CLI::App& app, VerbContext& ctx) {
   auto* sub = app.add_subcommand("props", "thermal properties versus temperature from a composition");
   sub->add_option("--composition", args->composition,
                   "mass fractions, e.g. water=0.74,protein=0.22,fat=0.03,ash=0.01")->required();
-  sub->add_option("--from-C", args->from_C, "lowest temperature, °C")->capture_default_str();
-  sub->add_option("--to-C", args->to_C, "highest temperature, °C")->capture_default_str();
-  sub->add_option("--step-C", args->step_C, "temperature step, °C")->capture_default_str();
+  sub->add_option("--from-C", args->from_C, "lowest temperature, °C")->capture_default_str()->check(within(limits::temperature_C.low, limits::temperature_C.high, "C"));
+  sub->add_option("--to-C", args->to_C, "highest temperature, °C")->capture_default_str()->check(within(limits::temperature_C.low, limits::temperature_C.high, "C"));
+  sub->add_option("--step-C", args->step_C, "temperature step, °C")->capture_default_str()->check(within(0, 600, "C", true));
   add_output_options(*sub, args->output);
   sub->callback([&ctx, args] {
     ctx.run = [args] { return with_output(args->output, [&](std::ostream& out) { return run_props(*args, out); }); };

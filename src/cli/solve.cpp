@@ -113,11 +113,11 @@ void add_solve_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("FILE", args->file, "product file (TOML, schema 1)")->required();
   sub->add_option("--for", args->question, "hold-time | chill-time | max-size | min-medium")->required();
   sub->add_option("--stage", args->stage, "stage to change (default: last heating stage; chill-time: last cooling)");
-  sub->add_option("--round-min", args->round_min, "hold/chill answers rounded UP to this, min")->capture_default_str();
-  sub->add_option("--round-mm", args->round_mm, "max-size answer rounded DOWN to this, mm")->capture_default_str();
-  sub->add_option("--round-C", args->round_C, "min-medium answer rounded UP to this, °C")->capture_default_str();
-  sub->add_option("--max-hold-h", args->max_hold_h, "search bound for hold and chill times, h")->capture_default_str();
-  sub->add_option("--end-C", args->end_C, "chill-time: end temperature, °C (default: the stage's until_* value)");
+  sub->add_option("--round-min", args->round_min, "hold/chill answers rounded UP to this, min")->capture_default_str()->check(within(0, 1440, "min", true));
+  sub->add_option("--round-mm", args->round_mm, "max-size answer rounded DOWN to this, mm")->capture_default_str()->check(within(0, 1000, "mm", true));
+  sub->add_option("--round-C", args->round_C, "min-medium answer rounded UP to this, °C")->capture_default_str()->check(within(0, 50, "C", true));
+  sub->add_option("--max-hold-h", args->max_hold_h, "search bound for hold and chill times, h")->capture_default_str()->check(within(0, limits::duration_s.high / 3600, "h", true));
+  sub->add_option("--end-C", args->end_C, "chill-time: end temperature, °C (default: the stage's until_* value)")->check(within(limits::temperature_C.low, limits::temperature_C.high, "C"));
   sub->add_flag("--mean", args->mean, "chill-time: the mass average instead of the centre");
   sub->add_flag("--conservative", args->conservative,
                 "also solve the documented worst case of the file's ranges and name the choice that drove it");

@@ -196,7 +196,8 @@ cli_expect(probe_kofta 0 ARGS probe products/logs/kofta-probe.csv --organism lis
            STDOUT_HAS "trapezoid" "Simpson" "met" "process authority")
 cli_expect(probe_json 0 ARGS probe products/logs/kofta-probe.csv --reference-C 70 --z-C 7.5 --F-min 2 --format json
            STDOUT_HAS "\"verdict\": \"met\"" "cautions")
-cli_expect(probe_not_demonstrated 1 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --target-log 1e6
+# (the log delivers F70 ≈ 870 min; a required 5000 min is not met. A log target over 100 is refused.)
+cli_expect(probe_not_demonstrated 1 ARGS probe products/logs/kofta-probe.csv --reference-C 70 --z-C 7.5 --F-min 5000
            STDOUT_HAS "not demonstrated")
 cli_expect(probe_unknown_organism 2 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogens --target-log 6
            STDERR_HAS "did you mean 'listeria-monocytogenes'")
@@ -320,3 +321,13 @@ cli_expect(run_bad_date 2 ARGS run products/kofta-balls.toml --date 2026-13-45
 cli_expect(probe_bad_date 2 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --date 2026-02-29
            STDERR_HAS "--date = 2026-02-29: must be a calendar date")
 cli_expect(solve_leap_date 0 ARGS solve products/kofta-balls.toml --for hold-time --date 2028-02-29 STDOUT_HAS "2028-02-29")
+# issue 18: numeric options are checked finite and in range (NaN used to run to exit 0/1, and a
+# tiny --step-s looped until memory ran out).
+cli_expect(probe_max_gap_nan 2 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes --max-gap-s nan
+           STDERR_HAS "--max-gap-s: nan: must be greater than 0 and at most 31622400 s")
+cli_expect(probe_reference_nan 2 ARGS probe products/logs/kofta-probe.csv --reference-C nan --z-C 7.5 --F-min 2
+           STDERR_HAS "--reference-C: nan: must be from -200 to 400 C")
+cli_expect(run_step_tiny 2 ARGS run products/kofta-balls.toml --format csv --step-s 1e-300
+           STDERR_HAS "--step-s: 1e-300: must be from 0.1 to 31622400 s")
+cli_expect(solve_round_inf 2 ARGS solve products/kofta-balls.toml --for hold-time --round-min inf
+           STDERR_HAS "--round-min: inf: must be greater than 0 and at most 1440 min")
