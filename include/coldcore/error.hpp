@@ -7,12 +7,24 @@
 #include <stdexcept>
 #include <string>
 
+#include "coldcore/model/limits.hpp"
+
 namespace coldcore {
 
-/// Base of every error coldcore raises on purpose.
+/// Base of every error coldcore raises on purpose. A message longer than
+/// limits::max_message_chars (2,000) is cut there and says so: a megabyte-long key quoted back
+/// must not become a megabyte-long line on stderr.
 class Error : public std::runtime_error {
  public:
-  using std::runtime_error::runtime_error;
+  explicit Error(const std::string& what) : std::runtime_error(clipped(what)) {}
+  explicit Error(const char* what) : Error(std::string(what)) {}
+
+ private:
+  static std::string clipped(const std::string& what) {
+    constexpr std::size_t kMax = limits::max_message_chars;
+    if (what.size() <= kMax) return what;
+    return what.substr(0, kMax) + "... (message cut at " + std::to_string(kMax) + " characters)";
+  }
 };
 
 /// Bad user input: a file, key, CSV line or option. Exit code 2.

@@ -87,10 +87,15 @@ std::size_t edit_distance(std::string_view a, std::string_view b) {
 
 std::optional<std::string> did_you_mean(std::string_view word,
                                         const std::vector<std::string>& candidates) {
+  // Names are short: a very long word is no typo of one (and its table would cost memory).
+  if (word.size() > 100) return std::nullopt;
   const std::size_t limit = std::max<std::size_t>(2, word.size() / 3);
   std::optional<std::string> best;
   std::size_t best_d = limit + 1;
   for (const auto& c : candidates) {
+    // The distance is at least the difference in length.
+    const std::size_t gap = word.size() > c.size() ? word.size() - c.size() : c.size() - word.size();
+    if (gap >= best_d) continue;
     const std::size_t d = edit_distance(word, c);
     if (d < best_d) {
       best_d = d;

@@ -200,6 +200,9 @@ void parse_stages(const Fields& root, const std::filesystem::path& base_dir, con
   const toml::array* arr = node->as_array();
   if (arr == nullptr || !arr->is_array_of_tables() || arr->empty())
     root.fail("stage", "must be one or more [[stage]] tables (double brackets)");
+  if (arr->size() > limits::max_stages)
+    throw InputError(root.origin() + ": stage: " + std::to_string(arr->size()) + " [[stage]] tables: at most " +
+                     std::to_string(limits::max_stages));
   for (std::size_t i = 0; i < arr->size(); ++i) {
     const std::string path = "stage[" + std::to_string(i + 1) + "]";
     Fields f(*arr->get(i)->as_table(), root.origin(), path, stage_specs());

@@ -208,6 +208,9 @@ void parse_targets(const Fields& root, ProductFile& out) {
   const toml::array* arr = node->as_array();
   if (arr == nullptr || !arr->is_array_of_tables())
     root.fail("target", "must be [[target]] tables (double brackets)");
+  if (arr->size() > limits::max_targets)
+    throw InputError(root.origin() + ": target: " + std::to_string(arr->size()) + " [[target]] tables: at most " +
+                     std::to_string(limits::max_targets));
   for (std::size_t i = 0; i < arr->size(); ++i) {
     const std::string path = "target[" + std::to_string(i + 1) + "]";
     const toml::table& tbl = *arr->get(i)->as_table();

@@ -7,6 +7,7 @@
 
 #include "coldcore/conduction/lumped_history.hpp"
 #include "coldcore/error.hpp"
+#include "coldcore/model/limits.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "rich_page.hpp"
 
@@ -82,6 +83,11 @@ std::string shape_dims(const Product& p) {
 std::vector<double> output_times(const History& h, double step_s) {
   std::vector<double> t;
   const double end = h.end_s();
+  if (end / step_s > static_cast<double>(limits::max_output_rows))
+    throw InputError("--step-s = " + fixed(step_s, 3) + ": gives " + fixed(std::ceil(end / step_s), 0) +
+                     " rows over the " + fixed(end, 0) + " s process; at most " +
+                     std::to_string(limits::max_output_rows) + " rows: give --step-s " +
+                     fixed(std::ceil(end / static_cast<double>(limits::max_output_rows)), 0) + " or more");
   for (double x = 0; x < end; x += step_s) t.push_back(x);
   for (const auto& s : h.stages) t.push_back(s.end_s);
   std::sort(t.begin(), t.end());

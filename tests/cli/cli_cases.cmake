@@ -186,7 +186,7 @@ cli_expect(run_missing_file 2 ARGS run products/no-such-file.toml
 cli_expect(run_directory_as_file 2 ARGS run products STDERR_HAS "products: cannot read file: it is a directory; give a regular file")
 cli_expect(probe_device_as_log 2 ARGS probe /dev/zero --organism listeria-monocytogenes
            STDERR_HAS "/dev/zero: cannot read file: it is a device; give a regular file")
-cli_expect(run_bad_step 2 ARGS run products/kofta-balls.toml --step-s -5 STDERR_HAS "--step-s = -5.000: must be > 0")
+cli_expect(run_bad_step 2 ARGS run products/kofta-balls.toml --step-s -5 STDERR_HAS "--step-s: -5: must be from 0.1 to 31622400 s")
 # A chill that cannot reach its end temperature within the cap is reported and exits 1.
 cli_expect(run_cap_reached 1 ARGS run tests/cli/cap_reached.toml
            STDOUT_HAS "CAP REACHED" STDERR_HAS "reached its cap")
@@ -331,3 +331,6 @@ cli_expect(run_step_tiny 2 ARGS run products/kofta-balls.toml --format csv --ste
            STDERR_HAS "--step-s: 1e-300: must be from 0.1 to 31622400 s")
 cli_expect(solve_round_inf 2 ARGS solve products/kofta-balls.toml --for hold-time --round-min inf
            STDERR_HAS "--round-min: inf: must be greater than 0 and at most 1440 min")
+# issue 18: the rows of a history table are bounded, and the message says the --step-s to use.
+cli_expect(run_step_too_many_rows 2 ARGS run tests/cli/long_hold.toml --format csv --step-s 0.1
+           STDERR_HAS "rows over the" "at most 1000000 rows: give --step-s")

@@ -442,3 +442,24 @@ TEST_CASE("issue 18: values outside the plausible ranges are refused where they 
   CHECK_NOTHROW(parse(with("h_W_m2K = 180", "h_W_m2K = \"inf\"")));
   CHECK_NOTHROW(parse(with("max_duration_h = 8", "max_duration_h = 8784")));
 }
+
+// issue 18: counts are bounded and the bound is said; a megabyte-long unknown key is quoted back
+// cut to limits::max_message_chars, without a suggestion (no name is that long).
+TEST_CASE("issue 18: stage count, target count and message length are bounded") {
+  std::string many;
+  for (int i = 0; i < 201; ++i)
+    many += "[[stage]]\nname = \"s" + std::to_string(i) + "\"\nmedium_C = 90\nh_W_m2K = 100\nduration_s = 10\n";
+  const std::string text = with(kGood.substr(kGood.find("[[stage]]"), kGood.find("[[target]]") - kGood.find("[[stage]]")),
+                                many);
+  CHECK_THROWS_WITH_AS(parse(text), "t.toml: stage: 201 [[stage]] tables: at most 200", InputError);
+  const std::string key(1000000, 'x');
+  try {
+    parse(with("[product]\n", "[product]\n" + key + " = 1\n"));
+    FAIL("a megabyte-long key was accepted");
+  } catch (const InputError& e) {
+    const std::string what = e.what();
+    CHECK(what.size() < 2100);
+    CHECK(what.find("(message cut at 2000 characters)") != std::string::npos);
+    CHECK(what.rfind("t.toml: ", 0) == 0);
+  }
+}

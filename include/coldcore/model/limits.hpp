@@ -7,6 +7,8 @@
 /// [5e-6, 1.5e8] (the eigenvalue solver takes 1e-6 to ∞), and exponents of lethal rates stay
 /// far from the double range. They are not claims about any food: they catch unit mistakes and
 /// garbage; the product's own data decide the rest.
+#include <cstddef>
+
 namespace coldcore::limits {
 
 struct Range {
@@ -33,5 +35,14 @@ inline constexpr Range h_W_m2K{0.1, 1e6};
 inline constexpr Range duration_s{0.0, 366.0 * 86400.0};
 /// z-values: microbial spores and cells (~5–15 °C) to quality factors (~20–50 °C), widened.
 inline constexpr Range z_C{1.0, 100.0};
+
+/// Counts. A process has a handful of stages and targets; the bounds keep run time and output
+/// proportionate (thousands of stages cost minutes) and are said when they are hit.
+inline constexpr std::size_t max_stages = 200;
+inline constexpr std::size_t max_targets = 100;
+/// Rows of a history table (run --format csv and the like): 1,000,000 (a year at 32 s, 4 h at 0.1 s).
+inline constexpr std::size_t max_output_rows = 1000000;
+/// Characters of an error message; a longer one (a megabyte-long key quoted back) is cut.
+inline constexpr std::size_t max_message_chars = 2000;
 
 }  // namespace coldcore::limits
