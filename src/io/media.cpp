@@ -66,6 +66,7 @@ MediaLibrary parse_media(std::string_view text, std::string_view origin_sv) {
       if (n == nullptr) f.missing(name, "a heat-transfer coefficient in W/(m2 K), > 0");
       const double x = f.number_of(name, *n, false, "W/(m2 K)");
       if (!(x > 0)) f.fail(name, "must be > 0");
+      f.require_range(name, x, limits::h_W_m2K, std::nullopt, "W/(m2 K)");
       return x;
     };
     m.description = str("description");

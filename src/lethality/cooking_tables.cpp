@@ -73,6 +73,7 @@ CookingTables parse_cooking_tables(std::string_view toml_text, std::string_view 
                          ": must agree with temp_F = " + detail::num(*cr.printed_F) + " (" +
                          detail::num(from_F) + " C) within 0.5 C");
       cr.temp_C = std::max(from_F, from_C);
+      detail::require_in(cr.temp_C, limits::temperature_C, origin, rp + ".temp (in C)", "C");
       const bool s = row->contains("hold_s"), m = row->contains("hold_min");
       if (s == m) throw InputError(o + ": " + rp + ": give exactly one of hold_s or hold_min");
       cr.printed_in_min = m;
@@ -81,6 +82,7 @@ CookingTables parse_cooking_tables(std::string_view toml_text, std::string_view 
       if (cr.hold_s < 0)
         throw InputError(o + ": " + rp + (m ? ".hold_min = " : ".hold_s = ") +
                          detail::num(m ? cr.hold_s / 60 : cr.hold_s) + ": must be >= 0");
+      detail::require_in(cr.hold_s, limits::duration_s, origin, rp + ".hold (in s)", "s");
       cr.note = detail::get_string(*row, "note", origin, rp, false);
       if (!tab.rows.empty() && !(cr.temp_C > tab.rows.back().temp_C))
         throw InputError(o + ": " + rp + ": temperature " + detail::num(cr.temp_C) +

@@ -56,13 +56,6 @@ void require_positive(const Sourced& v, std::string_view origin, const std::stri
                      ": must be > 0");
 }
 
-// The plausibility ranges of model/limits.hpp, in the library's units (C, s).
-void require_in(double v, const limits::Range& r, std::string_view origin, const std::string& where,
-                const char* unit) {
-  if (!r.contains(v))
-    throw InputError(std::string(origin) + ": " + where + " = " + detail::num(v) + ": must be from " +
-                     detail::num(r.low) + " to " + detail::num(r.high) + " " + unit);
-}
 
 }  // namespace
 
@@ -101,12 +94,12 @@ OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view ori
                        "\": must be \"vegetative\", \"spore\" or \"quality\"");
     auto add = [&](const std::string& key, const Sourced& v) { o.values.emplace_back(key, v); };
     const Sourced ref = detail::get_sourced(*t, "reference_C", origin, place);
-    require_in(ref.value, limits::temperature_C, origin, place + ".reference_C", "C");
+    detail::require_in(ref.value, limits::temperature_C, origin, place + ".reference_C", "C");
     add("reference_C", ref);
     k.reference_C = ref.value;
     const Sourced z = detail::get_sourced(*t, "z_C", origin, place);
     require_positive(z, origin, place + ".z_C");
-    require_in(z.value, limits::z_C, origin, place + ".z_C", "C");
+    detail::require_in(z.value, limits::z_C, origin, place + ".z_C", "C");
     add("z_C", z);
     k.z_C = z.value;
     if (t->contains("z_below_C") != t->contains("split_C"))
@@ -115,9 +108,9 @@ OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view ori
     if (t->contains("z_below_C")) {
       const Sourced zb = detail::get_sourced(*t, "z_below_C", origin, place);
       require_positive(zb, origin, place + ".z_below_C");
-      require_in(zb.value, limits::z_C, origin, place + ".z_below_C", "C");
+      detail::require_in(zb.value, limits::z_C, origin, place + ".z_below_C", "C");
       const Sourced sp = detail::get_sourced(*t, "split_C", origin, place);
-      require_in(sp.value, limits::temperature_C, origin, place + ".split_C", "C");
+      detail::require_in(sp.value, limits::temperature_C, origin, place + ".split_C", "C");
       add("z_below_C", zb);
       add("split_C", sp);
       k.z_below_C = zb.value;
@@ -125,14 +118,14 @@ OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view ori
     }
     if (auto d = sourced_time(*t, "D_ref", origin, place)) {
       require_positive(*d, origin, place + ".D_ref");
-      require_in(d->value, limits::duration_s, origin, place + ".D_ref", "s");
+      detail::require_in(d->value, limits::duration_s, origin, place + ".D_ref", "s");
       add("D_ref_s", *d);
       k.D_ref_s = d->value;
     }
     const Sourced vmin = detail::get_sourced(*t, "valid_min_C", origin, place);
     const Sourced vmax = detail::get_sourced(*t, "valid_max_C", origin, place);
-    require_in(vmin.value, limits::temperature_C, origin, place + ".valid_min_C", "C");
-    require_in(vmax.value, limits::temperature_C, origin, place + ".valid_max_C", "C");
+    detail::require_in(vmin.value, limits::temperature_C, origin, place + ".valid_min_C", "C");
+    detail::require_in(vmax.value, limits::temperature_C, origin, place + ".valid_max_C", "C");
     if (!(vmin.value < vmax.value))
       throw InputError(std::string(origin) + ": " + place + ".valid_min_C = " +
                        detail::num(vmin.value) + ": must be < valid_max_C = " +
@@ -151,10 +144,10 @@ OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view ori
       auto delta = sourced_time(*w, "delta_ref", origin, wp);
       if (!delta) throw InputError(std::string(origin) + ": " + wp + ".delta_ref_min: missing");
       require_positive(*delta, origin, wp + ".delta_ref");
-      require_in(delta->value, limits::duration_s, origin, wp + ".delta_ref", "s");
+      detail::require_in(delta->value, limits::duration_s, origin, wp + ".delta_ref", "s");
       const Sourced p = detail::get_sourced(*w, "p", origin, wp);
       require_positive(p, origin, wp + ".p");
-      require_in(p.value, kWeibullShape, origin, wp + ".p", "(dimensionless)");
+      detail::require_in(p.value, kWeibullShape, origin, wp + ".p", "(dimensionless)");
       add("weibull.delta_ref_s", *delta);
       add("weibull.p", p);
       k.weibull = Weibull{delta->value, p.value};
@@ -170,7 +163,7 @@ OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view ori
       detail::check_status(eq.status, origin, ep);
       eq.note = detail::get_string(*e, "note", origin, ep, false);
       eq.F_ref_s = 60.0 * detail::get_number(*e, "F_ref_min", origin, ep);
-      require_in(eq.F_ref_s, limits::duration_s, origin, ep + ".F_ref_min (in s)", "s");
+      detail::require_in(eq.F_ref_s, limits::duration_s, origin, ep + ".F_ref_min (in s)", "s");
       const toml::array* rows = (*e)["rows_min"].as_array();
       if (!rows) throw InputError(std::string(origin) + ": " + ep + ".rows_min: missing");
       for (std::size_t r = 0; r < rows->size(); ++r) {

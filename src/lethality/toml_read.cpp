@@ -130,4 +130,11 @@ Sourced get_sourced(const toml::table& t, std::string_view key, std::string_view
   return s;
 }
 
+void require_in(double v, const limits::Range& r, std::string_view origin, const std::string& where,
+                const char* unit) {
+  if (!r.contains(v))
+    throw InputError(std::string(origin) + ": " + where + " = " + num(v) + ": must be from " + num(r.low) + " to " +
+                     num(r.high) + " " + unit);
+}
+
 }  // namespace coldcore::detail

@@ -37,8 +37,10 @@ double temperature(const toml::table& t, const std::string& stem, std::string_vi
   if (c == f)
     throw InputError(std::string(origin) + ": " + place + ": give exactly one of " + stem +
                      "_C or " + stem + "_F");
-  if (c) return detail::get_number(t, stem + "_C", origin, place);
-  return (detail::get_number(t, stem + "_F", origin, place) - 32.0) / 1.8;
+  const double v = c ? detail::get_number(t, stem + "_C", origin, place)
+                     : (detail::get_number(t, stem + "_F", origin, place) - 32.0) / 1.8;
+  detail::require_in(v, limits::temperature_C, origin, place + "." + stem + " (in C)", "C");
+  return v;
 }
 
 double duration_s(const toml::table& t, const std::string& stem, std::string_view origin,
@@ -59,6 +61,7 @@ double duration_s(const toml::table& t, const std::string& stem, std::string_vie
   if (!(v > 0))
     throw InputError(std::string(origin) + ": " + place + "." + key + " = " + detail::num(v) +
                      ": must be > 0");
+  detail::require_in(v, limits::duration_s, origin, place + "." + stem + " (in s)", "s");
   return v;
 }
 

@@ -9,6 +9,8 @@
 
 #include "coldcore/lethality/organisms.hpp"
 
+#include "coldcore/model/limits.hpp"
+
 namespace coldcore::detail {
 
 /// Edit distance (Levenshtein) for spelling hints.
@@ -42,5 +44,10 @@ Sourced get_sourced(const toml::table& t, std::string_view key, std::string_view
 
 /// Checks a status string.
 void check_status(const std::string& status, std::string_view origin, std::string_view where);
+
+/// InputError `<origin>: <where> = <v>: must be from <low> to <high> <unit>` unless r contains v
+/// (model/limits.hpp; the library's own units, C and s). NaN fails.
+void require_in(double v, const limits::Range& r, std::string_view origin, const std::string& where,
+                const char* unit);
 
 }  // namespace coldcore::detail
