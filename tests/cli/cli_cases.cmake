@@ -334,3 +334,8 @@ cli_expect(solve_round_inf 2 ARGS solve products/kofta-balls.toml --for hold-tim
 # issue 18: the rows of a history table are bounded, and the message says the --step-s to use.
 cli_expect(run_step_too_many_rows 2 ARGS run tests/cli/long_hold.toml --format csv --step-s 0.1
            STDERR_HAS "rows over the" "at most 1000000 rows: give --step-s")
+# issue 18: byte-identical output across working folders and time zones, every verb × format.
+add_test(NAME cli.determinism_cwd_tz
+         COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
+                 -P ${PROJECT_SOURCE_DIR}/tests/cli/determinism.cmake)
+set_tests_properties(cli.determinism_cwd_tz PROPERTIES TIMEOUT 600)
