@@ -1,8 +1,12 @@
 // coldcore command line: parse, dispatch to a verb, turn errors into one stderr line.
+#include <algorithm>
 #include <iostream>
+#include <string>
+#include <vector>
 
 #include "cli/verbs.hpp"
 #include "coldcore/error.hpp"
+#include "coldcore/io/quantity.hpp"
 #include "coldcore/report/temperature_text.hpp"
 #include "coldcore/version.hpp"
 
@@ -27,6 +31,17 @@ int real_main(int argc, char** argv) {
   add_deviation_verb(app, ctx);
   add_media_verb(app, ctx);
   add_pending_verbs(app, ctx);
+  // An unknown verb: say which verbs there are and the nearest one (CLI11 would only say that a
+  // subcommand is required).
+  std::vector<std::string> verbs;
+  for (const CLI::App* sub : app.get_subcommands([](const CLI::App*) { return true; })) verbs.push_back(sub->get_name());
+  if (argc > 1 && argv[1][0] != '-' && std::find(verbs.begin(), verbs.end(), argv[1]) == verbs.end()) {
+    std::string msg = std::string("unknown verb '") + argv[1] + "'";
+    if (auto near = coldcore::io::did_you_mean(argv[1], verbs)) msg += "; did you mean '" + *near + "'?";
+    std::string list;
+    for (const auto& v : verbs) list += (list.empty() ? "" : ", ") + v;
+    throw coldcore::InputError(msg + " (verbs: " + list + "; coldcore --help)");
+  }
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

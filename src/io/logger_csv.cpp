@@ -4,6 +4,8 @@
 #include <cmath>
 
 #include "coldcore/error.hpp"
+#include "coldcore/model/limits.hpp"
+#include "io/detail/fields.hpp"
 #include "coldcore/io/quantity.hpp"
 #include "coldcore/io/sha256.hpp"
 #include "io/detail/text.hpp"
@@ -258,6 +260,9 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
     const double temp_C = *to_si(Quantity::temperature, *temp, temp_unit);
     if (temp_C < -273.15)
       throw InputError(at + ": " + temp_name + " = " + std::string(temp_cell) + ": below absolute zero (-273.15 C)");
+    if (!limits::temperature_C.contains(temp_C))
+      throw InputError(at + ": " + temp_name + " = " + std::string(temp_cell) + ": must be " +
+                       detail::range_text(limits::temperature_C, Quantity::temperature, temp_unit));
 
     if (!out.time_s.empty()) {
       if (!(time_abs > prev_time_abs))
@@ -271,6 +276,12 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
     } else {
       first_time_abs = time_abs;
     }
+    if (time_abs - first_time_abs > limits::duration_s.high)
+      throw InputError(at + ": " + header[0] + " = " + show_cell(cells[0]) +
+                       ": more than a year after the first row; a log covers at most 366 days");
+    if (out.time_s.size() == limits::max_log_rows)
+      throw InputError(at + ": more than " + std::to_string(limits::max_log_rows) +
+                       " data rows: at most that many are read (split the log, or thin it to a coarser interval)");
     out.time_s.push_back(time_abs - first_time_abs);
     out.temp_C.push_back(temp_C);
     prev_time_abs = time_abs;

@@ -333,21 +333,19 @@ void require_constant_properties(const ProductFile& file) {
 
 ProductFile load_product(const std::filesystem::path& path) {
   const std::string text = read_text_file(path);
-  const LogReader disk = [](const std::filesystem::path& p) -> std::optional<std::string> {
-    try {
-      return read_text_file(p);  // refuses directories, FIFOs and devices before opening
-    } catch (const InputError&) {
-      return std::nullopt;
-    }
-  };
+  // Throws with the reason (missing, a directory, a FIFO, too large); the stage reader adds its key.
+  const LogReader disk = [](const std::filesystem::path& p) -> std::optional<std::string> { return read_text_file(p); };
   ProductFile pf = parse_product(text, path.generic_string(), path.parent_path(), disk);
   if (needs_media(pf)) {
     const std::filesystem::path mp = path.parent_path() / "media.toml";
-    const auto mt = disk(mp);
-    if (!mt)
+    std::string media_text;
+    try {
+      media_text = read_text_file(mp);
+    } catch (const InputError& e) {
       throw InputError(path.generic_string() + ": medium_type: needs " + mp.generic_string() +
-                       " (the media library) beside the product file");
-    apply_media(pf, parse_media(*mt, mp.generic_string()));
+                       " (the media library) beside the product file: " + e.what());
+    }
+    apply_media(pf, parse_media(media_text, mp.generic_string()));
   }
   return pf;
 }

@@ -82,7 +82,12 @@ MediumProfile parse_medium_log(const Fields& f, const std::filesystem::path& bas
   if (rel->empty()) f.fail("medium_log", "must name a CSV file, relative to this file");
   if (!read_log) f.fail("medium_log", "cannot read logs here (no file reader given)");
   const std::filesystem::path path = base_dir / *rel;
-  const auto text = read_log(path);
+  std::optional<std::string> text;
+  try {
+    text = read_log(path);
+  } catch (const InputError& e) {  // the reader says why (missing, a directory, a FIFO, too large)
+    f.fail("medium_log", e.what());
+  }
   if (!text) f.fail("medium_log", "cannot read file " + quote(path.generic_string()));
   LogOptions opts;
   Found gap;

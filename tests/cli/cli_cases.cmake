@@ -339,3 +339,11 @@ add_test(NAME cli.determinism_cwd_tz
          COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
                  -P ${PROJECT_SOURCE_DIR}/tests/cli/determinism.cmake)
 set_tests_properties(cli.determinism_cwd_tz PROPERTIES TIMEOUT 600)
+
+# issue 18: the bad-input suite (tests/bad_inputs/): over 100 bad files, logs, libraries, options
+# and output paths, each refused with its exact message and exit code, without a crash, a hang,
+# a partial or overwritten file. Prints the counts.
+add_test(NAME bad_inputs.suite
+         COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
+                 -P ${PROJECT_SOURCE_DIR}/tests/bad_inputs/suite.cmake)
+set_tests_properties(bad_inputs.suite PROPERTIES TIMEOUT 900)

@@ -42,6 +42,8 @@ inline constexpr std::size_t max_stages = 200;
 inline constexpr std::size_t max_targets = 100;
 /// Rows of a history table (run --format csv and the like): 1,000,000 (a year at 32 s, 4 h at 0.1 s).
 inline constexpr std::size_t max_output_rows = 1000000;
+/// Data rows of one log: 5,000,000 (58 days at 1 s, a year at 7 s); a 1-s log of a week has 604,800.
+inline constexpr std::size_t max_log_rows = 5000000;
 /// Characters of an error message; a longer one (a megabyte-long key quoted back) is cut.
 inline constexpr std::size_t max_message_chars = 2000;
 
