@@ -82,12 +82,7 @@ double max_biot(const RunReport& r, bool& infinite) {
 
 std::string biot_text(const StageRow& s) {
   if (s.h_infinite) return "∞ (surface held at the medium temperature)";
-  if (s.biot != 0 && std::fabs(s.biot) < 0.01) {
-    char buf[32];
-    std::snprintf(buf, sizeof buf, "%.2g", s.biot);
-    return buf;
-  }
-  return fixed(s.biot, 3);
+  return biot_number_text(s.biot);
 }
 
 }  // namespace
@@ -253,15 +248,26 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
 
 std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u) {
   std::vector<std::string> p;
+  // One Biot number throughout (the table, the notes and here), on the length the report names.
+  // Regimes: Bi = inside / surface resistance (Incropera et al., ch. 5, from memory); lumped
+  // capacitance fair below 0.1 on V/A (REFERENCES 3.2).
+  const std::string sym = biot_symbol(r);
   std::string biot =
-      "The Biot number (Bi) compares how hard it is for heat to move through the product with how hard it is for "
-      "heat to cross its surface. Below about 0.1 (common practice) the inside stays close to one temperature and "
-      "the piece heats or cools as a whole; above 0.1 the inside lags behind the surface, and the larger Bi, the "
-      "larger the lag.";
+      "The Biot number compares the resistance to heat flow inside the product with the resistance at its "
+      "surface: Bi = h·L/k.";
+  if (r.biot_length == "V/A")
+    biot += " In this report L is V/A, the volume over the surface area (" + fixed(r.biot_length_m * 1000.0, 2) +
+            " mm), in the stage table, the notes and here.";
+  else if (!r.biot_length.empty())
+    biot += " In this report L is the " + r.biot_length + ".";
+  biot += " Below 0.1 the inside stays close to one temperature and the piece heats or cools as a whole, so "
+          "lumped capacitance is a fair shortcut (the lumped-capacitance criterion of heat-transfer textbooks). "
+          "From 0.1 to 1 the surface resistance still dominates, but the centre lags the surface. Above 1 the "
+          "resistance inside dominates: the surface nears the medium temperature long before the centre does.";
   if (!r.stages.empty()) {
     biot += " In this run:";
     for (size_t i = 0; i < r.stages.size(); ++i)
-      biot += std::string(i ? ";" : "") + " " + r.stages[i].name + " Bi = " + biot_text(r.stages[i]);
+      biot += std::string(i ? ";" : "") + " " + r.stages[i].name + " " + sym + " = " + biot_text(r.stages[i]);
     biot += ".";
   }
   p.push_back(biot);
@@ -296,14 +302,14 @@ std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u) {
       s += " The largest difference in this run is " + fixed(display_temp_difference(gap, u), 1) + " " +
            std::string(unit_symbol(u)) + " (the shortcut reads " + (signed_gap > 0 ? "warmer" : "cooler") +
            " than the exact centre) at " + duration_text(at_s) + ".";
-    s += high_bi ? " With Bi above 0.1 the shortcut in general reads the centre warmer than it is while heating and "
+    s += high_bi ? " With " + sym + " above 0.1 the shortcut in general reads the centre warmer than it is while heating and "
                    "cooler than it is while cooling, so relying on it would overstate safety."
-                 : " With Bi at or below 0.1 in every stage the shortcut stays close to the exact centre.";
+                 : " With " + sym + " at or below 0.1 in every stage the shortcut stays close to the exact centre.";
     p.push_back(s);
   } else if (!r.stages.empty()) {
-    p.push_back(high_bi ? "With Bi above 0.1 a lumped-capacitance shortcut (one uniform temperature) would misjudge "
-                          "the centre; the model did not provide that curve for this run, so it is not drawn."
-                        : "With Bi at or below 0.1 in every stage a lumped-capacitance shortcut (one uniform "
+    p.push_back(high_bi ? "With " + sym + " above 0.1 a lumped-capacitance shortcut (one uniform temperature) would "
+                          "misjudge the centre; the model did not provide that curve for this run, so it is not drawn."
+                        : "With " + sym + " at or below 0.1 in every stage a lumped-capacitance shortcut (one uniform "
                           "temperature) would give nearly the same centre temperature.");
   }
   p.push_back(
@@ -316,7 +322,7 @@ std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u) {
 
 TextTable stage_table(const RunReport& r, TempUnit u) {
   const std::string us(unit_symbol(u));
-  TextTable t = {{"stage", "start", "end", "ended by", "medium", "h (W/m²K)", "Bi", "centre (" + us + ")",
+  TextTable t = {{"stage", "start", "end", "ended by", "medium", "h (W/m²K)", biot_symbol(r), "centre (" + us + ")",
                   "surface (" + us + ")", "mean (" + us + ")"}};
   for (const auto& s : r.stages)
     t.push_back({s.name, duration_text(s.start_s), duration_text(s.end_s), s.ended_by, s.medium,

@@ -49,6 +49,7 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
     w.key("medium").value(s.medium);
     if (s.h_infinite) w.key("h_W_m2K").value("inf"); else w.key("h_W_m2K").value(s.h_W_m2K);
     if (s.h_infinite) w.key("biot").value("inf"); else w.key("biot").value(s.biot);
+    if (!r.biot_length.empty()) w.key("biot_length").value(r.biot_length);  // "V/A": Bi = h·(V/A)/k
     w.key("biot_note").value(s.biot_note);
     const std::string us(unit_suffix(u));
     w.key("centre_" + us).value(display_temp(s.centre_C, u));

@@ -60,15 +60,18 @@ void write_run_text(const RunReport& r, std::ostream& out, TempUnit u) {
   if (!r.stages.empty()) {
     out << "Stages (temperatures at each stage's end, " << us << ")\n";
     std::vector<std::vector<std::string>> rows = {
-        {"stage", "start", "end", "ended by", "h W/m²K", "Bi", "centre", "surface", "mean"}};
+        {"stage", "start", "end", "ended by", "h W/m²K", biot_symbol(r), "centre", "surface", "mean"}};
     for (const auto& s : r.stages)
       rows.push_back({s.name, duration_text(s.start_s), duration_text(s.end_s), s.ended_by, h_text(s),
-                      s.h_infinite ? "inf" : fixed(s.biot, 3), fixed(display_temp(s.centre_C, u), 2),
+                      s.h_infinite ? "inf" : biot_number_text(s.biot), fixed(display_temp(s.centre_C, u), 2),
                       fixed(display_temp(s.surface_C, u), 2), fixed(display_temp(s.mean_C, u), 2)});
     print_table(out, rows, u);
     out << "\n  Media:\n";
     for (const auto& s : r.stages) out << "    " << s.name << ": " << s.medium << "\n";
-    out << "\n  What the Biot number says:\n";
+    out << "\n  What the Biot number says";
+    if (r.biot_length == "V/A")
+      out << " (Bi on V/A, the volume over the surface area, " << fixed(r.biot_length_m * 1000.0, 2) << " mm)";
+    out << ":\n";
     for (const auto& s : r.stages) out << "    " << s.name << ": " << s.biot_note << "\n";
     out << "\n";
   }

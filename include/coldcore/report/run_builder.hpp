@@ -22,7 +22,12 @@ struct RunReportOptions {
 double volume_to_area_m(const Product& p);
 /// Smallest half-dimension (radius or half-thickness), m: the length of the stage Biot number.
 double smallest_half_dimension_m(const Product& p);
-/// Plain-words note on what a stage's Biot number means for lumped capacitance.
+/// Biot number on Lc = V/A: h·(V/A)/k. The one Bi the run report shows (table, notes, reading).
+/// REQUIRES h_W_m2K > 0 finite, conductivity > 0.
+double biot_volume_to_area(const Product& p, double h_W_m2K);
+/// Plain-words note on what a stage's Bi(V/A) means, by regime: < 0.1 lumped capacitance is fair;
+/// 0.1 to 1 the surface resistance dominates but the centre still lags; > 1 the resistance inside
+/// dominates (Bi = inside / surface resistance; lumped criterion on V/A, REFERENCES 3.2).
 std::string biot_note(const Product& p, const Stage& s);
 
 RunReport build_run_report(const io::ProductFile& file, const History& history, const RunReportOptions& opts);

@@ -22,8 +22,8 @@ struct StageRow {
   std::string medium;     ///< description of the medium schedule
   double h_W_m2K = 0;
   bool h_infinite = false;
-  double biot = 0;
-  std::string biot_note;  ///< plain words: what Bi means for lumped capacitance
+  double biot = 0;         ///< on the length RunReport::biot_length names
+  std::string biot_note;  ///< plain words: what Bi means (its regime), on the same length
   double centre_C = 0, surface_C = 0, mean_C = 0;  ///< at the stage's end
 };
 
@@ -79,6 +79,11 @@ struct RunReport {
   std::string verb;                      ///< "run", "modes", ...
   std::vector<KeyValue> product;         ///< product and property rows
   std::vector<StageRow> stages;
+  /// The length every StageRow::biot is built on: a short name ("V/A" for the volume over the
+  /// surface area) and its value; shown in the Bi column header, the notes and "Reading this
+  /// report". Empty: not stated (plain "Bi").
+  std::string biot_length;
+  double biot_length_m = 0;
   HistoryTable history;
   std::vector<VerdictRow> verdicts;
   std::vector<std::string> warnings;
@@ -91,6 +96,10 @@ struct RunReport {
 
 /// "met" or "not demonstrated".
 std::string_view verdict_word(bool met);
+/// A Biot number as shown: 3 decimals, or 2 significant digits below 0.01.
+std::string biot_number_text(double biot);
+/// "Bi(V/A)" for a report whose Bi are built on V/A; "Bi" when the length is not stated.
+std::string biot_symbol(const RunReport& r);
 
 void write_run_text(const RunReport& r, std::ostream& out, TempUnit u);
 void write_run_json(const RunReport& r, std::ostream& out, TempUnit u);
