@@ -270,6 +270,7 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
                                " s; values in between are interpolated");
     } else {
       first_time_abs = time_abs;
+      if (iso_time) out.start_unix_s = time_abs;
     }
     out.time_s.push_back(time_abs - first_time_abs);
     out.temp_C.push_back(temp_C);

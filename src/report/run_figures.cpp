@@ -33,6 +33,7 @@ constexpr CurveStyle kTempCurves[] = {
     {"mean_C", "mass-average", oi::bluish_green, Dash::dash_dot, 1.6},
     {"lumped_centre_C", "centre by the lumped shortcut", oi::reddish_purple, Dash::short_dash, 2.0},
     {"centre_C", "centre (cold spot), exact", oi::blue, Dash::solid, 2.4},
+    {"measured_C", "measured by the probe", oi::blue, Dash::solid, 2.4},
 };
 
 const CurveStyle* temp_style(std::string_view column) {
@@ -143,11 +144,34 @@ std::string lead_sentence() {
          "end of this report before using any of it.";
 }
 
+std::string lead_sentence(const RunReport& r) {
+  if (!r.measured) return lead_sentence();
+  return "Engineering estimate from a measured temperature log, not a validated process. Read the cautions at the "
+         "end of this report before using any of it.";
+}
+
+std::string subject_heading(const RunReport& r) { return r.measured ? "Measured log" : "Product and properties"; }
+
+std::vector<std::string> delivered_lines(const RunReport& r) {
+  std::vector<std::string> out;
+  for (const auto& d : r.delivered) {
+    out.push_back(d.name + ": " + delivered_text(d));
+    for (const auto& line : d.details) out.push_back(d.name + ": " + line);
+  }
+  return out;
+}
+
 std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
   std::vector<RunFigure> out;
   const auto t_col = column_index(r.history, "time_s");
   if (!t_col || r.history.rows.empty()) return out;
-  const TimeScale ts = time_scale(r);
+  TimeScale ts = time_scale(r);
+  if (r.measured) {  // a log counts from its first reading; say its clock time when it has one
+    const bool hours = ts.seconds_per_unit == 3600.0;
+    ts.label = "time since the first reading";
+    if (r.measured->start_unix_s) ts.label += ", " + utc_text(*r.measured->start_unix_s);
+    ts.label += hours ? " (h)" : " (min)";
+  }
   std::vector<double> t = column_values(r.history, *t_col, false, u);
   for (double& x : t) x /= ts.seconds_per_unit;
   const std::string temp_label = "temperature (" + std::string(unit_symbol(u)) + ")";
@@ -157,7 +181,7 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
     RunFigure f;
     f.key = "temperature";
     f.plot.id = "plot-temperature";
-    f.plot.title = "Temperatures against time";
+    f.plot.title = r.measured ? "Measured temperature against time" : "Temperatures against time";
     f.plot.x.label = ts.label;
     f.plot.x.min = 0;
     f.plot.y.label = temp_label;
@@ -171,8 +195,12 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
                                  Dash::dotted});
       }
     add_stage_lines(f.plot, r, ts);
-    f.caption = "Medium, surface, mass-average and centre temperature of the product against time; dashed "
-                "vertical lines mark where each stage starts.";
+    if (r.measured)
+      f.caption = "The temperature the probe logged (log " + r.measured->log + ", " +
+                  std::to_string(r.measured->readings) + " readings) against time, straight between readings.";
+    else
+      f.caption = "Medium, surface, mass-average and centre temperature of the product against time; dashed "
+                  "vertical lines mark where each stage starts.";
     if (column_index(r.history, "lumped_centre_C"))
       f.caption += " The short-dash purple curve is the lumped-capacitance shortcut for the centre, drawn to show "
                    "how far it is from the exact centre.";
@@ -184,7 +212,7 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
     RunFigure f;
     f.key = "lethality";
     f.plot.id = "plot-lethality";
-    f.plot.title = "Cumulative lethality at the centre";
+    f.plot.title = r.measured ? "Cumulative lethality at the probe" : "Cumulative lethality at the centre";
     f.plot.x.label = ts.label;
     f.plot.x.min = 0;
     f.plot.y.label = "F-value (min)";
@@ -209,8 +237,14 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
       ++k;
     }
     add_stage_lines(f.plot, r, ts);
-    f.caption = "Lethality accumulated at the centre, as minutes at each target's reference temperature; the "
-                "dotted line is the required value.";
+    if (r.measured)
+      f.caption = "Lethality accumulated from the measured temperatures (trapezoid rule over the readings), as "
+                  "minutes at each target's reference temperature" +
+                  std::string(r.target_lines.empty() ? "; no target was given, so no required value is drawn."
+                                                     : "; the dotted line is the required value.");
+    else
+      f.caption = "Lethality accumulated at the centre, as minutes at each target's reference temperature; the "
+                  "dotted line is the required value.";
     if (!f.plot.series.empty()) out.push_back(std::move(f));
   }
 
@@ -235,18 +269,53 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
     const double pad = 0.05 * (hi - lo);
     f.plot.x.min = std::max(0.0, lo - pad) / ts.seconds_per_unit;
     f.plot.x.max = (hi + pad) / ts.seconds_per_unit;
-    for (const char* col : {"medium_C", "centre_C"})
+    for (const char* col : {"medium_C", "centre_C", "measured_C"})
       if (auto i = column_index(r.history, col))
         f.plot.series.push_back(make_series(*temp_style(col), t, column_values(r.history, *i, true, u)));
     add_stage_lines(f.plot, r, ts);
-    f.caption = "Each shaded box is one step of the cooling rule: the centre must leave the box through its "
-                "lower edge before the heavy right edge (the step's deadline).";
+    f.caption = std::string("Each shaded box is one step of the cooling rule: the ") +
+                (r.measured ? "measured temperature" : "centre") +
+                " must leave the box through its lower edge before the heavy right edge (the step's deadline).";
     out.push_back(std::move(f));
   }
   return out;
 }
 
+namespace {
+
+const char* kVerdictWords =
+    "A verdict says \"met\" only when the computed margin is positive. \"Not demonstrated\" means this calculation "
+    "does not show the target is reached; it does not prove the product unsafe, and \"met\" does not release "
+    "product.";
+
+// A report about measured data: no conduction model, no Biot number, no surface or centre curves.
+std::vector<std::string> measured_paragraphs(const RunReport& r) {
+  const MeasuredSource& m = *r.measured;
+  std::vector<std::string> p;
+  std::string log = "This report is about measured data: the " + std::to_string(m.readings) +
+                    " temperatures logged in " + m.log;
+  log += m.start_unix_s ? ", the first at " + utc_text(*m.start_unix_s) + "." : " (the log carries no clock time).";
+  log += " No model of the product is used: between readings the temperature is taken as a straight line, and "
+         "everything shown is computed from the readings alone.";
+  p.push_back(log);
+  p.push_back(
+      "The readings stand for the product's slowest-heating point (the cold spot while heating, the warm spot while "
+      "cooling) only if the probe was there and calibrated; that is for the user to verify. A probe off that point "
+      "reads warmer than it while heating, which overstates lethality.");
+  std::string f = "An F-value is the time at the reference temperature that would kill as many organisms as the "
+                  "logged temperatures did; the lethality plot shows it adding up over the log.";
+  if (!r.delivered.empty())
+    f += " No target was given for the lethality, so the report shows what the log delivered (F and, where a D "
+         "value is known, log reductions) and claims no verdict for it.";
+  if (!r.verdicts.empty()) f += std::string(" ") + kVerdictWords;
+  p.push_back(f);
+  return p;
+}
+
+}  // namespace
+
 std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u) {
+  if (r.measured) return measured_paragraphs(r);
   std::vector<std::string> p;
   // One Biot number throughout (the table, the notes and here), on the length the report names.
   // Regimes: Bi = inside / surface resistance (Incropera et al., ch. 5, from memory); lumped

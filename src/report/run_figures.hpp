@@ -54,5 +54,11 @@ const std::vector<std::string>& report_cautions(const RunReport& r);
 
 /// The first line every rich report shows under its title.
 std::string lead_sentence();
+/// The lead of a report: lead_sentence(), or for measured data its own (no conduction model).
+std::string lead_sentence(const RunReport& r);
+/// Heading of the product section: "Product and properties", or "Measured log".
+std::string subject_heading(const RunReport& r);
+/// The delivered section's lines: "<name>: F ..., N log10" then "<name>: <detail>" lines.
+std::vector<std::string> delivered_lines(const RunReport& r);
 
 }  // namespace coldcore::detail

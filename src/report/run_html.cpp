@@ -10,9 +10,9 @@ namespace coldcore {
 
 void write_run_html(const RunReport& r, std::ostream& o, TempUnit u) {
   using namespace detail;
-  html_page_begin(o, r.title);
+  html_page_begin(o, r.title, lead_sentence(r));
   if (!r.product.empty()) {
-    html_section_begin(o, "product", "Product and properties");
+    html_section_begin(o, "product", subject_heading(r));
     html_key_value_table(o, r.product, "item");
     html_section_end(o);
   }
@@ -40,6 +40,11 @@ void write_run_html(const RunReport& r, std::ostream& o, TempUnit u) {
     for (const auto& v : r.verdicts)
       for (const auto& d : v.details) details.push_back(v.name + ": " + d);
     html_list(o, details);
+    html_section_end(o);
+  }
+  if (!r.delivered.empty()) {
+    html_section_begin(o, "delivered", delivered_heading());
+    html_list(o, delivered_lines(r));
     html_section_end(o);
   }
   if (!r.warnings.empty()) {

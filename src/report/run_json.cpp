@@ -76,6 +76,38 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
     w.end_object();
   }
   w.end_array();
+  // Lethality without a requirement: what was delivered, with no verdict (issue 11).
+  if (!r.delivered.empty()) {
+    w.key("delivered").begin_array();
+    for (const auto& d : r.delivered) {
+      w.begin_object();
+      w.key("name").value(d.name);
+      w.key("kind").value(d.kind);
+      w.key("verdict").value("none: no target given");
+      w.key("F_s").value(d.F_s);
+      w.key("F_text").value(d.F_text);
+      w.key("reference_" + std::string(unit_suffix(u))).value(display_temp(d.reference_C, u));
+      w.key("z_" + std::string(unit_suffix(u))).value(display_temp_difference(d.z_C, u));
+      if (d.log_reduction) {
+        w.key("log_reduction").value(*d.log_reduction);
+        w.key("log_reduction_text").value(d.log_text);
+      }
+      w.key("details").value(d.details);
+      w.end_object();
+    }
+    w.end_array();
+  }
+  if (r.measured) {
+    w.key("measured").begin_object();
+    w.key("log").value(r.measured->log);
+    w.key("lot").value(r.measured->lot);
+    w.key("readings").value(static_cast<int>(r.measured->readings));
+    if (r.measured->start_unix_s) {
+      w.key("start_unix_s").value(*r.measured->start_unix_s);
+      w.key("first_reading_utc").value(utc_text(*r.measured->start_unix_s));
+    }
+    w.end_object();
+  }
   w.key("warnings").value(r.warnings);
   w.key("assumptions").value(r.assumptions);
   w.key("cautions").value(r.cautions);
@@ -89,6 +121,10 @@ void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
   for (const auto& c : r.cautions) out << "# caution: " << c << "\n";
   for (const auto& kv : r.provenance) out << "# " << kv.key << ": " << kv.value << "\n";
   for (const auto& w : r.warnings) out << "# warning: " << w << "\n";
+  if (r.measured)  // the log, its lot and clock times (issue 11)
+    for (const auto& kv : r.product) out << "# " << kv.key << ": " << kv.value << "\n";
+  for (const auto& d : r.delivered)
+    out << "# delivered, no target given, no verdict: " << d.name << ": " << delivered_text(d) << "\n";
   for (const auto& v : r.verdicts)
     out << "# verdict: " << v.name << ": " << verdict_word(v.met) << " (required " << v.required
         << ", achieved " << v.achieved << ", margin " << v.margin << ")\n";

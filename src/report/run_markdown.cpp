@@ -11,9 +11,9 @@ MarkdownReport write_run_markdown(const RunReport& r, TempUnit u, std::string_vi
   using namespace detail;
   MarkdownReport rep;
   std::ostringstream o;
-  md_page_begin(o, r.title);
+  md_page_begin(o, r.title, lead_sentence(r));
   if (!r.product.empty()) {
-    md_heading(o, "Product and properties");
+    md_heading(o, subject_heading(r));
     md_key_value_table(o, r.product);
   }
   if (!r.stages.empty()) {
@@ -35,6 +35,10 @@ MarkdownReport write_run_markdown(const RunReport& r, TempUnit u, std::string_vi
     for (const auto& v : r.verdicts)
       for (const auto& d : v.details) details.push_back(v.name + ": " + d);
     md_list(o, details);
+  }
+  if (!r.delivered.empty()) {
+    md_heading(o, delivered_heading());
+    md_list(o, delivered_lines(r));
   }
   if (!r.warnings.empty()) {
     md_heading(o, "Warnings");

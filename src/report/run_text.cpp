@@ -53,7 +53,7 @@ void write_run_text(const RunReport& r, std::ostream& out, TempUnit u) {
   const std::string us(unit_symbol(u));
   out << r.title << "\n\n";
   if (!r.product.empty()) {
-    out << "Product\n";
+    out << (r.measured ? "Measured log\n" : "Product\n");
     for (const auto& kv : r.product) out << "  " << kv.key << ": " << kv.value << "\n";
     out << "\n";
   }
@@ -83,6 +83,14 @@ void write_run_text(const RunReport& r, std::ostream& out, TempUnit u) {
     print_table(out, rows, u);
     for (const auto& v : r.verdicts)
       for (const auto& d : v.details) out << "    " << v.name << ": " << d << "\n";
+    out << "\n";
+  }
+  if (!r.delivered.empty()) {
+    out << delivered_heading() << "\n";
+    for (const auto& d : r.delivered) {
+      out << "  " << d.name << ": " << delivered_text(d) << "\n";
+      for (const auto& line : d.details) out << "    " << d.name << ": " << line << "\n";
+    }
     out << "\n";
   }
   if (!r.warnings.empty()) {

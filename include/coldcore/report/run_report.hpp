@@ -1,7 +1,9 @@
 #pragma once
 /// The report model every writer reads: plain values, already computed. Writers format; they
 /// never recompute physics. Temperatures are stored in °C and converted by the writer.
+#include <cstddef>
 #include <iosfwd>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -52,6 +54,30 @@ struct VerdictRow {
   std::string value_unit;
 };
 
+/// What a lethality calculation delivered where no requirement was given: there is no verdict
+/// (neither "met" nor "not demonstrated"), only the delivered F and, when a D value is known,
+/// the log reductions. Shown in its own section in every format, never in the verdict table.
+struct DeliveredRow {
+  std::string name;
+  std::string kind;             ///< the lethality measure: "F-value" | "log-reduction"
+  std::string F_text;           ///< rounded down with its reference, e.g. "868 min at 70.0 °C (z 7.50 °C)"
+  std::string log_text;         ///< log10 reductions as shown (rounded down), "" without a D value
+  std::vector<std::string> details;
+  double F_s = 0;               ///< credited F, s
+  double reference_C = 0, z_C = 0;
+  std::optional<double> log_reduction;  ///< log10, when a D (or Weibull) value is known
+};
+
+/// A report about measured data (a probe log) rather than a model run: the writers then say
+/// "measured" in the lead, headings, plot legends and captions and "Reading this report", name
+/// the log and show its clock time, and never speak of a conduction model or a Biot number.
+struct MeasuredSource {
+  std::string log;                      ///< the log file as given
+  std::string lot;                      ///< lot or batch identifier; "" = not given (the report says so)
+  std::optional<double> start_unix_s;   ///< clock time of the first reading, s since 1970 UTC (timestamped logs)
+  std::size_t readings = 0;
+};
+
 /// A cooling-rule step drawn over the cooling curve: the checked temperature (the centre) must
 /// fall from temp_hi_C, which it passed at t0_s, to temp_lo_C no later than t1_s. Times from the
 /// process start; temperatures in °C. The writers draw it as a shaded box whose right edge is
@@ -92,12 +118,20 @@ struct RunReport {
   std::vector<std::string> cautions;     ///< always filled from cautions()
   std::vector<RuleBox> rule_boxes;       ///< cooling-rule steps to draw (may be empty)
   std::vector<TargetLine> target_lines;  ///< required values to draw (may be empty)
+  std::vector<DeliveredRow> delivered;   ///< lethality without a requirement: no verdict (may be empty)
+  std::optional<MeasuredSource> measured;  ///< set: a report about measured data (probe)
 };
 
 /// "met" or "not demonstrated".
 std::string_view verdict_word(bool met);
 /// A Biot number as shown: 3 decimals, or 2 significant digits below 0.01.
 std::string biot_number_text(double biot);
+/// "2026-11-30 06:00:00 UTC" for a clock time in s since 1970 UTC (whole seconds, rounded down).
+std::string utc_text(double unix_s);
+/// The delivered row's one-line summary: "F 868 min at 70.0 °C (z 7.50 °C), 2600 log10".
+std::string delivered_text(const DeliveredRow& d);
+/// Heading of the delivered section: what it is and that no verdict is claimed.
+std::string_view delivered_heading();
 /// "Bi(V/A)" for a report whose Bi are built on V/A; "Bi" when the length is not stated.
 std::string biot_symbol(const RunReport& r);
 
