@@ -197,6 +197,45 @@ cli_expect(probe_unknown_organism 2 ARGS probe products/logs/kofta-probe.csv --o
            STDERR_HAS "did you mean 'listeria-monocytogenes'")
 cli_expect(probe_nothing_asked 2 ARGS probe products/logs/kofta-probe.csv STDERR_HAS "give --organism KEY")
 
+# issue 11, defect 4: probe without a target reports what was delivered and claims no verdict, in
+# every format (constant 70 °C for 4 min: F70 = 4 min by the definition of F, 8 log10 with
+# D70 = 0.5 min; invented log tests/cli/probe/constant-70C.csv). Exit 0: nothing was asked.
+foreach(fmt text html)
+  cli_expect(issue11_probe_no_target_${fmt} 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+             --D-min 0.5 --format ${fmt} --date 2026-12-01
+             STDOUT_HAS "Delivered lethality (no target given: no verdict)" "F 4.00 min at 70.0 °C (z 7.50 °C), 8.00 log10"
+             STDOUT_LACKS "not demonstrated" "none given" "F needed"
+             STDERR_HAS "no target given (--target-log, or --F-min with own kinetics)")
+endforeach()
+cli_expect(issue11_probe_no_target_csv 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+           --D-min 0.5 --format csv --date 2026-12-01
+           STDOUT_HAS "# delivered, no target given, no verdict: own: F 4.00 min at 70.0 °C (z 7.50 °C), 8.00 log10\n"
+           STDOUT_LACKS "# verdict:" "not demonstrated" "none given" "F needed")
+cli_expect(issue11_probe_no_target_json 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+           --D-min 0.5 --format json --date 2026-12-01
+           STDOUT_HAS "\"assessment\": []" "\"verdict\": \"none: no target given\"" "\"F_s\": 240" "\"log_reduction\": 8"
+           STDOUT_LACKS "not demonstrated" "none given" "F needed")
+cli_expect(issue11_probe_no_target_organism 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes
+           STDOUT_HAS "Delivered lethality (no target given: no verdict)" "listeria-monocytogenes: F 868 min at 70.0 °C"
+           STDOUT_LACKS "not demonstrated" "none given" "F needed")
+# with a rule beside it, the rule alone carries a verdict (and the exit code)
+cli_expect(issue11_probe_no_target_with_rule 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes
+           --rule two-stage-6h
+           STDOUT_HAS "Delivered lethality (no target given: no verdict)" "two-stage-6h" " met\n"
+           STDOUT_LACKS "not demonstrated" "none given")
+# issue 11, probe stumble: a report about measured data says measured, names the log, its lot and
+# its clock time (2026-11-30T07:00:00+01:00 is 06:00:00 UTC), and never speaks of a model.
+cli_expect(issue11_probe_measured_html 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+           --F-min 3 --lot L-2026-11-30-A --format html --date 2026-12-01
+           STDOUT_HAS "coldcore probe: measured cold-spot log tests/cli/probe/constant-70C.csv, lot L-2026-11-30-A"
+                      "Engineering estimate from a measured temperature log" "Measured log"
+                      "2026-11-30 06:00:00 UTC" "measured by the probe" "time since the first reading, 2026-11-30 06:00:00 UTC (min)"
+           STDOUT_LACKS "conduction model" "centre (cold spot), exact" "Biot" "mass-average")
+cli_expect(issue11_probe_measured_csv 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+           --F-min 3 --lot L-2026-11-30-A --format csv --date 2026-12-01
+           STDOUT_HAS "# lot: L-2026-11-30-A\n" "# first reading: 2026-11-30 06:00:00 UTC\n" "time_s,measured_C,F_own_min\n"
+           STDOUT_LACKS "conduction model")
+
 # The data libraries list their sources.
 foreach(verb organisms rules)
   foreach(fmt text json csv)
