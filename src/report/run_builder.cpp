@@ -291,8 +291,8 @@ void add_h_assumptions(RunReport& report, const process::Evaluation& e) {
     report.assumptions.push_back(
         "The targets need different ends of an h range, so they were evaluated on " +
         std::to_string(e.h_scenarios.size()) +
-        " scenarios, each target on the one conservative for it; the history and plots show the scenario of the "
-        "first target, every verdict (and its F column) its own.");
+        " scenarios, each target on the one conservative for it; every verdict names its scenario, and the "
+        "report shows each scenario's history.");
   for (const auto& n : e.h_notes) report.assumptions.push_back("h per target: " + n + ".");
 }
 

@@ -402,10 +402,67 @@ TextTable stage_table(const RunReport& r, TempUnit u) {
 }
 
 TextTable verdict_table(const RunReport& r) {
+  const bool split = !r.scenarios.empty();
   TextTable t = {{"target", "kind", "required", "achieved", "margin", "verdict"}};
-  for (const auto& v : r.verdicts)
+  if (split) t[0].push_back("scenario");
+  for (const auto& v : r.verdicts) {
     t.push_back({v.name, v.kind, v.required, v.achieved, v.margin, std::string(verdict_word(v.met))});
+    if (split) t.back().push_back(v.scenario.substr(0, v.scenario.find(':')));
+  }
   return t;
+}
+
+std::vector<RunFigure> scenario_figures(const RunReport& r, TempUnit u) {
+  std::vector<RunFigure> out;
+  for (const auto& v : r.scenarios) {
+    RunReport one;  // the scenario as a report of its own, for the plot builders
+    one.stages = v.stages;
+    one.history = v.history;
+    one.target_lines = v.target_lines;
+    one.rule_boxes = v.rule_boxes;
+    // Scenario 1 is the history the report's own rows sample: keep its lumped comparison, which
+    // "Reading this report" describes.
+    const auto lumped = column_index(r.history, "lumped_centre_C");
+    if (v.number == 1 && lumped && r.history.rows.size() == one.history.rows.size()) {
+      one.history.columns.push_back(r.history.columns[*lumped]);
+      for (size_t i = 0; i < one.history.rows.size(); ++i)
+        one.history.rows[i].push_back(*lumped < r.history.rows[i].size() ? r.history.rows[i][*lumped]
+                                                                          : std::numeric_limits<double>::quiet_NaN());
+    }
+    const std::string tag = "scenario" + std::to_string(v.number);
+    for (auto& f : run_figures(one, u)) {
+      f.key = tag + "-" + f.key;
+      f.plot.id = "plot-" + f.key;
+      f.plot.title += " (scenario " + std::to_string(v.number) + ")";
+      std::string label = v.label;
+      if (!label.empty()) label[0] = 'S';  // "scenario 2: ..." opens the caption
+      f.caption = label + ". " + f.caption;
+      out.push_back(std::move(f));
+    }
+  }
+  return out;
+}
+
+std::vector<RunFigure> report_figures(const RunReport& r, TempUnit u) {
+  return r.scenarios.empty() ? run_figures(r, u) : scenario_figures(r, u);
+}
+
+TextTable scenario_stage_table(const RunReport& r, const ScenarioView& v, TempUnit u) {
+  const std::string us(unit_symbol(u));
+  TextTable t = {{"stage", "start", "end", "ended by", "h (W/m²K)", biot_symbol(r), "centre (" + us + ")",
+                  "surface (" + us + ")", "mean (" + us + ")"}};
+  for (const auto& s : v.stages)
+    t.push_back({s.name, duration_text(s.start_s), duration_text(s.end_s), s.ended_by,
+                 s.h_infinite ? "∞" : fixed(s.h_W_m2K, 1), s.h_infinite ? "∞" : biot_text(s),
+                 fixed(display_temp(s.centre_C, u), 2), fixed(display_temp(s.surface_C, u), 2),
+                 fixed(display_temp(s.mean_C, u), 2)});
+  return t;
+}
+
+std::string scenario_heading(const ScenarioView& v) {
+  std::string names;
+  for (const auto& t : v.targets) names += (names.empty() ? "" : ", ") + t;
+  return v.label + "; targets: " + names;
 }
 
 }  // namespace coldcore::detail

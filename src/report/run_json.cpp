@@ -1,5 +1,6 @@
 // JSON run report: {"history":[...], "summary":{...}, "assessment":[...], "warnings":[...],
 // "cautions":[...], "provenance":{...}} (DESIGN.md). Numbers at full double precision.
+#include <algorithm>
 #include <ostream>
 
 #include "coldcore/report/json.hpp"
@@ -8,6 +9,39 @@
 namespace coldcore {
 
 namespace {
+
+std::string display_column(const Column& c, TempUnit u);
+
+void write_history(JsonWriter& w, const HistoryTable& h, TempUnit u) {
+  w.begin_array();
+  for (const auto& row : h.rows) {
+    w.begin_object();
+    for (size_t i = 0; i < row.size() && i < h.columns.size(); ++i) {
+      const auto& c = h.columns[i];
+      w.key(display_column(c, u)).value(c.temperature ? display_temp(row[i], u) : row[i]);
+    }
+    w.end_object();
+  }
+  w.end_array();
+}
+
+void write_stage(JsonWriter& w, const StageRow& s, const RunReport& r, TempUnit u, bool with_medium) {
+  w.begin_object();
+  w.key("name").value(s.name);
+  w.key("start_s").value(s.start_s);
+  w.key("end_s").value(s.end_s);
+  w.key("ended_by").value(s.ended_by);
+  if (with_medium) w.key("medium").value(s.medium);
+  if (s.h_infinite) w.key("h_W_m2K").value("inf"); else w.key("h_W_m2K").value(s.h_W_m2K);
+  if (s.h_infinite) w.key("biot").value("inf"); else w.key("biot").value(s.biot);
+  if (!r.biot_length.empty()) w.key("biot_length").value(r.biot_length);  // "V/A": Bi = h·(V/A)/k
+  if (with_medium) w.key("biot_note").value(s.biot_note);
+  const std::string us(unit_suffix(u));
+  w.key("centre_" + us).value(display_temp(s.centre_C, u));
+  w.key("surface_" + us).value(display_temp(s.surface_C, u));
+  w.key("mean_" + us).value(display_temp(s.mean_C, u));
+  w.end_object();
+}
 
 std::string display_column(const Column& c, TempUnit u) {
   if (!c.temperature || u == TempUnit::C) return c.name;
@@ -25,40 +59,33 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
   w.key("verb").value(r.verb);
   w.key("title").value(r.title);
   w.key("units").value(unit_suffix(u));
-  w.key("history").begin_array();
-  for (const auto& row : r.history.rows) {
-    w.begin_object();
-    for (size_t i = 0; i < row.size() && i < r.history.columns.size(); ++i) {
-      const auto& c = r.history.columns[i];
-      w.key(display_column(c, u)).value(c.temperature ? display_temp(row[i], u) : row[i]);
-    }
-    w.end_object();
-  }
-  w.end_array();
+  w.key("history");
+  write_history(w, r.history, u);
   w.key("summary").begin_object();
   w.key("product").begin_object();
   for (const auto& kv : r.product) w.key(kv.key).value(kv.value);
   w.end_object();
   w.key("stages").begin_array();
-  for (const auto& s : r.stages) {
-    w.begin_object();
-    w.key("name").value(s.name);
-    w.key("start_s").value(s.start_s);
-    w.key("end_s").value(s.end_s);
-    w.key("ended_by").value(s.ended_by);
-    w.key("medium").value(s.medium);
-    if (s.h_infinite) w.key("h_W_m2K").value("inf"); else w.key("h_W_m2K").value(s.h_W_m2K);
-    if (s.h_infinite) w.key("biot").value("inf"); else w.key("biot").value(s.biot);
-    if (!r.biot_length.empty()) w.key("biot_length").value(r.biot_length);  // "V/A": Bi = h·(V/A)/k
-    w.key("biot_note").value(s.biot_note);
-    const std::string us(unit_suffix(u));
-    w.key("centre_" + us).value(display_temp(s.centre_C, u));
-    w.key("surface_" + us).value(display_temp(s.surface_C, u));
-    w.key("mean_" + us).value(display_temp(s.mean_C, u));
-    w.end_object();
-  }
+  for (const auto& s : r.stages) write_stage(w, s, r, u, true);
   w.end_array();
   w.end_object();
+  // With h split per target: every scenario's history; "history" above is scenario 1 (issue 11).
+  if (!r.scenarios.empty()) {
+    w.key("scenarios").begin_array();
+    for (const auto& sc : r.scenarios) {
+      w.begin_object();
+      w.key("number").value(sc.number);
+      w.key("label").value(sc.label);
+      w.key("targets").value(sc.targets);
+      w.key("stages").begin_array();
+      for (const auto& st : sc.stages) write_stage(w, st, r, u, false);
+      w.end_array();
+      w.key("history");
+      write_history(w, sc.history, u);
+      w.end_object();
+    }
+    w.end_array();
+  }
   w.key("assessment").begin_array();
   for (const auto& v : r.verdicts) {
     w.begin_object();
@@ -72,6 +99,7 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
     w.key("achieved_value").value(v.achieved_value);
     w.key("margin_value").value(v.margin_value);
     w.key("value_unit").value(v.value_unit);
+    if (!v.scenario.empty()) w.key("scenario").value(v.scenario);
     w.key("details").value(v.details);
     w.end_object();
   }
@@ -117,6 +145,41 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
   w.end_object();
 }
 
+namespace {
+
+// With h split per target, one block of rows per scenario under one header (long format, which a
+// spreadsheet filters or pivots by its first column): `scenario` (its number), then the history
+// columns; an F column is filled only on the rows of the scenario its target was evaluated on.
+void write_scenario_rows(const RunReport& r, std::ostream& out, TempUnit u) {
+  for (const auto& sc : r.scenarios) {
+    std::string names;
+    for (const auto& t : sc.targets) names += (names.empty() ? "" : ", ") + t;
+    out << "# " << sc.label << "; targets: " << names << "\n";
+  }
+  std::vector<Column> cols;
+  for (const auto& sc : r.scenarios)
+    for (const auto& c : sc.history.columns)
+      if (std::none_of(cols.begin(), cols.end(), [&](const Column& x) { return x.name == c.name; })) cols.push_back(c);
+  out << "scenario";
+  for (const auto& c : cols) out << "," << display_column(c, u);
+  out << "\n";
+  for (const auto& sc : r.scenarios)
+    for (const auto& row : sc.history.rows) {
+      out << sc.number;
+      for (const auto& c : cols) {
+        out << ",";
+        for (size_t i = 0; i < sc.history.columns.size() && i < row.size(); ++i)
+          if (sc.history.columns[i].name == c.name) {
+            out << JsonWriter::number(c.temperature ? display_temp(row[i], u) : row[i]);
+            break;
+          }
+      }
+      out << "\n";
+    }
+}
+
+}  // namespace
+
 void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
   for (const auto& c : r.cautions) out << "# caution: " << c << "\n";
   for (const auto& kv : r.provenance) out << "# " << kv.key << ": " << kv.value << "\n";
@@ -127,11 +190,16 @@ void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
     out << "# delivered, no target given, no verdict: " << d.name << ": " << delivered_text(d) << "\n";
   for (const auto& v : r.verdicts)
     out << "# verdict: " << v.name << ": " << verdict_word(v.met) << " (required " << v.required
-        << ", achieved " << v.achieved << ", margin " << v.margin << ")\n";
+        << ", achieved " << v.achieved << ", margin " << v.margin << ")"
+        << (v.scenario.empty() ? "" : ", from " + v.scenario) << "\n";
   // Which end of an h range each target was evaluated at (process/h_ends.hpp), when one was.
   for (const auto& v : r.verdicts)
     for (const auto& d : v.details)
       if (d.rfind("h used: ", 0) == 0) out << "# verdict note: " << v.name << ": " << d << "\n";
+  if (!r.scenarios.empty()) {
+    write_scenario_rows(r, out, u);
+    return;
+  }
   for (size_t i = 0; i < r.history.columns.size(); ++i)
     out << (i ? "," : "") << display_column(r.history.columns[i], u);
   out << "\n";

@@ -38,15 +38,23 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
 void add_assessment(RunReport& report, const History& history, const Assessment& assessment,
                     const std::vector<Target>& targets);
 /// The same with each target's own history (the h scenario it was evaluated on,
-/// process/h_ends.hpp): history_of[i] for assessment.targets[i]. The report's rows and plots show
-/// the first target's scenario. REQUIRES history_of.size() == assessment.targets.size().
+/// process/h_ends.hpp): history_of[i] for assessment.targets[i]. The report's rows are the first
+/// target's scenario; add_scenarios adds every scenario's own. REQUIRES history_of.size() == assessment.targets.size().
 void add_assessment(RunReport& report, const std::vector<const History*>& history_of, const Assessment& assessment,
                     const std::vector<Target>& targets);
 
 /// Which h each per-target-range stage used, for which targets and why, as report assumptions
-/// (every format shows them); when the targets were split, also that the shown history is the
-/// first target's scenario and each verdict comes from its own.
+/// (every format shows them); when the targets were split, also that every verdict names its
+/// scenario and the report shows each scenario's history.
 void add_h_assumptions(RunReport& report, const process::Evaluation& e);
+
+/// When the targets were split over h scenarios (e.h_scenarios.size() > 1): one ScenarioView per
+/// scenario from the histories evaluate made (sampled every `step_s` (> 0) and at every stage
+/// end; no re-run), its label from its h choices, the F columns / required lines / rule boxes of
+/// its own targets; and each verdict row names its scenario. Stage Bi on V/A of `p`.
+/// REQUIRES report.verdicts parallel to e.assessment.targets (add_assessment first).
+void add_scenarios(RunReport& report, const process::Evaluation& e, const Product& p,
+                   const std::vector<Target>& targets, double step_s = 60);
 
 /// The report model of one forward re-run, for the plots of other verbs' rich reports (solve's
 /// verification, deviation's scheduled and delivered runs): stage rows from the history's own

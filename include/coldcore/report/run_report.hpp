@@ -49,6 +49,9 @@ struct VerdictRow {
   std::string margin;     ///< text, signed
   bool met = false;
   std::vector<std::string> details;  ///< per-stage shares, rule steps, flags
+  /// The h scenario behind this verdict when the targets were split over several (see
+  /// RunReport::scenarios), e.g. "scenario 2: \"blast chill\" h 60 W/m²K (high end)"; "" otherwise.
+  std::string scenario;
   // Numbers for machine-readable formats.
   double required_value = 0, achieved_value = 0, margin_value = 0;
   std::string value_unit;
@@ -97,6 +100,19 @@ struct TargetLine {
   std::string label;     ///< legend text; empty: "required <column> = <value>"
 };
 
+/// One h scenario of a run whose targets need different ends of an h range (process/h_ends.hpp):
+/// the history the verdicts of `targets` come from, sampled like RunReport::history, with the F
+/// columns, required lines and rule boxes of those targets only.
+struct ScenarioView {
+  int number = 1;                    ///< 1-based, as the report names it
+  std::string label;                 ///< "scenario 2: \"blast chill\" h 60 W/m²K (high end)"
+  std::vector<std::string> targets;  ///< names of the targets evaluated on it
+  std::vector<StageRow> stages;      ///< its stage records (times, h, Bi, temperatures at the ends)
+  HistoryTable history;
+  std::vector<TargetLine> target_lines;
+  std::vector<RuleBox> rule_boxes;
+};
+
 /// History column names the html and markdown writers recognise: time_s, medium_C, centre_C,
 /// surface_C, mean_C, the optional lumped_centre_C (the lumped-capacitance estimate of the
 /// centre, drawn beside the exact centre when present) and F_<name>_min (cumulative lethality).
@@ -119,6 +135,11 @@ struct RunReport {
   std::vector<RuleBox> rule_boxes;       ///< cooling-rule steps to draw (may be empty)
   std::vector<TargetLine> target_lines;  ///< required values to draw (may be empty)
   std::vector<DeliveredRow> delivered;   ///< lethality without a requirement: no verdict (may be empty)
+  /// Empty unless the targets were split over two or more h scenarios; then one view per
+  /// scenario, and every format shows each scenario's history: text a stage table per scenario,
+  /// md/html plots per scenario, json "scenarios" (history per scenario), csv one block per
+  /// scenario (a leading `scenario` column). `history` stays scenario 1.
+  std::vector<ScenarioView> scenarios;
   std::optional<MeasuredSource> measured;  ///< set: a report about measured data (probe)
 };
 
