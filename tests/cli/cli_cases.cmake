@@ -146,6 +146,20 @@ cli_expect(media_split_deviation 0 ARGS deviation tests/cli/media-split/chill-cr
            --medium-log tests/cli/media-split/chill-credited-log.csv --stage cook
            STDOUT_HAS "h per target: stage \"blast chill\": h 60 W/m2K, the high end")
 cli_expect(media_footnote 0 ARGS media STDOUT_HAS "the HIGH end in a cooling stage for the lethality")
+# issue 11, defect 6: each verdict names its scenario and every scenario's history is shown, in
+# every format (P70 at the chill's high end 60 W/m²K, the rule at its low end 20 W/m²K, h_ends.hpp).
+cli_expect(issue11_scenarios_text 0 ARGS run tests/cli/media-split/chill-credited.toml
+           STDOUT_HAS "  scenario 1: \"blast chill\" h 60 W/m²K (high end); targets: P70\n"
+                      "  scenario 2: \"blast chill\" h 20 W/m²K (low end); targets: two-stage-6h\n"
+                      "two-stage-6h: verdict from scenario 2")
+cli_expect(issue11_scenarios_csv 0 ARGS run tests/cli/media-split/chill-credited.toml --format csv
+           STDOUT_HAS "\nscenario,time_s,medium_C,centre_C,surface_C,mean_C,F_P70_min\n1,0,96,4,4,4,0\n" "\n2,0,96,4,4,4,\n"
+                      ", from scenario 2: \"blast chill\" h 20 W/m²K (low end)\n")
+cli_expect(issue11_scenarios_json 0 ARGS run tests/cli/media-split/chill-credited.toml --format json
+           STDOUT_HAS "\"scenarios\": [" "\"scenario\": \"scenario 1: " "h 60 W/m²K (high end)\""
+                      "\"scenario\": \"scenario 2: " "h 20 W/m²K (low end)\"")
+cli_expect(issue11_scenarios_html 0 ARGS run tests/cli/media-split/chill-credited.toml --format html
+           STDOUT_HAS "id=\"figure-scenario1-lethality\"" "id=\"figure-scenario2-cooling\"" "<th>scenario</th>")
 
 # Bad product files: refused by `coldcore run` with exit 2 and the exact message on their first line.
 file(GLOB COLDCORE_BAD_FILES ${PROJECT_SOURCE_DIR}/tests/cli/bad/*.toml)
