@@ -156,7 +156,7 @@ cli_expect(issue11_scenarios_csv 0 ARGS run tests/cli/media-split/chill-credited
            STDOUT_HAS "\nscenario,time_s,medium_C,centre_C,surface_C,mean_C,F_P70_min\n1,0,96,4,4,4,0\n" "\n2,0,96,4,4,4,\n"
                       ", from scenario 2: \"blast chill\" h 20 W/m²K (low end)\n")
 cli_expect(issue11_scenarios_json 0 ARGS run tests/cli/media-split/chill-credited.toml --format json
-           STDOUT_HAS "\"scenarios\": [" "\"scenario\": \"scenario 1: " "h 60 W/m²K (high end)\""
+           STDOUT_HAS "\"scenarios\": " "\"scenario\": \"scenario 1: " "h 60 W/m²K (high end)\""
                       "\"scenario\": \"scenario 2: " "h 20 W/m²K (low end)\"")
 cli_expect(issue11_scenarios_html 0 ARGS run tests/cli/media-split/chill-credited.toml --format html
            STDOUT_HAS "id=\"figure-scenario1-lethality\"" "id=\"figure-scenario2-cooling\"" "<th>scenario</th>")
