@@ -56,7 +56,7 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
   for (std::size_t t = 0; t < eval.target_scenario.size(); ++t)
     history_of[t] = &eval.h_scenarios[static_cast<std::size_t>(eval.target_scenario[t])].history;
   add_assessment(report, history_of, assessment, file.targets);
-  add_scenarios(report, eval, file.product, file.targets, a.output.step_s);  // every scenario's history
+  add_scenarios(report, eval, &file.product, file.targets, a.output.step_s);  // every scenario's history
   add_h_assumptions(report, eval);
   switch (f) {
     case Format::json: write_run_json(report, out, u); break;

@@ -185,8 +185,10 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
   return r;
 }
 
-RunReport build_rerun_report(const History& history, const Assessment& assessment,
-                             const std::vector<Target>& targets, double step_s) {
+namespace {
+
+RunReport rerun_report(const History& history, const std::vector<const History*>& history_of,
+                       const Assessment& assessment, const std::vector<Target>& targets, double step_s) {
   if (!(step_s > 0) || !std::isfinite(step_s))
     throw InputError("--step-s = " + fixed(step_s, 3) + ": must be > 0");
   RunReport r;
@@ -211,9 +213,28 @@ RunReport build_rerun_report(const History& history, const Assessment& assessmen
       const HistorySample s = history.evaluate(t);
       r.history.rows.push_back({t, s.medium_C, s.centre_C, s.surface_C, s.mean_C});
     }
-  add_assessment(r, history, assessment, targets);
+  add_assessment(r, history_of, assessment, targets);
   r.warnings.clear();  // the verbs list the run's warnings themselves
   r.cautions = cautions();
+  return r;
+}
+
+}  // namespace
+
+RunReport build_rerun_report(const History& history, const Assessment& assessment,
+                             const std::vector<Target>& targets, double step_s) {
+  return rerun_report(history, std::vector<const History*>(assessment.targets.size(), &history), assessment, targets,
+                      step_s);
+}
+
+RunReport build_rerun_report(const process::Evaluation& e, const std::vector<Target>& targets, double step_s,
+                             const Product* p) {
+  // each target's F from the scenario it was evaluated on (the histories evaluate made)
+  std::vector<const History*> history_of(e.assessment.targets.size(), &e.history);
+  for (std::size_t t = 0; t < e.target_scenario.size() && t < history_of.size(); ++t)
+    history_of[t] = &e.h_scenarios.at(static_cast<std::size_t>(e.target_scenario[t])).history;
+  RunReport r = rerun_report(e.history, history_of, e.assessment, targets, step_s);
+  add_scenarios(r, e, p, targets, step_s);
   return r;
 }
 

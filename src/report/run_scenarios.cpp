@@ -43,7 +43,7 @@ std::string ended_by_words(StageEndedBy e) {
 
 }  // namespace
 
-void add_scenarios(RunReport& report, const process::Evaluation& e, const Product& p,
+void add_scenarios(RunReport& report, const process::Evaluation& e, const Product* p,
                    const std::vector<Target>& targets, double step_s) {
   if (e.h_scenarios.size() < 2) return;
   if (!(step_s > 0) || !std::isfinite(step_s)) throw InputError("--step-s = " + fixed(step_s, 3) + ": must be > 0");
@@ -63,7 +63,7 @@ void add_scenarios(RunReport& report, const process::Evaluation& e, const Produc
       row.ended_by = ended_by_words(rec.ended_by);
       row.h_W_m2K = rec.h_W_m2K;
       row.h_infinite = std::isinf(rec.biot);
-      row.biot = row.h_infinite ? rec.biot : biot_volume_to_area(p, rec.h_W_m2K);  // one Bi: V/A
+      row.biot = row.h_infinite || !p ? rec.biot : biot_volume_to_area(*p, rec.h_W_m2K);  // one Bi: V/A
       row.centre_C = rec.at_end.centre_C;
       row.surface_C = rec.at_end.surface_C;
       row.mean_C = rec.at_end.mean_C;

@@ -158,6 +158,8 @@ cli_expect(issue11_scenarios_csv 0 ARGS run tests/cli/media-split/chill-credited
 cli_expect(issue11_scenarios_json 0 ARGS run tests/cli/media-split/chill-credited.toml --format json
            STDOUT_HAS "\"scenarios\": " "\"scenario\": \"scenario 1: " "h 60 W/m²K (high end)\""
                       "\"scenario\": \"scenario 2: " "h 20 W/m²K (low end)\"")
+cli_expect(issue11_scenarios_solve_html 0 ARGS solve tests/cli/media-split/chill-credited.toml --for hold-time --format html
+           STDOUT_HAS "id=\"figure-scenario1-lethality\"" "id=\"figure-scenario2-cooling\"")
 cli_expect(issue11_scenarios_html 0 ARGS run tests/cli/media-split/chill-credited.toml --format html
            STDOUT_HAS "id=\"figure-scenario1-lethality\"" "id=\"figure-scenario2-cooling\"" "<th>scenario</th>")
 

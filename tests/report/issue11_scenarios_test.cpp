@@ -51,7 +51,7 @@ Built build(double step_s) {
   for (std::size_t t = 0; t < b.eval.target_scenario.size(); ++t)
     history_of[t] = &b.eval.h_scenarios[static_cast<std::size_t>(b.eval.target_scenario[t])].history;
   add_assessment(b.report, history_of, b.eval.assessment, file.targets);
-  add_scenarios(b.report, b.eval, file.product, file.targets, step_s);
+  add_scenarios(b.report, b.eval, &file.product, file.targets, step_s);
   return b;
 }
 

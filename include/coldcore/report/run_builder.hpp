@@ -51,9 +51,10 @@ void add_h_assumptions(RunReport& report, const process::Evaluation& e);
 /// When the targets were split over h scenarios (e.h_scenarios.size() > 1): one ScenarioView per
 /// scenario from the histories evaluate made (sampled every `step_s` (> 0) and at every stage
 /// end; no re-run), its label from its h choices, the F columns / required lines / rule boxes of
-/// its own targets; and each verdict row names its scenario. Stage Bi on V/A of `p`.
+/// its own targets; and each verdict row names its scenario. Stage Bi on V/A of `*p` (null: the
+/// engine's records, on the smallest half-dimension, as build_rerun_report's stage rows).
 /// REQUIRES report.verdicts parallel to e.assessment.targets (add_assessment first).
-void add_scenarios(RunReport& report, const process::Evaluation& e, const Product& p,
+void add_scenarios(RunReport& report, const process::Evaluation& e, const Product* p,
                    const std::vector<Target>& targets, double step_s = 60);
 
 /// The report model of one forward re-run, for the plots of other verbs' rich reports (solve's
@@ -64,6 +65,12 @@ void add_scenarios(RunReport& report, const process::Evaluation& e, const Produc
 /// ones the process layer computed.
 RunReport build_rerun_report(const History& history, const Assessment& assessment,
                              const std::vector<Target>& targets, double step_s = 60);
+
+/// The same from an Evaluation: each target's F column from the history of the h scenario it was
+/// evaluated on (process/h_ends.hpp) and, when the targets were split, add_scenarios (every
+/// scenario's history and plots; stage Bi of those views on V/A of `p`, else the engine's).
+RunReport build_rerun_report(const process::Evaluation& e, const std::vector<Target>& targets, double step_s = 60,
+                             const Product* p = nullptr);
 
 /// Verdict row of one target, shared by every verb that reports targets.
 VerdictRow verdict_row(const TargetResult& t);
