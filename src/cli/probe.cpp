@@ -67,7 +67,7 @@ std::vector<Target> probe_targets(const ProbeArgs& a, bool& lethality_has_requir
         t.log_reduction = 1.0;
       } else {
         t.kind = TargetKind::f_value;
-        t.F_required_s = 0;
+        t.F_required_s = 60;  // placeholder (assess refuses 0); the delivered F does not depend on it
       }
       lethality_has_requirement = false;
     }

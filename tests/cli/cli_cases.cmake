@@ -234,6 +234,10 @@ cli_expect(issue11_probe_no_target_json 0 ARGS probe tests/cli/probe/constant-70
 cli_expect(issue11_probe_no_target_organism 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes
            STDOUT_HAS "Delivered lethality (no target given: no verdict)" "listeria-monocytogenes: F 868 min at 70.0 °C"
            STDOUT_LACKS "not demonstrated" "none given" "F needed")
+# own kinetics without a D value: the delivered F alone (this used to be refused as "F = 0 min")
+cli_expect(issue11_probe_no_target_no_D 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+           STDOUT_HAS "Delivered lethality (no target given: no verdict)\n  own: F 4.00 min at 70.0 °C (z 7.50 °C)\n"
+           STDOUT_LACKS "not demonstrated" "log10" "F needed")
 # with a rule beside it, the rule alone carries a verdict (and the exit code)
 cli_expect(issue11_probe_no_target_with_rule 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes
            --rule two-stage-6h

@@ -8,6 +8,8 @@
 
 #include <sstream>
 
+#include "support/xml_check.hpp"
+
 #include "coldcore/io/logger_csv.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/html.hpp"
@@ -163,7 +165,10 @@ TEST_CASE("issue 11: the probe report says measured, names the log, its lot and 
                           "regulator", "local food codes"})
       CHECK_MESSAGE(has(s, p), p);
   }
-  CHECK(has(html, "measured by the probe"));  // the curve's legend in the temperature plot
+  CHECK(has(html, "measured by the probe"));
+  // polyglot markup: well-formed XML after the doctype (as html_test checks the sample report)
+  REQUIRE(std::string(html).rfind("<!DOCTYPE html>\n", 0) == 0);
+  CHECK(coldcore::testing::xml_problem(std::string(html).substr(16)) == "");  // the curve's legend in the temperature plot
   CHECK(has(html, "time since the first reading, 2026-11-30 06:00:00 UTC (min)"));
   CHECK(has(md, "The temperature the probe logged (log constant-70C.csv, 9 readings) against time"));
 

@@ -14,6 +14,8 @@
 #include <optional>
 #include <sstream>
 
+#include "support/xml_check.hpp"
+
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/scenario.hpp"
 #include "coldcore/process/inverse.hpp"
@@ -139,6 +141,9 @@ TEST_CASE("issue 11: every format shows each scenario's history and names the sc
   }
   CHECK(has(md, "scenario 1: \"blast chill\" h 60 W/m²K (high end); targets: P70"));
   CHECK(has(html.str(), "id=\"figure-scenario2-cooling\""));
+  // polyglot markup: well-formed XML after the doctype (as html_test checks the sample report)
+  REQUIRE(std::string(html.str()).rfind("<!DOCTYPE html>\n", 0) == 0);
+  CHECK(coldcore::testing::xml_problem(std::string(html.str()).substr(16)) == "");
   CHECK(has(html.str(), "id=\"figure-scenario1-lethality\""));
   CHECK(has(md, "(<x-scenario2-cooling.svg>)"));
 }
