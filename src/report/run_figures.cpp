@@ -420,15 +420,6 @@ std::vector<RunFigure> scenario_figures(const RunReport& r, TempUnit u) {
     one.history = v.history;
     one.target_lines = v.target_lines;
     one.rule_boxes = v.rule_boxes;
-    // Scenario 1 is the history the report's own rows sample: keep its lumped comparison, which
-    // "Reading this report" describes.
-    const auto lumped = column_index(r.history, "lumped_centre_C");
-    if (v.number == 1 && lumped && r.history.rows.size() == one.history.rows.size()) {
-      one.history.columns.push_back(r.history.columns[*lumped]);
-      for (size_t i = 0; i < one.history.rows.size(); ++i)
-        one.history.rows[i].push_back(*lumped < r.history.rows[i].size() ? r.history.rows[i][*lumped]
-                                                                          : std::numeric_limits<double>::quiet_NaN());
-    }
     const std::string tag = "scenario" + std::to_string(v.number);
     for (auto& f : run_figures(one, u)) {
       f.key = tag + "-" + f.key;

@@ -103,6 +103,16 @@ void add_scenarios(RunReport& report, const process::Evaluation& e, const Produc
       if (i < targets.size() && targets[i].kind == TargetKind::centre_min_temperature)
         v.target_lines.push_back({targets[i].at == "mean" ? "mean_C" : "centre_C", targets[i].min_temp_C, ""});
     }
+    // Scenario 1's history is the one the report's own rows sample: keep the lumped comparison
+    // ("Reading this report" describes it), last, as in the report's history.
+    const auto& cols = report.history.columns;
+    const auto lumped = std::find_if(cols.begin(), cols.end(), [](const Column& c) { return c.name == "lumped_centre_C"; });
+    if (si == 0 && lumped != cols.end() && report.history.rows.size() == v.history.rows.size()) {
+      const auto li = static_cast<std::size_t>(lumped - cols.begin());
+      v.history.columns.push_back(*lumped);
+      for (std::size_t k = 0; k < v.history.rows.size(); ++k)
+        v.history.rows[k].push_back(li < report.history.rows[k].size() ? report.history.rows[k][li] : std::nan(""));
+    }
     report.scenarios.push_back(std::move(v));
   }
 }

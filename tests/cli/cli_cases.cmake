@@ -153,7 +153,8 @@ cli_expect(issue11_scenarios_text 0 ARGS run tests/cli/media-split/chill-credite
                       "  scenario 2: \"blast chill\" h 20 W/m²K (low end); targets: two-stage-6h\n"
                       "two-stage-6h: verdict from scenario 2")
 cli_expect(issue11_scenarios_csv 0 ARGS run tests/cli/media-split/chill-credited.toml --format csv
-           STDOUT_HAS "\nscenario,time_s,medium_C,centre_C,surface_C,mean_C,F_P70_min\n1,0,96,4,4,4,0\n" "\n2,0,96,4,4,4,\n"
+           STDOUT_HAS "\nscenario,time_s,medium_C,centre_C,surface_C,mean_C,F_P70_min,lumped_centre_C\n1,0,96,4,4,4,0,4\n"
+                      "\n2,0,96,4,4,4,,\n"
                       ", from scenario 2: \"blast chill\" h 20 W/m²K (low end)\n")
 cli_expect(issue11_scenarios_json 0 ARGS run tests/cli/media-split/chill-credited.toml --format json
            STDOUT_HAS "\"scenarios\": " "\"scenario\": \"scenario 1: " "h 60 W/m²K (high end)\""

@@ -104,8 +104,9 @@ TEST_CASE("issue 11: with h split per target each verdict names its scenario, an
   // P70's F: the last row of its scenario's F column is the verdict's credited F (numbers unchanged).
   const TargetResult& p70 = b.eval.assessment.targets.at(0);
   const auto& last = r.scenarios[0].history.rows.back();
-  REQUIRE(r.scenarios[0].history.columns.back().name == "F_P70_min");
-  CHECK(last.back() * 60.0 == doctest::Approx(p70.F_s).epsilon(1e-3));
+  REQUIRE(r.scenarios[0].history.columns.at(5).name == "F_P70_min");
+  CHECK(last.at(5) * 60.0 == doctest::Approx(p70.F_s).epsilon(1e-3));
+  CHECK(r.scenarios[0].history.columns.back().name == "lumped_centre_C");  // scenario 1 = the report's rows
   CHECK(r.scenarios[1].history.columns.back().name == "mean_C");  // the rule's scenario has no F column
 }
 
@@ -130,8 +131,8 @@ TEST_CASE("issue 11: every format shows each scenario's history and names the sc
   // csv: one block per scenario under one header; an F cell only on its own scenario's rows
   const std::string c = csv.str();
   CHECK(has(c, "# scenario 2: \"blast chill\" h 20 W/m²K (low end); targets: two-stage-6h\n"));
-  CHECK(has(c, "\nscenario,time_s,medium_C,centre_C,surface_C,mean_C,F_P70_min\n1,0,96,4,4,4,0\n"));
-  CHECK(has(c, "\n2,0,96,4,4,4,\n"));
+  CHECK(has(c, "\nscenario,time_s,medium_C,centre_C,surface_C,mean_C,F_P70_min,lumped_centre_C\n1,0,96,4,4,4,0,4\n"));
+  CHECK(has(c, "\n2,0,96,4,4,4,,\n"));
   CHECK(has(c, "# verdict: two-stage-6h: met (required 120 min, achieved 21.0 min, margin 99.0 min), from scenario 2: "
                "\"blast chill\" h 20 W/m²K (low end)\n"));
 
