@@ -59,8 +59,16 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
   w.key("verb").value(r.verb);
   w.key("title").value(r.title);
   w.key("units").value(unit_suffix(u));
-  w.key("history");
-  write_history(w, r.history, u);
+  w.key("history").begin_array();
+  for (const auto& row : r.history.rows) {
+    w.begin_object();
+    for (size_t i = 0; i < row.size() && i < r.history.columns.size(); ++i) {
+      const auto& c = r.history.columns[i];
+      w.key(display_column(c, u)).value(c.temperature ? display_temp(row[i], u) : row[i]);
+    }
+    w.end_object();
+  }
+  w.end_array();
   w.key("summary").begin_object();
   w.key("product").begin_object();
   for (const auto& kv : r.product) w.key(kv.key).value(kv.value);
