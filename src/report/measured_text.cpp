@@ -8,7 +8,7 @@
 namespace coldcore {
 
 std::string utc_text(double unix_s) {
-  const double whole = std::floor(unix_s);
+  const double whole = std::floor(unix_s + 1e-6);  // binary noise of a computed instant is not a second earlier
   const auto days = static_cast<long long>(std::floor(whole / 86400.0));
   const auto secs = static_cast<long long>(whole - static_cast<double>(days) * 86400.0);
   const std::chrono::year_month_day ymd{std::chrono::sys_days{std::chrono::days{days}}};

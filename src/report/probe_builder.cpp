@@ -89,6 +89,9 @@ RunReport build_probe_report(const io::TimeSeries& log, const ProbeAssessment& p
       int n = 0;
       for (const auto& st : t.cooling->steps) {
         ++n;
+        if (st.start_s && log.start_unix_s)  // the step's clock on the log's clock (a record reads it so)
+          v.details.push_back("step " + st.step.label + ": clock started " + utc_text(*log.start_unix_s + *st.start_s) +
+                              ", deadline " + utc_text(*log.start_unix_s + *st.start_s + st.step.within_s));
         if (st.start_s)
           r.rule_boxes.push_back({"step " + std::to_string(n) + " (" + duration_text(st.step.within_s) + ")", *st.start_s,
                                   *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C});

@@ -252,6 +252,12 @@ cli_expect(issue11_probe_measured_html 0 ARGS probe tests/cli/probe/constant-70C
                       "Engineering estimate from a measured temperature log" "Measured log"
                       "2026-11-30 06:00:00 UTC" "measured by the probe" "time since the first reading, 2026-11-30 06:00:00 UTC (min)"
            STDOUT_LACKS "conduction model" "centre (cold spot), exact" "Biot" "mass-average")
+# a cooling rule's steps on the log's clock: 57 °C crossed at 06:08:40 UTC by linear interpolation
+# (70 -> 55 °C from 06:00 to 06:10, invented log tests/cli/probe/timestamped-cooling.csv); limits 2 h
+# and 6 h (FDA Food Code 3-501.14, REFERENCES 2.2)
+cli_expect(issue11_probe_rule_clock 0 ARGS probe tests/cli/probe/timestamped-cooling.csv --rule two-stage-6h --max-gap-s 600
+           STDOUT_HAS "two-stage-6h: step 57 °C -> 21 °C: clock started 2026-11-30 06:08:40 UTC, deadline 2026-11-30 08:08:40 UTC"
+                      "two-stage-6h: step 57 °C -> 5 °C: clock started 2026-11-30 06:08:40 UTC, deadline 2026-11-30 12:08:40 UTC")
 cli_expect(issue11_probe_measured_csv 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
            --F-min 3 --lot L-2026-11-30-A --format csv --date 2026-12-01
            STDOUT_HAS "# lot: L-2026-11-30-A\n" "# first reading: 2026-11-30 06:00:00 UTC\n" "time_s,measured_C,F_own_min\n"

@@ -147,7 +147,8 @@ struct RunReport {
 std::string_view verdict_word(bool met);
 /// A Biot number as shown: 3 decimals, or 2 significant digits below 0.01.
 std::string biot_number_text(double biot);
-/// "2026-11-30 06:00:00 UTC" for a clock time in s since 1970 UTC (whole seconds, rounded down).
+/// "2026-11-30 06:00:00 UTC" for a clock time in s since 1970 UTC (whole seconds, rounded down
+/// after a 1 µs allowance for binary representation).
 std::string utc_text(double unix_s);
 /// The delivered row's one-line summary: "F 868 min at 70.0 °C (z 7.50 °C), 2600 log10".
 std::string delivered_text(const DeliveredRow& d);
