@@ -88,11 +88,11 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side) {
   // The rich formats plot the runs evaluate_deviation already made (sampled, not re-run).
   std::optional<RunReport> sched_plot, deliv_plot;
   if (f == Format::md || f == Format::html) {
-    sched_plot = build_rerun_report(r.scheduled.history, r.scheduled.assessment, in.scheduled.targets, a.output.step_s);
+    // each target's F column from its own h scenario (issue 11)
+    sched_plot = build_rerun_report(r.scheduled, in.scheduled.targets, a.output.step_s);
     info.scheduled_plot = &*sched_plot;
     if (r.delivered) {
-      deliv_plot = build_rerun_report(r.delivered->history, r.delivered->assessment, in.scheduled.targets,
-                                      a.output.step_s);
+      deliv_plot = build_rerun_report(*r.delivered, in.scheduled.targets, a.output.step_s);
       info.delivered_plot = &*deliv_plot;
     }
     info.probe_time_s = in.probe_time_s;

@@ -10,12 +10,10 @@
 #include "coldcore/io/logger_csv.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/sha256.hpp"
-#include "coldcore/lethality/integrate.hpp"
 #include "coldcore/report/assessment.hpp"
-#include "coldcore/report/cautions.hpp"
 #include "coldcore/report/html.hpp"
 #include "coldcore/report/markdown.hpp"
-#include "coldcore/report/run_builder.hpp"
+#include "coldcore/report/probe_report.hpp"
 #include "coldcore/version.hpp"
 
 namespace coldcore::cli {
@@ -31,6 +29,7 @@ struct ProbeArgs {
   std::string temp_column;
   double max_gap_s = 60;
   std::string date;
+  std::string lot;
   OutputArgs output;
 };
 
@@ -61,9 +60,15 @@ std::vector<Target> probe_targets(const ProbeArgs& a, bool& lethality_has_requir
       t.kind = TargetKind::f_value;
       t.F_required_s = *a.F_min * 60.0;
     } else {
-      // No requirement given: F is reported, no verdict is claimed.
-      t.kind = TargetKind::f_value;
-      t.F_required_s = 0;
+      // No requirement given: F (and, with a D, the log reductions) is reported, no verdict is
+      // claimed. The placeholder requirement only makes assess compute those values.
+      if (a.D_min) {
+        t.kind = TargetKind::log_reduction;
+        t.log_reduction = 1.0;
+      } else {
+        t.kind = TargetKind::f_value;
+        t.F_required_s = 60;  // placeholder (assess refuses 0); the delivered F does not depend on it
+      }
       lethality_has_requirement = false;
     }
     targets.push_back(t);
@@ -107,62 +112,15 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
   opts.cooking_tables = &lib.cooking;
   const ProbeAssessment pa = assess_probe_log(log.time_s, log.temp_C, targets, lib.organisms, lib.rules, opts, a.log);
 
-  RunReport r;
-  r.verb = "probe";
-  r.title = "coldcore probe: measured cold-spot log " + a.log;
-  const double span = log.time_s.back() - log.time_s.front();
-  r.product = {{"log", a.log},
-               {"columns", log.time_column + ", " + log.temp_column},
-               {"rows", std::to_string(log.time_s.size())},
-               {"duration", duration_text(span)},
-               {"mean interval", duration_text(log.time_s.size() > 1 ? span / static_cast<double>(log.time_s.size() - 1) : 0.0)}};
-  r.history.columns = {{"time_s", false}, {"centre_C", true}};
-  for (size_t i = 0; i < log.time_s.size(); ++i) r.history.rows.push_back({log.time_s[i], log.temp_C[i]});
-  size_t lethal_index = 0;
-  for (size_t i = 0; i < pa.targets.size(); ++i) {
-    const TargetResult& t = pa.targets[i];
-    VerdictRow v = verdict_row(t);
-    if (t.kinetics) {
-      const ProbeLethality& pl = pa.lethality.at(lethal_index++);
-      v.details.insert(v.details.begin(),
-                       "General Method on the log: trapezoid " + shown_down(pl.F_trapezoid_s / 60.0) + " min, Simpson " +
-                           shown_down(pl.F_simpson_s / 60.0) + " min, exact on the linear interpolant " +
-                           shown_down(pl.F_linear_s / 60.0) + " min; the verdict uses the smallest");
-      const auto cum = cumulative_f_trapezoid_s(log.time_s, log.temp_C, *t.kinetics, a.log);
-      const std::string col = t.column.empty() ? "F_" + t.name + "_min" : t.column;
-      r.history.columns.push_back({col, false});
-      for (size_t k = 0; k < cum.size(); ++k) r.history.rows[k].push_back(cum[k] / 60.0);
-      if (!has_requirement) {
-        v.met = false;
-        v.required = "none given";
-        v.margin = "-";
-        v.details.push_back("no requirement was given (--target-log or --F-min): lethality is reported, no verdict is claimed");
-      } else {
-        r.target_lines.push_back({col, t.F_required_s / 60.0, ""});
-      }
-    }
-    if (t.cooling) {
-      int n = 0;
-      for (const auto& st : t.cooling->steps) {
-        ++n;
-        if (st.start_s)
-          r.rule_boxes.push_back({"step " + std::to_string(n) + " (" + duration_text(st.step.within_s) + ")", *st.start_s,
-                                  *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C});
-      }
-    }
-    r.verdicts.push_back(v);
-  }
-  r.warnings = log.warnings;
-  r.warnings.insert(r.warnings.end(), pa.warnings.begin(), pa.warnings.end());
-  r.assumptions = {"The log is the temperature at the product's slowest-heating point; its placement and the probe's calibration are the user's to verify.",
-                   "Temperatures between logged rows are taken as linear in time.",
-                   "Lethality uses log-linear (Bigelow) kinetics with the D and z values stated."};
-  r.provenance = {{"tool", std::string("coldcore ") + kVersion}, {"input", a.log}, {"input SHA-256", io::sha256_hex(bytes)}};
-  // the data libraries the assessment read (found without a product file: names only)
-  const auto lib_rows = library_provenance(lib, /*names_only=*/true);
-  r.provenance.insert(r.provenance.end(), lib_rows.begin(), lib_rows.end());
-  r.provenance.push_back({"date", report_date(a.date)});
-  r.cautions = cautions();
+  ProbeReportOptions ro;
+  ro.log_path = a.log;
+  ro.log_sha256 = io::sha256_hex(bytes);
+  ro.lot = a.lot;
+  ro.lethality_requirement = has_requirement;
+  ro.library_provenance = library_provenance(lib, /*names_only=*/true);  // found without a product file
+  ro.date = report_date(a.date);
+  ro.version = kVersion;
+  const RunReport r = build_probe_report(log, pa, ro);
   switch (f) {
     case Format::json: write_run_json(r, out, u); break;
     case Format::csv: write_run_csv(r, out, u); break;
@@ -175,6 +133,9 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
     }
     default: write_run_text(r, out, u); break;
   }
+  if (!has_requirement)
+    std::cerr << "coldcore: probe: no target given (--target-log, or --F-min with own kinetics): the delivered "
+                 "lethality is reported, no verdict is claimed\n";
   if (!has_requirement && a.rule.empty()) return kAllMet;  // nothing was asked to be met
   for (size_t i = 0; i < pa.targets.size(); ++i) {
     const bool lethal = pa.targets[i].kinetics.has_value();
@@ -199,6 +160,7 @@ void add_probe_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--F-min", a->F_min, "own kinetics: required F at the reference temperature, min")->check(within(0, limits::duration_s.high / 60, "min", true));
   sub->add_option("--temp-column", a->temp_column, "which temperature column to use when the log has several");
   sub->add_option("--max-gap-s", a->max_gap_s, "gaps longer than this are reported, s")->capture_default_str()->check(within(0, limits::duration_s.high, "s", true));
+  sub->add_option("--lot", a->lot, "lot or batch identifier for the report");
   sub->add_option("--date", a->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
   add_output_options(*sub, a->output);
   sub->callback([&ctx, a] {

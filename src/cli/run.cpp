@@ -37,11 +37,12 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
   // process::evaluate: each target on the h scenario conservative for it (process/h_ends.hpp).
   const process::Scenario scenario = io::scenario_of(file);
   const process::Evaluation eval = process::evaluate(scenario, {&lib.organisms, &lib.rules, &lib.cooking});
-  // The stage table shows the h of the scenario whose history is shown (the first target's).
-  io::ProductFile shown = file;
-  const std::vector<process::TargetGroup> groups = process::group_targets_by_h(scenario);
-  for (const auto& c : groups.front().choices) shown.stages[c.stage].h_W_m2K = c.h_W_m2K;
   const History& history = eval.history;
+  // The stage table shows the h of the scenario whose history is shown (the first target's), as
+  // that history recorded it (no regrouping here: the Evaluation is the one source).
+  io::ProductFile shown = file;
+  for (std::size_t i = 0; i < shown.stages.size() && i < history.stages.size(); ++i)
+    if (!shown.stages[i].h_infinite) shown.stages[i].h_W_m2K = history.stages[i].h_W_m2K;
   const Assessment& assessment = eval.assessment;
   RunReportOptions opts;
   opts.step_s = a.output.step_s;
@@ -56,6 +57,7 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
   for (std::size_t t = 0; t < eval.target_scenario.size(); ++t)
     history_of[t] = &eval.h_scenarios[static_cast<std::size_t>(eval.target_scenario[t])].history;
   add_assessment(report, history_of, assessment, file.targets);
+  add_scenarios(report, eval, &file.product, file.targets, a.output.step_s);  // every scenario's history
   add_h_assumptions(report, eval);
   switch (f) {
     case Format::json: write_run_json(report, out, u); break;

@@ -82,7 +82,8 @@ int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side) {
   // The rich formats plot the verification re-run the solver already made (sampled, not re-run).
   std::optional<RunReport> plot;
   if (f == Format::md || f == Format::html) {
-    plot = build_rerun_report(r.verification.eval.history, r.verification.eval.assessment, s.targets, a.output.step_s);
+    // each target's F from its own h scenario; every scenario plotted when split (issue 11)
+    plot = build_rerun_report(r.verification.eval, s.targets, a.output.step_s);
     c.verification_plot = &*plot;
   }
   switch (f) {

@@ -275,6 +275,7 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
                                " s; values in between are interpolated");
     } else {
       first_time_abs = time_abs;
+      if (iso_time) out.start_unix_s = time_abs;
     }
     if (time_abs - first_time_abs > limits::duration_s.high)
       throw InputError(at + ": " + header[0] + " = " + show_cell(cells[0]) +

@@ -16,4 +16,18 @@ const std::vector<std::string>& cautions() {
   return kCautions;
 }
 
+const std::vector<std::string>& measured_cautions() {
+  static const std::vector<std::string> kCautions = {
+      "These results are engineering estimates from one measured temperature log, not a validated process.",
+      "One log is one product in one run: a process must be established by heat-penetration studies on the real "
+      "product and temperature-distribution studies on the real equipment.",
+      "A qualified process authority and the local regulator decide whether a process or a "
+      "product lot is acceptable; this tool does not release product.",
+      "Follow the local food codes and regulations that apply, in their current edition.",
+      "Measurement assumptions: the probe sat at the product's slowest-heating point and was calibrated; "
+      "temperatures between readings are taken as linear in time.",
+  };
+  return kCautions;
+}
+
 }  // namespace coldcore

@@ -62,12 +62,14 @@ TextTable target_table(const std::vector<TargetResult>& targets, std::vector<boo
   return t;
 }
 
-void html_page_begin(std::ostream& o, const std::string& title) {
+void html_page_begin(std::ostream& o, const std::string& title) { html_page_begin(o, title, lead_sentence()); }
+
+void html_page_begin(std::ostream& o, const std::string& title, std::string_view lead) {
   o << "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n"
     << "<meta charset=\"utf-8\"/>\n<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"/>\n"
     << "<title>" << xml_escape(title) << "</title>\n<style>" << kCss << "</style>\n</head>\n<body>\n";
   o << "<h1>" << xml_escape(title) << "</h1>\n";
-  o << "<p class=\"lead\">" << xml_escape(lead_sentence()) << "</p>\n";
+  o << "<p class=\"lead\">" << xml_escape(lead) << "</p>\n";
 }
 
 void html_page_end(std::ostream& o, const std::vector<std::string>& cautions) {
@@ -155,9 +157,11 @@ std::string md_escape(std::string_view s) {
   return r;
 }
 
-void md_page_begin(std::ostream& o, const std::string& title) {
+void md_page_begin(std::ostream& o, const std::string& title) { md_page_begin(o, title, lead_sentence()); }
+
+void md_page_begin(std::ostream& o, const std::string& title, std::string_view lead) {
   o << "# " << md_escape(title) << "\n\n";
-  o << "> **" << md_escape(lead_sentence()) << "**\n\n";
+  o << "> **" << md_escape(lead) << "**\n\n";
 }
 
 void md_heading(std::ostream& o, std::string_view heading) { o << "## " << md_escape(heading) << "\n\n"; }

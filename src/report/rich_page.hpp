@@ -27,6 +27,8 @@ TextTable target_table(const std::vector<TargetResult>& targets, std::vector<boo
 
 /// Doctype, head with the inline CSS, <body>, the <h1> title and the lead sentence.
 void html_page_begin(std::ostream& o, const std::string& title);
+/// The same with its own lead sentence (a report about measured data).
+void html_page_begin(std::ostream& o, const std::string& title, std::string_view lead);
 /// The cautions box (always last) and the closing tags.
 void html_page_end(std::ostream& o, const std::vector<std::string>& cautions);
 void html_section_begin(std::ostream& o, std::string_view id, std::string_view heading);
@@ -47,6 +49,8 @@ void html_figures(std::ostream& o, const std::vector<RunFigure>& figures);
 std::string md_escape(std::string_view s);
 /// "# title" and the lead sentence as a bold quote.
 void md_page_begin(std::ostream& o, const std::string& title);
+/// The same with its own lead sentence (a report about measured data).
+void md_page_begin(std::ostream& o, const std::string& title, std::string_view lead);
 void md_heading(std::ostream& o, std::string_view heading);  ///< "## heading"
 void md_paragraph(std::ostream& o, std::string_view text);
 void md_table(std::ostream& o, const TextTable& t);

@@ -3,6 +3,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 #include <numbers>
 
 #include "coldcore/conduction/lumped_history.hpp"
@@ -43,17 +44,40 @@ double smallest_half_dimension_m(const Product& p) {
   return 0;
 }
 
+double biot_volume_to_area(const Product& p, double h_W_m2K) {
+  return h_W_m2K * volume_to_area_m(p) / p.properties.conductivity_W_mK;
+}
+
+std::string biot_symbol(const RunReport& r) { return r.biot_length.empty() ? "Bi" : "Bi(" + r.biot_length + ")"; }
+
+std::string biot_number_text(double biot) {
+  if (biot != 0 && std::fabs(biot) < 0.01) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.2g", biot);
+    return buf;
+  }
+  return fixed(biot, 3);
+}
+
+// The three regimes: Bi is the ratio of the resistance to conduction inside the product to the
+// resistance to convection at its surface (Incropera et al., Fundamentals of Heat and Mass Transfer,
+// ch. 5, from memory); below 0.1 on Lc = V/A the lumped-capacitance treatment is fair
+// (REFERENCES 3.2).
 std::string biot_note(const Product& p, const Stage& s) {
   if (s.h_infinite)
-    return "surface held at the medium temperature (Bi -> inf): heating is limited only by conduction "
+    return "surface held at the medium temperature (Bi(V/A) -> inf): heating is limited only by conduction "
            "inside the product, and the centre lags the surface the most.";
-  const double bi_lumped = s.h_W_m2K * volume_to_area_m(p) / p.properties.conductivity_W_mK;
-  const std::string b = fixed(bi_lumped, bi_lumped < 0.01 ? 4 : 3);
-  if (bi_lumped < 0.1)
-    return "Bi(V/A) = " + b + " < 0.1: the inside stays nearly uniform, so lumped capacitance would be a fair "
-           "shortcut here; the exact series is used all the same.";
-  return "Bi(V/A) = " + b + " >= 0.1: the surface resistance is small next to the inside's, so the centre lags "
-         "the surface; lumped capacitance would misstate the centre and the exact series is needed.";
+  const double bi = biot_volume_to_area(p, s.h_W_m2K);
+  const std::string b = "Bi(V/A) = " + biot_number_text(bi);
+  if (bi < 0.1)
+    return b + " < 0.1: the inside stays nearly uniform, so lumped capacitance would be a fair shortcut here; "
+               "the exact series is used all the same.";
+  if (bi <= 1.0)
+    return b + ", between 0.1 and 1: the surface resistance dominates, but the inside's is no longer negligible: "
+               "the centre still lags the surface, so lumped capacitance would misstate the centre and the exact "
+               "series is needed.";
+  return b + " > 1: the resistance inside the product dominates: the surface nears the medium temperature long "
+             "before the centre does; lumped capacitance would misstate the centre and the exact series is needed.";
 }
 
 namespace {
@@ -125,13 +149,16 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
     row.medium = st.medium.description;
     row.h_W_m2K = st.h_W_m2K;
     row.h_infinite = st.h_infinite;
-    row.biot = rec.biot;
+    // one Biot number in the table, the notes and "Reading this report": on V/A
+    row.biot = st.h_infinite ? rec.biot : biot_volume_to_area(p, st.h_W_m2K);
     row.biot_note = biot_note(p, st);
     row.centre_C = rec.at_end.centre_C;
     row.surface_C = rec.at_end.surface_C;
     row.mean_C = rec.at_end.mean_C;
     r.stages.push_back(row);
   }
+  r.biot_length = "V/A";
+  r.biot_length_m = volume_to_area_m(p);
   r.history.columns = {{"time_s", false}, {"medium_C", true}, {"centre_C", true}, {"surface_C", true}, {"mean_C", true}};
   for (double t : output_times(history, opts.step_s)) {
     const HistorySample s = history.evaluate(t);
@@ -141,8 +168,7 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
   // reader sees how far off it would be (a comparison only; never used for a verdict).
   bool lumped_misleads = false;
   for (const auto& st : file.stages)
-    lumped_misleads = lumped_misleads || st.h_infinite ||
-                      st.h_W_m2K * volume_to_area_m(p) / p.properties.conductivity_W_mK > 0.1;
+    lumped_misleads = lumped_misleads || st.h_infinite || biot_volume_to_area(p, st.h_W_m2K) > 0.1;
   if (lumped_misleads && history.stages.size() == file.stages.size()) {
     std::vector<double> times;
     for (const auto& row : r.history.rows) times.push_back(row[0]);
@@ -165,8 +191,10 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
   return r;
 }
 
-RunReport build_rerun_report(const History& history, const Assessment& assessment,
-                             const std::vector<Target>& targets, double step_s) {
+namespace {
+
+RunReport rerun_report(const History& history, const std::vector<const History*>& history_of,
+                       const Assessment& assessment, const std::vector<Target>& targets, double step_s) {
   if (!(step_s > 0) || !std::isfinite(step_s))
     throw InputError("--step-s = " + fixed(step_s, 3) + ": must be > 0");
   RunReport r;
@@ -177,21 +205,42 @@ RunReport build_rerun_report(const History& history, const Assessment& assessmen
     row.end_s = rec.end_s;
     row.ended_by = ended_by_text(rec.ended_by);
     row.h_W_m2K = rec.h_W_m2K;
-    row.biot = rec.biot;
+    row.biot = rec.biot;  // not shown: these rows only mark the stages on plots
     row.centre_C = rec.at_end.centre_C;
     row.surface_C = rec.at_end.surface_C;
     row.mean_C = rec.at_end.mean_C;
     r.stages.push_back(row);
   }
+  r.biot_length = "half-dimension";  // the engine's records: half-thickness or radius
+  r.biot_length_m = 0;
   r.history.columns = {{"time_s", false}, {"medium_C", true}, {"centre_C", true}, {"surface_C", true}, {"mean_C", true}};
   if (history.evaluate)
     for (double t : output_times(history, step_s)) {
       const HistorySample s = history.evaluate(t);
       r.history.rows.push_back({t, s.medium_C, s.centre_C, s.surface_C, s.mean_C});
     }
-  add_assessment(r, history, assessment, targets);
+  add_assessment(r, history_of, assessment, targets);
   r.warnings.clear();  // the verbs list the run's warnings themselves
   r.cautions = cautions();
+  return r;
+}
+
+}  // namespace
+
+RunReport build_rerun_report(const History& history, const Assessment& assessment,
+                             const std::vector<Target>& targets, double step_s) {
+  return rerun_report(history, std::vector<const History*>(assessment.targets.size(), &history), assessment, targets,
+                      step_s);
+}
+
+RunReport build_rerun_report(const process::Evaluation& e, const std::vector<Target>& targets, double step_s,
+                             const Product* p) {
+  // each target's F from the scenario it was evaluated on (the histories evaluate made)
+  std::vector<const History*> history_of(e.assessment.targets.size(), &e.history);
+  for (std::size_t t = 0; t < e.target_scenario.size() && t < history_of.size(); ++t)
+    history_of[t] = &e.h_scenarios.at(static_cast<std::size_t>(e.target_scenario[t])).history;
+  RunReport r = rerun_report(e.history, history_of, e.assessment, targets, step_s);
+  add_scenarios(r, e, p, targets, step_s);
   return r;
 }
 
@@ -269,8 +318,8 @@ void add_h_assumptions(RunReport& report, const process::Evaluation& e) {
     report.assumptions.push_back(
         "The targets need different ends of an h range, so they were evaluated on " +
         std::to_string(e.h_scenarios.size()) +
-        " scenarios, each target on the one conservative for it; the history and plots show the scenario of the "
-        "first target, every verdict (and its F column) its own.");
+        " scenarios, each target on the one conservative for it; every verdict names its scenario, and the "
+        "report shows each scenario's history.");
   for (const auto& n : e.h_notes) report.assumptions.push_back("h per target: " + n + ".");
 }
 

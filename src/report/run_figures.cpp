@@ -33,6 +33,7 @@ constexpr CurveStyle kTempCurves[] = {
     {"mean_C", "mass-average", oi::bluish_green, Dash::dash_dot, 1.6},
     {"lumped_centre_C", "centre by the lumped shortcut", oi::reddish_purple, Dash::short_dash, 2.0},
     {"centre_C", "centre (cold spot), exact", oi::blue, Dash::solid, 2.4},
+    {"measured_C", "measured by the probe", oi::blue, Dash::solid, 2.4},
 };
 
 const CurveStyle* temp_style(std::string_view column) {
@@ -82,12 +83,7 @@ double max_biot(const RunReport& r, bool& infinite) {
 
 std::string biot_text(const StageRow& s) {
   if (s.h_infinite) return "∞ (surface held at the medium temperature)";
-  if (s.biot != 0 && std::fabs(s.biot) < 0.01) {
-    char buf[32];
-    std::snprintf(buf, sizeof buf, "%.2g", s.biot);
-    return buf;
-  }
-  return fixed(s.biot, 3);
+  return biot_number_text(s.biot);
 }
 
 }  // namespace
@@ -148,11 +144,34 @@ std::string lead_sentence() {
          "end of this report before using any of it.";
 }
 
+std::string lead_sentence(const RunReport& r) {
+  if (!r.measured) return lead_sentence();
+  return "Engineering estimate from a measured temperature log, not a validated process. Read the cautions at the "
+         "end of this report before using any of it.";
+}
+
+std::string subject_heading(const RunReport& r) { return r.measured ? "Measured log" : "Product and properties"; }
+
+std::vector<std::string> delivered_lines(const RunReport& r) {
+  std::vector<std::string> out;
+  for (const auto& d : r.delivered) {
+    out.push_back(d.name + ": " + delivered_text(d));
+    for (const auto& line : d.details) out.push_back(d.name + ": " + line);
+  }
+  return out;
+}
+
 std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
   std::vector<RunFigure> out;
   const auto t_col = column_index(r.history, "time_s");
   if (!t_col || r.history.rows.empty()) return out;
-  const TimeScale ts = time_scale(r);
+  TimeScale ts = time_scale(r);
+  if (r.measured) {  // a log counts from its first reading; say its clock time when it has one
+    const bool hours = ts.seconds_per_unit == 3600.0;
+    ts.label = "time since the first reading";
+    if (r.measured->start_unix_s) ts.label += ", " + utc_text(*r.measured->start_unix_s);
+    ts.label += hours ? " (h)" : " (min)";
+  }
   std::vector<double> t = column_values(r.history, *t_col, false, u);
   for (double& x : t) x /= ts.seconds_per_unit;
   const std::string temp_label = "temperature (" + std::string(unit_symbol(u)) + ")";
@@ -162,7 +181,7 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
     RunFigure f;
     f.key = "temperature";
     f.plot.id = "plot-temperature";
-    f.plot.title = "Temperatures against time";
+    f.plot.title = r.measured ? "Measured temperature against time" : "Temperatures against time";
     f.plot.x.label = ts.label;
     f.plot.x.min = 0;
     f.plot.y.label = temp_label;
@@ -176,8 +195,12 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
                                  Dash::dotted});
       }
     add_stage_lines(f.plot, r, ts);
-    f.caption = "Medium, surface, mass-average and centre temperature of the product against time; dashed "
-                "vertical lines mark where each stage starts.";
+    if (r.measured)
+      f.caption = "The temperature the probe logged (log " + r.measured->log + ", " +
+                  std::to_string(r.measured->readings) + " readings) against time, straight between readings.";
+    else
+      f.caption = "Medium, surface, mass-average and centre temperature of the product against time; dashed "
+                  "vertical lines mark where each stage starts.";
     if (column_index(r.history, "lumped_centre_C"))
       f.caption += " The short-dash purple curve is the lumped-capacitance shortcut for the centre, drawn to show "
                    "how far it is from the exact centre.";
@@ -189,7 +212,7 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
     RunFigure f;
     f.key = "lethality";
     f.plot.id = "plot-lethality";
-    f.plot.title = "Cumulative lethality at the centre";
+    f.plot.title = r.measured ? "Cumulative lethality at the probe" : "Cumulative lethality at the centre";
     f.plot.x.label = ts.label;
     f.plot.x.min = 0;
     f.plot.y.label = "F-value (min)";
@@ -214,8 +237,14 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
       ++k;
     }
     add_stage_lines(f.plot, r, ts);
-    f.caption = "Lethality accumulated at the centre, as minutes at each target's reference temperature; the "
-                "dotted line is the required value.";
+    if (r.measured)
+      f.caption = "Lethality accumulated from the measured temperatures (trapezoid rule over the readings), as "
+                  "minutes at each target's reference temperature" +
+                  std::string(r.target_lines.empty() ? "; no target was given, so no required value is drawn."
+                                                     : "; the dotted line is the required value.");
+    else
+      f.caption = "Lethality accumulated at the centre, as minutes at each target's reference temperature; the "
+                  "dotted line is the required value.";
     if (!f.plot.series.empty()) out.push_back(std::move(f));
   }
 
@@ -240,28 +269,74 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
     const double pad = 0.05 * (hi - lo);
     f.plot.x.min = std::max(0.0, lo - pad) / ts.seconds_per_unit;
     f.plot.x.max = (hi + pad) / ts.seconds_per_unit;
-    for (const char* col : {"medium_C", "centre_C"})
+    for (const char* col : {"medium_C", "centre_C", "measured_C"})
       if (auto i = column_index(r.history, col))
         f.plot.series.push_back(make_series(*temp_style(col), t, column_values(r.history, *i, true, u)));
     add_stage_lines(f.plot, r, ts);
-    f.caption = "Each shaded box is one step of the cooling rule: the centre must leave the box through its "
-                "lower edge before the heavy right edge (the step's deadline).";
+    f.caption = std::string("Each shaded box is one step of the cooling rule: the ") +
+                (r.measured ? "measured temperature" : "centre") +
+                " must leave the box through its lower edge before the heavy right edge (the step's deadline).";
     out.push_back(std::move(f));
   }
   return out;
 }
 
-std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u) {
+namespace {
+
+const char* kVerdictWords =
+    "A verdict says \"met\" only when the computed margin is positive. \"Not demonstrated\" means this calculation "
+    "does not show the target is reached; it does not prove the product unsafe, and \"met\" does not release "
+    "product.";
+
+// A report about measured data: no conduction model, no Biot number, no surface or centre curves.
+std::vector<std::string> measured_paragraphs(const RunReport& r) {
+  const MeasuredSource& m = *r.measured;
   std::vector<std::string> p;
+  std::string log = "This report is about measured data: the " + std::to_string(m.readings) +
+                    " temperatures logged in " + m.log;
+  log += m.start_unix_s ? ", the first at " + utc_text(*m.start_unix_s) + "." : " (the log carries no clock time).";
+  log += " No model of the product is used: between readings the temperature is taken as a straight line, and "
+         "everything shown is computed from the readings alone.";
+  p.push_back(log);
+  p.push_back(
+      "The readings stand for the product's slowest-heating point (the cold spot while heating, the warm spot while "
+      "cooling) only if the probe was there and calibrated; that is for the user to verify. A probe off that point "
+      "reads warmer than it while heating, which overstates lethality.");
+  std::string f = "An F-value is the time at the reference temperature that would kill as many organisms as the "
+                  "logged temperatures did; the lethality plot shows it adding up over the log.";
+  if (!r.delivered.empty())
+    f += " No target was given for the lethality, so the report shows what the log delivered (F and, where a D "
+         "value is known, log reductions) and claims no verdict for it.";
+  if (!r.verdicts.empty()) f += std::string(" ") + kVerdictWords;
+  p.push_back(f);
+  return p;
+}
+
+}  // namespace
+
+std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u) {
+  if (r.measured) return measured_paragraphs(r);
+  std::vector<std::string> p;
+  // One Biot number throughout (the table, the notes and here), on the length the report names.
+  // Regimes: Bi = inside / surface resistance (Incropera et al., ch. 5, from memory); lumped
+  // capacitance fair below 0.1 on V/A (REFERENCES 3.2).
+  const std::string sym = biot_symbol(r);
   std::string biot =
-      "The Biot number (Bi) compares how hard it is for heat to move through the product with how hard it is for "
-      "heat to cross its surface. Below about 0.1 (common practice) the inside stays close to one temperature and "
-      "the piece heats or cools as a whole; above 0.1 the inside lags behind the surface, and the larger Bi, the "
-      "larger the lag.";
+      "The Biot number compares the resistance to heat flow inside the product with the resistance at its "
+      "surface: Bi = h·L/k.";
+  if (r.biot_length == "V/A")
+    biot += " In this report L is V/A, the volume over the surface area (" + fixed(r.biot_length_m * 1000.0, 2) +
+            " mm), in the stage table, the notes and here.";
+  else if (!r.biot_length.empty())
+    biot += " In this report L is the " + r.biot_length + ".";
+  biot += " Below 0.1 the inside stays close to one temperature and the piece heats or cools as a whole, so "
+          "lumped capacitance is a fair shortcut (the lumped-capacitance criterion of heat-transfer textbooks). "
+          "From 0.1 to 1 the surface resistance still dominates, but the centre lags the surface. Above 1 the "
+          "resistance inside dominates: the surface nears the medium temperature long before the centre does.";
   if (!r.stages.empty()) {
     biot += " In this run:";
     for (size_t i = 0; i < r.stages.size(); ++i)
-      biot += std::string(i ? ";" : "") + " " + r.stages[i].name + " Bi = " + biot_text(r.stages[i]);
+      biot += std::string(i ? ";" : "") + " " + r.stages[i].name + " " + sym + " = " + biot_text(r.stages[i]);
     biot += ".";
   }
   p.push_back(biot);
@@ -296,14 +371,14 @@ std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u) {
       s += " The largest difference in this run is " + fixed(display_temp_difference(gap, u), 1) + " " +
            std::string(unit_symbol(u)) + " (the shortcut reads " + (signed_gap > 0 ? "warmer" : "cooler") +
            " than the exact centre) at " + duration_text(at_s) + ".";
-    s += high_bi ? " With Bi above 0.1 the shortcut in general reads the centre warmer than it is while heating and "
+    s += high_bi ? " With " + sym + " above 0.1 the shortcut in general reads the centre warmer than it is while heating and "
                    "cooler than it is while cooling, so relying on it would overstate safety."
-                 : " With Bi at or below 0.1 in every stage the shortcut stays close to the exact centre.";
+                 : " With " + sym + " at or below 0.1 in every stage the shortcut stays close to the exact centre.";
     p.push_back(s);
   } else if (!r.stages.empty()) {
-    p.push_back(high_bi ? "With Bi above 0.1 a lumped-capacitance shortcut (one uniform temperature) would misjudge "
-                          "the centre; the model did not provide that curve for this run, so it is not drawn."
-                        : "With Bi at or below 0.1 in every stage a lumped-capacitance shortcut (one uniform "
+    p.push_back(high_bi ? "With " + sym + " above 0.1 a lumped-capacitance shortcut (one uniform temperature) would "
+                          "misjudge the centre; the model did not provide that curve for this run, so it is not drawn."
+                        : "With " + sym + " at or below 0.1 in every stage a lumped-capacitance shortcut (one uniform "
                           "temperature) would give nearly the same centre temperature.");
   }
   p.push_back(
@@ -316,7 +391,7 @@ std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u) {
 
 TextTable stage_table(const RunReport& r, TempUnit u) {
   const std::string us(unit_symbol(u));
-  TextTable t = {{"stage", "start", "end", "ended by", "medium", "h (W/m²K)", "Bi", "centre (" + us + ")",
+  TextTable t = {{"stage", "start", "end", "ended by", "medium", "h (W/m²K)", biot_symbol(r), "centre (" + us + ")",
                   "surface (" + us + ")", "mean (" + us + ")"}};
   for (const auto& s : r.stages)
     t.push_back({s.name, duration_text(s.start_s), duration_text(s.end_s), s.ended_by, s.medium,
@@ -327,10 +402,58 @@ TextTable stage_table(const RunReport& r, TempUnit u) {
 }
 
 TextTable verdict_table(const RunReport& r) {
+  const bool split = !r.scenarios.empty();
   TextTable t = {{"target", "kind", "required", "achieved", "margin", "verdict"}};
-  for (const auto& v : r.verdicts)
+  if (split) t[0].push_back("scenario");
+  for (const auto& v : r.verdicts) {
     t.push_back({v.name, v.kind, v.required, v.achieved, v.margin, std::string(verdict_word(v.met))});
+    if (split) t.back().push_back(v.scenario.substr(0, v.scenario.find(':')));
+  }
   return t;
+}
+
+std::vector<RunFigure> scenario_figures(const RunReport& r, TempUnit u) {
+  std::vector<RunFigure> out;
+  for (const auto& v : r.scenarios) {
+    RunReport one;  // the scenario as a report of its own, for the plot builders
+    one.stages = v.stages;
+    one.history = v.history;
+    one.target_lines = v.target_lines;
+    one.rule_boxes = v.rule_boxes;
+    const std::string tag = "scenario" + std::to_string(v.number);
+    for (auto& f : run_figures(one, u)) {
+      f.key = tag + "-" + f.key;
+      f.plot.id = "plot-" + f.key;
+      f.plot.title += " (scenario " + std::to_string(v.number) + ")";
+      std::string label = v.label;
+      if (!label.empty()) label[0] = 'S';  // "scenario 2: ..." opens the caption
+      f.caption = label + ". " + f.caption;
+      out.push_back(std::move(f));
+    }
+  }
+  return out;
+}
+
+std::vector<RunFigure> report_figures(const RunReport& r, TempUnit u) {
+  return r.scenarios.empty() ? run_figures(r, u) : scenario_figures(r, u);
+}
+
+TextTable scenario_stage_table(const RunReport& r, const ScenarioView& v, TempUnit u) {
+  const std::string us(unit_symbol(u));
+  TextTable t = {{"stage", "start", "end", "ended by", "h (W/m²K)", biot_symbol(r), "centre (" + us + ")",
+                  "surface (" + us + ")", "mean (" + us + ")"}};
+  for (const auto& s : v.stages)
+    t.push_back({s.name, duration_text(s.start_s), duration_text(s.end_s), s.ended_by,
+                 s.h_infinite ? "∞" : fixed(s.h_W_m2K, 1), s.h_infinite ? "∞" : biot_text(s),
+                 fixed(display_temp(s.centre_C, u), 2), fixed(display_temp(s.surface_C, u), 2),
+                 fixed(display_temp(s.mean_C, u), 2)});
+  return t;
+}
+
+std::string scenario_heading(const ScenarioView& v) {
+  std::string names;
+  for (const auto& t : v.targets) names += (names.empty() ? "" : ", ") + t;
+  return v.label + "; targets: " + names;
 }
 
 }  // namespace coldcore::detail

@@ -38,12 +38,23 @@ double report_end_s(const RunReport& r);
 TimeScale time_scale_for(double end_s);  ///< minutes up to 3 h, hours beyond
 TimeScale time_scale(const RunReport& r);
 
+/// The plots of every h scenario (RunReport::scenarios), each titled and keyed by its scenario
+/// ("scenario2-temperature"); empty when the targets were not split.
+std::vector<RunFigure> scenario_figures(const RunReport& r, TempUnit u);
+/// The figures a rich report shows: every scenario's when split, else run_figures(r).
+std::vector<RunFigure> report_figures(const RunReport& r, TempUnit u);
+/// "scenario 2: ...; targets: P70" per scenario.
+std::string scenario_heading(const ScenarioView& v);
+
 /// "Reading this report" in plain words, one paragraph per string.
 std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u);
 
 using TextTable = std::vector<std::vector<std::string>>;  // first row is the header
 TextTable stage_table(const RunReport& r, TempUnit u);
-TextTable verdict_table(const RunReport& r);
+TextTable verdict_table(const RunReport& r);  ///< with a "scenario" column when split
+/// Stage table of one scenario (same columns as stage_table, no medium column).
+TextTable scenario_stage_table(const RunReport& r, const ScenarioView& v, TempUnit u);
+
 
 /// Column name as shown: "centre_C" -> "centre_F" for --units F.
 std::string display_column_name(const Column& c, TempUnit u);
@@ -54,5 +65,11 @@ const std::vector<std::string>& report_cautions(const RunReport& r);
 
 /// The first line every rich report shows under its title.
 std::string lead_sentence();
+/// The lead of a report: lead_sentence(), or for measured data its own (no conduction model).
+std::string lead_sentence(const RunReport& r);
+/// Heading of the product section: "Product and properties", or "Measured log".
+std::string subject_heading(const RunReport& r);
+/// The delivered section's lines: "<name>: F ..., N log10" then "<name>: <detail>" lines.
+std::vector<std::string> delivered_lines(const RunReport& r);
 
 }  // namespace coldcore::detail

@@ -10,15 +10,16 @@ namespace coldcore {
 
 void write_run_html(const RunReport& r, std::ostream& o, TempUnit u) {
   using namespace detail;
-  html_page_begin(o, r.title);
+  html_page_begin(o, r.title, lead_sentence(r));
   if (!r.product.empty()) {
-    html_section_begin(o, "product", "Product and properties");
+    html_section_begin(o, "product", subject_heading(r));
     html_key_value_table(o, r.product, "item");
     html_section_end(o);
   }
   if (!r.stages.empty()) {
     html_section_begin(o, "process", "Process stages");
-    html_paragraph(o, "Times from the process start; temperatures at each stage's end.");
+    html_paragraph(o, std::string("Times from the process start; temperatures at each stage's end.") +
+                          (r.scenarios.empty() ? "" : " The h shown are scenario 1's; every scenario follows."));
     html_table(o, stage_table(r, u), {false, true, true, false, false, true, true, true, true, true});
     std::vector<std::string> notes;
     for (const auto& s : r.stages)
@@ -26,7 +27,18 @@ void write_run_html(const RunReport& r, std::ostream& o, TempUnit u) {
     html_list(o, notes);
     html_section_end(o);
   }
-  html_figures(o, run_figures(r, u));
+  if (!r.scenarios.empty()) {  // every scenario's history behind the verdicts (issue 11)
+    html_section_begin(o, "scenarios", "Scenarios");
+    html_paragraph(o, "The targets need different ends of an h range, so each was evaluated on the scenario "
+                      "conservative for it; each verdict names its scenario. Times from the process start; "
+                      "temperatures at each stage's end.");
+    for (const auto& v : r.scenarios) {
+      html_paragraph(o, scenario_heading(v));
+      html_table(o, scenario_stage_table(r, v, u), {false, true, true, false, true, true, true, true, true});
+    }
+    html_section_end(o);
+  }
+  html_figures(o, report_figures(r, u));
   html_section_begin(o, "reading", "Reading this report");
   for (const auto& p : reading_paragraphs(r, u)) html_paragraph(o, p);
   html_section_end(o);
@@ -40,6 +52,11 @@ void write_run_html(const RunReport& r, std::ostream& o, TempUnit u) {
     for (const auto& v : r.verdicts)
       for (const auto& d : v.details) details.push_back(v.name + ": " + d);
     html_list(o, details);
+    html_section_end(o);
+  }
+  if (!r.delivered.empty()) {
+    html_section_begin(o, "delivered", delivered_heading());
+    html_list(o, delivered_lines(r));
     html_section_end(o);
   }
   if (!r.warnings.empty()) {

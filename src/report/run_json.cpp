@@ -1,5 +1,6 @@
 // JSON run report: {"history":[...], "summary":{...}, "assessment":[...], "warnings":[...],
 // "cautions":[...], "provenance":{...}} (DESIGN.md). Numbers at full double precision.
+#include <algorithm>
 #include <ostream>
 
 #include "coldcore/report/json.hpp"
@@ -8,6 +9,39 @@
 namespace coldcore {
 
 namespace {
+
+std::string display_column(const Column& c, TempUnit u);
+
+void write_history(JsonWriter& w, const HistoryTable& h, TempUnit u) {
+  w.begin_array();
+  for (const auto& row : h.rows) {
+    w.begin_object();
+    for (size_t i = 0; i < row.size() && i < h.columns.size(); ++i) {
+      const auto& c = h.columns[i];
+      w.key(display_column(c, u)).value(c.temperature ? display_temp(row[i], u) : row[i]);
+    }
+    w.end_object();
+  }
+  w.end_array();
+}
+
+void write_stage(JsonWriter& w, const StageRow& s, const RunReport& r, TempUnit u, bool with_medium) {
+  w.begin_object();
+  w.key("name").value(s.name);
+  w.key("start_s").value(s.start_s);
+  w.key("end_s").value(s.end_s);
+  w.key("ended_by").value(s.ended_by);
+  if (with_medium) w.key("medium").value(s.medium);
+  if (s.h_infinite) w.key("h_W_m2K").value("inf"); else w.key("h_W_m2K").value(s.h_W_m2K);
+  if (s.h_infinite) w.key("biot").value("inf"); else w.key("biot").value(s.biot);
+  if (!r.biot_length.empty()) w.key("biot_length").value(r.biot_length);  // "V/A": Bi = h·(V/A)/k
+  if (with_medium) w.key("biot_note").value(s.biot_note);
+  const std::string us(unit_suffix(u));
+  w.key("centre_" + us).value(display_temp(s.centre_C, u));
+  w.key("surface_" + us).value(display_temp(s.surface_C, u));
+  w.key("mean_" + us).value(display_temp(s.mean_C, u));
+  w.end_object();
+}
 
 std::string display_column(const Column& c, TempUnit u) {
   if (!c.temperature || u == TempUnit::C) return c.name;
@@ -40,24 +74,26 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
   for (const auto& kv : r.product) w.key(kv.key).value(kv.value);
   w.end_object();
   w.key("stages").begin_array();
-  for (const auto& s : r.stages) {
-    w.begin_object();
-    w.key("name").value(s.name);
-    w.key("start_s").value(s.start_s);
-    w.key("end_s").value(s.end_s);
-    w.key("ended_by").value(s.ended_by);
-    w.key("medium").value(s.medium);
-    if (s.h_infinite) w.key("h_W_m2K").value("inf"); else w.key("h_W_m2K").value(s.h_W_m2K);
-    if (s.h_infinite) w.key("biot").value("inf"); else w.key("biot").value(s.biot);
-    w.key("biot_note").value(s.biot_note);
-    const std::string us(unit_suffix(u));
-    w.key("centre_" + us).value(display_temp(s.centre_C, u));
-    w.key("surface_" + us).value(display_temp(s.surface_C, u));
-    w.key("mean_" + us).value(display_temp(s.mean_C, u));
-    w.end_object();
-  }
+  for (const auto& s : r.stages) write_stage(w, s, r, u, true);
   w.end_array();
   w.end_object();
+  // With h split per target: every scenario's history; "history" above is scenario 1 (issue 11).
+  if (!r.scenarios.empty()) {
+    w.key("scenarios").begin_array();
+    for (const auto& sc : r.scenarios) {
+      w.begin_object();
+      w.key("number").value(sc.number);
+      w.key("label").value(sc.label);
+      w.key("targets").value(sc.targets);
+      w.key("stages").begin_array();
+      for (const auto& st : sc.stages) write_stage(w, st, r, u, false);
+      w.end_array();
+      w.key("history");
+      write_history(w, sc.history, u);
+      w.end_object();
+    }
+    w.end_array();
+  }
   w.key("assessment").begin_array();
   for (const auto& v : r.verdicts) {
     w.begin_object();
@@ -71,10 +107,43 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
     w.key("achieved_value").value(v.achieved_value);
     w.key("margin_value").value(v.margin_value);
     w.key("value_unit").value(v.value_unit);
+    if (!v.scenario.empty()) w.key("scenario").value(v.scenario);
     w.key("details").value(v.details);
     w.end_object();
   }
   w.end_array();
+  // Lethality without a requirement: what was delivered, with no verdict (issue 11).
+  if (!r.delivered.empty()) {
+    w.key("delivered").begin_array();
+    for (const auto& d : r.delivered) {
+      w.begin_object();
+      w.key("name").value(d.name);
+      w.key("kind").value(d.kind);
+      w.key("verdict").value("none: no target given");
+      w.key("F_s").value(d.F_s);
+      w.key("F_text").value(d.F_text);
+      w.key("reference_" + std::string(unit_suffix(u))).value(display_temp(d.reference_C, u));
+      w.key("z_" + std::string(unit_suffix(u))).value(display_temp_difference(d.z_C, u));
+      if (d.log_reduction) {
+        w.key("log_reduction").value(*d.log_reduction);
+        w.key("log_reduction_text").value(d.log_text);
+      }
+      w.key("details").value(d.details);
+      w.end_object();
+    }
+    w.end_array();
+  }
+  if (r.measured) {
+    w.key("measured").begin_object();
+    w.key("log").value(r.measured->log);
+    w.key("lot").value(r.measured->lot);
+    w.key("readings").value(static_cast<int>(r.measured->readings));
+    if (r.measured->start_unix_s) {
+      w.key("start_unix_s").value(*r.measured->start_unix_s);
+      w.key("first_reading_utc").value(utc_text(*r.measured->start_unix_s));
+    }
+    w.end_object();
+  }
   w.key("warnings").value(r.warnings);
   w.key("assumptions").value(r.assumptions);
   w.key("cautions").value(r.cautions);
@@ -84,17 +153,61 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
   w.end_object();
 }
 
+namespace {
+
+// With h split per target, one block of rows per scenario under one header (long format, which a
+// spreadsheet filters or pivots by its first column): `scenario` (its number), then the history
+// columns; an F column is filled only on the rows of the scenario its target was evaluated on.
+void write_scenario_rows(const RunReport& r, std::ostream& out, TempUnit u) {
+  for (const auto& sc : r.scenarios) {
+    std::string names;
+    for (const auto& t : sc.targets) names += (names.empty() ? "" : ", ") + t;
+    out << "# " << sc.label << "; targets: " << names << "\n";
+  }
+  std::vector<Column> cols;
+  for (const auto& sc : r.scenarios)
+    for (const auto& c : sc.history.columns)
+      if (std::none_of(cols.begin(), cols.end(), [&](const Column& x) { return x.name == c.name; })) cols.push_back(c);
+  out << "scenario";
+  for (const auto& c : cols) out << "," << display_column(c, u);
+  out << "\n";
+  for (const auto& sc : r.scenarios)
+    for (const auto& row : sc.history.rows) {
+      out << sc.number;
+      for (const auto& c : cols) {
+        out << ",";
+        for (size_t i = 0; i < sc.history.columns.size() && i < row.size(); ++i)
+          if (sc.history.columns[i].name == c.name) {
+            out << JsonWriter::number(c.temperature ? display_temp(row[i], u) : row[i]);
+            break;
+          }
+      }
+      out << "\n";
+    }
+}
+
+}  // namespace
+
 void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
   for (const auto& c : r.cautions) out << "# caution: " << c << "\n";
   for (const auto& kv : r.provenance) out << "# " << kv.key << ": " << kv.value << "\n";
   for (const auto& w : r.warnings) out << "# warning: " << w << "\n";
+  if (r.measured)  // the log, its lot and clock times (issue 11)
+    for (const auto& kv : r.product) out << "# " << kv.key << ": " << kv.value << "\n";
+  for (const auto& d : r.delivered)
+    out << "# delivered, no target given, no verdict: " << d.name << ": " << delivered_text(d) << "\n";
   for (const auto& v : r.verdicts)
     out << "# verdict: " << v.name << ": " << verdict_word(v.met) << " (required " << v.required
-        << ", achieved " << v.achieved << ", margin " << v.margin << ")\n";
+        << ", achieved " << v.achieved << ", margin " << v.margin << ")"
+        << (v.scenario.empty() ? "" : ", from " + v.scenario) << "\n";
   // Which end of an h range each target was evaluated at (process/h_ends.hpp), when one was.
   for (const auto& v : r.verdicts)
     for (const auto& d : v.details)
       if (d.rfind("h used: ", 0) == 0) out << "# verdict note: " << v.name << ": " << d << "\n";
+  if (!r.scenarios.empty()) {
+    write_scenario_rows(r, out, u);
+    return;
+  }
   for (size_t i = 0; i < r.history.columns.size(); ++i)
     out << (i ? "," : "") << display_column(r.history.columns[i], u);
   out << "\n";

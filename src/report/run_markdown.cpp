@@ -11,21 +11,32 @@ MarkdownReport write_run_markdown(const RunReport& r, TempUnit u, std::string_vi
   using namespace detail;
   MarkdownReport rep;
   std::ostringstream o;
-  md_page_begin(o, r.title);
+  md_page_begin(o, r.title, lead_sentence(r));
   if (!r.product.empty()) {
-    md_heading(o, "Product and properties");
+    md_heading(o, subject_heading(r));
     md_key_value_table(o, r.product);
   }
   if (!r.stages.empty()) {
     md_heading(o, "Process stages");
-    md_paragraph(o, "Times from the process start; temperatures at each stage's end.");
+    md_paragraph(o, std::string("Times from the process start; temperatures at each stage's end.") +
+                        (r.scenarios.empty() ? "" : " The h shown are scenario 1's; every scenario follows."));
     md_table(o, stage_table(r, u));
     std::vector<std::string> notes;
     for (const auto& s : r.stages)
       if (!s.biot_note.empty()) notes.push_back(s.name + ": " + s.biot_note);
     md_list(o, notes);
   }
-  md_figures(o, run_figures(r, u), svg_basename, rep.svg_files);
+  if (!r.scenarios.empty()) {  // every scenario's history behind the verdicts (issue 11)
+    md_heading(o, "Scenarios");
+    md_paragraph(o, "The targets need different ends of an h range, so each was evaluated on the scenario "
+                    "conservative for it; each verdict names its scenario. Times from the process start; "
+                    "temperatures at each stage's end.");
+    for (const auto& v : r.scenarios) {
+      md_paragraph(o, scenario_heading(v));
+      md_table(o, scenario_stage_table(r, v, u));
+    }
+  }
+  md_figures(o, report_figures(r, u), svg_basename, rep.svg_files);
   md_heading(o, "Reading this report");
   for (const auto& p : reading_paragraphs(r, u)) md_paragraph(o, p);
   if (!r.verdicts.empty()) {
@@ -35,6 +46,10 @@ MarkdownReport write_run_markdown(const RunReport& r, TempUnit u, std::string_vi
     for (const auto& v : r.verdicts)
       for (const auto& d : v.details) details.push_back(v.name + ": " + d);
     md_list(o, details);
+  }
+  if (!r.delivered.empty()) {
+    md_heading(o, delivered_heading());
+    md_list(o, delivered_lines(r));
   }
   if (!r.warnings.empty()) {
     md_heading(o, "Warnings");

@@ -47,39 +47,74 @@ void print_table(std::ostream& out, const std::vector<std::vector<std::string>>&
 
 std::string h_text(const StageRow& s) { return s.h_infinite ? "inf" : fixed(s.h_W_m2K, 1); }
 
+// "scenario 2" of "scenario 2: ...": the short name a table column shows.
+std::string scenario_short(const std::string& label) { return label.substr(0, label.find(':')); }
+
+void print_stage_table(std::ostream& out, const RunReport& r, const std::vector<StageRow>& stages, TempUnit u) {
+  std::vector<std::vector<std::string>> rows = {
+      {"stage", "start", "end", "ended by", "h W/m²K", biot_symbol(r), "centre", "surface", "mean"}};
+  for (const auto& s : stages)
+    rows.push_back({s.name, duration_text(s.start_s), duration_text(s.end_s), s.ended_by, h_text(s),
+                    s.h_infinite ? "inf" : biot_number_text(s.biot), fixed(display_temp(s.centre_C, u), 2),
+                    fixed(display_temp(s.surface_C, u), 2), fixed(display_temp(s.mean_C, u), 2)});
+  print_table(out, rows, u);
+}
+
 }  // namespace
 
 void write_run_text(const RunReport& r, std::ostream& out, TempUnit u) {
   const std::string us(unit_symbol(u));
   out << r.title << "\n\n";
   if (!r.product.empty()) {
-    out << "Product\n";
+    out << (r.measured ? "Measured log\n" : "Product\n");
     for (const auto& kv : r.product) out << "  " << kv.key << ": " << kv.value << "\n";
     out << "\n";
   }
   if (!r.stages.empty()) {
-    out << "Stages (temperatures at each stage's end, " << us << ")\n";
-    std::vector<std::vector<std::string>> rows = {
-        {"stage", "start", "end", "ended by", "h W/m²K", "Bi", "centre", "surface", "mean"}};
-    for (const auto& s : r.stages)
-      rows.push_back({s.name, duration_text(s.start_s), duration_text(s.end_s), s.ended_by, h_text(s),
-                      s.h_infinite ? "inf" : fixed(s.biot, 3), fixed(display_temp(s.centre_C, u), 2),
-                      fixed(display_temp(s.surface_C, u), 2), fixed(display_temp(s.mean_C, u), 2)});
-    print_table(out, rows, u);
+    out << "Stages (" << (r.scenarios.empty() ? "" : "h of scenario 1; ") << "temperatures at each stage's end, " << us
+        << ")\n";
+    print_stage_table(out, r, r.stages, u);
     out << "\n  Media:\n";
     for (const auto& s : r.stages) out << "    " << s.name << ": " << s.medium << "\n";
-    out << "\n  What the Biot number says:\n";
+    out << "\n  What the Biot number says";
+    if (r.biot_length == "V/A")
+      out << " (Bi on V/A, the volume over the surface area, " << fixed(r.biot_length_m * 1000.0, 2) << " mm)";
+    out << ":\n";
     for (const auto& s : r.stages) out << "    " << s.name << ": " << s.biot_note << "\n";
+    out << "\n";
+  }
+  if (!r.scenarios.empty()) {
+    // every scenario's history behind the verdicts (issue 11): its stage ends, per scenario
+    out << "Scenarios (the targets need different ends of an h range; each verdict comes from its own; "
+        << "temperatures at each stage's end, " << us << ")\n";
+    for (const auto& sc : r.scenarios) {
+      std::string names;
+      for (const auto& t : sc.targets) names += (names.empty() ? "" : ", ") + t;
+      out << "  " << sc.label << "; targets: " << names << "\n";
+      print_stage_table(out, r, sc.stages, u);
+    }
     out << "\n";
   }
   if (!r.verdicts.empty()) {
     out << "Assessment\n";
+    const bool split = !r.scenarios.empty();
     std::vector<std::vector<std::string>> rows = {{"target", "required", "achieved", "margin", "verdict"}};
-    for (const auto& v : r.verdicts)
+    if (split) rows[0].push_back("scenario");
+    for (const auto& v : r.verdicts) {
       rows.push_back({v.name, v.required, v.achieved, v.margin, std::string(verdict_word(v.met))});
+      if (split) rows.back().push_back(scenario_short(v.scenario));
+    }
     print_table(out, rows, u);
     for (const auto& v : r.verdicts)
       for (const auto& d : v.details) out << "    " << v.name << ": " << d << "\n";
+    out << "\n";
+  }
+  if (!r.delivered.empty()) {
+    out << delivered_heading() << "\n";
+    for (const auto& d : r.delivered) {
+      out << "  " << d.name << ": " << delivered_text(d) << "\n";
+      for (const auto& line : d.details) out << "    " << d.name << ": " << line << "\n";
+    }
     out << "\n";
   }
   if (!r.warnings.empty()) {

@@ -108,7 +108,7 @@ void verification_section(RichDoc& d, const SolveResult& r, TempUnit u) {
 
 void plot_section(RichDoc& d, const SolveReportContext& c, TempUnit u) {
   if (!c.verification_plot) return;
-  auto figures = detail::run_figures(*c.verification_plot, u);
+  auto figures = detail::report_figures(*c.verification_plot, u);  // every h scenario's when split
   for (auto& f : figures) {
     if (!f.plot.title.empty()) f.plot.title[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(f.plot.title[0])));
     f.plot.title = "Verification re-run: " + f.plot.title;

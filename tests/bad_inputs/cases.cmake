@@ -130,7 +130,7 @@ bad(deviation_tolerance_nan 2 "--tolerance-K: nan: must be greater than 0 and at
 
 # --- output paths: never overwrite an input, never leave part of a report ---
 bad(out_is_product 2 "--out = p.toml: is the input file p.toml; choose another name (coldcore never overwrites what it reads)" ARGS run p.toml --out p.toml)
-bad(out_is_log 2 "--out = l.csv: is the input file l.csv; choose another name (coldcore never overwrites what it reads)" ARGS probe l.csv ${O} --out l.csv)
+bad(out_is_log 2 "--out = l.csv: is the input file l.csv; choose another name (coldcore never overwrites what it reads)" ARGS probe l.csv ${O} --target-log 6 --out l.csv)
 bad(out_is_library 2 "--out = organisms.toml: is the input file organisms.toml; choose another name (coldcore never overwrites what it reads)" ARGS run p.toml --out organisms.toml)
 bad(out_is_directory 2 "--out = sub: is a directory; give a file name" FILE "sub/x" "<none>" ARGS run p.toml --format md --out sub)
 bad(out_is_device 2 "--out = /dev/null: exists and is not a regular file; give a file name" ARGS run p.toml --out /dev/null)

@@ -146,6 +146,23 @@ cli_expect(media_split_deviation 0 ARGS deviation tests/cli/media-split/chill-cr
            --medium-log tests/cli/media-split/chill-credited-log.csv --stage cook
            STDOUT_HAS "h per target: stage \"blast chill\": h 60 W/m2K, the high end")
 cli_expect(media_footnote 0 ARGS media STDOUT_HAS "the HIGH end in a cooling stage for the lethality")
+# issue 11, defect 6: each verdict names its scenario and every scenario's history is shown, in
+# every format (P70 at the chill's high end 60 W/m²K, the rule at its low end 20 W/m²K, h_ends.hpp).
+cli_expect(issue11_scenarios_text 0 ARGS run tests/cli/media-split/chill-credited.toml
+           STDOUT_HAS "  scenario 1: \"blast chill\" h 60 W/m²K (high end); targets: P70\n"
+                      "  scenario 2: \"blast chill\" h 20 W/m²K (low end); targets: two-stage-6h\n"
+                      "two-stage-6h: verdict from scenario 2")
+cli_expect(issue11_scenarios_csv 0 ARGS run tests/cli/media-split/chill-credited.toml --format csv
+           STDOUT_HAS "\nscenario,time_s,medium_C,centre_C,surface_C,mean_C,F_P70_min,lumped_centre_C\n1,0,96,4,4,4,0,4\n"
+                      "\n2,0,96,4,4,4,,\n"
+                      ", from scenario 2: \"blast chill\" h 20 W/m²K (low end)\n")
+cli_expect(issue11_scenarios_json 0 ARGS run tests/cli/media-split/chill-credited.toml --format json
+           STDOUT_HAS "\"scenarios\": " "\"scenario\": \"scenario 1: " "h 60 W/m²K (high end)\""
+                      "\"scenario\": \"scenario 2: " "h 20 W/m²K (low end)\"")
+cli_expect(issue11_scenarios_solve_html 0 ARGS solve tests/cli/media-split/chill-credited.toml --for hold-time --format html
+           STDOUT_HAS "id=\"figure-scenario1-lethality\"" "id=\"figure-scenario2-cooling\"")
+cli_expect(issue11_scenarios_html 0 ARGS run tests/cli/media-split/chill-credited.toml --format html
+           STDOUT_HAS "id=\"figure-scenario1-lethality\"" "id=\"figure-scenario2-cooling\"" "<th>scenario</th>")
 
 # Bad product files: refused by `coldcore run` with exit 2 and the exact message on their first line.
 file(GLOB COLDCORE_BAD_FILES ${PROJECT_SOURCE_DIR}/tests/cli/bad/*.toml)
@@ -202,6 +219,55 @@ cli_expect(probe_not_demonstrated 1 ARGS probe products/logs/kofta-probe.csv --r
 cli_expect(probe_unknown_organism 2 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogens --target-log 6
            STDERR_HAS "did you mean 'listeria-monocytogenes'")
 cli_expect(probe_nothing_asked 2 ARGS probe products/logs/kofta-probe.csv STDERR_HAS "give --organism KEY")
+
+# issue 11, defect 4: probe without a target reports what was delivered and claims no verdict, in
+# every format (constant 70 °C for 4 min: F70 = 4 min by the definition of F, 8 log10 with
+# D70 = 0.5 min; invented log tests/cli/probe/constant-70C.csv). Exit 0: nothing was asked.
+foreach(fmt text html)
+  cli_expect(issue11_probe_no_target_${fmt} 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+             --D-min 0.5 --format ${fmt} --date 2026-12-01
+             STDOUT_HAS "Delivered lethality (no target given: no verdict)" "F 4.00 min at 70.0 °C (z 7.50 °C), 8.00 log10"
+             STDOUT_LACKS "not demonstrated" "none given" "F needed"
+             STDERR_HAS "no target given (--target-log, or --F-min with own kinetics)")
+endforeach()
+cli_expect(issue11_probe_no_target_csv 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+           --D-min 0.5 --format csv --date 2026-12-01
+           STDOUT_HAS "# delivered, no target given, no verdict: own: F 4.00 min at 70.0 °C (z 7.50 °C), 8.00 log10\n"
+           STDOUT_LACKS "# verdict:" "not demonstrated" "none given" "F needed")
+cli_expect(issue11_probe_no_target_json 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+           --D-min 0.5 --format json --date 2026-12-01
+           STDOUT_HAS "\"assessment\": []" "\"verdict\": \"none: no target given\"" "\"F_s\": 240" "\"log_reduction\": 8"
+           STDOUT_LACKS "not demonstrated" "none given" "F needed")
+cli_expect(issue11_probe_no_target_organism 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes
+           STDOUT_HAS "Delivered lethality (no target given: no verdict)" "listeria-monocytogenes: F 868 min at 70.0 °C"
+           STDOUT_LACKS "not demonstrated" "none given" "F needed")
+# own kinetics without a D value: the delivered F alone (this used to be refused as "F = 0 min")
+cli_expect(issue11_probe_no_target_no_D 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+           STDOUT_HAS "Delivered lethality (no target given: no verdict)\n  own: F 4.00 min at 70.0 °C (z 7.50 °C)\n"
+           STDOUT_LACKS "not demonstrated" "log10" "F needed")
+# with a rule beside it, the rule alone carries a verdict (and the exit code)
+cli_expect(issue11_probe_no_target_with_rule 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes
+           --rule two-stage-6h
+           STDOUT_HAS "Delivered lethality (no target given: no verdict)" "two-stage-6h" " met\n"
+           STDOUT_LACKS "not demonstrated" "none given")
+# issue 11, probe stumble: a report about measured data says measured, names the log, its lot and
+# its clock time (2026-11-30T07:00:00+01:00 is 06:00:00 UTC), and never speaks of a model.
+cli_expect(issue11_probe_measured_html 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+           --F-min 3 --lot L-2026-11-30-A --format html --date 2026-12-01
+           STDOUT_HAS "coldcore probe: measured cold-spot log tests/cli/probe/constant-70C.csv, lot L-2026-11-30-A"
+                      "Engineering estimate from a measured temperature log" "Measured log"
+                      "2026-11-30 06:00:00 UTC" "measured by the probe" "time since the first reading, 2026-11-30 06:00:00 UTC (min)"
+           STDOUT_LACKS "conduction model" "centre (cold spot), exact" "Biot" "mass-average")
+# a cooling rule's steps on the log's clock: 57 °C crossed at 06:08:40 UTC by linear interpolation
+# (70 -> 55 °C from 06:00 to 06:10, invented log tests/cli/probe/timestamped-cooling.csv); limits 2 h
+# and 6 h (FDA Food Code 3-501.14, REFERENCES 2.2)
+cli_expect(issue11_probe_rule_clock 0 ARGS probe tests/cli/probe/timestamped-cooling.csv --rule two-stage-6h --max-gap-s 600
+           STDOUT_HAS "two-stage-6h: step 57 °C -> 21 °C: clock started 2026-11-30 06:08:40 UTC, deadline 2026-11-30 08:08:40 UTC"
+                      "two-stage-6h: step 57 °C -> 5 °C: clock started 2026-11-30 06:08:40 UTC, deadline 2026-11-30 12:08:40 UTC")
+cli_expect(issue11_probe_measured_csv 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
+           --F-min 3 --lot L-2026-11-30-A --format csv --date 2026-12-01
+           STDOUT_HAS "# lot: L-2026-11-30-A\n" "# first reading: 2026-11-30 06:00:00 UTC\n" "time_s,measured_C,F_own_min\n"
+           STDOUT_LACKS "conduction model")
 
 # The data libraries list their sources.
 foreach(verb organisms rules)

@@ -37,7 +37,7 @@ TEST_CASE("markdown has the same sections as html, and escapes table cells") {
   const std::string md = write_run_markdown(sample_report(), TempUnit::C, "x").markdown;
   for (const char* s : {"# Synthetic sample", "## Product and properties", "## Process stages", "## Plots",
                         "## Reading this report", "## Verdicts", "## Warnings", "## Assumptions", "## Provenance",
-                        "## Cautions", "Biot number (Bi) compares", "| not demonstrated |", "| met |",
+                        "## Cautions", "The Biot number compares", "| not demonstrated |", "| met |",
                         "2026-01-01T00:00:00Z"})
     CHECK_MESSAGE(md.find(s) != std::string::npos, std::string(s));
   CHECK(md.find("| pipe \\| and \\*stars\\* |") != std::string::npos);

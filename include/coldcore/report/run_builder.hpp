@@ -22,7 +22,12 @@ struct RunReportOptions {
 double volume_to_area_m(const Product& p);
 /// Smallest half-dimension (radius or half-thickness), m: the length of the stage Biot number.
 double smallest_half_dimension_m(const Product& p);
-/// Plain-words note on what a stage's Biot number means for lumped capacitance.
+/// Biot number on Lc = V/A: h·(V/A)/k. The one Bi the run report shows (table, notes, reading).
+/// REQUIRES h_W_m2K > 0 finite, conductivity > 0.
+double biot_volume_to_area(const Product& p, double h_W_m2K);
+/// Plain-words note on what a stage's Bi(V/A) means, by regime: < 0.1 lumped capacitance is fair;
+/// 0.1 to 1 the surface resistance dominates but the centre still lags; > 1 the resistance inside
+/// dominates (Bi = inside / surface resistance; lumped criterion on V/A, REFERENCES 3.2).
 std::string biot_note(const Product& p, const Stage& s);
 
 RunReport build_run_report(const io::ProductFile& file, const History& history, const RunReportOptions& opts);
@@ -33,15 +38,24 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
 void add_assessment(RunReport& report, const History& history, const Assessment& assessment,
                     const std::vector<Target>& targets);
 /// The same with each target's own history (the h scenario it was evaluated on,
-/// process/h_ends.hpp): history_of[i] for assessment.targets[i]. The report's rows and plots show
-/// the first target's scenario. REQUIRES history_of.size() == assessment.targets.size().
+/// process/h_ends.hpp): history_of[i] for assessment.targets[i]. The report's rows are the first
+/// target's scenario; add_scenarios adds every scenario's own. REQUIRES history_of.size() == assessment.targets.size().
 void add_assessment(RunReport& report, const std::vector<const History*>& history_of, const Assessment& assessment,
                     const std::vector<Target>& targets);
 
 /// Which h each per-target-range stage used, for which targets and why, as report assumptions
-/// (every format shows them); when the targets were split, also that the shown history is the
-/// first target's scenario and each verdict comes from its own.
+/// (every format shows them); when the targets were split, also that every verdict names its
+/// scenario and the report shows each scenario's history.
 void add_h_assumptions(RunReport& report, const process::Evaluation& e);
+
+/// When the targets were split over h scenarios (e.h_scenarios.size() > 1): one ScenarioView per
+/// scenario from the histories evaluate made (sampled every `step_s` (> 0) and at every stage
+/// end; no re-run), its label from its h choices, the F columns / required lines / rule boxes of
+/// its own targets; and each verdict row names its scenario. Stage Bi on V/A of `*p` (null: the
+/// engine's records, on the smallest half-dimension, as build_rerun_report's stage rows).
+/// REQUIRES report.verdicts parallel to e.assessment.targets (add_assessment first).
+void add_scenarios(RunReport& report, const process::Evaluation& e, const Product* p,
+                   const std::vector<Target>& targets, double step_s = 60);
 
 /// The report model of one forward re-run, for the plots of other verbs' rich reports (solve's
 /// verification, deviation's scheduled and delivered runs): stage rows from the history's own
@@ -51,6 +65,12 @@ void add_h_assumptions(RunReport& report, const process::Evaluation& e);
 /// ones the process layer computed.
 RunReport build_rerun_report(const History& history, const Assessment& assessment,
                              const std::vector<Target>& targets, double step_s = 60);
+
+/// The same from an Evaluation: each target's F column from the history of the h scenario it was
+/// evaluated on (process/h_ends.hpp) and, when the targets were split, add_scenarios (every
+/// scenario's history and plots; stage Bi of those views on V/A of `p`, else the engine's).
+RunReport build_rerun_report(const process::Evaluation& e, const std::vector<Target>& targets, double step_s = 60,
+                             const Product* p = nullptr);
 
 /// Verdict row of one target, shared by every verb that reports targets.
 VerdictRow verdict_row(const TargetResult& t);

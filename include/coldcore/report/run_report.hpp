@@ -1,7 +1,9 @@
 #pragma once
 /// The report model every writer reads: plain values, already computed. Writers format; they
 /// never recompute physics. Temperatures are stored in °C and converted by the writer.
+#include <cstddef>
 #include <iosfwd>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -22,8 +24,8 @@ struct StageRow {
   std::string medium;     ///< description of the medium schedule
   double h_W_m2K = 0;
   bool h_infinite = false;
-  double biot = 0;
-  std::string biot_note;  ///< plain words: what Bi means for lumped capacitance
+  double biot = 0;         ///< on the length RunReport::biot_length names
+  std::string biot_note;  ///< plain words: what Bi means (its regime), on the same length
   double centre_C = 0, surface_C = 0, mean_C = 0;  ///< at the stage's end
 };
 
@@ -47,9 +49,36 @@ struct VerdictRow {
   std::string margin;     ///< text, signed
   bool met = false;
   std::vector<std::string> details;  ///< per-stage shares, rule steps, flags
+  /// The h scenario behind this verdict when the targets were split over several (see
+  /// RunReport::scenarios), e.g. "scenario 2: \"blast chill\" h 60 W/m²K (high end)"; "" otherwise.
+  std::string scenario;
   // Numbers for machine-readable formats.
   double required_value = 0, achieved_value = 0, margin_value = 0;
   std::string value_unit;
+};
+
+/// What a lethality calculation delivered where no requirement was given: there is no verdict
+/// (neither "met" nor "not demonstrated"), only the delivered F and, when a D value is known,
+/// the log reductions. Shown in its own section in every format, never in the verdict table.
+struct DeliveredRow {
+  std::string name;
+  std::string kind;             ///< the lethality measure: "F-value" | "log-reduction"
+  std::string F_text;           ///< rounded down with its reference, e.g. "868 min at 70.0 °C (z 7.50 °C)"
+  std::string log_text;         ///< log10 reductions as shown (rounded down), "" without a D value
+  std::vector<std::string> details;
+  double F_s = 0;               ///< credited F, s
+  double reference_C = 0, z_C = 0;
+  std::optional<double> log_reduction;  ///< log10, when a D (or Weibull) value is known
+};
+
+/// A report about measured data (a probe log) rather than a model run: the writers then say
+/// "measured" in the lead, headings, plot legends and captions and "Reading this report", name
+/// the log and show its clock time, and never speak of a conduction model or a Biot number.
+struct MeasuredSource {
+  std::string log;                      ///< the log file as given
+  std::string lot;                      ///< lot or batch identifier; "" = not given (the report says so)
+  std::optional<double> start_unix_s;   ///< clock time of the first reading, s since 1970 UTC (timestamped logs)
+  std::size_t readings = 0;
 };
 
 /// A cooling-rule step drawn over the cooling curve: the checked temperature (the centre) must
@@ -71,6 +100,19 @@ struct TargetLine {
   std::string label;     ///< legend text; empty: "required <column> = <value>"
 };
 
+/// One h scenario of a run whose targets need different ends of an h range (process/h_ends.hpp):
+/// the history the verdicts of `targets` come from, sampled like RunReport::history, with the F
+/// columns, required lines and rule boxes of those targets only.
+struct ScenarioView {
+  int number = 1;                    ///< 1-based, as the report names it
+  std::string label;                 ///< "scenario 2: \"blast chill\" h 60 W/m²K (high end)"
+  std::vector<std::string> targets;  ///< names of the targets evaluated on it
+  std::vector<StageRow> stages;      ///< its stage records (times, h, Bi, temperatures at the ends)
+  HistoryTable history;
+  std::vector<TargetLine> target_lines;
+  std::vector<RuleBox> rule_boxes;
+};
+
 /// History column names the html and markdown writers recognise: time_s, medium_C, centre_C,
 /// surface_C, mean_C, the optional lumped_centre_C (the lumped-capacitance estimate of the
 /// centre, drawn beside the exact centre when present) and F_<name>_min (cumulative lethality).
@@ -79,6 +121,11 @@ struct RunReport {
   std::string verb;                      ///< "run", "modes", ...
   std::vector<KeyValue> product;         ///< product and property rows
   std::vector<StageRow> stages;
+  /// The length every StageRow::biot is built on: a short name ("V/A" for the volume over the
+  /// surface area) and its value; shown in the Bi column header, the notes and "Reading this
+  /// report". Empty: not stated (plain "Bi").
+  std::string biot_length;
+  double biot_length_m = 0;
   HistoryTable history;
   std::vector<VerdictRow> verdicts;
   std::vector<std::string> warnings;
@@ -87,10 +134,28 @@ struct RunReport {
   std::vector<std::string> cautions;     ///< always filled from cautions()
   std::vector<RuleBox> rule_boxes;       ///< cooling-rule steps to draw (may be empty)
   std::vector<TargetLine> target_lines;  ///< required values to draw (may be empty)
+  std::vector<DeliveredRow> delivered;   ///< lethality without a requirement: no verdict (may be empty)
+  /// Empty unless the targets were split over two or more h scenarios; then one view per
+  /// scenario, and every format shows each scenario's history: text a stage table per scenario,
+  /// md/html plots per scenario, json "scenarios" (history per scenario), csv one block per
+  /// scenario (a leading `scenario` column). `history` stays scenario 1.
+  std::vector<ScenarioView> scenarios;
+  std::optional<MeasuredSource> measured;  ///< set: a report about measured data (probe)
 };
 
 /// "met" or "not demonstrated".
 std::string_view verdict_word(bool met);
+/// A Biot number as shown: 3 decimals, or 2 significant digits below 0.01.
+std::string biot_number_text(double biot);
+/// "2026-11-30 06:00:00 UTC" for a clock time in s since 1970 UTC (whole seconds, rounded down
+/// after a 1 µs allowance for binary representation).
+std::string utc_text(double unix_s);
+/// The delivered row's one-line summary: "F 868 min at 70.0 °C (z 7.50 °C), 2600 log10".
+std::string delivered_text(const DeliveredRow& d);
+/// Heading of the delivered section: what it is and that no verdict is claimed.
+std::string_view delivered_heading();
+/// "Bi(V/A)" for a report whose Bi are built on V/A; "Bi" when the length is not stated.
+std::string biot_symbol(const RunReport& r);
 
 void write_run_text(const RunReport& r, std::ostream& out, TempUnit u);
 void write_run_json(const RunReport& r, std::ostream& out, TempUnit u);
