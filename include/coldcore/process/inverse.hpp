@@ -148,6 +148,11 @@ struct SolveResult {
   std::string end_point;       ///< "centre" | "mass average"
   double end_at_rounded_C = 0;
   std::optional<double> end_at_less_C;
+  /// "Reached" means below end_C by more than end_tol_K (the model's temperature accuracy); for
+  /// chill-time the re-runs' considered_met is this condition and their margin end_C − T (K).
+  double end_tol_K = 0;
+  bool end_reached_at_rounded = false;
+  std::optional<bool> end_reached_at_less;
 };
 
 /// Answers one question. Throws NoSolution (with the reason), InputError (bad stage or option),

@@ -49,6 +49,7 @@ struct VerdictRow {
   std::vector<std::string> details;  ///< per-stage shares, rule steps, flags
   // Numbers for machine-readable formats.
   double required_value = 0, achieved_value = 0, margin_value = 0;
+  double margin_uncertainty_value = 0;  ///< error bound of margin_value ("met" needs margin above it)
   std::string value_unit;
 };
 
