@@ -131,11 +131,15 @@ void decide(TargetResult& r, const ShownUnit& u) {
     r.margin_text = "0" + u.suffix;
     r.margin_shown = "exactly at the required value";
     r.verdict_text = "not demonstrated — exactly at the required value: not demonstrated by a positive margin";
+    r.notes.push_back("exactly at the required value: not demonstrated by a positive margin");
   } else if (std::abs(r.margin) <= r.margin_uncertainty) {
     r.margin_text = "±" + shown_up(r.margin_uncertainty * u.scale, 2) + u.suffix;
     r.margin_shown = "within the numerical uncertainty (" + r.margin_text + ")";
     r.verdict_text = "not demonstrated — within the numerical uncertainty of the target (margin " +
                      signed_small(r.margin, u) + ", uncertainty " + r.margin_text + ")";
+    r.notes.push_back("within the numerical uncertainty of the target: the margin " + signed_small(r.margin, u) +
+                      " is inside the computation's error bound " + r.margin_text +
+                      " (integration error, temperature accuracy, crossing times, unit rounding)");
   } else {
     r.margin_text = shown_up(-r.margin * u.scale) + u.suffix;
     r.verdict_text = "not demonstrated, shortfall " + r.margin_text;
@@ -450,7 +454,7 @@ void cooling_result(TargetResult& r, const CoolingCheck& c, const CoolingRule& r
   // Never reached: no positive margin. The temperature at the end of the process is the result.
   r.verdict = Verdict::not_demonstrated;
   const std::string at_end =
-      s.temp_at_record_end_C ? temp_token(*s.temp_at_record_end_C, 3) + " at the end" : "no temperature";
+      s.temp_at_record_end_C ? temp_token_fixed(*s.temp_at_record_end_C, 2) + " at the end" : "no temperature";
   const std::string what = s.start_s ? "not reached by the end of the process" : "clock never started by the end of the process";
   r.achieved_text = std::string(s.start_s ? "not reached" : "clock never started") + " (" + at_end + ")";
   r.margin_uncertainty = 0;
