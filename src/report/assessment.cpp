@@ -62,6 +62,12 @@ std::string shown(double value, int significant, bool up) {
 std::string shown_down(double value, int significant) { return shown(value, significant, false); }
 std::string shown_up(double value, int significant) { return shown(value, significant, true); }
 
+std::string shown_log_reduction(double logs, double required_logs) {
+  const double n = std::max(kMeaningfulLogReduction, std::ceil(required_logs));
+  if (logs > n) return "more than " + detail::num(n) + " log10";
+  return shown_down(logs) + " log10";
+}
+
 namespace {
 
 std::string minutes_down(double s) { return shown_down(s / 60.0) + " min"; }
@@ -171,7 +177,7 @@ void cap_log_reduction_text(TargetResult& r) {
   const double n = std::max(kMeaningfulLogReduction, std::ceil(r.required));
   if (!(r.achieved > n)) return;
   const std::string n_text = detail::num(n);
-  r.achieved_text = "more than " + n_text + " log10 (credited F " + minutes_down(r.F_s) + ")";
+  r.achieved_text = shown_log_reduction(r.achieved, r.required) + " (credited F " + minutes_down(r.F_s) + ")";
   if (r.verdict == Verdict::met) {
     r.margin_text = "more than " + shown_down(n - r.required) + " log10";
     r.verdict_text = "met, margin " + r.margin_text;
@@ -502,18 +508,36 @@ void cooking_result(TargetResult& r, const CookingCheck& c, double fraction_unce
 
 // Error bound of Φ: every crossing of a row temperature moves time between the bands around it,
 // by at most its crossing error over that row's hold; an instant row whose peak is within the
-// temperature accuracy is undecided (infinite).
-double cooking_uncertainty(const detail::Curve& c, const CookingTable& table, const CrossingError& err, double tol_K) {
+// temperature accuracy is undecided (infinite); with the instant row reached, only that row
+// decides. One scan of the grid finds the crossings; the slope at a crossing is taken as the
+// smallest of the interval's secant and the one-sided slopes at its ends (a lower bound of |T'|
+// inside an interval without an inflection; the grid is fine enough for the scan's own crossings).
+double cooking_uncertainty(const detail::Curve& c, const CookingTable& table, const CookingCheck& check,
+                           double tol_K) {
+  const std::vector<double> g = c.grid(c.start());
+  std::vector<double> T(g.size());
+  double hi = -std::numeric_limits<double>::infinity();
+  for (std::size_t i = 0; i < g.size(); ++i) hi = std::max(hi, T[i] = c.temp_C_at(g[i]));
+  for (const auto& row : table.rows)
+    if (row.hold_s <= 0 && tol_K > 0 && hi >= row.temp_C && hi - row.temp_C <= tol_K)
+      return std::numeric_limits<double>::infinity();
+  if (check.instant_reached_s) return 0;
   double u = 0;
-  for (const auto& row : table.rows) {
-    if (row.hold_s <= 0) {
-      const double peak = c.max_on_grid().first;
-      if (tol_K > 0 && peak >= row.temp_C && peak - row.temp_C <= tol_K) return std::numeric_limits<double>::infinity();
-      continue;
-    }
-    for (const auto& [a, b] : c.intervals_at_or_above(row.temp_C, c.start())) {
-      if (a > c.start()) u += err(a, row.temp_C) / row.hold_s;
-      if (b < c.end()) u += err(b, row.temp_C) / row.hold_s;
+  for (std::size_t i = 0; i + 1 < g.size(); ++i) {
+    const double lo_T = std::min(T[i], T[i + 1]), hi_T = std::max(T[i], T[i + 1]);
+    if (!(hi_T > lo_T)) continue;
+    double slope = -1;  // computed once per interval, only when a row is crossed in it
+    for (const auto& row : table.rows) {
+      if (row.hold_s <= 0 || !(row.temp_C > lo_T && row.temp_C <= hi_T)) continue;
+      if (slope < 0) {
+        const double w = g[i + 1] - g[i], d = std::min(1e-3, w / 4);
+        const double s_a = std::abs(c.temp_C_at(g[i] + d) - T[i]) / d;
+        const double s_b = std::abs(T[i + 1] - c.temp_C_at(g[i + 1] - d)) / d;
+        slope = std::min({(hi_T - lo_T) / w, s_a, s_b});
+      }
+      const double e = refine_tol_s(g[i + 1]) +
+                       (tol_K > 0 ? (slope > 0 ? tol_K / slope : std::numeric_limits<double>::infinity()) : 0.0);
+      u += e / row.hold_s;
     }
   }
   return u;
@@ -647,6 +671,10 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
           }
           r.F_outside_range_s = outside_range(h, centre, res.k, r.credited_stages, opts.rel_tol);
         }
+        // The quadrature stops when its error estimate is within rel_tol·F (integrate.hpp), so
+        // rel_tol·F bounds it; taken as the bound (not the estimate itself, which jumps as the
+        // adaptive mesh changes) so that the margin stays smooth in a solve's parameter.
+        F_err_s = std::max(F_err_s, opts.rel_tol * r.F_s);
         F_err_s += r.F_s * f_relative_error_of_temperature(res.k, tol_K);
         lethality_verdict(r, t, res, opts, place, F_err_s);
         provenance_notes(r, res);
@@ -673,8 +701,8 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         c.temp_C_at = T_at;
         c.knots = knots(h, t0, t1);
         c.probes = probes_for(c.knots);
-        cooking_result(r, check_cooking_table(h, table, t.at == "mean"),
-                       cooking_uncertainty(c, table, crossing_error(T_at, tol_K, t0, t1), tol_K));
+        const CookingCheck check = check_cooking_table(h, table, t.at == "mean");
+        cooking_result(r, check, cooking_uncertainty(c, table, check, tol_K));
         break;
       }
       case TargetKind::centre_min_temperature: {
@@ -804,8 +832,8 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
       }
       case TargetKind::cooking_table: {
         const CookingTable& table = cooking_table_for(t, place, opts);
-        const CrossingError err = crossing_error(curve.temp_C_at, 0.0, curve.start(), curve.end());
-        cooking_result(r, check_cooking_table(times_s, temps_C, table, origin), cooking_uncertainty(curve, table, err, 0.0));
+        const CookingCheck check = check_cooking_table(times_s, temps_C, table, origin);
+        cooking_result(r, check, cooking_uncertainty(curve, table, check, 0.0));
         break;
       }
       case TargetKind::centre_min_temperature:

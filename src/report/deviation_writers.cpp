@@ -164,7 +164,8 @@ void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i
     if (t.lethality) {
       out << "    F scheduled " << min_down(t.scheduled_F_s) << ", delivered " << min_down(t.delivered_F_s);
       if (t.scheduled_logs && t.delivered_logs)
-        out << "; log reduction scheduled " << shown_down(*t.scheduled_logs) << ", delivered " << shown_down(*t.delivered_logs);
+        out << "; log reduction scheduled " << shown_log_reduction(*t.scheduled_logs) << ", delivered "
+            << shown_log_reduction(*t.delivered_logs);
       out << "\n";
     }
     out << "    scheduled: " << t.scheduled.verdict_text << "\n    delivered: " << t.delivered.verdict_text

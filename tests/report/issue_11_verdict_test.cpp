@@ -314,3 +314,11 @@ TEST_CASE("issue 11: a cooking table met by exactly its hold time is a tie") {
   CHECK(verdict_for(up_ulps(row.hold_s, 4)).verdict == Verdict::not_demonstrated);
   CHECK(verdict_for(row.hold_s + 60).verdict == Verdict::met);
 }
+
+TEST_CASE("issue 11: shown_log_reduction words every writer's log count the same way") {
+  // 80.5 log10 is the corned-beef deviation example's 12D count (F0 16.9 min / D 0.21 min).
+  CHECK(shown_log_reduction(80.5) == "more than 15 log10");
+  CHECK(shown_log_reduction(15.0) == "15.0 log10");
+  CHECK(shown_log_reduction(6.999) == "6.99 log10");   // rounded down
+  CHECK(shown_log_reduction(18.0, 16.5) == "more than 17 log10");  // the target's own requirement raises N
+}

@@ -51,7 +51,8 @@ struct AssessOptions {
   double out_of_range_flag_fraction = 1e-3;
   /// Accuracy (K) of the History's temperatures, for the margin's error bound: the engine's
   /// HistoryOptions::tol_K of the run [1e-4, the engine default]. Not used for measured logs,
-  /// whose rows are the data.
+  /// whose rows are the data. (solve's search runs, at 1e-3 K, are assessed with this default:
+  /// their verdicts only steer the search; every reported re-run uses the engine default.)
   double temperature_tol_K = 1e-4;
 };
 
@@ -152,6 +153,10 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
                                  const std::vector<Target>& targets, const OrganismLibrary& organisms,
                                  const RuleLibrary& rules, const AssessOptions& opts = {},
                                  std::string_view origin = "log");
+
+/// A log reduction as shown anywhere: "6.00 log10" rounded down, or "more than N log10" beyond
+/// N = max(kMeaningfulLogReduction, ceil(required_logs)) (the count is then no result).
+std::string shown_log_reduction(double logs, double required_logs = 0);
 
 /// Rounding used for shown values: 3 significant figures, toward −∞ (down) or +∞ (up).
 std::string shown_down(double value, int significant = 3);
