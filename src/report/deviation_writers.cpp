@@ -94,6 +94,7 @@ void json_targets_and_hold(JsonWriter& w, const DeviationResult& r) {
     w.key("verdict").value(to_string(t.verdict));
     w.key("scheduled_verdict").value(to_string(t.scheduled.verdict));
     w.key("delivered_margin").value(t.delivered.margin);
+    w.key("delivered_margin_uncertainty").value(t.delivered.margin_uncertainty);
     w.key("delivered_verdict_text").value(t.delivered.verdict_text);
     w.key("scheduled_verdict_text").value(t.scheduled.verdict_text);
     w.end_object();
