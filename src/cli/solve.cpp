@@ -99,7 +99,7 @@ int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side) {
     default: write_solve_text(r, c, out, u); break;
   }
   // The answer exists; the exit code says whether its re-run meets every target.
-  const bool ok = q == process::Question::chill_time ? r.end_C && r.end_at_rounded_C < *r.end_C
+  const bool ok = q == process::Question::chill_time ? r.end_C && r.end_reached_at_rounded
                                                      : r.verification.eval.considered_met;
   // A conservative question without an answer is not a demonstrated process either.
   const bool cons_ok = !cons || (cons->result && cons->result->verification.eval.considered_met);

@@ -185,6 +185,7 @@ CoolingCheck check_curve(const detail::Curve& c, const CoolingRule& rule, const 
       }
       r.passed = r.reached && r.margin_s > 0;
     }
+    if (!r.reached) r.temp_at_record_end_C = c.temp_C_at(c.end());
     if (st.advisory) {
       if (!r.passed)
         out.notes.push_back("flag: " + st.label + " took longer than " + minutes(st.within_s) +

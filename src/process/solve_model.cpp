@@ -19,10 +19,13 @@ double target_margin(const TargetResult& r) {
   if (is_lethality(r.kind) && r.F_required_s > 0) {
     // F/F_required − 1 is monotone in F for log-linear and Weibull targets alike, and finite at F = 0.
     m = r.F_s / r.F_required_s - 1.0;
+    // Less the margin's error bound (issue 11), relative: exact for F and log-linear targets,
+    // first order for Weibull; it keeps the margin continuous where the verdict turns "met".
+    if (r.required > 0) m -= r.margin_uncertainty / r.required;
   } else if (r.required > 0) {
-    m = r.margin / r.required;
+    m = (r.margin - r.margin_uncertainty) / r.required;
   } else {
-    m = r.margin;
+    m = r.margin - r.margin_uncertainty;
   }
   // The sign must agree with the verdict: the root finder's "feasible" is the report's "met".
   constexpr double kTiny = 1e-12;

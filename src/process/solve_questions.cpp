@@ -257,20 +257,40 @@ SolveResult chill_time(const Scenario& s, const Libraries& libs, const SolveOpti
   }
   res.answer = res.root.x;
   res.unit_step = o.unit_s;
+  // "Reached" needs the end temperature beaten by more than the long run's temperature accuracy
+  // (HistoryOptions::tol_K; issue 11: never "met" inside the error bound). The answer and both
+  // re-runs apply this one condition: a re-run's considered_met IS the end condition, and its
+  // margin is end_C − the temperature at the end (K).
+  const double tol_K = HistoryOptions{}.tol_K;
+  const auto reached = [&](double t) { return end_C - where(t) > tol_K; };
   res.rounded = round_to_unit(res.answer, o.unit_s, FeasibleSide::above);
-  if (where(res.rounded) >= end_C) res.rounded += o.unit_s;  // a tie is not "reached"
-  res.verification = check_at(st, libs, res.rounded);
-  if (res.rounded - o.unit_s >= 0) res.one_unit_less = check_at(st, libs, res.rounded - o.unit_s);
+  for (int i = 0; i < 3 && !reached(res.rounded); ++i) res.rounded += o.unit_s;  // a tie is not "reached"
+  const auto end_check = [&](double x) {
+    Check c = check_at(st, libs, x);
+    c.eval.margin = end_C - where(x);
+    c.eval.considered_met = reached(x);
+    return c;
+  };
+  res.verification = end_check(res.rounded);
+  if (res.rounded - o.unit_s >= 0) res.one_unit_less = end_check(res.rounded - o.unit_s);
   res.end_C = end_C;
+  res.end_tol_K = tol_K;
   res.end_point = point;
   res.end_at_rounded_C = where(res.rounded);
-  if (res.one_unit_less) res.end_at_less_C = where(res.rounded - o.unit_s);
+  res.end_reached_at_rounded = reached(res.rounded);
+  if (res.one_unit_less) {
+    res.end_at_less_C = where(res.rounded - o.unit_s);
+    res.end_reached_at_less = reached(res.rounded - o.unit_s);
+  }
   res.considered = {point + " at or below " + temp_token(end_C, 4)};
   res.notes.push_back("the " + point + " reaches " + temp_token(end_C, 4) + " after " + num(res.answer, 7) +
                       " s of the stage; at the rounded duration it is " + temp_token(where(res.rounded), 6));
   if (res.one_unit_less)
     res.notes.push_back("one unit less (" + num(res.rounded - o.unit_s) + " s) leaves the " + point + " at " +
-                        temp_token(where(res.rounded - o.unit_s), 6) + ", above the end temperature");
+                        temp_token(where(res.rounded - o.unit_s), 6) +
+                        (*res.end_reached_at_less ? ", below the end temperature"
+                                                  : ", not below the end temperature by more than the model's "
+                                                    "temperature accuracy (" + num(tol_K) + " K)"));
   res.assumptions.push_back("chill-time answers the end temperature; the cooling rules are checked on the re-run "
                             "and reported as they come out, met or not");
   return res;

@@ -62,38 +62,131 @@ std::string shown(double value, int significant, bool up) {
 std::string shown_down(double value, int significant) { return shown(value, significant, false); }
 std::string shown_up(double value, int significant) { return shown(value, significant, true); }
 
+std::string shown_log_reduction(double logs, double required_logs) {
+  const double n = std::max(kMeaningfulLogReduction, std::ceil(required_logs));
+  if (logs > n) return "more than " + detail::num(n) + " log10";
+  return shown_down(logs) + " log10";
+}
+
 namespace {
 
 std::string minutes_down(double s) { return shown_down(s / 60.0) + " min"; }
 std::string minutes_up(double s) { return shown_up(s / 60.0) + " min"; }
 
+// ---- Error bounds of a margin (issue 11: "met" on a margin of rounding noise) ----
+
+constexpr double kEps = std::numeric_limits<double>::epsilon();
+
+// Rounding of the unit conversions behind a margin (min × 60, D_min × 60, °F → °C, h × 3600)
+// and of the subtraction itself: a few ulp of the operands. A margin inside it is a tie.
+double rounding_bound(double a, double b) { return 16 * kEps * (std::abs(a) + std::abs(b)); }
+
+// Crossing-time error of detail::Curve::refine (toms748 to 1e-9 s + 1e-15·t; either end of the
+// final bracket may be returned, so twice that).
+double refine_tol_s(double t) { return 2 * (1e-9 + 1e-15 * std::abs(t)); }
+
+// Error of a crossing time at t when the temperatures are accurate to tol_K: the root finder's
+// tolerance plus tol_K / |dT/dt| (a temperature error moves the crossing by that much). A
+// tangent crossing (slope 0) has no bound: infinite, so nothing resting on it is "met".
+double crossing_uncertainty_s(const std::function<double(double)>& T, double t, double tol_K, double lo,
+                              double hi) {
+  double u = refine_tol_s(t);
+  if (tol_K > 0) {
+    const double step = std::max(1e-3, 1e-7 * std::abs(t));
+    const double a = std::max(lo, t - step), b = std::min(hi, t + step);
+    const double slope = b > a ? std::abs(T(b) - T(a)) / (b - a) : 0.0;
+    u += slope > 0 ? tol_K / slope : std::numeric_limits<double>::infinity();
+  }
+  return u;
+}
+
+// Relative error of F on a history whose temperatures are accurate to tol_K: the lethal rate
+// 10^((T − Tref)/z) moves by the factor 10^(±tol_K/z), so F by at most ln 10 · tol_K / z (first
+// order; the split-z kinetics use the smaller z, the larger sensitivity).
+double f_relative_error_of_temperature(const Kinetics& k, double tol_K) {
+  double z = k.z_C;
+  if (k.z_below_C && *k.z_below_C > 0) z = std::min(z, *k.z_below_C);
+  return z > 0 ? std::expm1(std::log(10.0) * tol_K / z) : 0.0;
+}
+
+// How a kind's raw values are shown: scale to the shown unit and its suffix.
+struct ShownUnit {
+  double scale = 1;
+  std::string suffix;
+};
+const ShownUnit kLog{1.0, " log10"};
+const ShownUnit kMin{1.0 / 60.0, " min"};
+
+std::string signed_small(double v, const ShownUnit& u) {
+  return (v > 0 ? "+" + shown_down(v * u.scale, 2) : "-" + shown_up(-v * u.scale, 2)) + u.suffix;
+}
+
+// The verdict and the margin and verdict texts from r.margin and r.margin_uncertainty (every
+// error term but rounding, which is added here). "met" needs margin > margin_uncertainty; a tie
+// (|margin| within rounding) and a margin inside the bound are named as such, never "shortfall 0".
+void decide(TargetResult& r, const ShownUnit& u) {
+  const double tie = rounding_bound(r.required, r.achieved);
+  r.margin_uncertainty = std::max(0.0, r.margin_uncertainty) + tie;
+  r.verdict = r.margin > r.margin_uncertainty ? Verdict::met : Verdict::not_demonstrated;
+  r.margin_shown.clear();
+  if (r.verdict == Verdict::met) {
+    const std::string m = shown_down(r.margin * u.scale);
+    r.margin_text = (std::stod(m) == 0 ? "< " + shown_up(r.margin * u.scale, 1) : m) + u.suffix;
+    r.verdict_text = "met, margin " + r.margin_text;
+  } else if (std::abs(r.margin) <= tie) {
+    r.margin_text = "0" + u.suffix;
+    r.margin_shown = "exactly at the required value";
+    r.verdict_text = "not demonstrated — exactly at the required value: not demonstrated by a positive margin";
+    r.notes.push_back("exactly at the required value: not demonstrated by a positive margin");
+  } else if (std::abs(r.margin) <= r.margin_uncertainty) {
+    r.margin_text = "±" + shown_up(r.margin_uncertainty * u.scale, 2) + u.suffix;
+    r.margin_shown = "within the numerical uncertainty (" + r.margin_text + ")";
+    r.verdict_text = "not demonstrated — within the numerical uncertainty of the target (margin " +
+                     signed_small(r.margin, u) + ", uncertainty " + r.margin_text + ")";
+    r.notes.push_back("within the numerical uncertainty of the target: the margin " + signed_small(r.margin, u) +
+                      " is inside the computation's error bound " + r.margin_text +
+                      " (integration error, temperature accuracy, crossing times, unit rounding)");
+  } else {
+    r.margin_text = shown_up(-r.margin * u.scale) + u.suffix;
+    r.verdict_text = "not demonstrated, shortfall " + r.margin_text;
+  }
+}
+
 // Verdict and texts for targets where a larger achieved value is better; log_units selects
-// log10 or minutes.
+// log10 or minutes. r.margin_uncertainty holds the error terms of the computation.
 void finish(TargetResult& r, bool log_units) {
-  r.verdict = r.margin > 0 ? Verdict::met : Verdict::not_demonstrated;
   if (log_units) {
     r.unit = "log10";
     r.required_text = shown_up(r.required) + " log10";
     r.achieved_text = shown_down(r.achieved) + " log10";
-    if (r.margin > 0) {
-      const std::string m = shown_down(r.margin);
-      r.margin_text = (m == "0" || std::stod(m) == 0 ? "< " + shown_up(r.margin, 1) : m) + " log10";
-    } else {
-      r.margin_text = shown_up(-r.margin) + " log10";
-    }
   } else {
     r.unit = "min";
     r.required_text = minutes_up(r.required);
     r.achieved_text = minutes_down(r.achieved);
-    if (r.margin > 0) {
-      const std::string m = shown_down(r.margin / 60.0);
-      r.margin_text = (std::stod(m) == 0 ? "< " + shown_up(r.margin / 60.0, 1) : m) + " min";
-    } else {
-      r.margin_text = minutes_up(-r.margin);
-    }
   }
-  r.verdict_text = r.verdict == Verdict::met ? "met, margin " + r.margin_text
-                                             : "not demonstrated, shortfall " + r.margin_text;
+  decide(r, log_units ? kLog : kMin);
+}
+
+// Log reductions beyond N = max(15, the requirement rounded up) are not a result. Why 15: D- and
+// Weibull data are fitted to survivor counts over at most about 7–9 log cycles (challenge inocula
+// of 10^7–10^9 per g down to a detection limit near 1 per g: common practice, from memory), and no
+// target in common use asks more than 12 (the botulinum cook, 12D: common practice). A count
+// above 15 extrapolates the survivor curve past anything a validation could observe; the text
+// shows "more than N log10" with the credited F, and the raw count stays in `achieved`.
+void cap_log_reduction_text(TargetResult& r) {
+  const double n = std::max(kMeaningfulLogReduction, std::ceil(r.required));
+  if (!(r.achieved > n)) return;
+  const std::string n_text = detail::num(n);
+  r.achieved_text = shown_log_reduction(r.achieved, r.required) + " (credited F " + minutes_down(r.F_s) + ")";
+  if (r.verdict == Verdict::met) {
+    r.margin_text = "more than " + shown_down(n - r.required) + " log10";
+    r.verdict_text = "met, margin " + r.margin_text;
+  }
+  r.notes.push_back("log reductions above " + n_text +
+                    " are not shown as a count: kinetic data are fitted over at most about 9 log cycles "
+                    "and no target in common use asks more than 12 (the botulinum cook), so a larger count "
+                    "extrapolates the survivor curve past anything a validation could observe (common "
+                    "practice; the 9 cycles from memory); the credited F is the result");
 }
 
 struct Resolved {
@@ -168,10 +261,12 @@ std::vector<double> knots_of(const detail::Curve& c, double a, double b) {
 int probes_for(const std::vector<double>& k) { return k.size() > 2000 ? 1 : 4; }
 
 double f_between(const History& h, const std::function<double(double)>& T, double a, double b,
-                 const Kinetics& k, double rel_tol) {
+                 const Kinetics& k, double rel_tol, double* error_estimate_s = nullptr) {
   if (!(b > a)) return 0;
   const auto bp = knots(h, a, b, 512);
-  return f_value(T, bp, k, rel_tol).F_s;
+  const LethalityResult lr = f_value(T, bp, k, rel_tol);
+  if (error_estimate_s) *error_estimate_s += lr.error_estimate_s;
+  return lr.F_s;
 }
 
 std::vector<int> credited(const Target& t, const History& h, const std::string& place) {
@@ -234,9 +329,11 @@ double outside_range(const History& h, const std::function<double(double)>& T, c
   return out;
 }
 
-// Required F and log bookkeeping shared by History and probe assessment.
+// Required F and log bookkeeping shared by History and probe assessment. F_uncertainty_s is the
+// error bound of r.F_s (quadrature estimate, temperature accuracy or summation rounding); it is
+// carried into the target's unit through the same (monotone) conversion as F itself.
 void lethality_verdict(TargetResult& r, const Target& t, const Resolved& res, const AssessOptions& o,
-                       const std::string& place) {
+                       const std::string& place, double F_uncertainty_s) {
   const Kinetics& k = res.k;
   if (t.kind == TargetKind::log_reduction) {
     if (!(t.log_reduction > 0))
@@ -246,18 +343,22 @@ void lethality_verdict(TargetResult& r, const Target& t, const Resolved& res, co
       throw InputError(place + ": organism = \"" + k.key +
                        "\": has no D value; a log-reduction target needs D_ref (or Weibull data)");
     r.required = t.log_reduction;
+    const auto logs = [&](double F_s) {
+      return weibull ? log_reduction_weibull(F_s, k) : log_reduction_linear(F_s, k);
+    };
     if (weibull) {
-      r.achieved = log_reduction_weibull(r.F_s, k);
       r.F_required_s = k.weibull->delta_ref_s * std::pow(t.log_reduction, 1.0 / k.weibull->p);
       r.notes.push_back("Weibull survival (delta = " + shown_down(k.weibull->delta_ref_s / 60) +
                         " min at " + temp_token(k.reference_C, 10) + ", p = " +
                         detail::num(k.weibull->p) + "): log10 reduction = (F/delta)^p");
     } else {
-      r.achieved = log_reduction_linear(r.F_s, k);
       r.F_required_s = t.log_reduction * *k.D_ref_s;
     }
+    r.achieved = logs(r.F_s);
     r.margin = r.achieved - r.required;
+    r.margin_uncertainty = logs(r.F_s + F_uncertainty_s) - r.achieved;
     finish(r, true);
+    cap_log_reduction_text(r);
   } else {
     if (!(t.F_required_s > 0))
       throw InputError(place + ".F = " + detail::num(t.F_required_s / 60) + " min: must be > 0");
@@ -265,6 +366,7 @@ void lethality_verdict(TargetResult& r, const Target& t, const Resolved& res, co
     r.F_required_s = t.F_required_s;
     r.achieved = r.F_s;
     r.margin = r.achieved - r.required;
+    r.margin_uncertainty = F_uncertainty_s;
     finish(r, false);
   }
 }
@@ -278,60 +380,167 @@ std::string label_of(const Target& t) {
   return to_string(t.kind);
 }
 
-void cooling_result(TargetResult& r, const CoolingCheck& c, const CoolingRule& rule) {
+// Error bound (s) of a crossing time on the checked curve; 0 for a time that is no crossing.
+using CrossingError = std::function<double(double time_s, double level_C)>;
+
+// The rule's row carries the BINDING step: the one that decides the verdict (issue 11). Each
+// non-advisory step is ranked by margin − its error bound; a step never reached (or whose clock
+// never started) has no positive margin, min(0, limit − elapsed lower bound), so it binds over any
+// passed step. When every step passes but the chill-start condition does not (or is not known),
+// the condition is the row.
+void cooling_result(TargetResult& r, const CoolingCheck& c, const CoolingRule& rule, const CrossingError& err) {
   r.cooling = c;
   r.source = rule.source;
-  // The tightest non-advisory step gives the headline numbers.
-  const CoolingStepResult* worst = nullptr;
-  for (const auto& s : c.steps)
-    if (!s.step.advisory && (!worst || s.margin_s < worst->margin_s)) worst = &s;
-  if (worst) {
-    r.required = worst->step.within_s;
-    r.achieved = worst->elapsed_s;
-    r.margin = worst->margin_s;
+  r.unit = "min";
+  const CoolingStepResult* binding = nullptr;
+  double binding_margin = 0, binding_err = 0;
+  for (const auto& s : c.steps) {
+    if (s.step.advisory) continue;
+    const double m = s.reached ? s.margin_s : std::min(0.0, s.margin_s);
+    double e = 0;
+    if (s.reached && s.start_s && s.end_s) e = err(*s.start_s, s.step.from_C) + err(*s.end_s, s.step.to_C);
+    if (!binding || m - e < binding_margin - binding_err) {
+      binding = &s;
+      binding_margin = m;
+      binding_err = e;
+    }
   }
   for (const auto& s : c.steps)
     for (const auto& n : s.notes) r.notes.push_back(s.step.label + ": " + n);
   for (const auto& n : c.notes) r.notes.push_back(n);
-  r.unit = "min";
-  // Elapsed is a bad quantity here: shown up; margin shown down.
-  r.required_text = minutes_down(r.required);
-  r.achieved_text = minutes_up(r.achieved);
-  r.verdict = c.passed && r.margin > 0 ? Verdict::met : Verdict::not_demonstrated;
-  if (r.margin > 0) {
-    const std::string m = shown_down(r.margin / 60.0);
-    r.margin_text = (std::stod(m) == 0 ? "< " + shown_up(r.margin / 60.0, 1) : m) + " min";
-  } else {
-    r.margin_text = minutes_up(-r.margin);
+  const bool steps_ok = binding && binding->reached && binding_margin > binding_err;
+  const bool condition_row =
+      rule.chill_start_within_s && (!binding || steps_ok) &&
+      (!c.chill_delay_margin_s || !binding || *c.chill_delay_margin_s <= binding_margin - binding_err);
+  if (condition_row) {
+    r.required = *rule.chill_start_within_s;
+    r.required_text = minutes_down(r.required) + " (chilling begun after the cook)";
+    if (!c.chill_delay_s || !c.chill_delay_margin_s) {
+      r.achieved = 0;
+      r.margin = 0;
+      r.margin_uncertainty = 0;
+      r.verdict = Verdict::not_demonstrated;
+      r.achieved_text = "not known";
+      r.margin_text = "none";
+      r.margin_shown = "none: the time from the end of the cook to the start of chilling is not known";
+      r.verdict_text = "not demonstrated — the time from the end of the cook to the start of chilling is not known";
+      return;
+    }
+    r.achieved = *c.chill_delay_s;
+    r.margin = *c.chill_delay_margin_s;
+    r.margin_uncertainty = 0;  // both times are given or are stage boundaries, not crossings
+    r.achieved_text = minutes_up(r.achieved);
+    decide(r, kMin);
+    return;
   }
-  if (r.verdict == Verdict::met) {
-    r.verdict_text = "met, margin " + r.margin_text;
-  } else if (r.margin > 0) {
-    r.verdict_text = "not demonstrated (see notes)";
+  if (!binding) {  // only advisory steps: nothing to demonstrate
+    r.verdict = Verdict::not_demonstrated;
+    r.required_text = r.achieved_text = "-";
+    r.margin_text = "none";
+    r.margin_shown = "none: the rule has no required step";
+    r.verdict_text = "not demonstrated — the rule has no required step";
+    return;
+  }
+  const CoolingStepResult& s = *binding;
+  r.required = s.step.within_s;
+  r.achieved = s.elapsed_s;
+  r.margin = binding_margin;
+  r.margin_uncertainty = binding_err;
+  // A limit is a good quantity here (shown down), an elapsed time a bad one (shown up).
+  r.required_text = minutes_down(r.required) + " (step " + s.step.label + ")";
+  if (s.reached) {
+    r.achieved_text = minutes_up(r.achieved);
+    decide(r, kMin);
+    if (r.verdict == Verdict::met && !c.passed) {  // cannot happen: every step and condition passed
+      r.verdict = Verdict::not_demonstrated;
+      r.verdict_text = "not demonstrated (see notes)";
+    }
+    return;
+  }
+  // Never reached: no positive margin. The temperature at the end of the process is the result.
+  r.verdict = Verdict::not_demonstrated;
+  const std::string at_end =
+      s.temp_at_record_end_C ? temp_token_fixed(*s.temp_at_record_end_C, 2) + " at the end" : "no temperature";
+  const std::string what = s.start_s ? "not reached by the end of the process" : "clock never started by the end of the process";
+  r.achieved_text = std::string(s.start_s ? "not reached" : "clock never started") + " (" + at_end + ")";
+  r.margin_uncertainty = 0;
+  if (r.margin < 0) {
+    r.margin_text = "at least " + minutes_up(-r.margin);
+    r.margin_shown = "shortfall at least " + minutes_up(-r.margin) + ": " + what;
+    r.verdict_text = "not demonstrated, shortfall at least " + minutes_up(-r.margin) + ": step " + s.step.label +
+                     " " + what + " (" + at_end + ")";
   } else {
-    r.verdict_text = "not demonstrated, shortfall " + r.margin_text;
+    r.margin_text = "none";
+    r.margin_shown = "none: " + what;
+    r.verdict_text = "not demonstrated — step " + s.step.label + " " + what + " (" + at_end + ")";
   }
 }
 
 // Φ is the equivalent-time fraction of the table's requirement (cooking_tables.hpp): met when
 // Φ > 1 or the instant row was reached.
-void cooking_result(TargetResult& r, const CookingCheck& c) {
+void cooking_result(TargetResult& r, const CookingCheck& c, double fraction_uncertainty) {
   r.cooking = c;
   r.source = c.source;
   r.unit = "fraction";
   r.required = 1.0;
   r.achieved = c.fraction;
   r.margin = c.fraction - 1.0;
-  r.verdict = c.met ? Verdict::met : Verdict::not_demonstrated;
   r.required_text = "table equivalence 1.00";
   if (c.instant_reached_s) {
+    r.margin_uncertainty = fraction_uncertainty;  // infinite when the peak is within the temperature error
+    r.verdict = c.met && !std::isinf(fraction_uncertainty) ? Verdict::met : Verdict::not_demonstrated;
     r.achieved_text = "instant row reached";
     r.margin_text = "-";
-  } else {
-    r.achieved_text = "equivalence " + shown_down(c.fraction);
-    r.margin_text = c.fraction > 1.0 ? shown_down(c.fraction - 1.0) : "-" + shown_up(1.0 - c.fraction);
+    r.verdict_text = r.verdict == Verdict::met
+                         ? "met, equivalent-time fraction instant row reached"
+                         : "not demonstrated — within the numerical uncertainty of the target (the peak is within "
+                           "the temperature accuracy of the instant row)";
+    if (r.verdict != Verdict::met) r.margin_shown = "within the numerical uncertainty";
+    return;
   }
-  r.verdict_text = std::string(to_string(r.verdict)) + ", equivalent-time fraction " + r.achieved_text;
+  r.achieved_text = "equivalence " + shown_down(c.fraction);
+  r.margin_uncertainty = fraction_uncertainty;
+  decide(r, ShownUnit{1.0, ""});
+  if (!c.met) r.verdict = Verdict::not_demonstrated;
+  if (r.verdict == Verdict::met || r.margin_shown.empty())
+    r.verdict_text = std::string(to_string(r.verdict)) + ", equivalent-time fraction " + r.achieved_text;
+}
+
+// Error bound of Φ: every crossing of a row temperature moves time between the bands around it,
+// by at most its crossing error over that row's hold; an instant row whose peak is within the
+// temperature accuracy is undecided (infinite); with the instant row reached, only that row
+// decides. One scan of the grid finds the crossings; the slope at a crossing is taken as the
+// smallest of the interval's secant and the one-sided slopes at its ends (a lower bound of |T'|
+// inside an interval without an inflection; the grid is fine enough for the scan's own crossings).
+double cooking_uncertainty(const detail::Curve& c, const CookingTable& table, const CookingCheck& check,
+                           double tol_K) {
+  const std::vector<double> g = c.grid(c.start());
+  std::vector<double> T(g.size());
+  double hi = -std::numeric_limits<double>::infinity();
+  for (std::size_t i = 0; i < g.size(); ++i) hi = std::max(hi, T[i] = c.temp_C_at(g[i]));
+  for (const auto& row : table.rows)
+    if (row.hold_s <= 0 && tol_K > 0 && hi >= row.temp_C && hi - row.temp_C <= tol_K)
+      return std::numeric_limits<double>::infinity();
+  if (check.instant_reached_s) return 0;
+  double u = 0;
+  for (std::size_t i = 0; i + 1 < g.size(); ++i) {
+    const double lo_T = std::min(T[i], T[i + 1]), hi_T = std::max(T[i], T[i + 1]);
+    if (!(hi_T > lo_T)) continue;
+    double slope = -1;  // computed once per interval, only when a row is crossed in it
+    for (const auto& row : table.rows) {
+      if (row.hold_s <= 0 || !(row.temp_C > lo_T && row.temp_C <= hi_T)) continue;
+      if (slope < 0) {
+        const double w = g[i + 1] - g[i], d = std::min(1e-3, w / 4);
+        const double s_a = std::abs(c.temp_C_at(g[i] + d) - T[i]) / d;
+        const double s_b = std::abs(T[i + 1] - c.temp_C_at(g[i + 1] - d)) / d;
+        slope = std::min({(hi_T - lo_T) / w, s_a, s_b});
+      }
+      const double e = refine_tol_s(g[i + 1]) +
+                       (tol_K > 0 ? (slope > 0 ? tol_K / slope : std::numeric_limits<double>::infinity()) : 0.0);
+      u += e / row.hold_s;
+    }
+  }
+  return u;
 }
 
 const CookingTable& cooking_table_for(const Target& t, const std::string& place, const AssessOptions& opts) {
@@ -339,18 +548,33 @@ const CookingTable& cooking_table_for(const Target& t, const std::string& place,
   return opts.cooking_tables->at(t.table, place);
 }
 
-void min_temperature_result(TargetResult& r, const Target& t, const detail::Curve& c) {
+void min_temperature_result(TargetResult& r, const Target& t, const detail::Curve& c, const CrossingError& err) {
   const auto runs = c.intervals_at_or_above(t.min_temp_C, c.start());
-  double longest = 0;
-  for (const auto& [a, b] : runs) longest = std::max(longest, b - a);
+  double longest = 0, longest_err = 0;
+  for (const auto& [a, b] : runs)
+    if (b - a > longest) {
+      longest = b - a;
+      // The ends of the record are no crossings; the crossings carry their error.
+      longest_err = (a > c.start() ? err(a, t.min_temp_C) : 0.0) + (b < c.end() ? err(b, t.min_temp_C) : 0.0);
+    }
   if (!runs.empty()) r.reached_s = runs.front().first;
   r.required = t.hold_s;
   r.achieved = longest;
   r.margin = longest - t.hold_s;
+  r.margin_uncertainty = longest_err;
   if (runs.empty())
     r.notes.push_back(t.at + " never reached " + temp_token(t.min_temp_C, 10));
   r.source = "target";
   finish(r, false);
+}
+
+// CrossingError on T: a time where T is at `level` is a crossing (root finder + temperature
+// error); any other time (a record end, the highest point of a record) is exact.
+CrossingError crossing_error(const std::function<double(double)>& T, double tol_K, double lo, double hi) {
+  return [T, tol_K, lo, hi](double t, double level) {
+    if (!(std::abs(T(t) - level) <= 1e-6 + tol_K)) return 0.0;
+    return crossing_uncertainty_s(T, t, tol_K, lo, hi);
+  };
 }
 
 // Context for rules with a chill-start condition, inferred from the stages (see AssessOptions).
@@ -409,6 +633,9 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
   const auto mean = temp_function(h, true);
   const double t0 = h.samples.front().time_s;
   const double t1 = std::max(h.samples.back().time_s, h.end_s());
+  // Temperature accuracy behind every margin's bound; samples interpolated linearly are within
+  // the engine's sample_tol_K (0.01 K, conduction/history.hpp) on top of it.
+  const double tol_K = std::max(0.0, opts.temperature_tol_K) + (h.evaluate ? 0.0 : 0.01);
   for (std::size_t i = 0; i < targets.size(); ++i) {
     const Target& t = targets[i];
     const std::string place = opts.origin + ": target[" + std::to_string(i + 1) + "]";
@@ -425,23 +652,31 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         r.kinetics = res.k;
         r.column = "F_" + r.name + "_min";
         r.source = res.k.source;
+        double F_err_s = 0;  // quadrature error estimates of the credited F
         if (h.stages.empty()) {
-          r.F_s = f_between(h, centre, t0, t1, res.k, opts.rel_tol);
+          r.F_s = f_between(h, centre, t0, t1, res.k, opts.rel_tol, &F_err_s);
         } else {
           r.credited_stages = credited(t, h, place);
           for (std::size_t s = 0; s < h.stages.size(); ++s) {
             StageLethality sl;
             sl.stage = h.stages[s].name;
-            sl.F_s = f_between(h, centre, h.stages[s].start_s, h.stages[s].end_s, res.k, opts.rel_tol);
+            double stage_err_s = 0;
+            sl.F_s = f_between(h, centre, h.stages[s].start_s, h.stages[s].end_s, res.k, opts.rel_tol, &stage_err_s);
             sl.credited = std::find(r.credited_stages.begin(), r.credited_stages.end(),
                                     static_cast<int>(s)) != r.credited_stages.end();
+            if (sl.credited) F_err_s += stage_err_s;
             sl.F_text = minutes_down(sl.F_s);
             if (sl.credited) r.F_s += sl.F_s;
             r.stages.push_back(sl);
           }
           r.F_outside_range_s = outside_range(h, centre, res.k, r.credited_stages, opts.rel_tol);
         }
-        lethality_verdict(r, t, res, opts, place);
+        // The quadrature stops when its error estimate is within rel_tol·F (integrate.hpp), so
+        // rel_tol·F bounds it; taken as the bound (not the estimate itself, which jumps as the
+        // adaptive mesh changes) so that the margin stays smooth in a solve's parameter.
+        F_err_s = std::max(F_err_s, opts.rel_tol * r.F_s);
+        F_err_s += r.F_s * f_relative_error_of_temperature(res.k, tol_K);
+        lethality_verdict(r, t, res, opts, place, F_err_s);
         provenance_notes(r, res);
         if (r.F_s > 0 && r.F_outside_range_s > opts.out_of_range_flag_fraction * r.F_s)
           r.notes.push_back("flag: " + shown_up(100 * r.F_outside_range_s / r.F_s, 2) +
@@ -456,12 +691,18 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         ctx.where = t.at == "mean" ? "mass-average temperature" : "cold spot";
         std::vector<double> bp = knots(h, t0, t1);
         const CoolingCheck c = check_cooling(T_at, bp, rule, ctx, probes_for(bp));
-        cooling_result(r, c, rule);
+        cooling_result(r, c, rule, crossing_error(T_at, tol_K, t0, t1));
         for (auto& n : ctx_notes) r.notes.push_back(n);
         break;
       }
       case TargetKind::cooking_table: {
-        cooking_result(r, check_cooking_table(h, cooking_table_for(t, place, opts), t.at == "mean"));
+        const CookingTable& table = cooking_table_for(t, place, opts);
+        detail::Curve c;
+        c.temp_C_at = T_at;
+        c.knots = knots(h, t0, t1);
+        c.probes = probes_for(c.knots);
+        const CookingCheck check = check_cooking_table(h, table, t.at == "mean");
+        cooking_result(r, check, cooking_uncertainty(c, table, check, tol_K));
         break;
       }
       case TargetKind::centre_min_temperature: {
@@ -469,7 +710,7 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         c.temp_C_at = T_at;
         c.knots = knots(h, t0, t1);
         c.probes = probes_for(c.knots);
-        min_temperature_result(r, t, c);
+        min_temperature_result(r, t, c, crossing_error(T_at, tol_K, t0, t1));
         break;
       }
     }
@@ -572,7 +813,10 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
                               temp_token(res.k.valid_min_C, 10) + " to " +
                               temp_token(res.k.valid_max_C, 10));
         }
-        lethality_verdict(r, t, res, opts, place);
+        // The log's rows are the data: the smallest of three exact rules on them is credited, so
+        // the bound is the rounding of the sums (a few ulp per row).
+        const double F_err_s = 4 * kEps * static_cast<double>(times_s.size() + 4) * std::abs(r.F_s);
+        lethality_verdict(r, t, res, opts, place, F_err_s);
         provenance_notes(r, res);
         out.lethality.push_back(pl);
         break;
@@ -583,14 +827,17 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
         ctx.cook_end_s = opts.cook_end_s;
         ctx.chill_start_s = opts.chill_start_s;
         const CoolingCheck c = check_cooling(times_s, temps_C, rule, ctx, origin);
-        cooling_result(r, c, rule);
+        cooling_result(r, c, rule, crossing_error(curve.temp_C_at, 0.0, curve.start(), curve.end()));
         break;
       }
-      case TargetKind::cooking_table:
-        cooking_result(r, check_cooking_table(times_s, temps_C, cooking_table_for(t, place, opts), origin));
+      case TargetKind::cooking_table: {
+        const CookingTable& table = cooking_table_for(t, place, opts);
+        const CookingCheck check = check_cooking_table(times_s, temps_C, table, origin);
+        cooking_result(r, check, cooking_uncertainty(curve, table, check, 0.0));
         break;
+      }
       case TargetKind::centre_min_temperature:
-        min_temperature_result(r, t, curve);
+        min_temperature_result(r, t, curve, crossing_error(curve.temp_C_at, 0.0, curve.start(), curve.end()));
         break;
     }
     out.targets.push_back(std::move(r));

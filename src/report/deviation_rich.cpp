@@ -21,7 +21,7 @@ using process::DeviationResult;
 
 std::string temp(double c, TempUnit u) { return fixed(display_temp(c, u), 2) + " " + std::string(unit_symbol(u)); }
 std::string min_down(double s) { return shown_down(s / 60.0) + " min"; }
-std::string logs_down(const std::optional<double>& v) { return v ? shown_down(*v) + " log10" : "-"; }
+std::string logs_down(const std::optional<double>& v) { return v ? shown_log_reduction(*v) : "-"; }
 std::string at_time(double s) { return duration_text(s) + " (" + fixed(s, 0) + " s)"; }
 
 std::string lot_text(const DeviationRecordInfo& i) { return i.lot.empty() ? "(not given)" : i.lot; }

@@ -94,6 +94,7 @@ void json_targets_and_hold(JsonWriter& w, const DeviationResult& r) {
     w.key("verdict").value(to_string(t.verdict));
     w.key("scheduled_verdict").value(to_string(t.scheduled.verdict));
     w.key("delivered_margin").value(t.delivered.margin);
+    w.key("delivered_margin_uncertainty").value(t.delivered.margin_uncertainty);
     w.key("delivered_verdict_text").value(t.delivered.verdict_text);
     w.key("scheduled_verdict_text").value(t.scheduled.verdict_text);
     w.end_object();
@@ -164,7 +165,8 @@ void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i
     if (t.lethality) {
       out << "    F scheduled " << min_down(t.scheduled_F_s) << ", delivered " << min_down(t.delivered_F_s);
       if (t.scheduled_logs && t.delivered_logs)
-        out << "; log reduction scheduled " << shown_down(*t.scheduled_logs) << ", delivered " << shown_down(*t.delivered_logs);
+        out << "; log reduction scheduled " << shown_log_reduction(*t.scheduled_logs) << ", delivered "
+            << shown_log_reduction(*t.delivered_logs);
       out << "\n";
     }
     out << "    scheduled: " << t.scheduled.verdict_text << "\n    delivered: " << t.delivered.verdict_text

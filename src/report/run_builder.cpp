@@ -266,7 +266,8 @@ VerdictRow verdict_row(const TargetResult& t) {
   v.required_value = t.required;
   v.achieved_value = t.achieved;
   v.margin_value = t.margin;
-  v.value_unit = t.unit == "log10" ? "log10" : "s";
+  v.margin_uncertainty_value = t.margin_uncertainty;
+  v.value_unit = t.unit == "log10" ? "log10" : (t.unit == "fraction" ? "fraction" : "s");
   if (t.kinetics) {
     const Kinetics& k = *t.kinetics;
     v.details.push_back("credited F = " + minutes_down(t.F_s) + " at " + temp_token_fixed(k.reference_C, 1) + " (z " +

@@ -106,6 +106,7 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
     w.key("required_value").value(v.required_value);
     w.key("achieved_value").value(v.achieved_value);
     w.key("margin_value").value(v.margin_value);
+    w.key("margin_uncertainty_value").value(v.margin_uncertainty_value);
     w.key("value_unit").value(v.value_unit);
     if (!v.scenario.empty()) w.key("scenario").value(v.scenario);
     w.key("details").value(v.details);
@@ -200,6 +201,11 @@ void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
     out << "# verdict: " << v.name << ": " << verdict_word(v.met) << " (required " << v.required
         << ", achieved " << v.achieved << ", margin " << v.margin << ")"
         << (v.scenario.empty() ? "" : ", from " + v.scenario) << "\n";
+  // The raw numbers behind each verdict, with the margin's error bound ("met" needs margin > bound).
+  for (const auto& v : r.verdicts)
+    out << "# verdict values: " << v.name << ": required " << JsonWriter::number(v.required_value) << ", achieved "
+        << JsonWriter::number(v.achieved_value) << ", margin " << JsonWriter::number(v.margin_value)
+        << ", margin_uncertainty " << JsonWriter::number(v.margin_uncertainty_value) << " " << v.value_unit << "\n";
   // Which end of an h range each target was evaluated at (process/h_ends.hpp), when one was.
   for (const auto& v : r.verdicts)
     for (const auto& d : v.details)

@@ -45,10 +45,10 @@ void check_table(RichDoc& d, const std::vector<TargetResult>& targets) {
 }
 void check_table(RichDoc& d, const Check& c) { check_table(d, c.eval.assessment.targets); }
 
-std::string end_line(const SolveResult& r, double at_C, TempUnit u) {
+std::string end_line(const SolveResult& r, double at_C, bool reached, TempUnit u) {
   return "The " + r.end_point + " at the end of the stage: " + fixed(display_temp(at_C, u), 3) + " " +
          std::string(unit_symbol(u)) + " (end temperature " + fixed(display_temp(*r.end_C, u), 2) + " " +
-         std::string(unit_symbol(u)) + ": " + (at_C < *r.end_C ? "reached" : "not reached") + ").";
+         std::string(unit_symbol(u)) + ": " + (reached ? "reached" : "not reached") + ").";
 }
 
 void question_section(RichDoc& d, const SolveResult& r, const SolveReportContext& c, TempUnit u) {
@@ -83,7 +83,7 @@ void verification_section(RichDoc& d, const SolveResult& r, TempUnit u) {
   d.paragraph(r.verification.eval.all_met ? "Every target is met in the forward re-run of the value to use."
                                           : "NOT every target is met in the forward re-run of the value to use.");
   check_table(d, r.verification);
-  if (r.end_C) d.paragraph(end_line(r, r.end_at_rounded_C, u));
+  if (r.end_C) d.paragraph(end_line(r, r.end_at_rounded_C, r.end_reached_at_rounded, u));
   d.section_end();
 
   if (r.one_unit_less) {
@@ -97,7 +97,7 @@ void verification_section(RichDoc& d, const SolveResult& r, TempUnit u) {
                        ? "every target solved for is still met (see the notes for why)."
                        : "not every target solved for is met, so the answer is within one unit of the limit."));
     check_table(d, *r.one_unit_less);
-    if (r.end_C && r.end_at_less_C) d.paragraph(end_line(r, *r.end_at_less_C, u));
+    if (r.end_C && r.end_at_less_C) d.paragraph(end_line(r, *r.end_at_less_C, r.end_reached_at_less.value_or(false), u));
     d.section_end();
   } else {
     d.section_begin("one-unit-less", "One unit less");

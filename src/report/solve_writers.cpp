@@ -1,4 +1,5 @@
 #include <cmath>
+#include <optional>
 #include <ostream>
 
 #include "coldcore/report/cautions.hpp"
@@ -56,6 +57,7 @@ void write_target_json(JsonWriter& w, const TargetResult& t) {
   w.key("required").value(t.required);
   w.key("achieved").value(t.achieved);
   w.key("margin").value(t.margin);
+  w.key("margin_uncertainty").value(t.margin_uncertainty);
   w.key("verdict").value(to_string(t.verdict));
   w.key("required_text").value(t.required_text);
   w.key("achieved_text").value(t.achieved_text);
@@ -83,12 +85,12 @@ void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::os
   if (r.end_C)
     out << "    " << r.end_point << " at the end of the stage: " << fixed(display_temp(r.end_at_rounded_C, u), 3)
         << " " << unit_symbol(u) << " (end temperature " << fixed(display_temp(*r.end_C, u), 2) << " "
-        << unit_symbol(u) << ": " << (r.end_at_rounded_C < *r.end_C ? "reached" : "NOT reached") << ")\n";
+        << unit_symbol(u) << ": " << (r.end_reached_at_rounded ? "reached" : "NOT reached") << ")\n";
   if (r.one_unit_less) {
     text_check(out, r, *r.one_unit_less, "  one unit less, at ", u);
     if (r.end_C && r.end_at_less_C)
       out << "    " << r.end_point << " at the end of the stage: " << fixed(display_temp(*r.end_at_less_C, u), 3) << " "
-          << unit_symbol(u) << " (" << (*r.end_at_less_C < *r.end_C ? "reached" : "not reached") << ")\n";
+          << unit_symbol(u) << " (" << (r.end_reached_at_less.value_or(false) ? "reached" : "not reached") << ")\n";
   }
   if (!r.notes.empty()) {
     out << "\nNOTES\n";
@@ -146,8 +148,12 @@ void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::os
     w.key("point").value(r.end_point);
     w.key("end_C").value(*r.end_C);
     w.key("at_rounded_C").value(r.end_at_rounded_C);
-    w.key("reached_at_rounded").value(r.end_at_rounded_C < *r.end_C);
-    if (r.end_at_less_C) w.key("at_one_unit_less_C").value(*r.end_at_less_C);
+    w.key("reached_at_rounded").value(r.end_reached_at_rounded);
+    if (r.end_at_less_C) {
+      w.key("at_one_unit_less_C").value(*r.end_at_less_C);
+      w.key("reached_at_one_unit_less").value(r.end_reached_at_less.value_or(false));
+    }
+    w.key("temperature_tolerance_K").value(r.end_tol_K);
     w.end_object();
   }
   if (c.conservative) {
@@ -205,16 +211,36 @@ void write_solve_csv(const SolveResult& r, const SolveReportContext& c, std::ost
         << (cs.result ? JsonWriter::number(cs.result->rounded) : "no solution: " + cs.no_solution) << "\n";
     out << "# conservative driven by: " << cs.driven_by << "\n";
   }
-  out << "run,value_" << r.unit << ",target,kind,required,achieved,margin,unit,verdict\n";
-  const auto rows = [&](const char* run, const Check& ch) {
-    for (const auto& t : ch.eval.assessment.targets)
+  if (r.end_C) {  // chill-time: the end condition of the answer and of both re-runs
+    out << "# end: " << r.end_point << " below " << JsonWriter::number(*r.end_C) << " C by more than "
+        << JsonWriter::number(r.end_tol_K) << " K\n";
+    out << "# end at rounded: " << JsonWriter::number(r.end_at_rounded_C) << " C, "
+        << (r.end_reached_at_rounded ? "reached" : "not reached") << "\n";
+    if (r.end_at_less_C)
+      out << "# end at one unit less: " << JsonWriter::number(*r.end_at_less_C) << " C, "
+          << (r.end_reached_at_less.value_or(false) ? "reached" : "not reached") << "\n";
+  }
+  out << "run,value_" << r.unit << ",target,kind,required,achieved,margin,unit,verdict,margin_uncertainty"
+      << (r.end_C ? ",end_temp_C,end_reached" : "") << "\n";
+  const auto rows = [&](const char* run, const Check& ch, std::optional<double> end_temp_C, bool end_reached) {
+    for (const auto& t : ch.eval.assessment.targets) {
       out << run << "," << JsonWriter::number(ch.value) << "," << csv_cell(t.name) << "," << to_string(t.kind) << ","
           << JsonWriter::number(t.required) << "," << JsonWriter::number(t.achieved) << ","
-          << JsonWriter::number(t.margin) << "," << raw_unit(t) << "," << to_string(t.verdict) << "\n";
+          << JsonWriter::number(t.margin) << "," << raw_unit(t) << "," << to_string(t.verdict) << ","
+          << JsonWriter::number(t.margin_uncertainty);
+      if (r.end_C)
+        out << "," << (end_temp_C ? JsonWriter::number(*end_temp_C) : "") << "," << (end_reached ? "true" : "false");
+      out << "\n";
+    }
   };
-  rows("rounded", r.verification);
-  if (r.one_unit_less) rows("one-unit-less", *r.one_unit_less);
-  if (c.conservative && c.conservative->result) rows("conservative", c.conservative->result->verification);
+  rows("rounded", r.verification, r.end_C ? std::optional<double>(r.end_at_rounded_C) : std::nullopt,
+       r.end_reached_at_rounded);
+  if (r.one_unit_less) rows("one-unit-less", *r.one_unit_less, r.end_at_less_C, r.end_reached_at_less.value_or(false));
+  if (c.conservative && c.conservative->result) {
+    const SolveResult& cr = *c.conservative->result;
+    rows("conservative", cr.verification, cr.end_C ? std::optional<double>(cr.end_at_rounded_C) : std::nullopt,
+         cr.end_reached_at_rounded);
+  }
 }
 
 }  // namespace coldcore

@@ -46,7 +46,7 @@ cli_expect(solve_hold_kofta_text 0 ARGS solve products/kofta-balls.toml --for ho
            STDOUT_HAS "stage:            combi-oven steam cook" "use:              14 min 00 s" "every target met"
                       "one unit less, at 13 min 00 s (780 s): NOT every target met" "process authority")
 cli_expect(solve_hold_kofta_json 0 ARGS solve products/kofta-balls.toml --for hold-time --format json
-           STDOUT_HAS "\"question\": \"hold-time\"" "\"stage\": \"combi-oven steam cook\"" "\"answer_s\": 812.00"
+           STDOUT_HAS "\"question\": \"hold-time\"" "\"stage\": \"combi-oven steam cook\"" "\"answer_s\": 812.01"
                       "\"rounded_s\": 840" "\"verification\"" "\"cautions\"")
 cli_expect(solve_hold_kofta_csv 0 ARGS solve products/kofta-balls.toml --for hold-time --format csv
            STDOUT_HAS "# caution:" "# rounded_s (to use): 840" "rounded,840,listeria-monocytogenes,log-reduction,6,"
@@ -413,3 +413,33 @@ add_test(NAME bad_inputs.suite
          COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
                  -P ${PROJECT_SOURCE_DIR}/tests/bad_inputs/suite.cmake)
 set_tests_properties(bad_inputs.suite PROPERTIES TIMEOUT 900)
+# Issue 11, verdicts, margins and rounding (expected texts: tests/report/issue_11_verdict_test.cpp).
+# Defect 2: the Food Code two-stage rule (REFERENCES 2.2) on a chill that hit its cap before 5 °C:
+# the row carries step 2 (never reached), with no positive margin and the temperature reached.
+cli_expect(issue11_cap_rule_text 1 ARGS run tests/cli/cap_rule.toml
+           STDOUT_HAS "360 min (step 57 °C -> 5 °C)" "not reached (6.59 °C at the end)"
+                      "none: not reached by the end of the process"
+           STDOUT_LACKS "89.8 min")
+cli_expect(issue11_cap_rule_json 1 ARGS run tests/cli/cap_rule.toml --format json
+           STDOUT_HAS "\"margin\": \"none: not reached by the end of the process\"" "\"margin_value\": 0,"
+                      "\"margin_uncertainty_value\": 0,")
+cli_expect(issue11_cap_rule_csv 1 ARGS run tests/cli/cap_rule.toml --format csv
+           STDOUT_HAS "# verdict: two-stage-6h: not demonstrated (required 360 min (step 57 °C -> 5 °C)"
+                      "# verdict values: two-stage-6h: required 21600, achieved 6574.6" ", margin 0, margin_uncertainty 0 s")
+# Defect 3: chill-time's one-unit-less re-run judged by the answer's own end condition (4 °C).
+cli_expect(issue11_chill_less_json 0 ARGS solve products/chicken-sausage-log.toml --for chill-time --format json
+           STDOUT_HAS "\"reached_at_one_unit_less\": false" "\"at_one_unit_less_C\": 4.03" "\"temperature_tolerance_K\": 1e-04")
+cli_expect(issue11_chill_less_csv 0 ARGS solve products/chicken-sausage-log.toml --for chill-time --format csv
+           STDOUT_HAS "# end at rounded: 3.87" "# end at one unit less: 4.03" ", not reached"
+                      "run,value_s,target,kind,required,achieved,margin,unit,verdict,margin_uncertainty,end_temp_C,end_reached"
+                      ",4.03869978356" ",false")
+# Defect 7 and ties: 70 °C for exactly 123 s against F70 2.05 min (invented log, F = time exactly).
+cli_expect(issue11_probe_tie 1 ARGS probe tests/cli/issue11/hold_70C_123s.csv --reference-C 70 --z-C 7.5 --F-min 2.05
+           STDOUT_HAS "exactly at the required value" "exactly at the required value: not demonstrated by a positive margin"
+           STDOUT_LACKS "met, margin" "0.000000000000000")
+cli_expect(issue11_probe_tie_json 1 ARGS probe tests/cli/issue11/hold_70C_123s.csv --reference-C 70 --z-C 7.5 --F-min 2.05 --format json
+           STDOUT_HAS "\"margin_uncertainty_value\": " "\"verdict\": \"not demonstrated\"")
+# Meaningless log reductions: 70 °C for 20 h is 3600 log10 of L. monocytogenes by D70 = 20 s.
+cli_expect(issue11_probe_huge_logs 0 ARGS probe tests/cli/issue11/hold_70C_20h.csv --organism listeria-monocytogenes --target-log 6
+           STDOUT_HAS "more than 15 log10 (credited F 1200 min)" "more than 9.00 log10"
+           STDOUT_LACKS "3600 log10" "3.60e+03")

@@ -252,7 +252,10 @@ TEST_CASE("a tie is not shown as met") {
   const ProbeAssessment p = assess_probe_log(ts, Ts, {cool}, orgs(), rules());
   CHECK(p.targets[0].margin == 0);
   CHECK(p.targets[0].verdict == Verdict::not_demonstrated);
-  CHECK(p.targets[0].verdict_text == "not demonstrated, shortfall 0 min");
+  // issue 11: a tie is named as such, not as "shortfall 0".
+  CHECK(p.targets[0].verdict_text ==
+        "not demonstrated — exactly at the required value: not demonstrated by a positive margin");
+  CHECK(p.targets[0].margin_shown == "exactly at the required value");
 }
 
 TEST_CASE("history without exact evaluation is interpolated, with a warning") {

@@ -76,6 +76,8 @@ struct CoolingStepResult {
   double margin_s = 0;             ///< within − elapsed
   bool reached = false;
   bool passed = false;             ///< reached && margin > 0 (advisory steps: not exceeded)
+  /// Temperature at the end of the record, when to_C was not reached (or the clock never started).
+  std::optional<double> temp_at_record_end_C;
   std::vector<std::string> notes;
 };
 

@@ -19,7 +19,8 @@
 /// it; the value one unit on the unsafe side is re-run as well and must not meet every target
 /// (when it does, the answer was limited by a bound and a note says so).
 /// The margin of one target for the root finder: lethality F/F_required − 1; other targets
-/// margin/required (required 0: margin in the target's unit); clamped so that its sign agrees
+/// margin/required (required 0: margin in the target's unit); each less its error bound
+/// (TargetResult::margin_uncertainty, relative likewise); clamped so that its sign agrees
 /// with the verdict (met only when the margin is > 0). The process margin is the minimum.
 /// NoSolution (with the reason) when no value within the bounds meets the targets.
 #include <optional>
@@ -148,6 +149,11 @@ struct SolveResult {
   std::string end_point;       ///< "centre" | "mass average"
   double end_at_rounded_C = 0;
   std::optional<double> end_at_less_C;
+  /// "Reached" means below end_C by more than end_tol_K (the model's temperature accuracy); for
+  /// chill-time the re-runs' considered_met is this condition and their margin end_C − T (K).
+  double end_tol_K = 0;
+  bool end_reached_at_rounded = false;
+  std::optional<bool> end_reached_at_less;
 };
 
 /// Answers one question. Throws NoSolution (with the reason), InputError (bad stage or option),

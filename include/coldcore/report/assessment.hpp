@@ -2,8 +2,12 @@
 /// The assessment model: one verdict per target, with margins, per-stage lethality and flags.
 /// Pure computation over a History (or a measured cold-spot log); writers format it.
 ///
-/// Verdicts: "met" only when the unrounded computed margin is > 0; otherwise "not demonstrated"
-/// with the shortfall. There is no "failed" verdict: a model can only fail to demonstrate.
+/// Verdicts: "met" only when the unrounded computed margin is larger than the computation's own
+/// error bound (TargetResult::margin_uncertainty: quadrature error estimate, the accuracy of the
+/// history's temperatures, crossing-time tolerances, unit-conversion rounding); otherwise "not
+/// demonstrated" with the shortfall, or, inside the bound, "not demonstrated — within the
+/// numerical uncertainty of the target", or, at a tie (|margin| within unit-conversion rounding),
+/// "not demonstrated — exactly at the required value: not demonstrated by a positive margin". There is no "failed" verdict: a model can only fail to demonstrate.
 /// Shown values never look better than the computed ones: lethality (F, log reductions), holds
 /// achieved and margins are rounded DOWN; required values, elapsed cooling times and shortfalls
 /// are rounded UP (3 significant figures; a 1e-12 relative allowance absorbs binary
@@ -45,7 +49,17 @@ struct AssessOptions {
   const CookingTables* cooking_tables = nullptr;
   /// Out-of-range lethality is flagged when it exceeds this fraction of the credited F [0.001].
   double out_of_range_flag_fraction = 1e-3;
+  /// Accuracy (K) of the History's temperatures, for the margin's error bound: the engine's
+  /// HistoryOptions::tol_K of the run [1e-4, the engine default]. Not used for measured logs,
+  /// whose rows are the data. (solve's search runs, at 1e-3 K, are assessed with this default:
+  /// their verdicts only steer the search; every reported re-run uses the engine default.)
+  double temperature_tol_K = 1e-4;
 };
+
+/// Log reductions above this are not shown as a count (assessment.cpp says why): the text shows
+/// "more than N log10" with the credited F; the raw number stays in TargetResult::achieved.
+/// N = max(kMeaningfulLogReduction, the target's own requirement rounded up).
+inline constexpr double kMeaningfulLogReduction = 15;
 
 struct StageLethality {
   std::string stage;
@@ -56,8 +70,12 @@ struct StageLethality {
 
 /// What "required / achieved / margin" measure for each kind:
 ///  log-reduction: log10 reductions; F-value: seconds of F; centre-min-temperature: seconds of
-///  continuous hold at or above the temperature; cooling-rule: seconds of the tightest step
-///  (required = its limit, achieved = its elapsed time, margin = limit − elapsed).
+///  continuous hold at or above the temperature; cooling-rule: seconds of the BINDING step, the
+///  one that decides the verdict (a failed non-advisory step, the one with the least margin; a
+///  step never reached counts as margin min(0, limit − elapsed lower bound) and is binding over a
+///  passed step; when every step passes, the tightest). required = its limit, achieved = its
+///  elapsed time (a lower bound when never reached), margin = limit − elapsed, never positive for
+///  a step never reached. When only the chill-start condition fails, that condition is the row.
 struct TargetResult {
   std::string name;              ///< target name, or organism key, or rule key
   std::string column;            ///< csv column "F_<name>_min" for lethality targets, else ""
@@ -66,8 +84,13 @@ struct TargetResult {
   double required = 0;
   double achieved = 0;
   double margin = 0;             ///< achieved − required (cooling: limit − elapsed)
+  /// Error bound of `margin` in the same unit (>= 0): "met" needs margin > margin_uncertainty.
+  double margin_uncertainty = 0;
   Verdict verdict = Verdict::not_demonstrated;
   std::string required_text, achieved_text, margin_text;  ///< rounded as stated above
+  /// The margin cell when it is not a plain amount ("exactly at the required value", "within the
+  /// numerical uncertainty (±…)", "not reached by the end of the process"); empty otherwise.
+  std::string margin_shown;
   std::string verdict_text;      ///< "met, margin 0.52 log10" / "not demonstrated, shortfall 1.3 min"
   // Lethality targets:
   std::optional<Kinetics> kinetics;
@@ -130,6 +153,10 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
                                  const std::vector<Target>& targets, const OrganismLibrary& organisms,
                                  const RuleLibrary& rules, const AssessOptions& opts = {},
                                  std::string_view origin = "log");
+
+/// A log reduction as shown anywhere: "6.00 log10" rounded down, or "more than N log10" beyond
+/// N = max(kMeaningfulLogReduction, ceil(required_logs)) (the count is then no result).
+std::string shown_log_reduction(double logs, double required_logs = 0);
 
 /// Rounding used for shown values: 3 significant figures, toward −∞ (down) or +∞ (up).
 std::string shown_down(double value, int significant = 3);

@@ -54,6 +54,7 @@ struct VerdictRow {
   std::string scenario;
   // Numbers for machine-readable formats.
   double required_value = 0, achieved_value = 0, margin_value = 0;
+  double margin_uncertainty_value = 0;  ///< error bound of margin_value ("met" needs margin above it)
   std::string value_unit;
 };
 
