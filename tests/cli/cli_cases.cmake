@@ -68,7 +68,8 @@ cli_expect(solve_bad_stage 2 ARGS solve products/kofta-balls.toml --for hold-tim
 # coldcore deviation: the invented 8 C dip for 6 min in the corned beef retort hold.
 cli_expect(deviation_corned_text 0 ARGS deviation products/corned-beef-can.toml
            --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 --date 2026-12-01
-           STDOUT_HAS "lot:                 CB-0412" "deviation start:     40 min 00 s" "lowest medium:       113.10 °C"
+           STDOUT_HAS "lot:                 CB-0412"
+                      "1. medium colder than scheduled in a stage that heats, 40 min 00 s to 46 min 00 s into the stage (2400-2760 s); lowest 113.10 °C at 2400 s, scheduled 121.10 °C (8.00 K colder)"
                       "medium log SHA-256:" "F scheduled 16.9 min, delivered 14.7 min" "Reviewer name:"
                       "is for the process authority to decide")
 cli_expect(deviation_corned_json 0 ARGS deviation products/corned-beef-can.toml
@@ -224,7 +225,7 @@ set(COLDCORE_DEV_chicken-sausage-log "products/logs/chicken-sausage-bath-deviati
 set(COLDCORE_DEV_lasagne-tray "products/logs/lasagne-oven-deviation.csv")
 foreach(p kofta-balls chicken-sausage-log lasagne-tray)
   cli_expect(deviation_${p}_text 0 ARGS deviation products/${p}.toml --medium-log ${COLDCORE_DEV_${p}}
-             STDOUT_HAS "DEVIATION RECORD" "deviation start:" "is for the process authority to decide" "CAUTIONS")
+             STDOUT_HAS "DEVIATION RECORD" "1. medium colder than scheduled in a stage that heats" "is for the process authority to decide" "CAUTIONS")
   cli_expect(deviation_${p}_json 0 ARGS deviation products/${p}.toml --medium-log ${COLDCORE_DEV_${p}} --format json
              STDOUT_HAS "\"delivered_F_min\"" "\"disposition\"" "\"cautions\"")
   cli_expect(deviation_${p}_csv 0 ARGS deviation products/${p}.toml --medium-log ${COLDCORE_DEV_${p}} --format csv
@@ -262,8 +263,8 @@ cli_expect(solve_min_medium_sausage_html_F 0 ARGS solve products/chicken-sausage
 # (definition of the Fahrenheit scale).
 cli_expect(deviation_corned_html_F 0 ARGS deviation products/corned-beef-can.toml
            --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 --format html --units F
-           STDOUT_HAS "<h1>coldcore deviation record: lot CB-0412" "<td>lowest medium temperature</td><td>235.58 °F"
-                      "(scheduled 249.98 °F)" "<td>14.40 °F</td>" "<td>deviation start</td><td>40 min 00 s (2400 s)"
+           STDOUT_HAS "<h1>coldcore deviation record: lot CB-0412"
+                      "<td>deviation 1 of 1</td><td>medium colder than scheduled in a stage that heats, 40 min 00 s to 46 min 00 s into the stage (2400-2760 s); lowest 235.58 °F at 2400 s, scheduled 249.98 °F (14.40 °F colder)</td>"
                       "<td>medium log SHA-256</td>" "is for the process authority to decide" "<td>Reviewer name</td>"
                       "<td class=\"line\"> </td>" "class=\"verdict-met\">met<" "temperature (°F)")
 cli_expect(deviation_md_needs_out 2 ARGS deviation products/corned-beef-can.toml

@@ -50,6 +50,15 @@ struct DeviationRecordInfo {
 /// The sentence every deviation output carries.
 const std::string& disposition_statement();
 
+/// Machine key of a departure kind for json and csv: "medium_colder", "medium_warmer",
+/// "stage_shortened", "log_gap".
+std::string_view to_string(process::DeviationKind k);
+/// One sentence naming a departure for the record: its kind, when (from the stage's start),
+/// the extreme reading against the schedule, or the length of a gap or shortening and what it costs.
+std::string deviation_event_text(const process::DeviationEvent& e, TempUnit u);
+/// The record's line when there is no departure.
+std::string no_deviation_text(const process::DeviationResult& r);
+
 void write_deviation_text(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
 void write_deviation_json(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
 void write_deviation_csv(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
