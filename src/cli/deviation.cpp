@@ -23,7 +23,7 @@ namespace coldcore::cli {
 namespace {
 
 struct DeviationArgs {
-  std::string file, medium_log, probe_log, stage, lot, library, date, column;
+  std::string file, medium_log, probe_log, stage, lot, library, date, column, timezone;
   double tolerance_K = 0.5;
   double max_gap_s = 60;
   double round_min = 1;
@@ -55,6 +55,7 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side) {
     io::LogOptions lo;
     lo.temp_column = a.column;
     lo.max_gap_s = a.max_gap_s;
+    if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
     const io::TimeSeries log = io::parse_log_csv(text, a.medium_log, lo);
     for (const auto& w : log.warnings) info.warnings.push_back(w);
     in.medium_log = io::medium_profile(log, a.medium_log, text);
@@ -65,7 +66,10 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side) {
   }
   if (!a.probe_log.empty()) {
     const std::string text = io::read_text_file(a.probe_log);
-    const io::TimeSeries log = io::parse_log_csv(text, a.probe_log);
+    io::LogOptions lo;
+    lo.max_gap_s = a.max_gap_s;
+    if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
+    const io::TimeSeries log = io::parse_log_csv(text, a.probe_log, lo);
     for (const auto& w : log.warnings) info.warnings.push_back(w);
     in.probe_time_s = log.time_s;
     in.probe_temp_C = log.temp_C;
@@ -133,6 +137,8 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--max-gap-s", args->max_gap_s,
                   "readings further apart than this are a gap in the log (no lethality credited in it), s")
       ->capture_default_str();
+  sub->add_option("--timezone", args->timezone,
+                  "fixed UTC offset of log timestamps written without one, e.g. +01:00 (needed when they jump by a clock change)");
   sub->add_option("--round-min", args->round_min, "additional time rounded UP to this, min")->capture_default_str();
   sub->add_flag("--conservative", args->conservative,
                 "also evaluate the deviation at the documented worst case of the file's ranges and name the choice that drove it");

@@ -30,6 +30,7 @@ struct ProbeArgs {
   std::optional<double> reference_C, z_C, D_min, F_min;
   std::string temp_column;
   double max_gap_s = 60;
+  std::string timezone;
   std::string date;
   OutputArgs output;
 };
@@ -100,9 +101,11 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
   io::LogOptions lo;
   lo.max_gap_s = a.max_gap_s;
   lo.temp_column = a.temp_column;
+  if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
   const io::TimeSeries log = io::parse_log_csv(bytes, a.log, lo);
   const LibraryFiles lib = load_libraries("", "");
   AssessOptions opts;
+  opts.max_gap_s = a.max_gap_s;  // issue 11: no lethality across a gap
   opts.origin = a.log;
   opts.cooking_tables = &lib.cooking;
   const ProbeAssessment pa = assess_probe_log(log.time_s, log.temp_C, targets, lib.organisms, lib.rules, opts, a.log);
@@ -128,7 +131,7 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
                        "General Method on the log: trapezoid " + shown_down(pl.F_trapezoid_s / 60.0) + " min, Simpson " +
                            shown_down(pl.F_simpson_s / 60.0) + " min, exact on the linear interpolant " +
                            shown_down(pl.F_linear_s / 60.0) + " min; the verdict uses the smallest");
-      const auto cum = cumulative_f_trapezoid_s(log.time_s, log.temp_C, *t.kinetics, a.log);
+      const auto cum = cumulative_f_trapezoid_s(log.time_s, log.temp_C, *t.kinetics, a.log, a.max_gap_s);
       const std::string col = t.column.empty() ? "F_" + t.name + "_min" : t.column;
       r.history.columns.push_back({col, false});
       for (size_t k = 0; k < cum.size(); ++k) r.history.rows[k].push_back(cum[k] / 60.0);
@@ -199,6 +202,8 @@ void add_probe_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--F-min", a->F_min, "own kinetics: required F at the reference temperature, min");
   sub->add_option("--temp-column", a->temp_column, "which temperature column to use when the log has several");
   sub->add_option("--max-gap-s", a->max_gap_s, "gaps longer than this are reported, s")->capture_default_str();
+  sub->add_option("--timezone", a->timezone,
+                  "fixed UTC offset of timestamps written without one, e.g. +01:00 (needed when they jump by a clock change)");
   sub->add_option("--date", a->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
   add_output_options(*sub, a->output);
   sub->callback([&ctx, a] {

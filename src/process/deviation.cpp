@@ -297,6 +297,7 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
 
   if (!in.probe_time_s.empty()) {
     AssessOptions ao;
+    ao.max_gap_s = o.max_gap_s;  // no lethality credited across a gap in the probe log
     ao.origin = s.origin;
     ao.cooking_tables = libs.cooking;
     r.probe = assess_probe_log(in.probe_time_s, in.probe_temp_C, s.targets, *libs.organisms, *libs.rules, ao,

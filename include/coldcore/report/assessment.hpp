@@ -11,6 +11,7 @@
 ///
 /// Lethality is evaluated at the cold spot (History centre). Cooling rules and minimum
 /// temperatures use Target::at ("centre" or "mean").
+#include <limits>
 #include <optional>
 #include <span>
 #include <string>
@@ -45,6 +46,9 @@ struct AssessOptions {
   const CookingTables* cooking_tables = nullptr;
   /// Out-of-range lethality is flagged when it exceeds this fraction of the credited F [0.001].
   double out_of_range_flag_fraction = 1e-3;
+  /// assess_probe_log: readings further apart than this are a gap; no lethality is credited across
+  /// it [+inf: none]. A cooling-rule crossing inside a gap is not yet moved to the gap's end.
+  double max_gap_s = std::numeric_limits<double>::infinity();
 };
 
 struct StageLethality {
