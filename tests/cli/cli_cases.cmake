@@ -304,3 +304,36 @@ add_test(NAME cli.cautions_every_verb_and_format
 # A composition-only product is refused by the process verbs with a message saying what to do.
 cli_expect(run_composition_only 2 ARGS run tests/cli/composition_only.toml
            STDERR_HAS "product.composition: run, solve and deviation need constant [product.properties]")
+
+# issue 11: deviations in both directions (invented logs under tests/cli/deviation/). Directions by the
+# schedule (a stage heats when its medium is not below the stage before it); the unfavourable side is
+# colder in a stage that heats, warmer in one that cools (common practice).
+cli_expect(issue11_deviation_cook_colder_gap_short 0 ARGS deviation products/kofta-balls.toml
+           --medium-log tests/cli/deviation/kofta-cook-short-gap.csv --date 2026-12-01
+           STDOUT_HAS "deviated stage:      combi-oven steam cook (starts 0 s into the process; heats)"
+                      "deviations:          3 (times from the stage start)"
+                      "1. medium colder than scheduled in a stage that heats, 11 min 00 s to 13 min 00 s into the stage (660-780 s); lowest 88.00 °C at 660 s, scheduled 96.00 °C (8.00 K colder)"
+                      "2. gap in the log of 5 min 00 s, 13 min 00 s to 18 min 00 s into the stage (780-1080 s): the medium meanwhile is unknown, and no lethality accrued in it is credited"
+                      "3. stage shorter than scheduled by 1 min 00 s: the log ends 23 min 00 s into the stage (1380 s), the scheduled end is 24 min 00 s (1440 s)")
+cli_expect(issue11_deviation_cook_csv 0 ARGS deviation products/kofta-balls.toml
+           --medium-log tests/cli/deviation/kofta-cook-short-gap.csv --format csv
+           STDOUT_HAS "# deviation: medium_colder; start_s 660; end_s 780; extreme_C 88; extreme_at_s 660; scheduled_at_extreme_C 96; departure_K 8"
+                      "# deviation: log_gap; start_s 780; end_s 1080" "# deviation: stage_shortened; start_s 1380; end_s 1440")
+cli_expect(issue11_deviation_chill_warmer 0 ARGS deviation products/kofta-balls.toml
+           --medium-log tests/cli/deviation/kofta-chill-warm.csv --stage "blast chill" --date 2026-12-01
+           STDOUT_HAS "deviated stage:      blast chill (starts 24 min 00 s into the process; cools)"
+                      "1. medium warmer than scheduled in a stage that cools, 11 min 00 s to 20 min 00 s into the stage (660-1200 s); highest 10.00 °C at 660 s, scheduled -2.00 °C (12.00 K warmer)")
+cli_expect(issue11_deviation_chill_json 0 ARGS deviation products/kofta-balls.toml
+           --medium-log tests/cli/deviation/kofta-chill-warm.csv --stage "blast chill" --format json
+           STDOUT_HAS "\"kind\": \"medium_warmer\"" "\"start_s\": 660" "\"end_s\": 1200" "\"extreme_C\": 10"
+                      "\"scheduled_at_extreme_C\": -2" "\"departure_K\": 12" "\"stage_heats\": false")
+# issue 11: an invented local-time log at 60 °C across a spring-forward change (30 real minutes):
+# refused without --timezone; with it the jump is a gap and no lethality is credited across it.
+cli_expect(issue11_probe_spring_forward_refused 2 ARGS probe tests/cli/deviation/spring-forward.csv
+           --organism listeria-monocytogenes --target-log 6
+           STDERR_HAS "spring-forward.csv:18: timestamp = \"2026-03-29T03:00:00\": jumps 3660 s after the previous row"
+                      "this looks like a clock change (local time set forward), not an hour that elapsed; give the logger's fixed UTC offset, e.g. --timezone +01:00")
+cli_expect(issue11_probe_spring_forward_timezone 1 ARGS probe tests/cli/deviation/spring-forward.csv
+           --organism listeria-monocytogenes --target-log 6 --timezone +01:00
+           STDOUT_HAS "no lethality credited across the gap in the log from 14.0 min to 75.0 min (longer than 60.0 s)"
+                      "not demonstrated")
