@@ -23,8 +23,9 @@ namespace coldcore::cli {
 namespace {
 
 struct DeviationArgs {
-  std::string file, medium_log, probe_log, stage, lot, library, date, column;
+  std::string file, medium_log, probe_log, stage, lot, library, date, column, timezone;
   double tolerance_K = 0.5;
+  double max_gap_s = 60;
   double round_min = 1;
   bool conservative = false;
   OutputArgs output;
@@ -38,6 +39,7 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side) {
   if (a.medium_log.empty() && a.probe_log.empty())
     throw InputError("deviation: give --medium-log LOG.csv and/or --probe-log LOG.csv");
   if (!(a.tolerance_K > 0)) throw InputError("--tolerance-K = " + std::to_string(a.tolerance_K) + ": must be > 0");
+  if (!(a.max_gap_s > 0)) throw InputError("--max-gap-s = " + std::to_string(a.max_gap_s) + ": must be > 0");
   if (!(a.round_min > 0)) throw InputError("--round-min = " + std::to_string(a.round_min) + ": must be > 0");
   const io::ProductFile file = io::load_product(a.file);
   io::require_constant_properties(file);
@@ -52,6 +54,8 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side) {
     const std::string text = io::read_text_file(a.medium_log);
     io::LogOptions lo;
     lo.temp_column = a.column;
+    lo.max_gap_s = a.max_gap_s;
+    if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
     const io::TimeSeries log = io::parse_log_csv(text, a.medium_log, lo);
     for (const auto& w : log.warnings) info.warnings.push_back(w);
     in.medium_log = io::medium_profile(log, a.medium_log, text);
@@ -62,7 +66,10 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side) {
   }
   if (!a.probe_log.empty()) {
     const std::string text = io::read_text_file(a.probe_log);
-    const io::TimeSeries log = io::parse_log_csv(text, a.probe_log);
+    io::LogOptions lo;
+    lo.max_gap_s = a.max_gap_s;
+    if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
+    const io::TimeSeries log = io::parse_log_csv(text, a.probe_log, lo);
     for (const auto& w : log.warnings) info.warnings.push_back(w);
     in.probe_time_s = log.time_s;
     in.probe_temp_C = log.temp_C;
@@ -72,6 +79,7 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side) {
   }
   process::DeviationOptions o;
   o.tolerance_K = a.tolerance_K;
+  o.max_gap_s = a.max_gap_s;
   o.unit_s = a.round_min * 60.0;
   const process::DeviationResult r = process::evaluate_deviation(in, {&libs.organisms, &libs.rules, &libs.cooking}, o);
   std::optional<process::ConservativeDeviation> cons;
@@ -125,7 +133,13 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--probe-log", args->probe_log, "measured cold-spot log (CSV, first row = process start)");
   sub->add_option("--lot", args->lot, "lot or batch identifier for the record");
   sub->add_option("--column", args->column, "temperature column of the medium log, when it has several");
-  sub->add_option("--tolerance-K", args->tolerance_K, "a reading this far below the schedule is deviated")->capture_default_str()->check(within(0, 50, "K", true));
+  sub->add_option("--tolerance-K", args->tolerance_K, "a reading this far on the unfavourable side of the schedule is deviated")->capture_default_str()->check(within(0, 50, "K", true));
+  sub->add_option("--max-gap-s", args->max_gap_s,
+                  "readings further apart than this are a gap in the log (no lethality credited in it), s")
+      ->capture_default_str()
+      ->check(within(0, limits::duration_s.high, "s", true));
+  sub->add_option("--timezone", args->timezone,
+                  "fixed UTC offset of log timestamps written without one, e.g. +01:00 (needed when they jump by a clock change)");
   sub->add_option("--round-min", args->round_min, "additional time rounded UP to this, min")->capture_default_str()->check(within(0, 1440, "min", true));
   sub->add_flag("--conservative", args->conservative,
                 "also evaluate the deviation at the documented worst case of the file's ranges and name the choice that drove it");

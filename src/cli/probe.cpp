@@ -28,6 +28,7 @@ struct ProbeArgs {
   std::optional<double> reference_C, z_C, D_min, F_min;
   std::string temp_column;
   double max_gap_s = 60;
+  std::string timezone;
   std::string date;
   std::string lot;
   OutputArgs output;
@@ -105,9 +106,11 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
   io::LogOptions lo;
   lo.max_gap_s = a.max_gap_s;
   lo.temp_column = a.temp_column;
+  if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
   const io::TimeSeries log = io::parse_log_csv(bytes, a.log, lo);
   const LibraryFiles lib = load_libraries("", "");
   AssessOptions opts;
+  opts.max_gap_s = a.max_gap_s;  // issue 11: no lethality across a gap
   opts.origin = a.log;
   opts.cooking_tables = &lib.cooking;
   const ProbeAssessment pa = assess_probe_log(log.time_s, log.temp_C, targets, lib.organisms, lib.rules, opts, a.log);
@@ -120,6 +123,7 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
   ro.library_provenance = library_provenance(lib, /*names_only=*/true);  // found without a product file
   ro.date = report_date(a.date);
   ro.version = kVersion;
+  ro.max_gap_s = a.max_gap_s;
   const RunReport r = build_probe_report(log, pa, ro);
   switch (f) {
     case Format::json: write_run_json(r, out, u); break;
@@ -161,6 +165,8 @@ void add_probe_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--temp-column", a->temp_column, "which temperature column to use when the log has several");
   sub->add_option("--max-gap-s", a->max_gap_s, "gaps longer than this are reported, s")->capture_default_str()->check(within(0, limits::duration_s.high, "s", true));
   sub->add_option("--lot", a->lot, "lot or batch identifier for the report");
+  sub->add_option("--timezone", a->timezone,
+                  "fixed UTC offset of timestamps written without one, e.g. +01:00 (needed when they jump by a clock change)");
   sub->add_option("--date", a->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
   add_output_options(*sub, a->output);
   sub->callback([&ctx, a] {

@@ -1,5 +1,6 @@
 #include "coldcore/io/logger_csv.hpp"
 
+#include <algorithm>
 #include <charconv>
 #include <cmath>
 
@@ -84,9 +85,37 @@ long long days_from_civil(long long y, unsigned m, unsigned d) {
 
 bool leap(long long y) { return (y % 4 == 0 && y % 100 != 0) || y % 400 == 0; }
 
+constexpr const char* kWhatToDo =
+    "give the logger's fixed UTC offset, e.g. --timezone +01:00 (the timestamps are then read at that offset and a "
+    "jump is a gap in the log), or write each timestamp with its offset (Z or +HH:MM)";
+
+/// Local-time timestamps (no UTC offset) whose spacing jumps by one hour more than the log's usual
+/// interval: a clock set forward (summer time) makes 1 h that never elapsed look like a logger gap.
+/// Refused, naming the rows, unless the offset is given.
+void refuse_clock_change(const TimeSeries& log, std::string_view origin, const std::string& column,
+                         const std::vector<std::size_t>& lines, const std::vector<std::string>& cells0) {
+  const std::size_t n = log.time_s.size();
+  if (n < 3) return;
+  std::vector<double> dt;
+  for (std::size_t i = 1; i < n; ++i) dt.push_back(log.time_s[i] - log.time_s[i - 1]);
+  std::vector<double> sorted = dt;
+  std::nth_element(sorted.begin(), sorted.begin() + static_cast<std::ptrdiff_t>(sorted.size() / 2), sorted.end());
+  const double usual_s = sorted[sorted.size() / 2];
+  if (!(usual_s < 1800)) return;
+  for (std::size_t i = 0; i < dt.size(); ++i)
+    if (std::abs(dt[i] - usual_s - 3600.0) <= std::max(usual_s, 1.0) / 2 + 1e-9)
+      throw InputError(where(origin, lines[i + 1]) + ": " + column + " = " + show_cell(cells0[i + 1]) +
+                       ": jumps " + format_number(dt[i]) + " s after the previous row (" + show_cell(cells0[i]) +
+                       " at line " + std::to_string(lines[i]) + "), one hour more than the log's usual " +
+                       format_number(usual_s) + " s: the timestamps have no UTC offset, and this looks like a clock "
+                       "change (local time set forward), not an hour that elapsed; " + kWhatToDo);
+}
+
 }  // namespace
 
-std::optional<double> parse_iso8601_s(std::string_view s) {
+std::optional<double> parse_iso8601_s(std::string_view s) { return parse_iso8601_s(s, nullptr); }
+
+std::optional<double> parse_iso8601_s(std::string_view s, bool* has_offset) {
   s = trim(s);
   std::size_t pos = 0;
   auto digits = [&](std::size_t n) -> std::optional<int> {
@@ -134,6 +163,7 @@ std::optional<double> parse_iso8601_s(std::string_view s) {
     }
   }
   double offset_s = 0;
+  if (has_offset) *has_offset = pos < s.size();
   if (expect('Z')) {
   } else if (pos < s.size() && (s[pos] == '+' || s[pos] == '-')) {
     const int sign = s[pos] == '+' ? 1 : -1;
@@ -169,6 +199,9 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
   double prev_time_abs = 0;
   double first_time_abs = 0;
 
+  bool local_rows = false;                // a timestamp without a UTC offset was read
+  std::vector<std::size_t> lines;         // line of each data row
+  std::vector<std::string> cells0;        // time cell of each data row, as written
   std::size_t line_no = 0;
   std::size_t pos = 0;
   while (pos <= text.size()) {
@@ -240,11 +273,16 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
 
     double time_abs = 0;
     if (iso_time) {
-      const auto t = parse_iso8601_s(cells[0]);
+      bool zoned = false;
+      const auto t = parse_iso8601_s(cells[0], &zoned);
       if (!t)
         throw InputError(at + ": " + header[0] + " = " + quote(cells[0]) +
                          ": not an ISO-8601 timestamp (YYYY-MM-DDTHH:MM:SS, optional .fff and Z or +HH:MM)");
       time_abs = *t;
+      if (!zoned) {
+        local_rows = true;
+        if (opts.utc_offset_s) time_abs -= *opts.utc_offset_s;  // local = UTC + offset
+      }
     } else {
       const auto t = parse_number(cells[0]);
       if (!t) throw InputError(at + ": " + header[0] + " = " + quote(cells[0]) + ": not a number");
@@ -265,6 +303,12 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
                        detail::range_text(limits::temperature_C, Quantity::temperature, temp_unit));
 
     if (!out.time_s.empty()) {
+      if (iso_time && local_rows && !opts.utc_offset_s && time_abs <= prev_time_abs &&
+          prev_time_abs - time_abs <= 3600)
+        throw InputError(at + ": " + header[0] + " = " + show_cell(cells[0]) + ": goes back to before the previous row (" +
+                         show_cell(prev_time_cell) + " at line " + std::to_string(prev_line) +
+                         "): the timestamps have no UTC offset, and this looks like a clock change (local time set "
+                         "back); " + kWhatToDo);
       if (!(time_abs > prev_time_abs))
         throw InputError(at + ": " + header[0] + " = " + show_cell(cells[0]) + ": must be after the previous row (" +
                          show_cell(prev_time_cell) + " at line " + std::to_string(prev_line) + ")");
@@ -288,11 +332,14 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
     prev_time_abs = time_abs;
     prev_time_cell = std::string(cells[0]);
     prev_line = line_no;
+    lines.push_back(line_no);
+    cells0.emplace_back(cells[0]);
   }
 
   if (header.empty()) throw InputError(where(origin, 1) + ": empty log: no header and no data rows");
   if (out.time_s.empty())
     throw InputError(where(origin, header_line) + ": empty log: a header but no data rows");
+  if (iso_time && local_rows && !opts.utc_offset_s) refuse_clock_change(out, origin, header[0], lines, cells0);
   return out;
 }
 
@@ -302,6 +349,29 @@ MediumProfile medium_profile(const TimeSeries& log, std::string_view origin, std
   for (std::size_t i = 0; i < log.time_s.size(); ++i) prof.points.push_back({log.time_s[i], log.temp_C[i]});
   prof.description = "log " + std::string(origin) + " (sha256 " + sha256_hex(log_bytes) + ")";
   return prof;
+}
+
+double parse_utc_offset_s(std::string_view text, std::string_view option) {
+  const std::string_view t = trim(text);
+  const auto bad = [&]() {
+    return InputError(std::string(option) + " = " + quote(t) +
+                      ": must be a fixed UTC offset +HH:MM or -HH:MM (hours 0 to 14, e.g. +01:00), +HH, Z or UTC");
+  };
+  if (t == "Z" || t == "UTC") return 0;
+  if (t.size() < 3 || (t[0] != '+' && t[0] != '-')) throw bad();
+  const auto two = [&](std::size_t at) -> int {
+    if (at + 2 > t.size() || t[at] < '0' || t[at] > '9' || t[at + 1] < '0' || t[at + 1] > '9') throw bad();
+    return (t[at] - '0') * 10 + (t[at + 1] - '0');
+  };
+  const int hours = two(1);
+  int minutes = 0;
+  if (t.size() > 3) {
+    const std::size_t at = t[3] == ':' ? 4 : 3;
+    minutes = two(at);
+    if (at + 2 != t.size()) throw bad();
+  }
+  if (hours > 14 || minutes > 59 || (hours == 14 && minutes > 0)) throw bad();
+  return (t[0] == '+' ? 1.0 : -1.0) * (hours * 3600.0 + minutes * 60.0);
 }
 
 }  // namespace coldcore::io

@@ -272,4 +272,62 @@ std::vector<std::string> check_log_sampling(std::span<const double> times_s,
   return w;
 }
 
+namespace {
+
+/// Sum of `rule` over the gap-free runs of the log (runs of >= 2 rows; a gap credits nothing).
+template <class Rule>
+LogIntegral over_recorded_runs(std::span<const double> t, std::span<const double> T, double max_gap_s, Rule rule) {
+  LogIntegral out;
+  std::size_t first = 0;
+  for (std::size_t i = 1; i <= t.size(); ++i) {
+    if (i < t.size() && !(t[i] - t[i - 1] > max_gap_s)) continue;
+    if (i - first >= 2) {
+      LogIntegral part = rule(t.subspan(first, i - first), T.subspan(first, i - first));
+      out.F_s += part.F_s;
+    }
+    first = i;
+  }
+  return out;
+}
+
+}  // namespace
+
+LogIntegral f_trapezoid_s(std::span<const double> times_s, std::span<const double> temps_C, const Kinetics& k,
+                          std::string_view origin, double max_gap_s) {
+  LogIntegral out = f_trapezoid_s(times_s, temps_C, k, origin);  // validates, and the sampling warnings
+  out.F_s = over_recorded_runs(times_s, temps_C, max_gap_s, [&](auto t, auto T) {
+              return f_trapezoid_s(t, T, k, origin);
+            }).F_s;
+  return out;
+}
+
+LogIntegral f_simpson_s(std::span<const double> times_s, std::span<const double> temps_C, const Kinetics& k,
+                        std::string_view origin, double max_gap_s) {
+  LogIntegral out = f_simpson_s(times_s, temps_C, k, origin);
+  out.F_s = over_recorded_runs(times_s, temps_C, max_gap_s, [&](auto t, auto T) {
+              return f_simpson_s(t, T, k, origin);
+            }).F_s;
+  return out;
+}
+
+LogIntegral f_piecewise_linear_s(std::span<const double> times_s, std::span<const double> temps_C,
+                                 const Kinetics& k, std::string_view origin, double max_gap_s) {
+  LogIntegral out = f_piecewise_linear_s(times_s, temps_C, k, origin);
+  out.F_s = over_recorded_runs(times_s, temps_C, max_gap_s, [&](auto t, auto T) {
+              return f_piecewise_linear_s(t, T, k, origin);
+            }).F_s;
+  return out;
+}
+
+std::vector<double> cumulative_f_trapezoid_s(std::span<const double> times_s, std::span<const double> temps_C,
+                                             const Kinetics& k, std::string_view origin, double max_gap_s) {
+  validate_log(times_s, temps_C, origin);
+  std::vector<double> out(times_s.size(), 0.0);
+  for (std::size_t i = 1; i < times_s.size(); ++i) {
+    const double dt = times_s[i] - times_s[i - 1];
+    out[i] = out[i - 1] + (dt > max_gap_s ? 0.0 : 0.5 * (lethal_rate(temps_C[i - 1], k) + lethal_rate(temps_C[i], k)) * dt);
+  }
+  return out;
+}
+
 }  // namespace coldcore

@@ -7,6 +7,7 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/kinetics.hpp"
+#include "coldcore/process/h_ends.hpp"
 
 #include "process/detail/inverse_text.hpp"
 
@@ -26,14 +27,18 @@ std::optional<double> logs_of(const TargetResult& r, double F_s) {
   return std::nullopt;
 }
 
-/// The deviated stage with its medium replaced by `medium` and, for x > 0, extended by x at
-/// `hold_C` (a 1 ms ramp from the log's value at the scheduled end, times must increase).
-Scenario extended(const Scenario& base, std::size_t k, const MediumProfile& medium, double x, double hold_C) {
+/// The deviated stage with its medium replaced by `medium`; a duration-ended stage lasts
+/// `stage_s` and, for x > 0, is extended by x at `hold_C` (a 1 ms ramp from the log's value at
+/// stage_s, times must increase).
+Scenario extended(const Scenario& base, std::size_t k, const MediumProfile& medium, double stage_s, double x,
+                  double hold_C) {
   Scenario c = base;
   Stage& st = c.stages[k];
   st.medium = medium;
-  if (x > 0 && st.end.kind == StageEndKind::duration) {
-    const double d = st.end.duration_s;
+  if (st.end.kind != StageEndKind::duration) return c;
+  st.end.duration_s = stage_s;
+  if (x > 0) {
+    const double d = stage_s;
     auto& pts = st.medium.points;
     const double at_d = st.medium.at(d);
     while (!pts.empty() && pts.back().time_s >= d) pts.pop_back();
@@ -45,27 +50,118 @@ Scenario extended(const Scenario& base, std::size_t k, const MediumProfile& medi
   return c;
 }
 
+/// Stage k of `c` (duration-ended) split at the gaps of its log: each gap becomes a stage of its
+/// own named "<stage> (gap in the log)" that no lethality target credits (the medium in it is
+/// unknown, so its lethality cannot be credited); the recorded parts keep the stage's name, so a
+/// target crediting the stage by name credits them. Same h and medium, so the temperatures are
+/// those of the unsplit stage.
+Scenario without_gap_credit(Scenario c, std::size_t k, const std::vector<DeviationEvent>& events) {
+  const Stage st = c.stages[k];
+  if (st.end.kind != StageEndKind::duration) return c;
+  const double end = st.end.duration_s;
+  const std::string gap_name = st.name + " (gap in the log)";
+  std::vector<Stage> parts;
+  const auto part = [&](double a, double b, const std::string& name) {
+    if (!(b > a)) return;
+    Stage p = st;
+    p.name = name;
+    p.end.duration_s = b - a;
+    p.medium.points.clear();
+    p.medium.points.push_back({0, st.medium.at(a)});
+    for (const auto& q : st.medium.points)
+      if (q.time_s > a && q.time_s < b) p.medium.points.push_back({q.time_s - a, q.temp_C});
+    p.medium.points.push_back({b - a, st.medium.at(b)});
+    parts.push_back(std::move(p));
+  };
+  double t = 0;
+  for (const auto& e : events) {
+    if (e.kind != DeviationKind::log_gap || e.start_s >= end) continue;
+    part(t, e.start_s, st.name);
+    part(e.start_s, std::min(e.end_s, end), gap_name);
+    t = std::min(e.end_s, end);
+  }
+  if (parts.empty()) return c;  // no gap
+  part(t, end, st.name);
+  const bool recorded_part = std::any_of(parts.begin(), parts.end(), [&](const Stage& p) { return p.name == st.name; });
+  if (!recorded_part)
+    throw InputError("medium log of stage \"" + st.name + "\": no two readings are close enough to record any "
+                     "of the stage (every interval is a gap); nothing in it can be credited");
+  c.stages.erase(c.stages.begin() + static_cast<std::ptrdiff_t>(k));
+  c.stages.insert(c.stages.begin() + static_cast<std::ptrdiff_t>(k), parts.begin(), parts.end());
+  if (k < c.per_target_h.size()) {  // keep the per-stage h choices aligned with the stages
+    const auto flag = c.per_target_h[k];
+    c.per_target_h.insert(c.per_target_h.begin() + static_cast<std::ptrdiff_t>(k), parts.size() - 1, flag);
+  }
+  for (auto& t : c.targets) {
+    if (!is_lethality(t.kind) || !t.stages.empty()) continue;
+    for (const auto& sg : c.stages)  // "all stages" becomes every stage but the gaps
+      if (sg.name != gap_name && std::find(t.stages.begin(), t.stages.end(), sg.name) == t.stages.end())
+        t.stages.push_back(sg.name);
+  }
+  return c;
+}
+
+/// `log` cut at `end_s` (a point interpolated there when needed).
+MediumProfile cut_at(const MediumProfile& log, double end_s) {
+  MediumProfile c = log;
+  const double at_end = log.at(end_s);
+  auto& pts = c.points;
+  while (!pts.empty() && pts.back().time_s > end_s) pts.pop_back();
+  if (pts.empty() || pts.back().time_s < end_s) pts.push_back({end_s, at_end});
+  c.description += " (cut at " + num(end_s) + " s)";
+  return c;
+}
+
 }  // namespace
 
-DeviationEvent find_deviation(const MediumProfile& schedule, const MediumProfile& log, double tolerance_K) {
-  DeviationEvent e;
-  e.lowest_C = 1e300;
+std::vector<DeviationEvent> find_deviations(const MediumProfile& schedule, const MediumProfile& log,
+                                            const DeviationScan& scan) {
+  std::vector<DeviationEvent> out;
+  const DeviationKind medium_kind = scan.stage_heats ? DeviationKind::medium_colder : DeviationKind::medium_warmer;
+  std::optional<DeviationEvent> run;  // the run of deviated readings in progress
   for (const auto& p : log.points) {
     const double s = schedule.at(p.time_s);
-    const double drop = s - p.temp_C;
-    if (p.temp_C < e.lowest_C) {
-      e.lowest_C = p.temp_C;
-      e.lowest_at_s = p.time_s;
-      e.scheduled_at_lowest_C = s;
-    }
-    e.largest_drop_K = std::max(e.largest_drop_K, drop);
-    if (drop > tolerance_K) {
-      if (!e.found) e.start_s = p.time_s;
-      e.found = true;
-      e.end_s = p.time_s;
+    const double dep = scan.stage_heats ? s - p.temp_C : p.temp_C - s;  // > 0: unfavourable side
+    if (dep > scan.tolerance_K) {
+      if (!run) {
+        run = DeviationEvent{};
+        run->kind = medium_kind;
+        run->start_s = p.time_s;
+      }
+      run->end_s = p.time_s;
+      if (dep > run->departure_K) {
+        run->departure_K = dep;
+        run->extreme_C = p.temp_C;
+        run->extreme_at_s = p.time_s;
+        run->scheduled_at_extreme_C = s;
+      }
+    } else if (run) {
+      out.push_back(*run);
+      run.reset();
     }
   }
-  return e;
+  if (run) out.push_back(*run);
+  for (std::size_t i = 1; i < log.points.size(); ++i) {
+    const double t0 = log.points[i - 1].time_s, t1 = log.points[i].time_s;
+    if (t1 - t0 > scan.max_gap_s) {
+      DeviationEvent g;
+      g.kind = DeviationKind::log_gap;
+      g.start_s = t0;
+      g.end_s = t1;
+      out.push_back(g);
+    }
+  }
+  const double log_end = log.points.back().time_s;
+  if (scan.scheduled_end_s && log_end < *scan.scheduled_end_s) {
+    DeviationEvent e;
+    e.kind = DeviationKind::stage_shortened;
+    e.start_s = log_end;
+    e.end_s = *scan.scheduled_end_s;
+    out.push_back(e);
+  }
+  std::stable_sort(out.begin(), out.end(),
+                   [](const DeviationEvent& x, const DeviationEvent& y) { return x.start_s < y.start_s; });
+  return out;
 }
 
 DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& libs, const DeviationOptions& o) {
@@ -90,64 +186,118 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
     const Stage& st = s.stages[k];
     r.stage = st.name;
     r.stage_start_s = r.scheduled.history.stages[k].start_s;
-    r.event = find_deviation(st.medium, *in.medium_log, o.tolerance_K);
     const double log_end = in.medium_log->points.back().time_s;
+    if (st.end.kind == StageEndKind::duration && !(log_end > 0))
+      throw InputError("medium log: a single reading cannot say how long stage \"" + st.name +
+                       "\" lasted; give at least two rows");
     const double sched_len = r.scheduled.history.stages[k].end_s - r.stage_start_s;
-    r.assumptions.push_back("the medium log's first row is the start of stage \"" + st.name +
-                            "\"; the stage keeps its scheduled end (" +
-                            (st.end.kind == StageEndKind::duration ? "duration " + num(st.end.duration_s) + " s"
-                                                                   : std::string("its temperature condition")) +
-                            ") and h; other stages as scheduled");
-    r.assumptions.push_back("the medium is linear between logged readings; a reading is deviated when it is more than " +
-                            num(o.tolerance_K) + " K below the schedule at that time");
-    if (log_end + 1e-9 < sched_len)
+    const bool by_duration = st.end.kind == StageEndKind::duration;
+    r.stage_heats = heating_stage(s, k);
+    r.scheduled_stage_s = sched_len;
+    r.delivered_stage_s = by_duration ? log_end : sched_len;
+    DeviationScan scan;
+    scan.stage_heats = r.stage_heats;
+    if (by_duration) scan.scheduled_end_s = st.end.duration_s;
+    scan.tolerance_K = o.tolerance_K;
+    scan.max_gap_s = o.max_gap_s;
+    r.events = find_deviations(st.medium, *in.medium_log, scan);
+    r.assumptions.push_back(
+        "the medium log's first row is the start of stage \"" + st.name + "\"; " +
+        (by_duration ? "the stage lasts as long as the log (scheduled duration " + num(st.end.duration_s) + " s)"
+                     : std::string("the stage keeps its temperature condition as its end")) +
+        "; h and the other stages as scheduled");
+    r.assumptions.push_back(std::string("stage \"") + st.name + "\" " +
+                            (r.stage_heats ? "heats, so a reading colder" : "cools, so a reading warmer") +
+                            " than the schedule by more than " + num(o.tolerance_K) +
+                            " K is deviated; the medium is linear between logged readings; readings more than " +
+                            num(o.max_gap_s) + " s apart are a gap in the log");
+    if (!by_duration && log_end + 1e-9 < sched_len)
       r.notes.push_back("the medium log covers " + num(log_end) + " s of the stage's " + num(sched_len) +
                         " s; its last reading is held to the end");
-    if (st.end.kind == StageEndKind::duration && log_end > st.end.duration_s + 1e-9)
-      r.notes.push_back("the medium log runs " + num(log_end - st.end.duration_s) +
-                        " s past the stage's scheduled end; readings after it are not used");
-    r.delivered = evaluate(extended(s, k, *in.medium_log, 0, 0), libs);
+    double gap_total_s = 0;
+    int gaps = 0;
+    for (const auto& e : r.events)
+      if (e.kind == DeviationKind::log_gap) {
+        gap_total_s += e.end_s - e.start_s;
+        ++gaps;
+      }
+    if (gaps > 0 && by_duration)
+      r.notes.push_back("lethality accrued in the " + std::to_string(gaps) + " gap(s) of the medium log (" +
+                        num(gap_total_s) + " s in all) is not credited: the medium meanwhile is unknown; the "
+                        "product's temperature is carried across them by linear interpolation of the medium");
+    else if (gaps > 0)
+      r.notes.push_back("the medium log has " + std::to_string(gaps) + " gap(s) (" + num(gap_total_s) +
+                        " s in all) in a stage that ends by a temperature condition: the medium is interpolated "
+                        "across them and their lethality IS credited; treat the delivered result as not recorded there");
+    r.delivered = evaluate(without_gap_credit(extended(s, k, *in.medium_log, r.delivered_stage_s, 0, 0), k, r.events), libs);
 
-    // Extra hold at the scheduled medium temperature that restores every lethality target.
-    r.extension_medium_C = st.medium.at(sched_len);
-    if (st.end.kind != StageEndKind::duration) {
-      r.extra_hold_note = "stage \"" + st.name + "\" ends by a temperature condition, not a duration; no extension "
-                          "is computed";
-    } else if (considered.empty()) {
-      r.extra_hold_note = "no lethality or minimum-temperature target to restore";
-    } else {
+    // Extra hold at the scheduled medium temperature (from the end of the delivered stage) that
+    // restores every lethality target; returns the rounded hold, its proof and one unit less.
+    r.extension_medium_C = st.medium.at(by_duration ? st.end.duration_s : sched_len);
+    struct Hold {
+      double unrounded_s = 0, rounded_s = 0;
+      Check restored;
+      std::optional<Check> one_less;
+    };
+    const auto solve_hold = [&](const MediumProfile& log, double stage_s) -> Hold {
       const double hold_C = r.extension_medium_C;
-      const auto apply = [&](double x) { return extended(s, k, *in.medium_log, x, hold_C); };
+      const auto apply = [&](double x) { return without_gap_credit(extended(s, k, log, stage_s, x, hold_C), k, r.events); };
       RootOptions ro;
       ro.expand = true;
       ro.limit = o.max_extra_s;
       ro.rel_tol = 1e-6;
       ro.abs_tol = 1e-3;
+      const RootResult root =
+          solve_margin([&](double x) { return evaluate(apply(x), libs, considered, search_history_options()).margin; },
+                       0.0, std::max(60.0, o.unit_s), FeasibleSide::above, ro, "");
+      Hold h;
+      h.unrounded_s = root.x;
+      double rounded = root.met_at_bound ? 0.0 : round_to_unit(root.x, o.unit_s, FeasibleSide::above);
+      Check c{rounded, evaluate(apply(rounded), libs, considered)};
+      for (int i = 0; i < 3 && !c.eval.considered_met; ++i) {  // a tie is not "met"
+        rounded += o.unit_s;
+        c = Check{rounded, evaluate(apply(rounded), libs, considered)};
+      }
+      h.rounded_s = rounded;
+      h.restored = c;
+      if (rounded > 0) {
+        const double less = std::max(0.0, rounded - o.unit_s);
+        h.one_less = Check{less, evaluate(apply(less), libs, considered)};
+      }
+      return h;
+    };
+    const std::string no_hold = "no extension of stage \"" + st.name + "\" at " + temp_token(r.extension_medium_C, 5) +
+                                " up to " + num(o.max_extra_s / 3600.0) + " h restores every lethality target";
+    if (!by_duration) {
+      r.extra_hold_note = "stage \"" + st.name + "\" ends by a temperature condition, not a duration; no extension "
+                          "is computed";
+    } else if (considered.empty()) {
+      r.extra_hold_note = "no lethality or minimum-temperature target to restore";
+    } else {
       try {
-        const RootResult root = solve_margin([&](double x) { return evaluate(apply(x), libs, considered, search_history_options()).margin; }, 0.0,
-                                             std::max(60.0, o.unit_s), FeasibleSide::above, ro, "");
-        r.extra_hold_unrounded_s = root.x;
-        double rounded = root.met_at_bound ? 0.0 : round_to_unit(root.x, o.unit_s, FeasibleSide::above);
-        Check c{rounded, evaluate(apply(rounded), libs, considered)};
-        for (int i = 0; i < 3 && !c.eval.considered_met; ++i) {  // a tie is not "met"
-          rounded += o.unit_s;
-          c = Check{rounded, evaluate(apply(rounded), libs, considered)};
-        }
-        r.extra_hold_s = rounded;
-        r.restored = c;
-        if (rounded > 0) {
-          const double less = std::max(0.0, rounded - o.unit_s);
-          r.restored_one_unit_less = Check{less, evaluate(apply(less), libs, considered)};
-        }
+        Hold h = solve_hold(*in.medium_log, r.delivered_stage_s);
+        r.extra_hold_unrounded_s = h.unrounded_s;
+        r.extra_hold_s = h.rounded_s;
+        r.restored = std::move(h.restored);
+        r.restored_one_unit_less = std::move(h.one_less);
       } catch (const NoSolution&) {
-        r.extra_hold_note = "no extension of stage \"" + st.name + "\" at " + temp_token(hold_C, 5) + " up to " +
-                            num(o.max_extra_s / 3600.0) + " h restores every lethality target";
+        r.extra_hold_note = no_hold;
+      }
+      // A hold extension already given: what the log cut at the scheduled end would have needed.
+      if (log_end > st.end.duration_s) {
+        r.extension_given_s = log_end - st.end.duration_s;
+        try {
+          r.extension_needed_s = solve_hold(cut_at(*in.medium_log, st.end.duration_s), st.end.duration_s).rounded_s;
+        } catch (const NoSolution&) {
+          r.extension_needed_note = no_hold;
+        }
       }
     }
   }
 
   if (!in.probe_time_s.empty()) {
     AssessOptions ao;
+    ao.max_gap_s = o.max_gap_s;  // no lethality credited across a gap in the probe log
     ao.origin = s.origin;
     ao.cooking_tables = libs.cooking;
     r.probe = assess_probe_log(in.probe_time_s, in.probe_temp_C, s.targets, *libs.organisms, *libs.rules, ao,

@@ -779,10 +779,16 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
         r.source = res.k.source;
         ProbeLethality pl;
         pl.name = r.name;
-        const LogIntegral tr = f_trapezoid_s(times_s, temps_C, res.k, origin);
+        const LogIntegral tr = f_trapezoid_s(times_s, temps_C, res.k, origin, opts.max_gap_s);
         pl.F_trapezoid_s = tr.F_s;
-        pl.F_simpson_s = f_simpson_s(times_s, temps_C, res.k, origin).F_s;
-        pl.F_linear_s = f_piecewise_linear_s(times_s, temps_C, res.k, origin).F_s;
+        pl.F_simpson_s = f_simpson_s(times_s, temps_C, res.k, origin, opts.max_gap_s).F_s;
+        pl.F_linear_s = f_piecewise_linear_s(times_s, temps_C, res.k, origin, opts.max_gap_s).F_s;
+        if (std::isfinite(opts.max_gap_s))  // issue 11: no lethality credited where nothing was recorded
+          for (std::size_t g = 1; g < times_s.size(); ++g)
+            if (times_s[g] - times_s[g - 1] > opts.max_gap_s)
+              r.notes.push_back("no lethality credited across the gap in the log from " + minutes_down(times_s[g - 1]) +
+                                " to " + minutes_down(times_s[g]) + " (longer than " + shown_down(opts.max_gap_s) +
+                                " s): the temperature meanwhile was not recorded");
         r.F_s = std::min({pl.F_trapezoid_s, pl.F_simpson_s, pl.F_linear_s});
         const double hi = std::max({pl.F_trapezoid_s, pl.F_simpson_s, pl.F_linear_s});
         if (r.F_s > 0 && hi - r.F_s > 0.01 * r.F_s)

@@ -57,10 +57,15 @@ std::vector<RunFigure> deviation_figures(const process::DeviationResult& r, cons
   const auto add_marks = [&](svg::LinePlot& p) {
     if (stages_from)
       for (const auto& s : stages_from->stages) p.vlines.push_back({s.start_s / ts.seconds_per_unit, s.name});
-    if (r.event.found && !r.stage.empty()) {
-      p.vlines.push_back({(r.stage_start_s + r.event.start_s) / ts.seconds_per_unit, "deviation start"});
-      p.vlines.push_back({(r.stage_start_s + r.event.end_s) / ts.seconds_per_unit, "deviation end"});
-    }
+    if (!r.stage.empty())
+      for (const auto& e : r.events) {
+        const bool gap = e.kind == process::DeviationKind::log_gap;
+        const bool shortened = e.kind == process::DeviationKind::stage_shortened;
+        p.vlines.push_back({(r.stage_start_s + e.start_s) / ts.seconds_per_unit,
+                            gap ? "gap start" : shortened ? "delivered stage end" : "deviation start"});
+        if (!shortened)
+          p.vlines.push_back({(r.stage_start_s + e.end_s) / ts.seconds_per_unit, gap ? "gap end" : "deviation end"});
+      }
   };
 
   {

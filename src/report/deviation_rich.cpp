@@ -45,18 +45,19 @@ void record_section(RichDoc& d, const DeviationResult& r, const DeviationRecordI
   d.section_begin("record", "Deviation record");
   std::vector<KeyValue> kv = {{"product", i.product_name}, {"lot", lot_text(i)}};
   if (!r.stage.empty()) {
-    kv.push_back({"deviated stage", r.stage + " (starts " + duration_text(r.stage_start_s) + " into the process)"});
-    if (r.event.found) {
-      kv.push_back({"deviation start", at_time(r.event.start_s) + " into the stage"});
-      kv.push_back({"deviation end", at_time(r.event.end_s) + " into the stage"});
-    } else {
-      kv.push_back({"deviation", "no logged reading below the schedule by more than the tolerance"});
-    }
-    kv.push_back({"lowest medium temperature", temp(r.event.lowest_C, u) + " at " + at_time(r.event.lowest_at_s) +
-                                                   " into the stage (scheduled " +
-                                                   temp(r.event.scheduled_at_lowest_C, u) + ")"});
-    kv.push_back({"largest drop below the schedule",
-                  fixed(display_temp_difference(r.event.largest_drop_K, u), 2) + " " + std::string(unit_symbol(u))});
+    kv.push_back({"deviated stage", r.stage + " (starts " + duration_text(r.stage_start_s) + " into the process; " +
+                                        (r.stage_heats ? "heats" : "cools") + ")"});
+    if (r.events.empty()) kv.push_back({"deviation", no_deviation_text(r)});
+    for (std::size_t n = 0; n < r.events.size(); ++n)
+      kv.push_back({"deviation " + std::to_string(n + 1) + " of " + std::to_string(r.events.size()),
+                    deviation_event_text(r.events[n], u)});
+    if (r.extension_given_s)
+      kv.push_back({"hold extension",
+                    "the log runs " + at_time(*r.extension_given_s) + " past the scheduled end, credited as delivered; " +
+                        (!r.extension_needed_s ? "the extension needed is not known: " + r.extension_needed_note
+                         : *r.extension_needed_s == 0
+                             ? std::string("none of it was needed")
+                             : at_time(*r.extension_needed_s) + " at the scheduled medium was needed")});
     kv.push_back({"medium log", i.medium_log});
     kv.push_back({"medium log SHA-256", i.medium_log_sha256});
   }

@@ -144,15 +144,26 @@ void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i
   out << "DEVIATION RECORD\n";
   out << "  lot:                 " << (i.lot.empty() ? "(not given)" : i.lot) << "\n";
   if (!r.stage.empty()) {
-    out << "  deviated stage:      " << r.stage << " (starts " << duration_text(r.stage_start_s) << " into the process)\n";
-    if (r.event.found) {
-      out << "  deviation start:     " << duration_text(r.event.start_s) << " into the stage (" << fixed(r.event.start_s, 0) << " s)\n";
-      out << "  deviation end:       " << duration_text(r.event.end_s) << " into the stage (" << fixed(r.event.end_s, 0) << " s)\n";
+    out << "  deviated stage:      " << r.stage << " (starts " << duration_text(r.stage_start_s) << " into the process; "
+        << (r.stage_heats ? "heats" : "cools") << ")\n";
+    if (r.events.empty()) {
+      out << "  deviation:           " << no_deviation_text(r) << "\n";
     } else {
-      out << "  deviation:           no logged reading below the schedule by more than the tolerance\n";
+      out << "  deviations:          " << r.events.size() << " (times from the stage start)\n";
+      for (std::size_t n = 0; n < r.events.size(); ++n)
+        out << "    " << n + 1 << ". " << deviation_event_text(r.events[n], u) << "\n";
     }
-    out << "  lowest medium:       " << temp(r.event.lowest_C, u) << " at " << fixed(r.event.lowest_at_s, 0)
-        << " s (scheduled " << temp(r.event.scheduled_at_lowest_C, u) << ")\n";
+    if (r.extension_given_s) {
+      out << "  hold extension:      the log runs " << duration_text(*r.extension_given_s) << " ("
+          << fixed(*r.extension_given_s, 0) << " s) past the scheduled end, credited as delivered; ";
+      if (r.extension_needed_s)
+        out << (*r.extension_needed_s == 0 ? std::string("none of it was needed")
+                                           : duration_text(*r.extension_needed_s) + " (" +
+                                                 fixed(*r.extension_needed_s, 0) + " s) at the scheduled medium was needed")
+            << "\n";
+      else
+        out << "the extension needed is not known: " << r.extension_needed_note << "\n";
+    }
     out << "  medium log:          " << i.medium_log << "\n  medium log SHA-256:  " << i.medium_log_sha256 << "\n";
   }
   if (!i.probe_log.empty())
@@ -225,16 +236,29 @@ void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i
   if (i.lot.empty()) w.key("lot").null(); else w.key("lot").value(i.lot);
   if (r.stage.empty()) w.key("stage").null(); else w.key("stage").value(r.stage);
   w.key("stage_start_s").value(r.stage_start_s);
-  w.key("deviation").begin_object();
-  w.key("found").value(r.event.found);
-  w.key("start_s").value(r.event.start_s);
-  w.key("end_s").value(r.event.end_s);
-  w.key("lowest_C").value(r.event.lowest_C);
-  w.key("lowest_at_s").value(r.event.lowest_at_s);
-  w.key("scheduled_at_lowest_C").value(r.event.scheduled_at_lowest_C);
-  w.key("largest_drop_K").value(r.event.largest_drop_K);
-  w.key("times_from").value("the start of the deviated stage");
-  w.end_object();
+  w.key("stage_heats").value(r.stage_heats);
+  w.key("scheduled_stage_s").value(r.scheduled_stage_s);
+  w.key("delivered_stage_s").value(r.delivered_stage_s);
+  w.key("deviations").begin_array();
+  for (const auto& e : r.events) {
+    w.begin_object();
+    w.key("kind").value(std::string(to_string(e.kind)));
+    w.key("start_s").value(e.start_s);
+    w.key("end_s").value(e.end_s);
+    if (e.kind == process::DeviationKind::medium_colder || e.kind == process::DeviationKind::medium_warmer) {
+      w.key("extreme_C").value(e.extreme_C);
+      w.key("extreme_at_s").value(e.extreme_at_s);
+      w.key("scheduled_at_extreme_C").value(e.scheduled_at_extreme_C);
+      w.key("departure_K").value(e.departure_K);
+    }
+    w.key("description").value(deviation_event_text(e, TempUnit::C));
+    w.end_object();
+  }
+  w.end_array();
+  w.key("deviation_times_from").value("the start of the deviated stage");
+  json_opt(w, "extension_given_s", r.extension_given_s);
+  json_opt(w, "extension_needed_s", r.extension_needed_s);
+  if (!r.extension_needed_note.empty()) w.key("extension_needed_note").value(r.extension_needed_note);
   json_targets_and_hold(w, r);
   w.key("restored");
   if (r.restored) {
@@ -286,9 +310,23 @@ void write_deviation_csv(const DeviationResult& r, const DeviationRecordInfo& i,
   out << "# lot: " << (i.lot.empty() ? "(not given)" : i.lot) << "\n";
   if (!r.stage.empty()) {
     out << "# stage: " << r.stage << "\n";
-    out << "# deviation found: " << (r.event.found ? "yes" : "no") << "; start_s " << JsonWriter::number(r.event.start_s)
-        << "; end_s " << JsonWriter::number(r.event.end_s) << "; lowest_C " << JsonWriter::number(r.event.lowest_C)
-        << " (times from the stage start)\n";
+    out << "# stage heats: " << (r.stage_heats ? "yes" : "no") << "; scheduled_stage_s "
+        << JsonWriter::number(r.scheduled_stage_s) << "; delivered_stage_s " << JsonWriter::number(r.delivered_stage_s)
+        << "\n";
+    out << "# deviations: " << r.events.size() << " (times from the stage start)\n";
+    for (const auto& e : r.events) {
+      out << "# deviation: " << to_string(e.kind) << "; start_s " << JsonWriter::number(e.start_s) << "; end_s "
+          << JsonWriter::number(e.end_s);
+      if (e.kind == process::DeviationKind::medium_colder || e.kind == process::DeviationKind::medium_warmer)
+        out << "; extreme_C " << JsonWriter::number(e.extreme_C) << "; extreme_at_s " << JsonWriter::number(e.extreme_at_s)
+            << "; scheduled_at_extreme_C " << JsonWriter::number(e.scheduled_at_extreme_C) << "; departure_K "
+            << JsonWriter::number(e.departure_K);
+      out << "\n";
+    }
+    if (r.extension_given_s)
+      out << "# extension_given_s: " << JsonWriter::number(*r.extension_given_s) << "; extension_needed_s: "
+          << (r.extension_needed_s ? JsonWriter::number(*r.extension_needed_s) : "none: " + r.extension_needed_note)
+          << "\n";
     out << "# medium log: " << i.medium_log << " (SHA-256 " << i.medium_log_sha256 << ")\n";
   }
   if (!i.probe_log.empty()) out << "# probe log: " << i.probe_log << " (SHA-256 " << i.probe_log_sha256 << ")\n";

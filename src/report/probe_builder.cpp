@@ -75,7 +75,7 @@ RunReport build_probe_report(const io::TimeSeries& log, const ProbeAssessment& p
                            shown_down(pl.F_simpson_s / 60.0) + " min, exact on the linear interpolant " +
                            shown_down(pl.F_linear_s / 60.0) + " min; the " +
                            (opts.lethality_requirement ? "verdict" : "delivered F") + " uses the smallest");
-      const auto cum = cumulative_f_trapezoid_s(log.time_s, log.temp_C, *t.kinetics, opts.log_path);
+      const auto cum = cumulative_f_trapezoid_s(log.time_s, log.temp_C, *t.kinetics, opts.log_path, opts.max_gap_s);
       const std::string col = t.column.empty() ? "F_" + t.name + "_min" : t.column;
       r.history.columns.push_back({col, false});
       for (size_t k = 0; k < cum.size(); ++k) r.history.rows[k].push_back(cum[k] / 60.0);

@@ -68,7 +68,8 @@ cli_expect(solve_bad_stage 2 ARGS solve products/kofta-balls.toml --for hold-tim
 # coldcore deviation: the invented 8 C dip for 6 min in the corned beef retort hold.
 cli_expect(deviation_corned_text 0 ARGS deviation products/corned-beef-can.toml
            --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 --date 2026-12-01
-           STDOUT_HAS "lot:                 CB-0412" "deviation start:     40 min 00 s" "lowest medium:       113.10 °C"
+           STDOUT_HAS "lot:                 CB-0412"
+                      "1. medium colder than scheduled in a stage that heats, 40 min 00 s to 46 min 00 s into the stage (2400-2760 s); lowest 113.10 °C at 2400 s, scheduled 121.10 °C (8.00 K colder)"
                       "medium log SHA-256:" "F scheduled 16.9 min, delivered 14.7 min" "Reviewer name:"
                       "is for the process authority to decide")
 cli_expect(deviation_corned_json 0 ARGS deviation products/corned-beef-can.toml
@@ -296,7 +297,7 @@ set(COLDCORE_DEV_chicken-sausage-log "products/logs/chicken-sausage-bath-deviati
 set(COLDCORE_DEV_lasagne-tray "products/logs/lasagne-oven-deviation.csv")
 foreach(p kofta-balls chicken-sausage-log lasagne-tray)
   cli_expect(deviation_${p}_text 0 ARGS deviation products/${p}.toml --medium-log ${COLDCORE_DEV_${p}}
-             STDOUT_HAS "DEVIATION RECORD" "deviation start:" "is for the process authority to decide" "CAUTIONS")
+             STDOUT_HAS "DEVIATION RECORD" "1. medium colder than scheduled in a stage that heats" "is for the process authority to decide" "CAUTIONS")
   cli_expect(deviation_${p}_json 0 ARGS deviation products/${p}.toml --medium-log ${COLDCORE_DEV_${p}} --format json
              STDOUT_HAS "\"delivered_F_min\"" "\"disposition\"" "\"cautions\"")
   cli_expect(deviation_${p}_csv 0 ARGS deviation products/${p}.toml --medium-log ${COLDCORE_DEV_${p}} --format csv
@@ -334,8 +335,8 @@ cli_expect(solve_min_medium_sausage_html_F 0 ARGS solve products/chicken-sausage
 # (definition of the Fahrenheit scale).
 cli_expect(deviation_corned_html_F 0 ARGS deviation products/corned-beef-can.toml
            --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 --format html --units F
-           STDOUT_HAS "<h1>coldcore deviation record: lot CB-0412" "<td>lowest medium temperature</td><td>235.58 °F"
-                      "(scheduled 249.98 °F)" "<td>14.40 °F</td>" "<td>deviation start</td><td>40 min 00 s (2400 s)"
+           STDOUT_HAS "<h1>coldcore deviation record: lot CB-0412"
+                      "<td>deviation 1 of 1</td><td>medium colder than scheduled in a stage that heats, 40 min 00 s to 46 min 00 s into the stage (2400-2760 s); lowest 235.58 °F at 2400 s, scheduled 249.98 °F (14.40 °F colder)</td>"
                       "<td>medium log SHA-256</td>" "is for the process authority to decide" "<td>Reviewer name</td>"
                       "<td class=\"line\"> </td>" "class=\"verdict-met\">met<" "temperature (°F)")
 cli_expect(deviation_md_needs_out 2 ARGS deviation products/corned-beef-can.toml
@@ -443,3 +444,35 @@ cli_expect(issue11_probe_tie_json 1 ARGS probe tests/cli/issue11/hold_70C_123s.c
 cli_expect(issue11_probe_huge_logs 0 ARGS probe tests/cli/issue11/hold_70C_20h.csv --organism listeria-monocytogenes --target-log 6
            STDOUT_HAS "more than 15 log10 (credited F 1200 min)" "more than 9.00 log10"
            STDOUT_LACKS "3600 log10" "3.60e+03")
+# issue 11: deviations in both directions (invented logs under tests/cli/deviation/). Directions by the
+# schedule (a stage heats when its medium is not below the stage before it); the unfavourable side is
+# colder in a stage that heats, warmer in one that cools (common practice).
+cli_expect(issue11_deviation_cook_colder_gap_short 0 ARGS deviation products/kofta-balls.toml
+           --medium-log tests/cli/deviation/kofta-cook-short-gap.csv --date 2026-12-01
+           STDOUT_HAS "deviated stage:      combi-oven steam cook (starts 0 s into the process; heats)"
+                      "deviations:          3 (times from the stage start)"
+                      "1. medium colder than scheduled in a stage that heats, 11 min 00 s to 13 min 00 s into the stage (660-780 s); lowest 88.00 °C at 660 s, scheduled 96.00 °C (8.00 K colder)"
+                      "2. gap in the log of 5 min 00 s, 13 min 00 s to 18 min 00 s into the stage (780-1080 s): the medium meanwhile is unknown, and no lethality accrued in it is credited"
+                      "3. stage shorter than scheduled by 1 min 00 s: the log ends 23 min 00 s into the stage (1380 s), the scheduled end is 24 min 00 s (1440 s)")
+cli_expect(issue11_deviation_cook_csv 0 ARGS deviation products/kofta-balls.toml
+           --medium-log tests/cli/deviation/kofta-cook-short-gap.csv --format csv
+           STDOUT_HAS "# deviation: medium_colder; start_s 660; end_s 780; extreme_C 88; extreme_at_s 660; scheduled_at_extreme_C 96; departure_K 8"
+                      "# deviation: log_gap; start_s 780; end_s 1080" "# deviation: stage_shortened; start_s 1380; end_s 1440")
+cli_expect(issue11_deviation_chill_warmer 0 ARGS deviation products/kofta-balls.toml
+           --medium-log tests/cli/deviation/kofta-chill-warm.csv --stage "blast chill" --date 2026-12-01
+           STDOUT_HAS "deviated stage:      blast chill (starts 24 min 00 s into the process; cools)"
+                      "1. medium warmer than scheduled in a stage that cools, 11 min 00 s to 20 min 00 s into the stage (660-1200 s); highest 10.00 °C at 660 s, scheduled -2.00 °C (12.00 K warmer)")
+cli_expect(issue11_deviation_chill_json 0 ARGS deviation products/kofta-balls.toml
+           --medium-log tests/cli/deviation/kofta-chill-warm.csv --stage "blast chill" --format json
+           STDOUT_HAS "\"kind\": \"medium_warmer\"" "\"start_s\": 660" "\"end_s\": 1200" "\"extreme_C\": 10"
+                      "\"scheduled_at_extreme_C\": -2" "\"departure_K\": 12" "\"stage_heats\": false")
+# issue 11: an invented local-time log at 60 °C across a spring-forward change (30 real minutes):
+# refused without --timezone; with it the jump is a gap and no lethality is credited across it.
+cli_expect(issue11_probe_spring_forward_refused 2 ARGS probe tests/cli/deviation/spring-forward.csv
+           --organism listeria-monocytogenes --target-log 6
+           STDERR_HAS "spring-forward.csv:18: timestamp = \"2026-03-29T03:00:00\": jumps 3660 s after the previous row"
+                      "this looks like a clock change (local time set forward), not an hour that elapsed; give the logger's fixed UTC offset, e.g. --timezone +01:00")
+cli_expect(issue11_probe_spring_forward_timezone 1 ARGS probe tests/cli/deviation/spring-forward.csv
+           --organism listeria-monocytogenes --target-log 6 --timezone +01:00
+           STDOUT_HAS "no lethality credited across the gap in the log from 14.0 min to 75.0 min (longer than 60.0 s)"
+                      "not demonstrated")

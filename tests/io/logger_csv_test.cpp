@@ -151,3 +151,35 @@ TEST_CASE("a log becomes a medium profile, linear between readings, named with i
   CHECK(prof.at(600) == 80);
   CHECK(prof.description == "log oven.csv (sha256 " + coldcore::io::sha256_hex(text) + ")");
 }
+
+// Invented local-time log at 1-min cadence across a spring-forward change (clock 02:00 -> 03:00):
+// 01:59 is followed by 03:00, one real minute (common practice: summer time moves the clock 1 h).
+TEST_CASE("issue 11: a local-time log across a spring-forward clock change is refused without --timezone") {
+  const std::string text =
+      "timestamp,medium_C\n2026-03-29T01:58:00,60\n2026-03-29T01:59:00,60\n2026-03-29T03:00:00,60\n"
+      "2026-03-29T03:01:00,60\n";
+  namespace io = coldcore::io;
+  CHECK_THROWS_WITH_AS(io::parse_log_csv(text, "local.csv"),
+                       "local.csv:4: timestamp = \"2026-03-29T03:00:00\": jumps 3660 s after the previous row "
+                       "(\"2026-03-29T01:59:00\" at line 3), one hour more than the log's usual 60 s: the timestamps "
+                       "have no UTC offset, and this looks like a clock change (local time set forward), not an hour "
+                       "that elapsed; give the logger's fixed UTC offset, e.g. --timezone +01:00 (the timestamps are "
+                       "then read at that offset and a jump is a gap in the log), or write each timestamp with its "
+                       "offset (Z or +HH:MM)",
+                       InputError);
+  io::LogOptions o;
+  o.utc_offset_s = io::parse_utc_offset_s("+01:00");
+  CHECK(*o.utc_offset_s == 3600.0);
+  const auto log = io::parse_log_csv(text, "local.csv", o);  // taken as given: a 3660 s gap, named
+  CHECK(log.time_s == std::vector<double>{0, 60, 3720, 3780});
+  REQUIRE(log.warnings.size() == 1);
+  CHECK(log.warnings[0].find("local.csv:4: gap of 3660 s") == 0);
+  // the same rows with their offset are read as written
+  std::string zoned = text;
+  for (std::size_t p = 0; (p = zoned.find(":00,", p)) != std::string::npos; p += 10) zoned.replace(p, 4, ":00+01:00,");
+  CHECK_NOTHROW(io::parse_log_csv(zoned, "zoned.csv"));
+  CHECK_THROWS_WITH_AS(io::parse_utc_offset_s("CET"),
+                       "--timezone = \"CET\": must be a fixed UTC offset +HH:MM or -HH:MM (hours 0 to 14, e.g. "
+                       "+01:00), +HH, Z or UTC",
+                       InputError);
+}

@@ -73,13 +73,15 @@ process::DeviationResult deviation_result() {
   process::DeviationResult r;
   r.stage = "retort hold";
   r.stage_start_s = 600;
-  r.event.found = true;
-  r.event.start_s = 2400;
-  r.event.end_s = 2760;
-  r.event.lowest_C = 113.1;
-  r.event.lowest_at_s = 2400;
-  r.event.scheduled_at_lowest_C = 121.1;
-  r.event.largest_drop_K = 8;
+  process::DeviationEvent e;
+  e.kind = process::DeviationKind::medium_colder;
+  e.start_s = 2400;
+  e.end_s = 2760;
+  e.extreme_C = 113.1;
+  e.extreme_at_s = 2400;
+  e.scheduled_at_extreme_C = 121.1;
+  e.departure_K = 8;
+  r.events = {e};
   process::DeviationTarget t;
   t.name = "F0";
   t.kind = TargetKind::f_value;
@@ -245,9 +247,9 @@ TEST_CASE("deviation html: well-formed, self-contained, record, verdicts, extra 
   }
   const std::string h = deviation_html(&sched, &deliv);
   for (const char* s : {"<h1>coldcore deviation record: lot CB-0412 &lt;x&gt;", "Deviation record",
-                        "<td>deviation start</td><td>40 min 00 s (2400 s) into the stage</td>",
-                        "<td>deviation end</td><td>46 min 00 s (2760 s) into the stage</td>",
-                        "113.10 °C at 40 min 00 s", "<td>medium log SHA-256</td>", "<td>tool</td><td>coldcore test</td>",
+                        "<td>deviation 1 of 1</td><td>medium colder than scheduled in a stage that heats, 40 min 00 s "
+                        "to 46 min 00 s into the stage (2400-2760 s); lowest 113.10 °C at 2400 s, scheduled 121.10 °C "
+                        "(8.00 K colder)</td>", "<td>medium log SHA-256</td>", "<td>tool</td><td>coldcore test</td>",
                         "the medium is linear between logged readings", "16.9 min → 1.66 min",
                         "<td>shortfall 0.34 min</td>", "Additional time that restores the targets",
                         "121.10 °C", "6 min 00 s (360 s), rounded up from 331.2 s",

@@ -40,7 +40,17 @@ struct LogOptions {
   double max_gap_s = 60;
   /// Name of the temperature column to read when there are several; empty = the only one.
   std::string temp_column;
+  /// UTC offset of timestamps written without one (local time = UTC + offset), e.g. +3600 for
+  /// +01:00 (--timezone). Without it, such timestamps are read as UTC, and a log whose spacing
+  /// jumps by one hour more than its usual interval (a clock set forward), or goes back by up to
+  /// an hour (set back), is refused: the jump is a clock change, not time that elapsed. With it,
+  /// the jump is taken as real: a gap in the log.
+  std::optional<double> utc_offset_s;
 };
+
+/// A --timezone value: "+HH:MM", "-HH:MM", "+HH", "Z" or "UTC" as seconds east of UTC.
+/// Throws InputError naming `option`, the value and the accepted forms.
+double parse_utc_offset_s(std::string_view text, std::string_view option = "--timezone");
 
 /// Parses a log. REQUIRES: nothing; every malformed input throws InputError naming origin:line.
 /// Refused: no header, unknown time column, no temperature column, non-numeric or non-finite
@@ -56,5 +66,7 @@ MediumProfile medium_profile(const TimeSeries& log, std::string_view origin, std
 /// without zone is read as UTC (only differences matter for a log). nullopt if malformed.
 /// Exposed for tests.
 std::optional<double> parse_iso8601_s(std::string_view text);
+/// Same; *has_offset (when given) says whether the text carried Z or ±HH:MM.
+std::optional<double> parse_iso8601_s(std::string_view text, bool* has_offset);
 
 }  // namespace coldcore::io

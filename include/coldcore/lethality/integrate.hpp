@@ -76,6 +76,19 @@ LogIntegral f_piecewise_linear_s(std::span<const double> times_s, std::span<cons
 std::vector<std::string> check_log_sampling(std::span<const double> times_s,
                                             std::span<const double> temps_C, const Kinetics& k);
 
+/// Across a gap (an interval longer than max_gap_s) the temperature was not recorded: no
+/// lethality is credited for it. Same rules as above, applied to each gap-free run of rows and
+/// summed (a run of one row credits nothing). max_gap_s = +inf is the plain rule.
+LogIntegral f_trapezoid_s(std::span<const double> times_s, std::span<const double> temps_C, const Kinetics& k,
+                          std::string_view origin, double max_gap_s);
+LogIntegral f_simpson_s(std::span<const double> times_s, std::span<const double> temps_C, const Kinetics& k,
+                        std::string_view origin, double max_gap_s);
+LogIntegral f_piecewise_linear_s(std::span<const double> times_s, std::span<const double> temps_C,
+                                 const Kinetics& k, std::string_view origin, double max_gap_s);
+/// Cumulative trapezoid F that stays flat across gaps longer than max_gap_s.
+std::vector<double> cumulative_f_trapezoid_s(std::span<const double> times_s, std::span<const double> temps_C,
+                                             const Kinetics& k, std::string_view origin, double max_gap_s);
+
 /// Validates a log: sizes equal, >= 2 rows, finite values, times strictly increasing.
 /// Throws InputError "<origin>: row <i>: time_s = <t>: must be greater than the previous row's".
 void validate_log(std::span<const double> times_s, std::span<const double> temps_C,

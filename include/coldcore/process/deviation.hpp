@@ -5,7 +5,9 @@
 ///
 /// Delivered lethality and cooling compliance come from the same simulate + assess as the
 /// schedule, so a log identical to the schedule reproduces the scheduled result (to the engine's
-/// accuracy). The additional time that restores the targets is the extension of the deviated
+/// accuracy). A duration-ended stage lasts as long as its medium log (a log that ends early is a
+/// shortened stage; one that runs past the scheduled end is a hold extension, credited as
+/// delivered). The additional time that restores the targets is the extension of the deviated
 /// stage at its scheduled medium temperature (the schedule's value at the stage end), solved with
 /// solve_margin() and rounded UP to `unit_s`; its forward re-run is kept as proof.
 ///
@@ -18,15 +20,32 @@
 
 namespace coldcore::process {
 
-/// Where the logged medium fell below the schedule by more than the tolerance.
+/// What kind of departure from the schedule, each in the direction unfavourable to a target.
+enum class DeviationKind {
+  medium_colder,    ///< a stage that heats: logged medium below the schedule by more than the tolerance
+  medium_warmer,    ///< a stage that cools: logged medium above the schedule by more than the tolerance
+  stage_shortened,  ///< the log (and so the delivered stage) ends before the scheduled stage end
+  log_gap,          ///< no reading for longer than the allowed gap: the medium meanwhile is unknown
+};
+
+/// One departure. Times from the stage's start. Medium kinds: a run of consecutive deviated
+/// readings (start = first, end = last) and its extreme reading; stage_shortened: from the log's
+/// end to the scheduled end; log_gap: from the reading before the gap to the one after it.
 struct DeviationEvent {
-  bool found = false;
-  double start_s = 0;        ///< first logged reading below schedule − tolerance, from the stage's start
-  double end_s = 0;          ///< last such reading, from the stage's start
-  double lowest_C = 0;       ///< lowest logged medium temperature in the stage
-  double lowest_at_s = 0;    ///< when, from the stage's start
-  double scheduled_at_lowest_C = 0;
-  double largest_drop_K = 0; ///< max(schedule − log) over the readings
+  DeviationKind kind = DeviationKind::medium_colder;
+  double start_s = 0, end_s = 0;
+  double extreme_C = 0;               ///< medium kinds: lowest (colder) or highest (warmer) reading
+  double extreme_at_s = 0;            ///< when, from the stage's start
+  double scheduled_at_extreme_C = 0;  ///< the schedule at that time
+  double departure_K = 0;             ///< medium kinds: |reading − schedule| at the extreme (> tolerance)
+};
+
+/// How the log was read against the schedule (find_deviations).
+struct DeviationScan {
+  bool stage_heats = true;                 ///< the stage's direction (h_ends.hpp: heating_stage)
+  std::optional<double> scheduled_end_s;   ///< duration-ended stage: its scheduled duration
+  double tolerance_K = 0.5;
+  double max_gap_s = 60;
 };
 
 /// One target, scheduled against delivered. F in seconds (equivalent time at the reference).
@@ -41,7 +60,8 @@ struct DeviationTarget {
 };
 
 struct DeviationOptions {
-  double tolerance_K = 0.5;     ///< a reading this far below the schedule counts as deviated [0.5 K]
+  double tolerance_K = 0.5;     ///< a reading this far on the unfavourable side counts as deviated [0.5 K]
+  double max_gap_s = 60;        ///< readings further apart than this are a gap in the log [60 s]
   double unit_s = 60;           ///< extra-hold rounding unit, rounded UP [60 s]
   double max_extra_s = 24 * 3600.0;  ///< search bound of the extra hold [24 h]
 };
@@ -60,7 +80,15 @@ struct DeviationResult {
   std::optional<Evaluation> delivered;         ///< with the logged medium
   std::optional<ProbeAssessment> probe;        ///< measured cold-spot log
   std::vector<DeviationTarget> targets;        ///< per target: delivered = medium-log run, else probe
-  DeviationEvent event;
+  std::vector<DeviationEvent> events;          ///< every departure of the medium log, in time order
+  bool stage_heats = true;                     ///< direction of the deviated stage
+  double scheduled_stage_s = 0;                ///< scheduled length of the deviated stage
+  double delivered_stage_s = 0;                ///< delivered length (the log's length for a duration stage)
+  /// The log ran past the scheduled end (a hold extension given): how long, and the extension
+  /// at the scheduled medium the solver finds for the log cut at the scheduled end (what was
+  /// needed), rounded UP to unit_s; empty when none was found (extension_needed_note says why).
+  std::optional<double> extension_given_s, extension_needed_s;
+  std::string extension_needed_note;
   std::string stage;                           ///< name of the deviated stage ("" for a probe only)
   double stage_start_s = 0;                    ///< in the scheduled history
   bool all_met_delivered = false;
@@ -81,7 +109,9 @@ struct DeviationResult {
 /// extra_hold_note says why.
 DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& libs, const DeviationOptions& o = {});
 
-/// The deviated event alone (exposed for tests): readings of `log` against `schedule`.
-DeviationEvent find_deviation(const MediumProfile& schedule, const MediumProfile& log, double tolerance_K);
+/// The departures alone (exposed for tests): readings of `log` against `schedule`, in time order
+/// of their start (medium runs, gaps, then a shortened end).
+std::vector<DeviationEvent> find_deviations(const MediumProfile& schedule, const MediumProfile& log,
+                                            const DeviationScan& scan);
 
 }  // namespace coldcore::process

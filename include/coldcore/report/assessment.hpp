@@ -15,6 +15,7 @@
 ///
 /// Lethality is evaluated at the cold spot (History centre). Cooling rules and minimum
 /// temperatures use Target::at ("centre" or "mean").
+#include <limits>
 #include <optional>
 #include <span>
 #include <string>
@@ -54,6 +55,9 @@ struct AssessOptions {
   /// whose rows are the data. (solve's search runs, at 1e-3 K, are assessed with this default:
   /// their verdicts only steer the search; every reported re-run uses the engine default.)
   double temperature_tol_K = 1e-4;
+  /// assess_probe_log: readings further apart than this are a gap; no lethality is credited across
+  /// it [+inf: none]. A cooling-rule crossing inside a gap is not yet moved to the gap's end.
+  double max_gap_s = std::numeric_limits<double>::infinity();
 };
 
 /// Log reductions above this are not shown as a count (assessment.cpp says why): the text shows

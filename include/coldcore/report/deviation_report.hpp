@@ -2,7 +2,10 @@
 /// Writers of `coldcore deviation`: the comparison and the deviation record (text, json, csv, md, html;
 /// cautions always; the statement that disposition is for the process authority always).
 ///
-/// JSON: {"lot", "stage", "deviation": {"found", "start_s", "end_s", "lowest_C", ...},
+/// JSON: {"lot", "stage", "stage_start_s", "stage_heats", "scheduled_stage_s", "delivered_stage_s",
+///        "deviations": [{"kind" (medium_colder|medium_warmer|stage_shortened|log_gap), "start_s",
+///        "end_s", medium kinds: "extreme_C", "extreme_at_s", "scheduled_at_extreme_C", "departure_K";
+///        "description"}] (times from the stage start), "extension_given_s", "extension_needed_s",
 ///        "targets": [{"name", "kind", "scheduled_F_min", "delivered_F_min", "scheduled_log_reduction",
 ///        "delivered_log_reduction", "verdict", "scheduled_verdict", "delivered_margin", ...}],
 ///        "all_met_delivered", "extra_hold_s" (rounded up, to use; null when none), "extra_hold_unrounded_s",
@@ -13,7 +16,8 @@
 ///        "all_met_delivered", "extra_hold_s", "extra_hold_unrounded_s", "extra_hold_note",
 ///        "alone": [{"choice", "all_met_delivered", "least_margin", "extra_hold_s"}], "driven_by",
 ///        "notes", "assumptions"}}
-/// csv: '# ' comment lines (cautions, record, provenance), then one row per target:
+/// csv: '# ' comment lines (cautions, record with one '# deviation: <kind>; start_s ...' line per
+///      departure, provenance), then one row per target:
 ///        target,kind,scheduled_F_min,delivered_F_min,scheduled_log_reduction,delivered_log_reduction,verdict
 ///      with --conservative: '# conservative ...' comment lines (choices, extra hold, driver), a last
 ///      column `case` ("nominal" | "conservative") and one more row per target for the worst case.
@@ -49,6 +53,15 @@ struct DeviationRecordInfo {
 
 /// The sentence every deviation output carries.
 const std::string& disposition_statement();
+
+/// Machine key of a departure kind for json and csv: "medium_colder", "medium_warmer",
+/// "stage_shortened", "log_gap".
+std::string_view to_string(process::DeviationKind k);
+/// One sentence naming a departure for the record: its kind, when (from the stage's start),
+/// the extreme reading against the schedule, or the length of a gap or shortening and what it costs.
+std::string deviation_event_text(const process::DeviationEvent& e, TempUnit u);
+/// The record's line when there is no departure.
+std::string no_deviation_text(const process::DeviationResult& r);
 
 void write_deviation_text(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
 void write_deviation_json(const process::DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);

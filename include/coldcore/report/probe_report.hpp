@@ -15,6 +15,7 @@
 namespace coldcore {
 
 struct ProbeReportOptions {
+  double max_gap_s = 1e300;      ///< readings further apart are a gap: the cumulative F credits nothing across it
   std::string log_path;          ///< the log as given on the command line (named in the report)
   std::string log_sha256;        ///< SHA-256 of the log's bytes, hex
   std::string lot;               ///< lot or batch identifier; "" = not given (said so)
