@@ -4,6 +4,7 @@
 
 #include "coldcore/report/run_report.hpp"
 #include "coldcore/report/temperature_text.hpp"
+#include "coldcore/report/verdict_summary.hpp"
 
 namespace coldcore {
 
@@ -52,6 +53,7 @@ std::string h_text(const StageRow& s) { return s.h_infinite ? "inf" : fixed(s.h_
 void write_run_text(const RunReport& r, std::ostream& out, TempUnit u) {
   const std::string us(unit_symbol(u));
   out << r.title << "\n\n";
+  write_summary_text(out, verdict_summary(r));
   if (!r.product.empty()) {
     out << "Product\n";
     for (const auto& kv : r.product) out << "  " << kv.key << ": " << kv.value << "\n";

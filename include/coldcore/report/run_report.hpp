@@ -2,9 +2,11 @@
 /// The report model every writer reads: plain values, already computed. Writers format; they
 /// never recompute physics. Temperatures are stored in °C and converted by the writer.
 #include <iosfwd>
+#include <optional>
 #include <string>
 #include <vector>
 
+#include "coldcore/process/cooling.hpp"
 #include "coldcore/report/format.hpp"
 
 namespace coldcore {
@@ -50,6 +52,7 @@ struct VerdictRow {
   // Numbers for machine-readable formats.
   double required_value = 0, achieved_value = 0, margin_value = 0;
   std::string value_unit;
+  std::optional<CoolingCheck> cooling;  ///< cooling-rule targets: the steps (json "cooling_steps")
 };
 
 /// A cooling-rule step drawn over the cooling curve: the checked temperature (the centre) must
@@ -92,9 +95,13 @@ struct RunReport {
 /// "met" or "not demonstrated".
 std::string_view verdict_word(bool met);
 
+/// Every run/probe format opens with verdict_summary(r) (verdict_summary.hpp).
 void write_run_text(const RunReport& r, std::ostream& out, TempUnit u);
+/// JSON: "verdict_summary" near the top; each "assessment" row has "met" (true only for the
+/// verdict "met") and, for a cooling rule, "cooling_steps".
 void write_run_json(const RunReport& r, std::ostream& out, TempUnit u);
-/// csv: cautions and provenance as leading '# ' comment lines, then the history table.
+/// csv: the verdict summary, cautions and provenance as leading '# ' comment lines, then the
+/// history table.
 void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u);
 
 }  // namespace coldcore
