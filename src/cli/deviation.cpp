@@ -31,7 +31,7 @@ struct DeviationArgs {
   OutputArgs output;
 };
 
-int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side) {
+int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
   const Format f = parse_format(a.output.format, {Format::text, Format::md, Format::html, Format::json, Format::csv});
   const TempUnit u = parse_temp_unit(a.output.units);
   if (f == Format::md && a.output.out.empty())
@@ -87,6 +87,7 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side) {
     cons = process::evaluate_deviation_conservative(in, io::ranges_of(file), {&libs.organisms, &libs.rules, &libs.cooking}, o);
     info.conservative = &*cons;
   }
+  summary = verdict_summary(r, info.conservative);
   info.provenance = {{"tool", std::string("coldcore ") + kVersion},
                      {"input", file.origin},
                      {"input SHA-256", file.sha256_hex},
@@ -148,8 +149,9 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   add_output_options(*sub, args->output, /*with_step=*/true);
   sub->callback([&ctx, args] {
     ctx.run = [args] {
-      return with_output(args->output,
-                         [&](std::ostream& out, SideFiles& side) { return run_deviation(*args, out, side); });
+      return with_report_output(args->output, "deviation", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {
+        return run_deviation(*args, out, side, s);
+      });
     };
   });
 }

@@ -164,4 +164,14 @@ int with_output(const OutputArgs& a, const std::function<int(std::ostream&, Side
   return code;
 }
 
+int with_report_output(const OutputArgs& a, std::string_view verb,
+                       const std::function<int(std::ostream&, SideFiles&, VerdictSummary&)>& body) {
+  VerdictSummary summary;
+  const int code = with_output(a, [&](std::ostream& out, SideFiles& side) { return body(out, side, summary); });
+  // Said only after the file was written (with_output throws before that on any failure).
+  if (!a.out.empty())
+    std::cerr << render_temperatures(summary_stderr_line(verb, summary, a.out), parse_temp_unit(a.units)) << "\n";
+  return code;
+}
+
 }  // namespace coldcore::cli

@@ -4,6 +4,7 @@
 #include <functional>
 #include <iosfwd>
 #include <string>
+#include <string_view>
 #include <utility>
 #include <vector>
 
@@ -11,6 +12,7 @@
 
 #include "coldcore/model/limits.hpp"
 #include "coldcore/report/format.hpp"
+#include "coldcore/report/verdict_summary.hpp"
 
 namespace coldcore::cli {
 
@@ -46,5 +48,12 @@ using SideFiles = std::vector<std::pair<std::string, std::string>>;
 /// As above, and the body may add side files; they are written only when --out is given and
 /// the body succeeded (a body that adds side files without --out is refused by the verb).
 int with_output(const OutputArgs& a, const std::function<int(std::ostream&, SideFiles&)>& body);
+
+/// As above, for a verb whose report opens with a verdict summary (run, probe, solve,
+/// deviation): the body sets `summary` to the one its report shows; once the report is written
+/// to --out, one line goes to stderr: "coldcore <verb>: <sentence>; report written to <out>".
+/// Nothing is added on stdout output (the report opens with the same sentence).
+int with_report_output(const OutputArgs& a, std::string_view verb,
+                       const std::function<int(std::ostream&, SideFiles&, VerdictSummary&)>& body);
 
 }  // namespace coldcore::cli

@@ -95,7 +95,7 @@ std::vector<Target> probe_targets(const ProbeArgs& a, bool& lethality_has_requir
   return targets;
 }
 
-int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
+int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
   const Format f = parse_format(a.output.format, {Format::text, Format::md, Format::html, Format::json, Format::csv});
   const TempUnit u = parse_temp_unit(a.output.units);
   if (f == Format::md && a.output.out.empty())
@@ -125,6 +125,7 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side) {
   ro.version = kVersion;
   ro.max_gap_s = a.max_gap_s;
   const RunReport r = build_probe_report(log, pa, ro);
+  summary = verdict_summary(r);
   switch (f) {
     case Format::json: write_run_json(r, out, u); break;
     case Format::csv: write_run_csv(r, out, u); break;
@@ -170,7 +171,11 @@ void add_probe_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--date", a->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
   add_output_options(*sub, a->output);
   sub->callback([&ctx, a] {
-    ctx.run = [a] { return with_output(a->output, [&](std::ostream& out, SideFiles& side) { return run_probe(*a, out, side); }); };
+    ctx.run = [a] {
+      return with_report_output(a->output, "probe", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {
+        return run_probe(*a, out, side, s);
+      });
+    };
   });
 }
 

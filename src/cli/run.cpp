@@ -26,7 +26,7 @@ struct RunArgs {
   std::string date;  ///< provenance date; default today (UTC)
 };
 
-int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
+int run_run(const RunArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
   const Format f = parse_format(a.output.format, {Format::text, Format::md, Format::html, Format::json, Format::csv});
   const TempUnit u = parse_temp_unit(a.output.units);
   if (f == Format::md && a.output.out.empty())
@@ -59,6 +59,7 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side) {
   add_assessment(report, history_of, assessment, file.targets);
   add_scenarios(report, eval, &file.product, file.targets, a.output.step_s);  // every scenario's history
   add_h_assumptions(report, eval);
+  summary = verdict_summary(report);
   switch (f) {
     case Format::json: write_run_json(report, out, u); break;
     case Format::csv: write_run_csv(report, out, u); break;
@@ -99,8 +100,9 @@ void add_run_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
   sub->callback([&ctx, args] {
     ctx.run = [args] {
-      return with_output(args->output,
-                         [&](std::ostream& out, SideFiles& side) { return run_run(*args, out, side); });
+      return with_report_output(args->output, "run", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {
+        return run_run(*args, out, side, s);
+      });
     };
   });
 }

@@ -42,7 +42,7 @@ process::Question parse_question(const std::string& s) {
   throw InputError("--for = " + s + ": must be hold-time, chill-time, max-size or min-medium");
 }
 
-int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side) {
+int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
   const Format f = parse_format(a.output.format, {Format::text, Format::md, Format::html, Format::json, Format::csv});
   const TempUnit u = parse_temp_unit(a.output.units);
   if (f == Format::md && a.output.out.empty())
@@ -73,6 +73,7 @@ int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side) {
   c.product_name = file.product.name;
   c.warnings = file.warnings;
   if (cons) c.conservative = &*cons;
+  summary = verdict_summary(r, c.conservative);
   c.provenance = {{"tool", std::string("coldcore ") + kVersion},
                   {"input", file.origin},
                   {"input SHA-256", file.sha256_hex},
@@ -127,8 +128,9 @@ void add_solve_verb(CLI::App& app, VerbContext& ctx) {
   add_output_options(*sub, args->output, /*with_step=*/true);
   sub->callback([&ctx, args] {
     ctx.run = [args] {
-      return with_output(args->output,
-                         [&](std::ostream& out, SideFiles& side) { return run_solve(*args, out, side); });
+      return with_report_output(args->output, "solve", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {
+        return run_solve(*args, out, side, s);
+      });
     };
   });
 }

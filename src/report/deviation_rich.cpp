@@ -207,6 +207,7 @@ void closing_sections(RichDoc& d, const DeviationResult& r, const DeviationRecor
 
 void write_deviation_doc(RichDoc& d, const DeviationResult& r, const DeviationRecordInfo& i, TempUnit u) {
   d.begin("coldcore deviation record: lot " + lot_text(i) + " — " + i.product_name);
+  d.verdict_summary(verdict_summary(r, i.conservative));
   record_section(d, r, i, u);
   comparison_section(d, r);
   probe_section(d, r);

@@ -7,6 +7,7 @@
 #include "coldcore/report/deviation_report.hpp"
 #include "coldcore/report/json.hpp"
 #include "coldcore/report/solve_report.hpp"
+#include "coldcore/report/verdict_summary.hpp"
 
 namespace coldcore {
 
@@ -92,11 +93,13 @@ void json_targets_and_hold(JsonWriter& w, const DeviationResult& r) {
       w.key("delivered_F_min").null();
     }
     w.key("verdict").value(to_string(t.verdict));
+    w.key("met").value(t.verdict == Verdict::met);  // as delivered
     w.key("scheduled_verdict").value(to_string(t.scheduled.verdict));
     w.key("delivered_margin").value(t.delivered.margin);
     w.key("delivered_margin_uncertainty").value(t.delivered.margin_uncertainty);
     w.key("delivered_verdict_text").value(t.delivered.verdict_text);
     w.key("scheduled_verdict_text").value(t.scheduled.verdict_text);
+    if (t.delivered.cooling) write_cooling_steps_json(w, *t.delivered.cooling);  // as delivered
     w.end_object();
   }
   w.end_array();
@@ -141,6 +144,7 @@ const std::string& disposition_statement() {
 
 void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u) {
   out << "coldcore deviation: " << i.product_name << "\n\n";
+  write_summary_text(out, verdict_summary(r, i.conservative));
   out << "DEVIATION RECORD\n";
   out << "  lot:                 " << (i.lot.empty() ? "(not given)" : i.lot) << "\n";
   if (!r.stage.empty()) {
@@ -233,6 +237,7 @@ void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i
   JsonWriter w(out);
   w.begin_object();
   w.key("product").value(i.product_name);
+  write_summary_json(w, verdict_summary(r, i.conservative));
   if (i.lot.empty()) w.key("lot").null(); else w.key("lot").value(i.lot);
   if (r.stage.empty()) w.key("stage").null(); else w.key("stage").value(r.stage);
   w.key("stage_start_s").value(r.stage_start_s);
@@ -305,6 +310,7 @@ void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i
 }
 
 void write_deviation_csv(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit) {
+  write_summary_csv(out, verdict_summary(r, i.conservative));
   for (const auto& cau : cautions()) out << "# caution: " << cau << "\n";
   out << "# disposition: " << disposition_statement() << "\n";
   out << "# lot: " << (i.lot.empty() ? "(not given)" : i.lot) << "\n";
@@ -351,7 +357,7 @@ void write_deviation_csv(const DeviationResult& r, const DeviationRecordInfo& i,
     for (const auto& n : cons->result.notes) out << "# conservative note: " << n << "\n";
   }
   out << "target,kind,scheduled_F_min,delivered_F_min,scheduled_log_reduction,delivered_log_reduction,verdict"
-      << (cons ? ",case" : "") << "\n";
+      << (cons ? ",case" : "") << ",met\n";
   const auto rows = [&](const DeviationResult& d, const char* which) {
     for (const auto& t : d.targets) {
       out << csv_cell(t.name) << "," << to_string(t.kind) << ",";
@@ -359,7 +365,7 @@ void write_deviation_csv(const DeviationResult& r, const DeviationRecordInfo& i,
       else out << ",";
       out << "," << opt_num(t.scheduled_logs) << "," << opt_num(t.delivered_logs) << "," << to_string(t.verdict);
       if (cons) out << "," << which;
-      out << "\n";
+      out << "," << (t.verdict == Verdict::met ? "true" : "false") << "\n";
     }
   };
   rows(r, "nominal");

@@ -37,6 +37,9 @@ ul { margin: 1mm 0 2mm 0; padding-left: 6mm; }
 .warnings li { font-weight: bold; }
 .cautions { border: 2px solid #000000; padding: 2mm 4mm; margin-top: 6mm; break-inside: avoid; }
 .cautions h2 { border: none; margin-top: 1mm; }
+p.verdict-summary { font-size: 12pt; font-weight: bold; margin: 0 0 3mm 0; padding: 2mm 3mm; border: 2px solid #000000; }
+p.verdict-summary.not-demonstrated { border-width: 4px; background: #F0E442; }
+p.verdict-summary.no-verdict { border-style: dashed; }
 p.statement { font-weight: bold; padding: 2mm 3mm; border: 1px solid #000000; }
 table.sign-off { width: 100%; }
 table.sign-off td { border: none; padding: 4mm 1.5mm 1mm 1.5mm; }
@@ -71,6 +74,13 @@ void html_page_begin(std::ostream& o, const std::string& title, std::string_view
     << "<title>" << xml_escape(title) << "</title>\n<style>" << kCss << "</style>\n</head>\n<body>\n";
   o << "<h1>" << xml_escape(title) << "</h1>\n";
   o << "<p class=\"lead\">" << xml_escape(lead) << "</p>\n";
+}
+
+void html_verdict_summary(std::ostream& o, const VerdictSummary& s) {
+  const VerdictCount& m = s.main();
+  const char* cls = s.all_met ? "met" : (s.parts.size() == 1 && m.targets == 0 ? "no-verdict" : "not-demonstrated");
+  o << "<p id=\"verdict-summary\" class=\"verdict-summary " << cls << "\">Verdict summary: " << xml_escape(s.sentence)
+    << "</p>\n";
 }
 
 void html_page_end(std::ostream& o, const std::vector<std::string>& cautions) {
@@ -165,6 +175,10 @@ void md_page_begin(std::ostream& o, const std::string& title, std::string_view l
   o << "> **" << md_escape(lead) << "**\n\n";
 }
 
+void md_verdict_summary(std::ostream& o, const VerdictSummary& s) {
+  o << "**Verdict summary: " << md_escape(s.sentence) << "**\n\n";
+}
+
 void md_heading(std::ostream& o, std::string_view heading) { o << "## " << md_escape(heading) << "\n\n"; }
 
 void md_paragraph(std::ostream& o, std::string_view text) { o << md_escape(text) << "\n\n"; }
@@ -223,6 +237,7 @@ class HtmlDoc final : public RichDoc {
  public:
   explicit HtmlDoc(std::ostream& o) : o_(o) {}
   void begin(const std::string& title) override { html_page_begin(o_, title); }
+  void verdict_summary(const VerdictSummary& s) override { html_verdict_summary(o_, s); }
   void section_begin(std::string_view id, std::string_view heading) override { html_section_begin(o_, id, heading); }
   void section_end() override { html_section_end(o_); }
   void paragraph(std::string_view text) override { html_paragraph(o_, text); }
@@ -253,6 +268,7 @@ class MdDoc final : public RichDoc {
   MdDoc(std::ostream& o, std::string_view base, std::vector<std::pair<std::string, std::string>>& files)
       : o_(o), base_(base), files_(files) {}
   void begin(const std::string& title) override { md_page_begin(o_, title); }
+  void verdict_summary(const VerdictSummary& s) override { md_verdict_summary(o_, s); }
   void section_begin(std::string_view, std::string_view heading) override { md_heading(o_, heading); }
   void section_end() override {}
   void paragraph(std::string_view text) override { md_paragraph(o_, text); }

@@ -12,6 +12,7 @@
 
 #include "coldcore/report/assessment.hpp"
 #include "coldcore/report/run_report.hpp"
+#include "coldcore/report/verdict_summary.hpp"
 #include "run_figures.hpp"
 
 namespace coldcore::detail {
@@ -29,6 +30,9 @@ TextTable target_table(const std::vector<TargetResult>& targets, std::vector<boo
 void html_page_begin(std::ostream& o, const std::string& title);
 /// The same with its own lead sentence (a report about measured data).
 void html_page_begin(std::ostream& o, const std::string& title, std::string_view lead);
+/// The verdict summary box, just after the title and lead (verdict_summary.hpp): the sentence
+/// in words (never colour alone), classed "met", "not-demonstrated" or "no-verdict".
+void html_verdict_summary(std::ostream& o, const VerdictSummary& s);
 /// The cautions box (always last) and the closing tags.
 void html_page_end(std::ostream& o, const std::vector<std::string>& cautions);
 void html_section_begin(std::ostream& o, std::string_view id, std::string_view heading);
@@ -51,6 +55,8 @@ std::string md_escape(std::string_view s);
 void md_page_begin(std::ostream& o, const std::string& title);
 /// The same with its own lead sentence (a report about measured data).
 void md_page_begin(std::ostream& o, const std::string& title, std::string_view lead);
+/// "**Verdict summary: <sentence>**", just after the title and lead (verdict_summary.hpp).
+void md_verdict_summary(std::ostream& o, const VerdictSummary& s);
 void md_heading(std::ostream& o, std::string_view heading);  ///< "## heading"
 void md_paragraph(std::ostream& o, std::string_view text);
 void md_table(std::ostream& o, const TextTable& t);
@@ -73,6 +79,8 @@ class RichDoc {
  public:
   virtual ~RichDoc() = default;
   virtual void begin(const std::string& title) = 0;
+  /// The verdict summary the report opens with (call just after begin).
+  virtual void verdict_summary(const VerdictSummary& s) = 0;
   virtual void section_begin(std::string_view id, std::string_view heading) = 0;
   virtual void section_end() = 0;
   virtual void paragraph(std::string_view text) = 0;

@@ -263,6 +263,7 @@ VerdictRow verdict_row(const TargetResult& t) {
   v.achieved = t.achieved_text;
   v.margin = detail::margin_cell(t);  // a shortfall says so, not a bare amount
   v.met = t.verdict == Verdict::met;
+  v.cooling = t.cooling;
   v.required_value = t.required;
   v.achieved_value = t.achieved;
   v.margin_value = t.margin;

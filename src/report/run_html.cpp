@@ -11,6 +11,7 @@ namespace coldcore {
 void write_run_html(const RunReport& r, std::ostream& o, TempUnit u) {
   using namespace detail;
   html_page_begin(o, r.title, lead_sentence(r));
+  html_verdict_summary(o, verdict_summary(r));
   if (!r.product.empty()) {
     html_section_begin(o, "product", subject_heading(r));
     html_key_value_table(o, r.product, "item");

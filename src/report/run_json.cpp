@@ -5,6 +5,8 @@
 
 #include "coldcore/report/json.hpp"
 #include "coldcore/report/run_report.hpp"
+#include "coldcore/report/solve_report.hpp"
+#include "coldcore/report/verdict_summary.hpp"
 
 namespace coldcore {
 
@@ -58,6 +60,7 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
   w.begin_object();
   w.key("verb").value(r.verb);
   w.key("title").value(r.title);
+  write_summary_json(w, verdict_summary(r));
   w.key("units").value(unit_suffix(u));
   w.key("history").begin_array();
   for (const auto& row : r.history.rows) {
@@ -100,6 +103,7 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
     w.key("name").value(v.name);
     w.key("kind").value(v.kind);
     w.key("verdict").value(verdict_word(v.met));
+    w.key("met").value(v.met);
     w.key("required").value(v.required);
     w.key("achieved").value(v.achieved);
     w.key("margin").value(v.margin);
@@ -110,6 +114,7 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
     w.key("value_unit").value(v.value_unit);
     if (!v.scenario.empty()) w.key("scenario").value(v.scenario);
     w.key("details").value(v.details);
+    if (v.cooling) write_cooling_steps_json(w, *v.cooling);
     w.end_object();
   }
   w.end_array();
@@ -190,6 +195,7 @@ void write_scenario_rows(const RunReport& r, std::ostream& out, TempUnit u) {
 }  // namespace
 
 void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
+  write_summary_csv(out, verdict_summary(r));
   for (const auto& c : r.cautions) out << "# caution: " << c << "\n";
   for (const auto& kv : r.provenance) out << "# " << kv.key << ": " << kv.value << "\n";
   for (const auto& w : r.warnings) out << "# warning: " << w << "\n";

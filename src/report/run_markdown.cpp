@@ -12,6 +12,7 @@ MarkdownReport write_run_markdown(const RunReport& r, TempUnit u, std::string_vi
   MarkdownReport rep;
   std::ostringstream o;
   md_page_begin(o, r.title, lead_sentence(r));
+  md_verdict_summary(o, verdict_summary(r));
   if (!r.product.empty()) {
     md_heading(o, subject_heading(r));
     md_key_value_table(o, r.product);

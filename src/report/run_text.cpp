@@ -4,6 +4,7 @@
 
 #include "coldcore/report/run_report.hpp"
 #include "coldcore/report/temperature_text.hpp"
+#include "coldcore/report/verdict_summary.hpp"
 
 namespace coldcore {
 
@@ -65,6 +66,7 @@ void print_stage_table(std::ostream& out, const RunReport& r, const std::vector<
 void write_run_text(const RunReport& r, std::ostream& out, TempUnit u) {
   const std::string us(unit_symbol(u));
   out << r.title << "\n\n";
+  write_summary_text(out, verdict_summary(r));
   if (!r.product.empty()) {
     out << (r.measured ? "Measured log\n" : "Product\n");
     for (const auto& kv : r.product) out << "  " << kv.key << ": " << kv.value << "\n";

@@ -5,6 +5,7 @@
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
 #include "coldcore/report/solve_report.hpp"
+#include "coldcore/report/verdict_summary.hpp"
 #include "solve_text.hpp"
 
 namespace coldcore {
@@ -62,16 +63,36 @@ void write_target_json(JsonWriter& w, const TargetResult& t) {
   w.key("required_text").value(t.required_text);
   w.key("achieved_text").value(t.achieved_text);
   w.key("verdict_text").value(t.verdict_text);
+  w.key("met").value(t.verdict == Verdict::met);
   if (t.kinetics) {
     w.key("F_s").value(t.F_s);
     w.key("F_required_s").value(t.F_required_s);
   }
   w.key("notes").value(t.notes);
+  if (t.cooling) write_cooling_steps_json(w, *t.cooling);
   w.end_object();
+}
+
+void write_cooling_steps_json(JsonWriter& w, const CoolingCheck& c) {
+  w.key("cooling_steps").begin_array();
+  for (const auto& st : c.steps) {
+    w.begin_object();
+    w.key("label").value(st.step.label);
+    w.key("advisory").value(st.step.advisory);
+    w.key("clock_started").value(st.start_s.has_value());
+    w.key("reached").value(st.reached);
+    w.key("passed").value(st.passed);
+    w.key("elapsed_s").value(st.elapsed_s);  // a lower bound when not reached
+    w.key("within_s").value(st.step.within_s);
+    w.key("margin_s").value(st.margin_s);
+    w.end_object();
+  }
+  w.end_array();
 }
 
 void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u) {
   out << "coldcore solve --for " << to_string(r.question) << ": " << c.product_name << "\n\n";
+  write_summary_text(out, verdict_summary(r, c.conservative));
   if (!r.stage.empty()) out << "  stage:            " << r.stage << "\n";
   out << "  question:         " << (r.question == Question::max_size ? "largest " : "") << r.quantity
       << (r.question == Question::min_medium ? " (lowest constant)" : "") << "\n";
@@ -132,6 +153,7 @@ void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::os
   JsonWriter w(out);
   w.begin_object();
   w.key("question").value(to_string(r.question));
+  write_summary_json(w, verdict_summary(r, c.conservative));
   if (r.stage.empty()) w.key("stage").null(); else w.key("stage").value(r.stage);
   w.key("product").value(c.product_name);
   w.key("quantity").value(r.quantity);
@@ -196,6 +218,7 @@ void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::os
 }
 
 void write_solve_csv(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit) {
+  write_summary_csv(out, verdict_summary(r, c.conservative));
   for (const auto& cau : cautions()) out << "# caution: " << cau << "\n";
   for (const auto& kv : c.provenance) out << "# " << kv.key << ": " << kv.value << "\n";
   out << "# question: " << to_string(r.question) << (r.stage.empty() ? "" : "; stage: " + r.stage) << "\n";
@@ -220,14 +243,14 @@ void write_solve_csv(const SolveResult& r, const SolveReportContext& c, std::ost
       out << "# end at one unit less: " << JsonWriter::number(*r.end_at_less_C) << " C, "
           << (r.end_reached_at_less.value_or(false) ? "reached" : "not reached") << "\n";
   }
-  out << "run,value_" << r.unit << ",target,kind,required,achieved,margin,unit,verdict,margin_uncertainty"
+  out << "run,value_" << r.unit << ",target,kind,required,achieved,margin,unit,verdict,met,margin_uncertainty"
       << (r.end_C ? ",end_temp_C,end_reached" : "") << "\n";
   const auto rows = [&](const char* run, const Check& ch, std::optional<double> end_temp_C, bool end_reached) {
     for (const auto& t : ch.eval.assessment.targets) {
       out << run << "," << JsonWriter::number(ch.value) << "," << csv_cell(t.name) << "," << to_string(t.kind) << ","
           << JsonWriter::number(t.required) << "," << JsonWriter::number(t.achieved) << ","
           << JsonWriter::number(t.margin) << "," << raw_unit(t) << "," << to_string(t.verdict) << ","
-          << JsonWriter::number(t.margin_uncertainty);
+          << (t.verdict == Verdict::met ? "true" : "false") << "," << JsonWriter::number(t.margin_uncertainty);
       if (r.end_C)
         out << "," << (end_temp_C ? JsonWriter::number(*end_temp_C) : "") << "," << (end_reached ? "true" : "false");
       out << "\n";

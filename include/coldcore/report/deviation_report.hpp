@@ -2,12 +2,15 @@
 /// Writers of `coldcore deviation`: the comparison and the deviation record (text, json, csv, md, html;
 /// cautions always; the statement that disposition is for the process authority always).
 ///
+/// Every format opens with the verdict summary of the delivered verdicts (verdict_summary.hpp;
+/// JSON "verdict_summary", csv its leading '# verdict summary: ' line).
 /// JSON: {"lot", "stage", "stage_start_s", "stage_heats", "scheduled_stage_s", "delivered_stage_s",
 ///        "deviations": [{"kind" (medium_colder|medium_warmer|stage_shortened|log_gap), "start_s",
 ///        "end_s", medium kinds: "extreme_C", "extreme_at_s", "scheduled_at_extreme_C", "departure_K";
 ///        "description"}] (times from the stage start), "extension_given_s", "extension_needed_s",
 ///        "targets": [{"name", "kind", "scheduled_F_min", "delivered_F_min", "scheduled_log_reduction",
-///        "delivered_log_reduction", "verdict", "scheduled_verdict", "delivered_margin", ...}],
+///        "delivered_log_reduction", "verdict", "met" (as delivered), "scheduled_verdict", "delivered_margin",
+///        "cooling_steps" (cooling rules, as delivered), ...}],
 ///        "all_met_delivered", "extra_hold_s" (rounded up, to use; null when none), "extra_hold_unrounded_s",
 ///        "extension_medium_C", "restored": {...}, "record": {...}, "disposition", "notes", "assumptions",
 ///        "warnings", "provenance", "cautions",
@@ -18,9 +21,10 @@
 ///        "notes", "assumptions"}}
 /// csv: '# ' comment lines (cautions, record with one '# deviation: <kind>; start_s ...' line per
 ///      departure, provenance), then one row per target:
-///        target,kind,scheduled_F_min,delivered_F_min,scheduled_log_reduction,delivered_log_reduction,verdict
-///      with --conservative: '# conservative ...' comment lines (choices, extra hold, driver), a last
-///      column `case` ("nominal" | "conservative") and one more row per target for the worst case.
+///        target,kind,scheduled_F_min,delivered_F_min,scheduled_log_reduction,delivered_log_reduction,verdict,met
+///      (`met` true | false, as delivered); with --conservative: '# conservative ...' comment lines
+///      (choices, extra hold, driver), a column `case` ("nominal" | "conservative") before `met` and
+///      one more row per target for the worst case.
 /// Shown F and log reductions are rounded DOWN, extra time UP.
 #include <iosfwd>
 #include <string>

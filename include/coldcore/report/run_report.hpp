@@ -7,6 +7,7 @@
 #include <string>
 #include <vector>
 
+#include "coldcore/process/cooling.hpp"
 #include "coldcore/report/format.hpp"
 
 namespace coldcore {
@@ -56,6 +57,7 @@ struct VerdictRow {
   double required_value = 0, achieved_value = 0, margin_value = 0;
   double margin_uncertainty_value = 0;  ///< error bound of margin_value ("met" needs margin above it)
   std::string value_unit;
+  std::optional<CoolingCheck> cooling;  ///< cooling-rule targets: the steps (json "cooling_steps")
 };
 
 /// What a lethality calculation delivered where no requirement was given: there is no verdict
@@ -158,9 +160,13 @@ std::string_view delivered_heading();
 /// "Bi(V/A)" for a report whose Bi are built on V/A; "Bi" when the length is not stated.
 std::string biot_symbol(const RunReport& r);
 
+/// Every run/probe format opens with verdict_summary(r) (verdict_summary.hpp).
 void write_run_text(const RunReport& r, std::ostream& out, TempUnit u);
+/// JSON: "verdict_summary" near the top; each "assessment" row has "met" (true only for the
+/// verdict "met") and, for a cooling rule, "cooling_steps".
 void write_run_json(const RunReport& r, std::ostream& out, TempUnit u);
-/// csv: cautions and provenance as leading '# ' comment lines, then the history table.
+/// csv: the verdict summary, cautions and provenance as leading '# ' comment lines, then the
+/// history table.
 void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u);
 
 }  // namespace coldcore

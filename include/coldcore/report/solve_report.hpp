@@ -2,12 +2,14 @@
 /// Writers of `coldcore solve` answers: text, json, csv, md, html (cautions always). They format a
 /// process::SolveResult; nothing is recomputed.
 ///
+/// Every format opens with the verdict summary of the verification re-run (verdict_summary.hpp;
+/// JSON "verdict_summary", csv its leading '# verdict summary: ' line).
 /// JSON: {"question", "stage", "quantity", "answer_<u>" (unrounded), "rounded_<u>" (to use),
 ///        "unit_<u>", "nominal_<u>", "verification": {"value_<u>", "all_met", "considered_met",
 ///        "targets": [...]}, "one_unit_less": {...} | null, "considered_targets", "notes",
 ///        "assumptions", "warnings", "provenance", "cautions"}, with <u> = s | m | C (SI).
 /// csv: '# ' comment lines (cautions, provenance, notes), then one row per target and re-run:
-///        run,value_<u>,target,kind,required,achieved,margin,verdict
+///        run,value_<u>,target,kind,required,achieved,margin,unit,verdict,met   (met: true | false)
 /// Shown lethality is rounded down and times up (assessment.hpp); the answer to use is rounded
 /// toward the safe side by the solver.
 #include <iosfwd>
@@ -51,6 +53,10 @@ MarkdownReport write_solve_markdown(const process::SolveResult& r, const SolveRe
                                     std::string_view svg_basename);
 
 /// Shared by the solve and deviation writers: one target result in JSON.
+/// Every target carries "met" (true only for the verdict "met") and, for a cooling rule, its steps.
 void write_target_json(class JsonWriter& w, const TargetResult& t);
+/// The key "cooling_steps": one object per step {"label", "advisory", "clock_started", "reached",
+/// "passed", "elapsed_s" (a lower bound when not reached), "within_s", "margin_s"}.
+void write_cooling_steps_json(class JsonWriter& w, const CoolingCheck& c);
 
 }  // namespace coldcore
