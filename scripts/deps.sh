@@ -3,7 +3,10 @@
 # Sourced by demo.sh and test.sh. Needs root (or sudo) when something is missing.
 set -euo pipefail
 
-coldcore_packages=(g++ cmake make libboost-dev libeigen3-dev libcli11-dev libtomlplusplus-dev doctest-dev)
+# clang + libclang-rt-dev: the sanitizer build and the libFuzzer harnesses use clang++ and its
+# ASan/UBSan/libFuzzer runtimes (scripts/test.sh, scripts/fuzz.sh).
+coldcore_packages=(g++ clang libclang-rt-dev cmake make libboost-dev libeigen3-dev libcli11-dev libtomlplusplus-dev
+  doctest-dev)
 
 coldcore_install_missing() {
   local missing=()

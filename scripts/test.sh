@@ -1,6 +1,8 @@
 #!/usr/bin/env bash
-# Installs what is missing, builds coldcore (Release, in build/) and runs the whole test suite;
-# then builds and runs it again with AddressSanitizer and UndefinedBehaviorSanitizer (build-asan/).
+# Installs what is missing, builds coldcore with g++ (Release, in build/) and runs the whole test
+# suite; then builds it with clang++ and AddressSanitizer + UndefinedBehaviorSanitizer, with the
+# libFuzzer harnesses (build-asan/), runs the suite again and fuzzes each parser briefly
+# (scripts/fuzz.sh; COLDCORE_FUZZ_SECONDS per harness, default 30). Two compilers, one build each.
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
@@ -8,10 +10,13 @@ source scripts/deps.sh
 coldcore_install_missing "${coldcore_packages[@]}"
 
 jobs="$(nproc)"
-cmake -S . -B build -DCMAKE_BUILD_TYPE=Release >/dev/null
+CC=gcc CXX=g++ cmake -S . -B build -DCMAKE_BUILD_TYPE=Release >/dev/null
 cmake --build build -j"$jobs"
 (cd build && ctest --output-on-failure -j"$jobs")
 
-cmake -S . -B build-asan -DCMAKE_BUILD_TYPE=RelWithDebInfo -DCOLDCORE_SANITIZE=ON -DCOLDCORE_BUILD_BENCH=OFF >/dev/null
+CC=clang CXX=clang++ cmake -S . -B build-asan -DCMAKE_BUILD_TYPE=RelWithDebInfo -DCOLDCORE_SANITIZE=ON \
+  -DCOLDCORE_FUZZ=ON -DCOLDCORE_BUILD_BENCH=OFF >/dev/null
 cmake --build build-asan -j"$jobs"
 (cd build-asan && ASAN_OPTIONS=detect_leaks=1 UBSAN_OPTIONS=print_stacktrace=1 ctest --output-on-failure -j"$jobs")
+
+bash scripts/fuzz.sh "${COLDCORE_FUZZ_SECONDS:-30}" build-asan

@@ -186,7 +186,8 @@ TEST_CASE("organism library parses with sources and rejects bad data") {
     const Organism* o = lib.find(key);
     REQUIRE(o != nullptr);
     for (const auto& [name, v] : o->values) {
-      CAPTURE(name);
+      const auto& value_name = name;  // a plain reference: clang 14 cannot capture a structured binding
+      CAPTURE(value_name);
       CHECK(!v.source.empty());
     }
   }

@@ -17,7 +17,8 @@ TEST_CASE("markdown returns the text and one SVG file per plot, referenced by na
   CHECK(m.svg_files[1].first == "run-1-lethality.svg");
   CHECK(m.svg_files[2].first == "run-1-cooling.svg");
   for (const auto& [name, svg] : m.svg_files) {
-    CAPTURE(name);
+    const std::string& svg_name = name;  // a plain reference: clang 14 cannot capture a structured binding
+    CAPTURE(svg_name);
     CHECK(m.markdown.find("](<" + name + ">)") != std::string::npos);
     CHECK(svg.rfind("<?xml version=\"1.0\" encoding=\"UTF-8\"?>", 0) == 0);
     CHECK(xml_problem(svg) == "");

@@ -30,14 +30,21 @@ using Lanes = double __attribute__((vector_size(32)));  // four doubles (GCC/Cla
 [[gnu::always_inline]] inline void store4(double* p, const Lanes& v) { std::memcpy(p, &v, sizeof v); }
 [[gnu::always_inline]] inline double lane_sum(const Lanes& v) { return (v[0] + v[1]) + (v[2] + v[3]); }
 
-using LaneIndex = long long __attribute__((vector_size(32)));
 /// {lane_sum(a), lane_sum(b), lane_sum(c), lane_sum(d)} by a transpose: the same additions in the
-/// same order, in fewer instructions.
+/// same order, in fewer instructions. GCC spells the lane shuffle __builtin_shuffle (index vector),
+/// Clang __builtin_shufflevector (constant indices); both pick the same lanes.
+#if defined(__clang__)
+#define COLDCORE_SHUFFLE4(x, y, i0, i1, i2, i3) __builtin_shufflevector(x, y, i0, i1, i2, i3)
+#else
+using LaneIndex = long long __attribute__((vector_size(32)));
+#define COLDCORE_SHUFFLE4(x, y, i0, i1, i2, i3) __builtin_shuffle(x, y, LaneIndex{i0, i1, i2, i3})
+#endif
 [[gnu::always_inline]] inline Lanes lane_sums(const Lanes& a, const Lanes& b, const Lanes& c, const Lanes& d) {
-  const Lanes ab = __builtin_shuffle(a, b, LaneIndex{0, 4, 2, 6}) + __builtin_shuffle(a, b, LaneIndex{1, 5, 3, 7});
-  const Lanes cd = __builtin_shuffle(c, d, LaneIndex{0, 4, 2, 6}) + __builtin_shuffle(c, d, LaneIndex{1, 5, 3, 7});
-  return __builtin_shuffle(ab, cd, LaneIndex{0, 1, 4, 5}) + __builtin_shuffle(ab, cd, LaneIndex{2, 3, 6, 7});
+  const Lanes ab = COLDCORE_SHUFFLE4(a, b, 0, 4, 2, 6) + COLDCORE_SHUFFLE4(a, b, 1, 5, 3, 7);
+  const Lanes cd = COLDCORE_SHUFFLE4(c, d, 0, 4, 2, 6) + COLDCORE_SHUFFLE4(c, d, 1, 5, 3, 7);
+  return COLDCORE_SHUFFLE4(ab, cd, 0, 1, 4, 5) + COLDCORE_SHUFFLE4(ab, cd, 2, 3, 6, 7);
 }
+#undef COLDCORE_SHUFFLE4
 
 /// The first n (1..4) values of p in lanes 0..n−1, zeros after. Written out, not as a loop, which
 /// the compiler would turn into a memcpy call.
