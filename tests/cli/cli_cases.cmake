@@ -432,7 +432,7 @@ cli_expect(issue11_chill_less_json 0 ARGS solve products/chicken-sausage-log.tom
            STDOUT_HAS "\"reached_at_one_unit_less\": false" "\"at_one_unit_less_C\": 4.03" "\"temperature_tolerance_K\": 1e-04")
 cli_expect(issue11_chill_less_csv 0 ARGS solve products/chicken-sausage-log.toml --for chill-time --format csv
            STDOUT_HAS "# end at rounded: 3.87" "# end at one unit less: 4.03" ", not reached"
-                      "run,value_s,target,kind,required,achieved,margin,unit,verdict,margin_uncertainty,end_temp_C,end_reached"
+                      "run,value_s,target,kind,required,achieved,margin,unit,verdict,met,margin_uncertainty,end_temp_C,end_reached"
                       ",4.03869978356" ",false")
 # Defect 7 and ties: 70 °C for exactly 123 s against F70 2.05 min (invented log, F = time exactly).
 cli_expect(issue11_probe_tie 1 ARGS probe tests/cli/issue11/hold_70C_123s.csv --reference-C 70 --z-C 7.5 --F-min 2.05
