@@ -2,7 +2,7 @@
 # Installs what is missing, builds coldcore with g++ (Release, in build/) and runs the whole test
 # suite; then builds it with clang++ and AddressSanitizer + UndefinedBehaviorSanitizer, with the
 # libFuzzer harnesses (build-asan/), runs the suite again and fuzzes each parser briefly
-# (scripts/fuzz.sh; COLDCORE_FUZZ_SECONDS per harness, default 30). Two compilers, one build each.
+# (scripts/fuzz.sh; COLDCORE_FUZZ_SECONDS per harness, default 15). Two compilers, one build each.
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
@@ -19,4 +19,4 @@ CC=clang CXX=clang++ cmake -S . -B build-asan -DCMAKE_BUILD_TYPE=RelWithDebInfo 
 cmake --build build-asan -j"$jobs"
 (cd build-asan && ASAN_OPTIONS=detect_leaks=1 UBSAN_OPTIONS=print_stacktrace=1 ctest --output-on-failure -j"$jobs")
 
-bash scripts/fuzz.sh "${COLDCORE_FUZZ_SECONDS:-30}" build-asan
+bash scripts/fuzz.sh "${COLDCORE_FUZZ_SECONDS:-15}" build-asan
