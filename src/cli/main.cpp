@@ -22,15 +22,7 @@ int real_main(int argc, char** argv) {
       "that reached its cap, or no solution; 2 bad input or usage.\n"
       "Results are engineering estimates; a qualified process authority and the local regulator decide.");
   VerbContext ctx;
-  add_run_verb(app, ctx);
-  add_modes_verb(app, ctx);
-  add_props_verb(app, ctx);
-  add_probe_verb(app, ctx);
-  add_library_verbs(app, ctx);
-  add_solve_verb(app, ctx);
-  add_deviation_verb(app, ctx);
-  add_media_verb(app, ctx);
-  add_pending_verbs(app, ctx);
+  add_all_verbs(app, ctx);
   // An unknown verb: say which verbs there are and the nearest one (CLI11 would only say that a
   // subcommand is required).
   std::vector<std::string> verbs;

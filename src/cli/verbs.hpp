@@ -30,4 +30,8 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx);
 void add_media_verb(CLI::App& app, VerbContext& ctx);
 void add_pending_verbs(CLI::App& app, VerbContext& ctx);
 
+/// Every verb above, in the order `coldcore --help` lists them: the one verb table (main and the
+/// command-line fuzz harness both build their app with it).
+void add_all_verbs(CLI::App& app, VerbContext& ctx);
+
 }  // namespace coldcore::cli

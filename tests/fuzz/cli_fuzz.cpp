@@ -26,15 +26,7 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
   app.set_version_flag("--version", std::string("coldcore fuzz"));
   app.require_subcommand(1);
   VerbContext ctx;
-  add_run_verb(app, ctx);
-  add_modes_verb(app, ctx);
-  add_props_verb(app, ctx);
-  add_probe_verb(app, ctx);
-  add_library_verbs(app, ctx);
-  add_solve_verb(app, ctx);
-  add_deviation_verb(app, ctx);
-  add_media_verb(app, ctx);
-  add_pending_verbs(app, ctx);
+  add_all_verbs(app, ctx);
   coldcore::fuzz::expect_parsed_or_refused([&] {
     try {
       app.parse(static_cast<int>(argv.size() - 1), argv.data());
