@@ -32,10 +32,8 @@ struct DeviationArgs {
 };
 
 int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
-  const Format f = parse_format(a.output.format, {Format::text, Format::md, Format::html, Format::json, Format::csv});
+  const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
-  if (f == Format::md && a.output.out.empty())
-    throw InputError("--format md writes its plots as SVG files beside the report: give --out PATH.md");
   if (a.medium_log.empty() && a.probe_log.empty())
     throw InputError("deviation: give --medium-log LOG.csv and/or --probe-log LOG.csv");
   if (!(a.tolerance_K > 0)) throw InputError("--tolerance-K = " + std::to_string(a.tolerance_K) + ": must be > 0");
@@ -144,9 +142,9 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--round-min", args->round_min, "additional time rounded UP to this, min")->capture_default_str()->check(within(0, 1440, "min", true));
   sub->add_flag("--conservative", args->conservative,
                 "also evaluate the deviation at the documented worst case of the file's ranges and name the choice that drove it");
-  sub->add_option("--library", args->library, "folder with organisms.toml and cooling-rules.toml");
+  add_library_option(*sub, args->library);
   sub->add_option("--date", args->date, "record date, YYYY-MM-DD (default: today, UTC)");
-  add_output_options(*sub, args->output, /*with_step=*/true);
+  add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);
   sub->callback([&ctx, args] {
     ctx.run = [args] {
       return with_report_output(args->output, "deviation", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {

@@ -14,15 +14,21 @@ namespace {
 std::string temp_text(double c, TempUnit u) { return fixed(display_temp(c, u), 1) + " " + std::string(unit_symbol(u)); }
 std::string diff_text(double k, TempUnit u) { return fixed(display_temp_difference(k, u), 2) + " " + std::string(unit_symbol(u)); }
 
+struct LibraryListArgs {
+  OutputArgs output;
+  std::string library;  ///< --library DIR; empty: the search order of cli/library_files.hpp
+};
+
 void write_cautions_text(std::ostream& out) {
   out << "\nCAUTIONS\n";
   for (const auto& c : cautions()) out << "  * " << c << "\n";
 }
 
-int list_organisms(const OutputArgs& a, std::ostream& out) {
-  const Format f = parse_format(a.format, {Format::text, Format::json, Format::csv});
+int list_organisms(const LibraryListArgs& args, std::ostream& out) {
+  const OutputArgs& a = args.output;
+  const Format f = output_format(a);
   const TempUnit u = parse_temp_unit(a.units);
-  const auto lib = load_libraries("", "");
+  const auto lib = load_libraries(args.library, "");
   if (f == Format::json) {
     JsonWriter w(out);
     w.begin_object().key("library").value(lib.organisms.origin).key("organisms").begin_array();
@@ -69,10 +75,11 @@ int list_organisms(const OutputArgs& a, std::ostream& out) {
   return kAllMet;
 }
 
-int list_rules(const OutputArgs& a, std::ostream& out) {
-  const Format f = parse_format(a.format, {Format::text, Format::json, Format::csv});
+int list_rules(const LibraryListArgs& args, std::ostream& out) {
+  const OutputArgs& a = args.output;
+  const Format f = output_format(a);
   const TempUnit u = parse_temp_unit(a.units);
-  const auto lib = load_libraries("", "");
+  const auto lib = load_libraries(args.library, "");
   if (f == Format::json) {
     JsonWriter w(out);
     w.begin_object().key("library").value(lib.rules.origin).key("rules").begin_array();
@@ -117,14 +124,20 @@ int list_rules(const OutputArgs& a, std::ostream& out) {
 }  // namespace
 
 void add_library_verbs(CLI::App& app, VerbContext& ctx) {
-  auto org = std::make_shared<OutputArgs>();
+  auto org = std::make_shared<LibraryListArgs>();
   auto* o = app.add_subcommand("organisms", "the organism heat-resistance library with its sources");
-  add_output_options(*o, *org);
-  o->callback([&ctx, org] { ctx.run = [org] { return with_output(*org, [&](std::ostream& out) { return list_organisms(*org, out); }); }; });
-  auto rul = std::make_shared<OutputArgs>();
+  add_output_options(*o, org->output, {Format::text, Format::json, Format::csv});
+  add_library_option(*o, org->library);
+  o->callback([&ctx, org] {
+    ctx.run = [org] { return with_output(org->output, [&](std::ostream& out) { return list_organisms(*org, out); }); };
+  });
+  auto rul = std::make_shared<LibraryListArgs>();
   auto* r = app.add_subcommand("rules", "the cooling-rule library with its sources");
-  add_output_options(*r, *rul);
-  r->callback([&ctx, rul] { ctx.run = [rul] { return with_output(*rul, [&](std::ostream& out) { return list_rules(*rul, out); }); }; });
+  add_output_options(*r, rul->output, {Format::text, Format::json, Format::csv});
+  add_library_option(*r, rul->library);
+  r->callback([&ctx, rul] {
+    ctx.run = [rul] { return with_output(rul->output, [&](std::ostream& out) { return list_rules(*rul, out); }); };
+  });
 }
 
 }  // namespace coldcore::cli

@@ -38,6 +38,16 @@ std::filesystem::path library_path(const std::string& name, const std::string& l
                    "; give --library DIR");
 }
 
+const char* const kLibrarySearchOrder =
+    "--library DIR, else beside the product file (or the log), else $COLDCORE_DATA_DIR, else "
+    "share/coldcore beside the executable's folder (installed), else the source tree's products/";
+
+void add_library_option(CLI::App& sub, std::string& library_dir) {
+  sub.add_option("--library", library_dir,
+                 std::string("folder with the data libraries (organisms.toml, cooling-rules.toml, cooking-tables.toml, "
+                             "media.toml); searched: ") + kLibrarySearchOrder);
+}
+
 LibraryFiles load_libraries(const std::string& library_dir, const std::string& product_file) {
   LibraryFiles d;
   const auto op = library_path("organisms.toml", library_dir, product_file);

@@ -7,6 +7,8 @@
 #include <string>
 #include <vector>
 
+#include <CLI/CLI.hpp>
+
 #include "coldcore/lethality/cooking_tables.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
@@ -26,6 +28,12 @@ struct LibraryFiles {
 /// COLDCORE_SOURCE_DIR/products/name. InputError when none exists.
 std::filesystem::path library_path(const std::string& name, const std::string& library_dir,
                                    const std::string& product_file);
+
+/// The search order above, for --help and messages.
+extern const char* const kLibrarySearchOrder;
+
+/// Adds --library DIR (the same help text on every verb that reads a data library).
+void add_library_option(CLI::App& sub, std::string& library_dir);
 
 LibraryFiles load_libraries(const std::string& library_dir, const std::string& product_file);
 

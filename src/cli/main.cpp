@@ -4,6 +4,7 @@
 #include <string>
 #include <vector>
 
+#include "cli/library_files.hpp"
 #include "cli/verbs.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/io/quantity.hpp"
@@ -20,6 +21,8 @@ int real_main(int argc, char** argv) {
   app.footer(
       "Exit status: 0 every target met (or none given); 1 a target not demonstrated, a stage\n"
       "that reached its cap, or no solution; 2 bad input or usage.\n"
+      "Data libraries (organisms, cooling rules, cooking tables, media): " + std::string(kLibrarySearchOrder) + ".\n"
+      "coldcore help VERB shows a verb's options; -o FILE writes there, its extension naming the format.\n"
       "Results are engineering estimates; a qualified process authority and the local regulator decide.");
   VerbContext ctx;
   add_all_verbs(app, ctx);
@@ -34,6 +37,8 @@ int real_main(int argc, char** argv) {
     for (const auto& v : verbs) list += (list.empty() ? "" : ", ") + v;
     throw coldcore::InputError(msg + " (verbs: " + list + "; coldcore --help)");
   }
+  // An option the verb does not have: name the nearest (CLI11 would only say it was not expected).
+  if (argc > 1 && argv[1][0] != '-') check_option_names(*app.get_subcommand(argv[1]), argc, argv, 2);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

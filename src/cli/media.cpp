@@ -21,7 +21,7 @@ struct MediaArgs {
 
 
 int run_media(const MediaArgs& a, std::ostream& out) {
-  const Format f = parse_format(a.output.format, {Format::text, Format::json, Format::csv});
+  const Format f = output_format(a.output);
   const auto path = library_path("media.toml", a.library, "");
   const io::MediaLibrary lib = io::parse_media(io::read_text_file(path), path.generic_string());
   const std::string use =
@@ -73,8 +73,8 @@ int run_media(const MediaArgs& a, std::ostream& out) {
 void add_media_verb(CLI::App& app, VerbContext& ctx) {
   auto args = std::make_shared<MediaArgs>();
   auto* sub = app.add_subcommand("media", "surface heat-transfer coefficient ranges with sources");
-  sub->add_option("--library", args->library, "folder with media.toml (default: the source tree's products/)");
-  add_output_options(*sub, args->output);
+  add_library_option(*sub, args->library);
+  add_output_options(*sub, args->output, {Format::text, Format::json, Format::csv});
   sub->callback([&ctx, args] {
     ctx.run = [args] { return with_output(args->output, [&](std::ostream& out) { return run_media(*args, out); }); };
   });

@@ -60,7 +60,7 @@ int run_modes(const ModesArgs& a, std::ostream& out) {
   const double biot = parse_biot(a.biot);
   if (a.count < 1 || a.count > 2000)
     throw InputError("--count = " + std::to_string(a.count) + ": must be from 1 to 2000");
-  const Format f = parse_format(a.output.format, {Format::text, Format::json, Format::csv});
+  const Format f = output_format(a.output);
   // Two modes at least, for the one-term note.
   const std::vector<Mode> all = modes(g, biot, std::max(a.count, 2));
   const std::vector<Mode> shown(all.begin(), all.begin() + a.count);
@@ -118,7 +118,7 @@ void add_modes_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--shape", args->shape, "sphere | cylinder | slab")->required();
   sub->add_option("--biot", args->biot, "Biot number h·L/k (L: half-thickness or radius), or inf")->required();
   sub->add_option("--count", args->count, "how many modes, 1 to 2000")->capture_default_str();
-  add_output_options(*sub, args->output);
+  add_output_options(*sub, args->output, {Format::text, Format::json, Format::csv});
   sub->callback([&ctx, args] {
     ctx.run = [args] { return with_output(args->output, [&](std::ostream& out) { return run_modes(*args, out); }); };
   });

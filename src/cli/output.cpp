@@ -1,5 +1,6 @@
 #include "cli/output.hpp"
 
+#include <cctype>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
@@ -15,9 +16,12 @@
 
 namespace coldcore::cli {
 
-void add_output_options(CLI::App& sub, OutputArgs& a, bool with_step) {
-  sub.add_option("--format", a.format, "text | md | html | json | csv (as the verb allows)")->capture_default_str();
-  sub.add_option("--out", a.out, "write to this file instead of standard output");
+void add_output_options(CLI::App& sub, OutputArgs& a, std::vector<Format> formats, bool with_step) {
+  std::string list;
+  for (Format f : formats) list += (list.empty() ? "" : " | ") + std::string(to_string(f));
+  a.formats = std::move(formats);
+  sub.add_option("-f,--format", a.format, list + " (default: named by the --out extension, else text)");
+  sub.add_option("-o,--out", a.out, "write to this file instead of standard output (- : standard output)");
   sub.add_option("--units", a.units, "temperatures in C or F")->capture_default_str();
   // Bounded below so that a history table stays within a few million rows.
   if (with_step)
@@ -42,6 +46,34 @@ CLI::Validator within(double low, double high, const std::string& unit, bool low
         return ok ? std::string() : s + ": must be " + range;
       },
       range);
+}
+
+bool to_stdout(const OutputArgs& a) { return a.out.empty() || a.out == "-"; }
+
+Format output_format(const OutputArgs& a) {
+  std::string name = a.format;
+  if (name.empty() && !to_stdout(a)) {
+    std::string ext = std::filesystem::path(a.out).extension().string();
+    for (char& c : ext) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    if (ext == ".htm") ext = ".html";
+    if (ext == ".txt") ext = ".text";
+    for (Format f : {Format::text, Format::md, Format::html, Format::json, Format::csv})
+      if (ext == "." + std::string(to_string(f))) name = to_string(f);
+    bool written = false;
+    for (Format f : a.formats) written = written || name == to_string(f);
+    if (!name.empty() && !written) {
+      std::string list;
+      for (Format f : a.formats) list += (list.empty() ? "" : "|") + std::string(to_string(f));
+      throw InputError("--out = " + a.out + ": its extension names format " + name +
+                       ", which this verb does not write; give a name ending in ." + list.substr(0, list.find('|')) +
+                       " or choose with --format " + list);
+    }
+  }
+  if (name.empty()) name = "text";
+  const Format f = parse_format(name, a.formats);
+  if (f == Format::md && to_stdout(a))
+    throw InputError("--format md writes its plots as SVG files beside the report: give --out PATH.md");
+  return f;
 }
 
 std::string today_utc() {
@@ -146,7 +178,7 @@ int with_output(const OutputArgs& a, const std::function<int(std::ostream&, Side
   // the display unit now, for every verb and format (the body has validated --units).
   const TempUnit u = parse_temp_unit(a.units);
   const std::string text = render_temperatures(buf.str(), u);
-  if (a.out.empty()) {
+  if (to_stdout(a)) {
     std::cout << text;
     return code;
   }
@@ -169,7 +201,7 @@ int with_report_output(const OutputArgs& a, std::string_view verb,
   VerdictSummary summary;
   const int code = with_output(a, [&](std::ostream& out, SideFiles& side) { return body(out, side, summary); });
   // Said only after the file was written (with_output throws before that on any failure).
-  if (!a.out.empty())
+  if (!to_stdout(a))
     std::cerr << render_temperatures(summary_stderr_line(verb, summary, a.out), parse_temp_unit(a.units)) << "\n";
   return code;
 }

@@ -1,5 +1,5 @@
 #pragma once
-// Common output options (--format, --out, --units, --step-s) and writing to a file without
+// Common output options (-f/--format, -o/--out, --units, --step-s) and writing to a file without
 // leaving it half-written: the report is built in memory and the file written only on success.
 #include <functional>
 #include <iosfwd>
@@ -17,13 +17,24 @@
 namespace coldcore::cli {
 
 struct OutputArgs {
-  std::string format = "text";
-  std::string out;        ///< empty: stdout
+  std::string format;     ///< empty: named by the --out extension, else text
+  std::string out;        ///< empty or "-": stdout
   std::string units = "C";
   double step_s = 60;     ///< output sampling for history tables
+  std::vector<Format> formats;  ///< the formats the verb writes (set by add_output_options)
 };
 
-void add_output_options(CLI::App& sub, OutputArgs& a, bool with_step = false);
+/// Adds -f/--format (help lists `formats`, the verb's own), -o/--out, --units and, with_step,
+/// --step-s.
+void add_output_options(CLI::App& sub, OutputArgs& a, std::vector<Format> formats, bool with_step = false);
+
+/// True when the report goes to standard output (no --out, or --out -).
+bool to_stdout(const OutputArgs& a);
+
+/// The format to write: --format when given; else the one the --out extension names (.txt,
+/// .md, .html/.htm, .json, .csv); else text. InputError when the verb does not write it, or for
+/// md on standard output (its plots are files beside the report).
+Format output_format(const OutputArgs& a);
 
 /// A CLI11 check that a numeric option is finite and within [low, high] (`low_open`: > low),
 /// stated in `unit`; NaN and inf fail. Message: `--opt: nan: must be from 0 to 1 s`.

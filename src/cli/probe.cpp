@@ -22,6 +22,7 @@ namespace {
 
 struct ProbeArgs {
   std::string log;
+  std::string library;  ///< --library DIR; empty: beside the log, then the usual search order
   std::string organism;
   std::optional<double> target_log;
   std::string rule;
@@ -96,10 +97,8 @@ std::vector<Target> probe_targets(const ProbeArgs& a, bool& lethality_has_requir
 }
 
 int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
-  const Format f = parse_format(a.output.format, {Format::text, Format::md, Format::html, Format::json, Format::csv});
+  const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
-  if (f == Format::md && a.output.out.empty())
-    throw InputError("--format md writes its plots as SVG files beside the report: give --out PATH.md");
   bool has_requirement = true;
   const std::vector<Target> targets = probe_targets(a, has_requirement);
   const std::string bytes = io::read_text_file(a.log);
@@ -108,7 +107,7 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side, VerdictSum
   lo.temp_column = a.temp_column;
   if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
   const io::TimeSeries log = io::parse_log_csv(bytes, a.log, lo);
-  const LibraryFiles lib = load_libraries("", "");
+  const LibraryFiles lib = load_libraries(a.library, a.log);
   AssessOptions opts;
   opts.max_gap_s = a.max_gap_s;  // issue 11: no lethality across a gap
   opts.origin = a.log;
@@ -169,7 +168,8 @@ void add_probe_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--timezone", a->timezone,
                   "fixed UTC offset of timestamps written without one, e.g. +01:00 (needed when they jump by a clock change)");
   sub->add_option("--date", a->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
-  add_output_options(*sub, a->output);
+  add_output_options(*sub, a->output, {Format::text, Format::md, Format::html, Format::json, Format::csv});
+  add_library_option(*sub, a->library);
   sub->callback([&ctx, a] {
     ctx.run = [a] {
       return with_report_output(a->output, "probe", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {

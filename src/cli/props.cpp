@@ -59,7 +59,7 @@ Composition parse_composition(const std::string& s) {
 }
 
 int run_props(const PropsArgs& a, std::ostream& out) {
-  const Format f = parse_format(a.output.format, {Format::text, Format::json, Format::csv});
+  const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
   const Composition c = parse_composition(a.composition);
   const auto rows = composition_table(c, a.from_C, a.to_C, a.step_C, "props");
@@ -123,7 +123,7 @@ void add_props_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--from-C", args->from_C, "lowest temperature, °C")->capture_default_str()->check(within(limits::temperature_C.low, limits::temperature_C.high, "C"));
   sub->add_option("--to-C", args->to_C, "highest temperature, °C")->capture_default_str()->check(within(limits::temperature_C.low, limits::temperature_C.high, "C"));
   sub->add_option("--step-C", args->step_C, "temperature step, °C")->capture_default_str()->check(within(0, 600, "C", true));
-  add_output_options(*sub, args->output);
+  add_output_options(*sub, args->output, {Format::text, Format::json, Format::csv});
   sub->callback([&ctx, args] {
     ctx.run = [args] { return with_output(args->output, [&](std::ostream& out) { return run_props(*args, out); }); };
   });

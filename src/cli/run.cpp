@@ -24,16 +24,15 @@ struct RunArgs {
   std::string file;
   OutputArgs output;
   std::string date;  ///< provenance date; default today (UTC)
+  std::string library;  ///< --library DIR; empty: the search order of cli/library_files.hpp
 };
 
 int run_run(const RunArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
-  const Format f = parse_format(a.output.format, {Format::text, Format::md, Format::html, Format::json, Format::csv});
+  const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
-  if (f == Format::md && a.output.out.empty())
-    throw InputError("--format md writes its plots as SVG files beside the report: give --out PATH.md");
   const io::ProductFile file = io::load_product(a.file);
   io::require_constant_properties(file);
-  const LibraryFiles lib = load_libraries("", a.file);
+  const LibraryFiles lib = load_libraries(a.library, a.file);
   // process::evaluate: each target on the h scenario conservative for it (process/h_ends.hpp).
   const process::Scenario scenario = io::scenario_of(file);
   const process::Evaluation eval = process::evaluate(scenario, {&lib.organisms, &lib.rules, &lib.cooking});
@@ -96,8 +95,9 @@ void add_run_verb(CLI::App& app, VerbContext& ctx) {
   auto args = std::make_shared<RunArgs>();
   auto* sub = app.add_subcommand("run", "forward simulation of the scheduled process, with assessment");
   sub->add_option("FILE", args->file, "product file (TOML, schema 1)")->required();
-  add_output_options(*sub, args->output, /*with_step=*/true);
+  add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);
   sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
+  add_library_option(*sub, args->library);
   sub->callback([&ctx, args] {
     ctx.run = [args] {
       return with_report_output(args->output, "run", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {

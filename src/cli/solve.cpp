@@ -43,10 +43,8 @@ process::Question parse_question(const std::string& s) {
 }
 
 int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
-  const Format f = parse_format(a.output.format, {Format::text, Format::md, Format::html, Format::json, Format::csv});
+  const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
-  if (f == Format::md && a.output.out.empty())
-    throw InputError("--format md writes its plots as SVG files beside the report: give --out PATH.md");
   const process::Question q = parse_question(a.question);
   if (!(a.round_min > 0)) throw InputError("--round-min = " + std::to_string(a.round_min) + ": must be > 0");
   if (!(a.round_mm > 0)) throw InputError("--round-mm = " + std::to_string(a.round_mm) + ": must be > 0");
@@ -123,9 +121,9 @@ void add_solve_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_flag("--mean", args->mean, "chill-time: the mass average instead of the centre");
   sub->add_flag("--conservative", args->conservative,
                 "also solve the documented worst case of the file's ranges and name the choice that drove it");
-  sub->add_option("--library", args->library, "folder with organisms.toml and cooling-rules.toml");
+  add_library_option(*sub, args->library);
   sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
-  add_output_options(*sub, args->output, /*with_step=*/true);
+  add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);
   sub->callback([&ctx, args] {
     ctx.run = [args] {
       return with_report_output(args->output, "solve", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {

@@ -29,6 +29,12 @@ void add_solve_verb(CLI::App& app, VerbContext& ctx);
 void add_deviation_verb(CLI::App& app, VerbContext& ctx);
 void add_media_verb(CLI::App& app, VerbContext& ctx);
 void add_pending_verbs(CLI::App& app, VerbContext& ctx);
+/// `coldcore help [VERB]`: the app's help, or the verb's.
+void add_help_verb(CLI::App& app, VerbContext& ctx);
+
+/// InputError for the first `--name` in argv[first, argc) that `verb` has no option for, naming
+/// the nearest one ("did you mean") and `coldcore help VERB`. Stops at `--`.
+void check_option_names(const CLI::App& verb, int argc, char** argv, int first);
 
 /// Every verb above, in the order `coldcore --help` lists them: the one verb table (main and the
 /// command-line fuzz harness both build their app with it).

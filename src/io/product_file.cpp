@@ -7,6 +7,7 @@
 #include <array>
 #include <cmath>
 #include <fstream>
+#include <iostream>
 #include <limits>
 #include <sstream>
 
@@ -288,8 +289,24 @@ std::vector<std::filesystem::path>& inputs_list() {
 }
 }  // namespace
 
+namespace {
+// "-": standard input (a pipe), read to its end within the same size limit as a file.
+std::string read_standard_input() {
+  std::string text;
+  char buf[65536];
+  while (std::cin.read(buf, sizeof buf) || std::cin.gcount() > 0) {
+    text.append(buf, static_cast<std::size_t>(std::cin.gcount()));
+    if (text.size() > kMaxInputFileBytes)
+      throw InputError("standard input: more than the limit of " + std::to_string(kMaxInputFileBytes) + " bytes");
+  }
+  if (std::cin.bad()) throw InputError("standard input: a read error occurred");
+  return text;
+}
+}  // namespace
+
 std::string read_text_file(const std::filesystem::path& path) {
   namespace fs = std::filesystem;
+  if (path == "-") return read_standard_input();
   const std::string where = path.generic_string() + ": cannot read file: ";
   // Look before opening: opening a FIFO blocks until a writer appears, and a device never ends.
   std::error_code ec;

@@ -382,6 +382,11 @@ cli_expect(run_composition_only 2 ARGS run tests/cli/composition_only.toml
 add_test(NAME cli.out_safety
          COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
                  -P ${PROJECT_SOURCE_DIR}/tests/cli/out_safety.cmake)
+# issue 16: -o/-f, the format named by the --out extension, "-" for stdin/stdout, help VERB,
+# "did you mean" for options, --library on every verb that reads a library.
+add_test(NAME cli.habits
+         COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
+                 -P ${PROJECT_SOURCE_DIR}/tests/cli/habits.cmake)
 # issue 18: an impossible --date is refused with the accepted form (2026 is not a leap year).
 cli_expect(run_bad_date 2 ARGS run products/kofta-balls.toml --date 2026-13-45
            STDERR_HAS "--date = 2026-13-45: must be a calendar date YYYY-MM-DD, e.g. 2026-12-01")

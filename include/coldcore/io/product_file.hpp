@@ -129,6 +129,7 @@ void require_constant_properties(const ProductFile& file);
 /// about 20 MiB, so this only stops a wrong file (an image, a disk) from exhausting memory.
 inline constexpr std::uintmax_t kMaxInputFileBytes = 256u * 1024u * 1024u;
 
+/// "-" reads standard input to its end (same limit; not recorded as an input file).
 /// The bytes of a regular file. InputError `<path>: cannot read file: <why>` when it is missing
 /// or unreadable (the system's reason), a directory, a FIFO, socket or device (refused before
 /// opening, so nothing blocks), or larger than kMaxInputFileBytes.
