@@ -84,7 +84,7 @@ std::string range_text(const limits::Range& r, std::optional<Quantity> q, std::s
     return format_number(std::strtod(buf, nullptr));
   };
   const double lo = q ? from_si(*q, r.low, unit) : r.low, hi = q ? from_si(*q, r.high, unit) : r.high;
-  return "from " + tidy(lo) + " to " + tidy(hi) + (unit.empty() ? "" : " ") + std::string(unit);
+  return "from " + tidy(lo) + " to " + tidy(hi) + (unit.empty() ? "" : " ") + std::string(unit_text(unit));
 }
 
 void Fields::require_range(std::string_view key, double si, const limits::Range& r, std::optional<Quantity> q,

@@ -12,6 +12,7 @@
 #include <sstream>
 
 #include "coldcore/error.hpp"
+#include "coldcore/io/can_size.hpp"
 #include "coldcore/io/sha256.hpp"
 #include "io/detail/fields.hpp"
 #include "io/detail/product_parts.hpp"
@@ -64,21 +65,23 @@ Shape parse_shape(const Fields& f) {
 
 ThermalProperties parse_properties(const toml::table& t, const std::string& origin) {
   Fields f(t, origin, "product.properties",
-           {plain("conductivity_W_mK"), plain("density_kg_m3"), plain("specific_heat_J_kgK")});
+           {quantity("conductivity", Quantity::conductivity), quantity("density", Quantity::density),
+            quantity("specific_heat", Quantity::specific_heat)});
   ThermalProperties p;
-  const auto get = [&](std::string_view key, const char* what) {
-    const toml::node* n = f.node(key);
-    if (n == nullptr) f.missing(key, std::string(what) + ", > 0");
-    const double v = f.number_of(key, *n, false, what);
-    if (!(v > 0)) f.fail(key, "must be > 0");
-    return v;
+  // SI or US customary spellings (io/quantity.hpp), converted here; the range is said in the
+  // unit as written.
+  const auto get = [&](std::string_view base, Quantity q, const limits::Range& plausible) {
+    const auto fd = f.find(base);
+    if (!fd) f.missing(std::string(base) + "_*", std::string(quantity_name(q)) + " (" + detail::spellings(base, q) + "), > 0");
+    const double written = f.number_of(fd->key, *fd->node, false, std::string(quantity_name(q)) + " in " + std::string(unit_text(fd->unit)));
+    if (!(written > 0)) f.fail(fd->key, "must be > 0");
+    const double si = *to_si(q, written, fd->unit);
+    f.require_range(fd->key, si, plausible, q, fd->unit);
+    return si;
   };
-  p.conductivity_W_mK = get("conductivity_W_mK", "thermal conductivity in W/(m K)");
-  p.density_kg_m3 = get("density_kg_m3", "density in kg/m3");
-  p.specific_heat_J_kgK = get("specific_heat_J_kgK", "specific heat in J/(kg K)");
-  f.require_range("conductivity_W_mK", p.conductivity_W_mK, limits::conductivity_W_mK, std::nullopt, "W/(m K)");
-  f.require_range("density_kg_m3", p.density_kg_m3, limits::density_kg_m3, std::nullopt, "kg/m3");
-  f.require_range("specific_heat_J_kgK", p.specific_heat_J_kgK, limits::specific_heat_J_kgK, std::nullopt, "J/(kg K)");
+  p.conductivity_W_mK = get("conductivity", Quantity::conductivity, limits::conductivity_W_mK);
+  p.density_kg_m3 = get("density", Quantity::density, limits::density_kg_m3);
+  p.specific_heat_J_kgK = get("specific_heat", Quantity::specific_heat, limits::specific_heat_J_kgK);
   return p;
 }
 
@@ -112,7 +115,7 @@ MassFractions parse_composition(const toml::table& t, const std::string& origin)
 ProductRanges parse_ranges(const toml::table& t, const std::string& origin, const Product& p, bool has_k) {
   Fields f(t, origin, "product.ranges",
            {quantity("diameter", Quantity::length), quantity("length", Quantity::length),
-            quantity("thickness", Quantity::length), plain("conductivity_W_mK"),
+            quantity("thickness", Quantity::length), quantity("conductivity", Quantity::conductivity),
             quantity("initial", Quantity::temperature)});
   ProductRanges r;
   const auto pair = [&](const std::string& key, const toml::node& n, const std::string& unit, Quantity q, bool is_q,
@@ -128,7 +131,7 @@ ProductRanges parse_ranges(const toml::table& t, const std::string& origin, cons
     if (!(lo <= hi) || !std::isfinite(lo) || !std::isfinite(hi) || (positive && !(lo > 0))) f.fail(key, need);
     if (plausible && !(plausible->contains(lo) && plausible->contains(hi)))
       f.fail(key, "both ends must be " + detail::range_text(*plausible, is_q ? std::optional(q) : std::nullopt,
-                                                            is_q ? unit : std::string("W/(m K)")));
+                                                            unit));
     if (nominal < lo - 1e-12 * std::abs(nominal) || nominal > hi + 1e-12 * std::abs(nominal))
       f.fail(key, "must contain the nominal value " + format_number(nominal) + " (SI)");
     return {lo, hi};
@@ -142,9 +145,9 @@ ProductRanges parse_ranges(const toml::table& t, const std::string& origin, cons
   length("diameter", p.dims.diameter_m, r.diameter_m);
   length("length", p.dims.length_m, r.length_m);
   length("thickness", p.dims.thickness_m, r.thickness_m);
-  if (const toml::node* n = f.node("conductivity_W_mK")) {
-    if (!has_k) f.fail("conductivity_W_mK", "needs [product.properties] (a composition gives k itself)");
-    r.conductivity_W_mK = pair("conductivity_W_mK", *n, "", Quantity::temperature, false, p.properties.conductivity_W_mK, true,
+  if (auto fk = f.find("conductivity")) {
+    if (!has_k) f.fail(fk->key, "needs [product.properties] (a composition gives k itself)");
+    r.conductivity_W_mK = pair(fk->key, *fk->node, fk->unit, Quantity::conductivity, true, p.properties.conductivity_W_mK, true,
                                &limits::conductivity_W_mK);
   }
   if (auto fi = f.find("initial")) r.initial_C = pair(fi->key, *fi->node, fi->unit, Quantity::temperature, true, p.initial_C, false,
@@ -157,7 +160,7 @@ Product parse_product_table(const toml::table& t, const std::string& origin, std
            {plain("name"), plain("shape"), quantity("diameter", Quantity::length),
             quantity("length", Quantity::length), quantity("thickness", Quantity::length),
             quantity("size", Quantity::length), quantity("initial", Quantity::temperature), plain("properties"),
-            plain("composition"), plain("ranges")});
+            plain("composition"), plain("ranges"), plain("can_size")});
   Product p;
   const auto name = f.string("name");
   if (!name) f.missing("name", "a name for reports, in double quotes");
@@ -171,6 +174,8 @@ Product parse_product_table(const toml::table& t, const std::string& origin, std
   const auto refuse_unused = [&](std::string_view base, const std::string& hint) {
     if (auto fd = f.find(base)) f.fail(fd->key, "not used by " + shape_text + hint);
   };
+  if (p.shape != Shape::finite_cylinder && f.node("can_size") != nullptr)
+    f.fail("can_size", "not used by " + shape_text + " (a can is shape = \"finite-cylinder\")");
   switch (p.shape) {
     case Shape::sphere:
     case Shape::cylinder:
@@ -182,8 +187,19 @@ Product parse_product_table(const toml::table& t, const std::string& origin, std
       refuse_unused("size", "");
       break;
     case Shape::finite_cylinder:
-      p.dims.diameter_m = positive_length(f, "diameter", shape_text + " needs a diameter");
-      p.dims.length_m = positive_length(f, "length", shape_text + " needs a length");
+      if (auto can = f.string("can_size")) {
+        // The overall (outside) size: larger than the contents, so it errs on the slow side.
+        std::string why;
+        const auto size = parse_can_size(*can, &why);
+        if (!size) f.fail("can_size", why);
+        if (auto fd = f.find("diameter")) f.fail(fd->key, "given together with can_size; give one");
+        if (auto fd = f.find("length")) f.fail(fd->key, "given together with can_size; give one");
+        p.dims.diameter_m = size->diameter_m;
+        p.dims.length_m = size->height_m;
+      } else {
+        p.dims.diameter_m = positive_length(f, "diameter", shape_text + " needs a diameter (or can_size = \"211 x 400\")");
+        p.dims.length_m = positive_length(f, "length", shape_text + " needs a length");
+      }
       refuse_unused("thickness", "");
       refuse_unused("size", "");
       break;

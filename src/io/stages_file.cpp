@@ -17,7 +17,7 @@ std::vector<KeySpec> stage_specs() {
           {"medium", KeyForm::medium, Quantity::temperature},
           plain("medium_log"),
           quantity("medium_log_max_gap", Quantity::time),
-          plain("h_W_m2K"),
+          quantity("h", Quantity::heat_transfer_coefficient),
           plain("medium_type"),
           plain("h_range_W_m2K"),
           quantity("duration", Quantity::time),
@@ -106,7 +106,7 @@ MediumProfile parse_medium_log(const Fields& f, const std::filesystem::path& bas
 /// Returns true when h comes from medium_type (then h_W_m2K is absent and stays 0 here).
 bool parse_h_extras(const Fields& f, const Stage& s, StageH& out) {
   if (auto mt = f.string("medium_type")) {
-    if (f.node("h_W_m2K") != nullptr) f.fail("medium_type", "given together with h_W_m2K; give one");
+    if (auto fh = f.find("h")) f.fail("medium_type", "given together with " + fh->key + "; give one");
     if (f.node("h_range_W_m2K") != nullptr) f.fail("h_range_W_m2K", "not used with medium_type (its range comes from media.toml)");
     if (mt->empty()) f.fail("medium_type", "must name a medium of media.toml");
     out.medium_type = *mt;
@@ -127,20 +127,24 @@ bool parse_h_extras(const Fields& f, const Stage& s, StageH& out) {
 }
 
 void parse_h(const Fields& f, Stage& s) {
-  const toml::node* n = f.node("h_W_m2K");
-  const std::string need = "must be > 0 W/(m2 K), or inf for a surface held at the medium temperature";
-  if (n == nullptr) f.missing("h_W_m2K", "surface heat-transfer coefficient, > 0 W/(m2 K), or inf");
+  const auto fh = f.find("h");
+  if (!fh) f.missing("h_W_m2K", "surface heat-transfer coefficient, > 0 W/(m2 K) (or h_Btu_hft2F), or inf");
+  const std::string& key = fh->key;
+  const std::string unit(unit_text(fh->unit));
+  const toml::node* n = fh->node;
+  const std::string need = "must be > 0 " + unit + ", or inf for a surface held at the medium temperature";
   if (auto str = n->as_string()) {
-    if (str->get() != "inf") f.fail("h_W_m2K", need);
+    if (str->get() != "inf") f.fail(key, need);
     s.h_infinite = true;
     s.h_W_m2K = std::numeric_limits<double>::infinity();
     return;
   }
-  if (!n->is_number()) f.fail("h_W_m2K", "must be a number (W/(m2 K)) or inf");
-  const double h = n->value<double>().value_or(0);
+  if (!n->is_number()) f.fail(key, "must be a number (" + unit + ") or inf");
+  const double written = n->value<double>().value_or(0);
   // h = 0 is an insulated surface: the product never exchanges heat, almost always a slip.
-  if (!(h > 0)) f.fail("h_W_m2K", need);
-  if (!std::isinf(h)) f.require_range("h_W_m2K", h, limits::h_W_m2K, std::nullopt, "W/(m2 K)", "or inf");
+  if (!(written > 0)) f.fail(key, need);
+  const double h = std::isinf(written) ? written : *to_si(Quantity::heat_transfer_coefficient, written, fh->unit);
+  if (!std::isinf(h)) f.require_range(key, h, limits::h_W_m2K, Quantity::heat_transfer_coefficient, fh->unit, "or inf");
   s.h_W_m2K = h;
   s.h_infinite = std::isinf(h);
 }

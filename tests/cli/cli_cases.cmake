@@ -387,6 +387,11 @@ add_test(NAME cli.out_safety
 add_test(NAME cli.habits
          COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
                  -P ${PROJECT_SOURCE_DIR}/tests/cli/habits.cmake)
+# issue 16: a can in US customary units: 307 x 409 is 3 7/16 by 4 9/16 in = 87.3 by 115.9 mm
+# (can makers' notation, common practice; 1 in = 25.4 mm), 0.26 Btu/(h ft F) = 0.4500 W/(m K)
+# (NIST SP 811 factor 1.730735).
+cli_expect(run_us_units_can 1 ARGS run tests/cli/us-units/can-us.toml --date 2026-12-01
+           STDOUT_HAS "diameter 87.3 mm, length 115.9 mm" "conductivity k: 0.4500 W/m·K" "initial temperature: 21.11 °C")
 # issue 18: an impossible --date is refused with the accepted form (2026 is not a leap year).
 cli_expect(run_bad_date 2 ARGS run products/kofta-balls.toml --date 2026-13-45
            STDERR_HAS "--date = 2026-13-45: must be a calendar date YYYY-MM-DD, e.g. 2026-12-01")

@@ -98,15 +98,15 @@ TEST_CASE("bad file: missing keys") {
                        "t.toml: product.name: missing: a name for reports, in double quotes", InputError);
   CHECK_THROWS_WITH_AS(parse(with("diameter_mm = 42\n", "")),
                        "t.toml: product.diameter_*: missing: shape = \"sphere\" needs a diameter "
-                       "(diameter_m or diameter_mm, > 0)",
+                       "(diameter_m, diameter_mm, diameter_cm, diameter_in or diameter_ft, > 0)",
                        InputError);
   CHECK_THROWS_WITH_AS(parse(with("initial_C = 4\n", "")),
                        "t.toml: product.initial_*: missing: the uniform initial temperature (initial_C or initial_F)",
                        InputError);
   CHECK_THROWS_WITH_AS(parse(with("density_kg_m3 = 1060\n", "")),
-                       "t.toml: product.properties.density_kg_m3: missing: density in kg/m3, > 0", InputError);
+                       "t.toml: product.properties.density_*: missing: density (density_kg_m3 or density_lb_ft3), > 0", InputError);
   CHECK_THROWS_WITH_AS(parse(with("h_W_m2K = 22\n", "")),
-                       "t.toml: stage[2].h_W_m2K: missing: surface heat-transfer coefficient, > 0 W/(m2 K), or inf",
+                       "t.toml: stage[2].h_W_m2K: missing: surface heat-transfer coefficient, > 0 W/(m2 K) (or h_Btu_hft2F), or inf",
                        InputError);
   CHECK_THROWS_WITH_AS(parse(with("medium_C = 92\n", "")),
                        "t.toml: stage[1].medium_*: missing: give medium_C|F (a temperature, or points [[t_s, T], "
@@ -143,13 +143,13 @@ TEST_CASE("bad file: a stage ending on a temperature without its cap") {
 }
 
 TEST_CASE("bad file: unknown unit suffix") {
-  CHECK_THROWS_WITH_AS(parse(with("diameter_mm = 42", "diameter_in = 1.65")),
-                       "t.toml: product.diameter_in = 1.65: unknown unit suffix '_in'; accepted: diameter_m or "
-                       "diameter_mm",
+  CHECK_THROWS_WITH_AS(parse(with("diameter_mm = 42", "diameter_yd = 0.046")),
+                       "t.toml: product.diameter_yd = 0.046: unknown unit suffix '_yd'; accepted: diameter_m, "
+                       "diameter_mm, diameter_cm, diameter_in or diameter_ft",
                        InputError);
   CHECK_THROWS_WITH_AS(parse(with("diameter_mm = 42", "diameter_MM = 42")),
                        "t.toml: product.diameter_MM = 42: unknown unit suffix '_MM'; did you mean 'diameter_mm'? "
-                       "accepted: diameter_m or diameter_mm",
+                       "accepted: diameter_m, diameter_mm, diameter_cm, diameter_in or diameter_ft",
                        InputError);
   CHECK_THROWS_WITH_AS(parse(with("initial_C = 4", "initial_K = 277")),
                        "t.toml: product.initial_K = 277: unknown unit suffix '_K'; accepted: initial_C or initial_F",
@@ -222,7 +222,8 @@ TEST_CASE("bad file: unknown keys get did-you-mean") {
   CHECK_THROWS_WITH_AS(parse(with("diameter_mm = 42", "diamter_mm = 42")),
                        "t.toml: product.diamter_mm = 42: unknown key; did you mean 'diameter_mm'?", InputError);
   CHECK_THROWS_WITH_AS(parse(with("h_W_m2K = 180", "h_W_m2k = 180")),
-                       "t.toml: stage[1].h_W_m2k = 180: unknown key; did you mean 'h_W_m2K'?", InputError);
+                       "t.toml: stage[1].h_W_m2k = 180: unknown unit suffix '_W_m2k'; did you mean 'h_W_m2K'? "
+                       "accepted: h_W_m2K or h_Btu_hft2F", InputError);
   CHECK_THROWS_WITH_AS(parse(with("[[stage]]\nname = \"steam cook\"", "[[stages]]\nname = \"steam cook\"")),
                        "t.toml: stages = [{ duration_min = 22, h_W_m2K = 180, medium_C = 92, name = \"steam cook\" }]: "
                        "unknown key; did you mean 'stage'?", InputError);
@@ -250,16 +251,16 @@ TEST_CASE("bad file: dimensions that do not fit the shape") {
                        "t.toml: product.size_mm = 100: must be 3 numbers [a, b, c] (full edge lengths in mm), each > 0",
                        InputError);
   CHECK_THROWS_WITH_AS(parse(with("shape = \"sphere\"", "shape = \"finite-cylinder\"")),
-                       "t.toml: product.length_*: missing: shape = \"finite-cylinder\" needs a length (length_m or "
-                       "length_mm, > 0)",
+                       "t.toml: product.length_*: missing: shape = \"finite-cylinder\" needs a length (length_m, "
+                       "length_mm, length_cm, length_in or length_ft, > 0)",
                        InputError);
   CHECK_THROWS_WITH_AS(parse(with("shape = \"sphere\"", "shape = \"cylinder\"\nlength_mm = 120")),
                        "t.toml: product.length_mm = 120: not used by shape = \"cylinder\" (an infinite cylinder has no "
                        "length; use shape = \"finite-cylinder\")",
                        InputError);
   CHECK_THROWS_WITH_AS(parse(with("shape = \"sphere\"", "shape = \"slab\"")),
-                       "t.toml: product.thickness_*: missing: shape = \"slab\" needs a full thickness (thickness_m or "
-                       "thickness_mm, > 0)",
+                       "t.toml: product.thickness_*: missing: shape = \"slab\" needs a full thickness (thickness_m, "
+                       "thickness_mm, thickness_cm, thickness_in or thickness_ft, > 0)",
                        InputError);
 }
 

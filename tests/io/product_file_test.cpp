@@ -7,6 +7,7 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/io/product_file.hpp"
+#include "coldcore/io/can_size.hpp"
 #include "coldcore/io/sha256.hpp"
 
 using namespace coldcore;
@@ -284,4 +285,93 @@ TEST_CASE("load_product reads the file and its logs from disk") {
                                                              ": cannot read file: No such file or directory").c_str(),
                        InputError);
   std::filesystem::remove_all(dir);
+}
+
+// issue 16: a product written in US customary units reads as the same product in SI. The
+// invented 42 mm meatball above, converted by hand with the exact definitions (1 in = 25.4 mm;
+// NIST SP 811 Appendix B factors): 42 mm = 1.6535433 in; k 0.48 W/(m K) = 0.48 / 1.7307347
+// Btu/(h ft F); rho 1060 kg/m3 = 1060 / 16.018463 lb/ft3; cp 3450 J/(kg K) = 3450 / 4186.8
+// Btu/(lb F); h 180 W/(m2 K) = 180 / 5.6782633 Btu/(h ft2 F); 92 C = 197.6 F.
+TEST_CASE("issue 16: US customary units give the same product as SI") {
+  const std::string us = R"toml(
+schema = 1
+[product]
+name = "Meatballs in US units (invented)"
+shape = "sphere"
+diameter_in = 1.6535433070866142
+initial_F = 39.2
+[product.properties]
+conductivity_Btu_hftF = 0.27733887
+density_lb_ft3 = 66.173638
+specific_heat_Btu_lbF = 0.82401834
+[[stage]]
+name = "steam cook"
+medium_F = 197.6
+h_Btu_hft2F = 31.699833
+duration_min = 22
+)toml";
+  const auto pf = parse_product(us, "us.toml");
+  CHECK(pf.product.dims.diameter_m == doctest::Approx(0.042).epsilon(1e-12));
+  CHECK(pf.product.initial_C == doctest::Approx(4.0).epsilon(1e-12));
+  CHECK(pf.product.properties.conductivity_W_mK == doctest::Approx(0.48).epsilon(1e-6));
+  CHECK(pf.product.properties.density_kg_m3 == doctest::Approx(1060).epsilon(1e-6));
+  CHECK(pf.product.properties.specific_heat_J_kgK == doctest::Approx(3450).epsilon(1e-6));
+  CHECK(pf.stages.at(0).h_W_m2K == doctest::Approx(180).epsilon(1e-5));
+  // A plausibility range is said in the unit as written.
+  std::string too_high = us;
+  too_high.replace(too_high.find("0.27733887"), 10, "100");
+  CHECK_THROWS_WITH_AS(parse_product(too_high, "us.toml"),
+                       doctest::Contains("product.properties.conductivity_Btu_hftF = 100: must be from"),
+                       coldcore::InputError);
+  CHECK_THROWS_WITH_AS(parse_product(too_high, "us.toml"), doctest::Contains("Btu/(h ft F)"), coldcore::InputError);
+}
+
+// issue 16: the can trade's "D x H" size, inches and sixteenths (common practice of can makers,
+// from memory): 211 x 400 is 2 11/16 in by 4 in = 68.2625 mm by 101.6 mm (1 in = 25.4 mm).
+TEST_CASE("issue 16: can size notation gives the overall diameter and height") {
+  const auto size = coldcore::io::parse_can_size("211 x 400");
+  REQUIRE(size);
+  CHECK(size->diameter_m == doctest::Approx(0.0682625).epsilon(1e-12));
+  CHECK(size->height_m == doctest::Approx(0.1016).epsilon(1e-12));
+  const auto big2 = coldcore::io::parse_can_size("603 \u00D7 700");  // the multiplication sign
+  REQUIRE(big2);
+  CHECK(big2->diameter_m == doctest::Approx((6 + 3 / 16.0) * 0.0254).epsilon(1e-12));
+  CHECK(coldcore::io::parse_can_size("307X409").has_value());
+  std::string why;
+  CHECK_FALSE(coldcore::io::parse_can_size("216 x 400", &why));
+  CHECK(why == "the last two digits are sixteenths of an inch and must be 00 to 15");
+  CHECK_FALSE(coldcore::io::parse_can_size("2.6875 in", &why));
+
+  const std::string can = R"(
+schema = 1
+[product]
+name = "Invented corned beef can"
+shape = "finite-cylinder"
+can_size = "307 x 409"
+initial_C = 20
+[product.properties]
+conductivity_W_mK = 0.45
+density_kg_m3 = 1050
+specific_heat_J_kgK = 3400
+[[stage]]
+name = "retort"
+medium_C = 121.1
+h_W_m2K = "inf"
+duration_min = 90
+)";
+  const auto pf = parse_product(can, "can.toml");
+  CHECK(pf.product.dims.diameter_m == doctest::Approx((3 + 7 / 16.0) * 0.0254).epsilon(1e-12));
+  CHECK(pf.product.dims.length_m == doctest::Approx((4 + 9 / 16.0) * 0.0254).epsilon(1e-12));
+  std::string both = can;
+  both.replace(both.find("can_size"), 0, "diameter_mm = 87\n");
+  CHECK_THROWS_WITH_AS(parse_product(both, "can.toml"),
+                       "can.toml: product.diameter_mm = 87: given together with can_size; give one", coldcore::InputError);
+  std::string bad = can;
+  bad.replace(bad.find("307 x 409"), 9, "307 x 420");
+  CHECK_THROWS_WITH_AS(parse_product(bad, "can.toml"),
+                       "can.toml: product.can_size = \"307 x 420\": the last two digits are sixteenths of an inch and must be 00 to 15",
+                       coldcore::InputError);
+  std::string sphere = can;
+  sphere.replace(sphere.find("\"finite-cylinder\""), 17, "\"sphere\"\ndiameter_mm = 40");
+  CHECK_THROWS_WITH_AS(parse_product(sphere, "can.toml"), doctest::Contains("product.can_size"), coldcore::InputError);
 }

@@ -27,8 +27,11 @@ TEST_CASE("temperature differences (z-values) convert without the offset") {
 TEST_CASE("length and time suffixes") {
   CHECK(*to_si(Quantity::length, 42, "mm") == doctest::Approx(0.042).epsilon(1e-15));
   CHECK(*to_si(Quantity::length, 0.5, "m") == 0.5);
-  CHECK_FALSE(to_si(Quantity::length, 1, "in"));
-  CHECK_FALSE(to_si(Quantity::length, 1, "cm"));
+  // The international inch and foot (1959): 25.4 mm and 0.3048 m exactly (NIST SP 811, B.8).
+  CHECK(*to_si(Quantity::length, 1, "in") == doctest::Approx(0.0254).epsilon(1e-15));
+  CHECK(*to_si(Quantity::length, 2, "ft") == doctest::Approx(0.6096).epsilon(1e-15));
+  CHECK(*to_si(Quantity::length, 4.2, "cm") == doctest::Approx(0.042).epsilon(1e-15));
+  CHECK_FALSE(to_si(Quantity::length, 1, "yd"));
   CHECK(*to_si(Quantity::time, 22, "min") == 1320.0);
   CHECK(*to_si(Quantity::time, 8, "h") == 28800.0);
   CHECK(*to_si(Quantity::time, 90, "s") == 90.0);
@@ -53,4 +56,22 @@ TEST_CASE("did you mean: the nearest close candidate, or nothing") {
   CHECK(did_you_mean("inital_C", keys) == "initial_C");
   CHECK_FALSE(did_you_mean("colour", keys));
   CHECK_FALSE(did_you_mean("x", {}));
+}
+
+// NIST Special Publication 811 (2008 edition), Appendix B.8/B.9 conversion factors, as printed
+// there to seven significant figures (4186.8 exactly): the code derives them from the exact
+// definitions of the foot, pound, International Table Btu and Fahrenheit degree.
+TEST_CASE("issue 16: US customary property units convert by the NIST SP 811 factors") {
+  CHECK(*to_si(Quantity::conductivity, 1, "Btu_hftF") == doctest::Approx(1.730735).epsilon(5e-7));
+  CHECK(*to_si(Quantity::heat_transfer_coefficient, 1, "Btu_hft2F") == doctest::Approx(5.678263).epsilon(5e-7));
+  CHECK(*to_si(Quantity::specific_heat, 1, "Btu_lbF") == doctest::Approx(4186.8).epsilon(1e-15));
+  CHECK(*to_si(Quantity::density, 1, "lb_ft3") == doctest::Approx(16.01846).epsilon(5e-7));
+  // SI spellings are taken as they are.
+  CHECK(*to_si(Quantity::conductivity, 0.48, "W_mK") == 0.48);
+  CHECK(*to_si(Quantity::density, 1060, "kg_m3") == 1060);
+  CHECK(*to_si(Quantity::specific_heat, 3450, "J_kgK") == 3450);
+  CHECK(*to_si(Quantity::heat_transfer_coefficient, 22, "W_m2K") == 22);
+  CHECK_FALSE(to_si(Quantity::conductivity, 1, "W_mC"));
+  CHECK(coldcore::io::unit_text("Btu_hft2F") == "Btu/(h ft2 F)");
+  CHECK(coldcore::io::unit_text("mm") == "mm");
 }
