@@ -143,7 +143,7 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_flag("--conservative", args->conservative,
                 "also evaluate the deviation at the documented worst case of the file's ranges and name the choice that drove it");
   add_library_option(*sub, args->library);
-  sub->add_option("--date", args->date, "record date, YYYY-MM-DD (default: today, UTC)");
+  sub->add_option("--date", args->date, "record date, YYYY-MM-DD (default: today in local time)");
   add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);
   sub->callback([&ctx, args] {
     ctx.run = [args] {

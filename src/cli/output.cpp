@@ -76,17 +76,17 @@ Format output_format(const OutputArgs& a) {
   return f;
 }
 
-std::string today_utc() {
+std::string today_local() {
   std::time_t now = std::time(nullptr);
   std::tm tm{};
-  gmtime_r(&now, &tm);
+  localtime_r(&now, &tm);
   char buf[16];
   std::strftime(buf, sizeof buf, "%Y-%m-%d", &tm);
   return buf;
 }
 
 std::string report_date(const std::string& given) {
-  if (given.empty()) return today_utc();
+  if (given.empty()) return today_local();
   int y = 0, m = 0, d = 0;
   char tail = 0;
   const bool shaped = given.size() == 10 && given[4] == '-' && given[7] == '-' &&

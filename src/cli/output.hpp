@@ -40,11 +40,12 @@ Format output_format(const OutputArgs& a);
 /// stated in `unit`; NaN and inf fail. Message: `--opt: nan: must be from 0 to 1 s`.
 CLI::Validator within(double low, double high, const std::string& unit, bool low_open = false);
 
-/// Today's date in UTC, YYYY-MM-DD, for report provenance.
-std::string today_utc();
+/// Today's date in local time (TZ), YYYY-MM-DD, for report provenance: the date the person
+/// signing the record sees on the wall (UTC is a day off in the evening west of Greenwich).
+std::string today_local();
 
 /// The report date: `given` when it is a calendar date YYYY-MM-DD (years 1900-9999), today in
-/// UTC when it is empty; anything else is an InputError
+/// local time when it is empty; anything else is an InputError
 /// `--date = 2026-13-45: must be a calendar date YYYY-MM-DD, e.g. 2026-12-01`.
 std::string report_date(const std::string& given);
 

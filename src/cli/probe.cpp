@@ -167,7 +167,7 @@ void add_probe_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--lot", a->lot, "lot or batch identifier for the report");
   sub->add_option("--timezone", a->timezone,
                   "fixed UTC offset of timestamps written without one, e.g. +01:00 (needed when they jump by a clock change)");
-  sub->add_option("--date", a->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
+  sub->add_option("--date", a->date, "report date for provenance, YYYY-MM-DD (default: today in local time)");
   add_output_options(*sub, a->output, {Format::text, Format::md, Format::html, Format::json, Format::csv});
   add_library_option(*sub, a->library);
   sub->callback([&ctx, a] {

@@ -96,7 +96,7 @@ void add_run_verb(CLI::App& app, VerbContext& ctx) {
   auto* sub = app.add_subcommand("run", "forward simulation of the scheduled process, with assessment");
   sub->add_option("FILE", args->file, "product file (TOML, schema 1)")->required();
   add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);
-  sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
+  sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today in local time)");
   add_library_option(*sub, args->library);
   sub->callback([&ctx, args] {
     ctx.run = [args] {

@@ -122,7 +122,7 @@ void add_solve_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_flag("--conservative", args->conservative,
                 "also solve the documented worst case of the file's ranges and name the choice that drove it");
   add_library_option(*sub, args->library);
-  sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today, UTC)");
+  sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today in local time)");
   add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);
   sub->callback([&ctx, args] {
     ctx.run = [args] {

@@ -92,4 +92,16 @@ run_ok(rules_library_missing 2 rules --library nowhere)
 must_have(rules_library_missing "${err}" "--library = nowhere: has no organisms.toml")
 run_ok(help_search_order 0 --help)
 must_have(help_search_order "${out}" "$COLDCORE_DATA_DIR")
+
+# The default report date is the local date (POSIX TZ strings, no tz database needed): 14 h east
+# and 12 h west of Greenwich are always on different calendar days.
+foreach(tz XST-14 YST12)
+  execute_process(COMMAND ${CMAKE_COMMAND} -E env TZ=${tz} ${EXE} run kofta-balls.toml -f json WORKING_DIRECTORY ${w}
+                  OUTPUT_VARIABLE o RESULT_VARIABLE rc)
+  string(REGEX MATCH "\"date\": \"([0-9-]+)\"" m "${o}")
+  set(date_${tz} "${CMAKE_MATCH_1}")
+endforeach()
+if(date_XST-14 STREQUAL "" OR date_XST-14 STREQUAL date_YST12)
+  message(FATAL_ERROR "local_date: east ${date_XST-14}, west ${date_YST12}: must be two different dates")
+endif()
 file(REMOVE_RECURSE ${w})
