@@ -2,6 +2,7 @@
 // every verb's report uses one CSS, one escaping and one cautions box.
 #include "rich_page.hpp"
 
+#include <cctype>
 #include <ostream>
 
 #include "coldcore/report/svg_plot.hpp"
@@ -152,18 +153,41 @@ void html_figures(std::ostream& o, const std::vector<RunFigure>& figures) {
   o << "</section>\n";
 }
 
+// Backslashes only where CommonMark would otherwise read markup, so that the Markdown still
+// reads as plain text ("z_C", "->", ">= 72 C" stay as written).
 std::string md_escape(std::string_view s) {
+  const auto is_alnum = [](char c) { return std::isalnum(static_cast<unsigned char>(c)) != 0; };
+  const auto is_space = [](char c) { return c == ' ' || c == '\t' || c == '\n' || c == '\r'; };
   std::string r;
-  r.reserve(s.size());
-  for (char c : s) {
+  r.reserve(s.size() + 8);
+  std::size_t first = 0;  // the first character that is not a space: where block markup starts
+  while (first < s.size() && s[first] == ' ') ++first;
+  for (std::size_t i = 0; i < s.size(); ++i) {
+    const char c = s[i];
+    const char prev = i > 0 ? s[i - 1] : ' ', next = i + 1 < s.size() ? s[i + 1] : ' ';
+    bool escape = false;
     switch (c) {
-      case '\\': case '`': case '*': case '_': case '[': case ']': case '<': case '>': case '|': case '#':
-        r += '\\';
-        r += c;
+      case '\\': case '`': case '|': escape = true; break;  // escapes, code spans, table cells
+      case '*': escape = !(is_space(prev) && is_space(next)); break;  // could open or close emphasis
+      case '_': escape = !(is_alnum(prev) && is_alnum(next)); break;  // intraword _ is never emphasis
+      case '<': escape = is_alnum(next) || next == '/' || next == '!' || next == '?'; break;  // a tag or autolink
+      case '[': escape = s.find(']', i) != std::string_view::npos; break;  // could be a link
+      case '#': case '>': escape = i == first; break;  // a heading or block quote at the start
+      case '-': case '+': escape = i == first && i + 1 < s.size() && is_space(next); break;  // a list item
+      case '.': case ')': {  // "1. " at the start: an ordered list
+        std::size_t d = first;
+        while (d < i && std::isdigit(static_cast<unsigned char>(s[d]))) ++d;
+        escape = d == i && i > first && is_space(next);
         break;
-      case '\n': case '\r': r += ' '; break;  // a cell stays on its row
-      default: r += c;
+      }
+      default: break;
     }
+    if (c == '\n' || c == '\r') {
+      r += ' ';  // a cell stays on its row
+      continue;
+    }
+    if (escape) r += '\\';
+    r += c;
   }
   return r;
 }

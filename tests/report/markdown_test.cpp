@@ -3,6 +3,7 @@
 
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/markdown.hpp"
+#include "report/rich_page.hpp"
 #include "report_checks.hpp"
 #include "support/sample_report.hpp"
 #include "support/xml_check.hpp"
@@ -42,7 +43,7 @@ TEST_CASE("markdown has the same sections as html, and escapes table cells") {
                         "2026-01-01T00:00:00Z"})
     CHECK_MESSAGE(md.find(s) != std::string::npos, std::string(s));
   CHECK(md.find("| pipe \\| and \\*stars\\* |") != std::string::npos);
-  CHECK(md.find("\\<meatballs\\>") != std::string::npos);
+  CHECK(md.find("\\<meatballs>") != std::string::npos);
 }
 
 TEST_CASE("markdown: same input, same bytes; --units F in text and plots") {
@@ -57,4 +58,25 @@ TEST_CASE("markdown: same input, same bytes; --units F in text and plots") {
   CHECK(a.svg_files[0].second.find("temperature (°F)") != std::string::npos);
   CHECK(a.svg_files[2].second.find("134.6 → 69.8 °F") != std::string::npos);
   CHECK(a.svg_files[1].second.find("F-value (min)") != std::string::npos);
+}
+
+// issue 16: Markdown that reads as plain text. Backslashes only where CommonMark (spec 0.30,
+// commonmark.org) would read markup: emphasis needs a flanking * or _ (an intraword _ never
+// is), a block quote, heading or list marker only starts a line, < only opens a tag or autolink
+// before a letter, / ! or ?.
+TEST_CASE("issue 16: md_escape leaves plain text plain and escapes what would be markup") {
+  using coldcore::detail::md_escape;
+  CHECK(md_escape("z_C = 7.5, F_70") == "z_C = 7.5, F_70");
+  CHECK(md_escape("cook -> hold, centre >= 72 C, < 0.1") == "cook -> hold, centre >= 72 C, < 0.1");
+  CHECK(md_escape("2 * 3") == "2 * 3");
+  CHECK(md_escape("-") == "-");
+  CHECK(md_escape("*stars* and _under_") == "\\*stars\\* and \\_under\\_");
+  CHECK(md_escape("# not a heading") == "\\# not a heading");
+  CHECK(md_escape("> not a quote") == "\\> not a quote");
+  CHECK(md_escape("- not a list") == "\\- not a list");
+  CHECK(md_escape("12. not a list") == "12\\. not a list");
+  CHECK(md_escape("<b>bold</b>") == "\\<b>bold\\</b>");
+  CHECK(md_escape("a | b") == "a \\| b");
+  CHECK(md_escape("[link](x)") == "\\[link](x)");
+  CHECK(md_escape("two\nlines") == "two lines");
 }
