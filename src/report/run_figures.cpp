@@ -202,7 +202,7 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
       f.caption = "Medium, surface, mass-average and centre temperature of the product against time; dashed "
                   "vertical lines mark where each stage starts.";
     if (column_index(r.history, "lumped_centre_C"))
-      f.caption += " The short-dash purple curve is the lumped-capacitance shortcut for the centre, drawn to show "
+      f.caption += " The short-dash curve labelled 'centre by the lumped shortcut' is the lumped-capacitance shortcut for the centre, drawn to show "
                    "how far it is from the exact centre.";
     if (!f.plot.series.empty()) out.push_back(std::move(f));
   }

@@ -4,6 +4,7 @@
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/markdown.hpp"
 #include "report/rich_page.hpp"
+#include "lethality/lethality_support.hpp"
 #include "report_checks.hpp"
 #include "support/sample_report.hpp"
 #include "support/xml_check.hpp"
@@ -79,4 +80,16 @@ TEST_CASE("issue 16: md_escape leaves plain text plain and escapes what would be
   CHECK(md_escape("a | b") == "a \\| b");
   CHECK(md_escape("[link](x)") == "\\[link](x)");
   CHECK(md_escape("two\nlines") == "two lines");
+}
+
+// issue 16: a caption names curves by their line style and legend label, never by a colour
+// (meaningless on a black-and-white print; common practice for printed figures).
+TEST_CASE("issue 16: plot captions name no colour") {
+  for (const char* report : {"reports/kofta-balls.md", "reports/corned-beef-can.md", "reports/chicken-sausage-log.md",
+                             "reports/kofta-probe.md", "reports/corned-beef-can-deviation.md", "reports/kofta-balls-solve.md"}) {
+    const std::string md = coldcore::test::read_source_file(report);
+    CAPTURE(report);
+    for (const char* colour : {" purple", " orange", " blue", " green", " vermillion", " yellow", " grey", " black curve", " red "})
+      CHECK(md.find(colour) == std::string::npos);
+  }
 }
