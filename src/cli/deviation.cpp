@@ -28,6 +28,7 @@ struct DeviationArgs {
   double max_gap_s = 60;
   double round_min = 1;
   bool conservative = false;
+  unsigned threads = 0;  ///< --conservative: worker threads, 0 = every core
   OutputArgs output;
 };
 
@@ -82,7 +83,8 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side, Ve
   const process::DeviationResult r = process::evaluate_deviation(in, {&libs.organisms, &libs.rules, &libs.cooking}, o);
   std::optional<process::ConservativeDeviation> cons;
   if (a.conservative) {
-    cons = process::evaluate_deviation_conservative(in, io::ranges_of(file), {&libs.organisms, &libs.rules, &libs.cooking}, o);
+    cons = process::evaluate_deviation_conservative(in, io::ranges_of(file), {&libs.organisms, &libs.rules, &libs.cooking}, o,
+                                                    a.threads);
     info.conservative = &*cons;
   }
   summary = verdict_summary(r, info.conservative);
@@ -142,6 +144,10 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--round-min", args->round_min, "additional time rounded UP to this, min")->capture_default_str()->check(within(0, 1440, "min", true));
   sub->add_flag("--conservative", args->conservative,
                 "also evaluate the deviation at the documented worst case of the file's ranges and name the choice that drove it");
+  sub->add_option("--threads", args->threads,
+                  "--conservative: evaluate its cases on this many threads (default 0: every core; the "
+                  "result is the same for any count)")
+      ->check(CLI::Range(0u, 256u));
   add_library_option(*sub, args->library);
   sub->add_option("--date", args->date, "record date, YYYY-MM-DD (default: today in local time)");
   add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);

@@ -32,6 +32,7 @@ struct SolveArgs {
   std::optional<double> end_C;
   bool mean = false;
   bool conservative = false;
+  unsigned threads = 0;  ///< --conservative: worker threads, 0 = every core
   OutputArgs output;
 };
 
@@ -65,7 +66,8 @@ int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side, VerdictSum
   const process::SolveResult r = process::solve(q, s, {&libs.organisms, &libs.rules, &libs.cooking}, o);
   std::optional<process::ConservativeSolve> cons;
   if (a.conservative) {
-    cons = process::solve_conservative(q, s, io::ranges_of(file), {&libs.organisms, &libs.rules, &libs.cooking}, o);
+    cons = process::solve_conservative(q, s, io::ranges_of(file), {&libs.organisms, &libs.rules, &libs.cooking}, o,
+                                       a.threads);
   }
   SolveReportContext c;
   c.product_name = file.product.name;
@@ -121,6 +123,10 @@ void add_solve_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_flag("--mean", args->mean, "chill-time: the mass average instead of the centre");
   sub->add_flag("--conservative", args->conservative,
                 "also solve the documented worst case of the file's ranges and name the choice that drove it");
+  sub->add_option("--threads", args->threads,
+                  "--conservative: evaluate its cases on this many threads (default 0: every core; the "
+                  "result is the same for any count)")
+      ->check(CLI::Range(0u, 256u));
   add_library_option(*sub, args->library);
   sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today in local time)");
   add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);

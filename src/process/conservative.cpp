@@ -1,4 +1,5 @@
 #include "coldcore/process/conservative.hpp"
+
 #include "coldcore/report/temperature_text.hpp"
 
 #include <cmath>
@@ -7,6 +8,7 @@
 #include "coldcore/error.hpp"
 
 #include "process/detail/inverse_text.hpp"
+#include "process/detail/parallel.hpp"
 
 namespace coldcore::process {
 
@@ -93,7 +95,7 @@ std::vector<RangeChoice> worst_case_choices(Question q, const Scenario& s, const
 }
 
 ConservativeSolve solve_conservative(Question q, const Scenario& s, const Ranges& r, const Libraries& libs,
-                                     const SolveOptions& o) {
+                                     const SolveOptions& o, unsigned threads) {
   const auto choices = worst_case_choices(q, s, r);
   if (choices.empty())
     throw InputError(s.origin + ": --conservative: the file gives no range that applies to " + to_string(q) +
@@ -105,29 +107,40 @@ ConservativeSolve solve_conservative(Question q, const Scenario& s, const Ranges
     out.choices.push_back(c.label);
     c.apply(all);
   }
-  try {
-    out.result = solve(q, all, libs, o);
-  } catch (const NoSolution& e) {
-    out.no_solution = e.what();
-  }
+  // Slot 0: every choice together; slot k: choice k alone. The solves are independent, so they
+  // run on the machine's cores; what is read from them below goes in the serial order.
+  std::vector<std::optional<SolveResult>> answers(choices.size() + 1);
+  std::vector<std::string> no_solution(choices.size() + 1);
+  detail::for_each_index(
+      choices.size() + 1,
+      [&](std::size_t k) {
+        Scenario x = k == 0 ? all : s;
+        if (k > 0) choices[k - 1].apply(x);
+        try {
+          answers[k] = solve(q, x, libs, o);
+        } catch (const NoSolution& e) {
+          no_solution[k] = e.what();
+        }
+      },
+      threads);
+  out.result = answers[0];
+  out.no_solution = no_solution[0];
   // Least favourable: longest time / highest medium (answers rounded up), smallest size.
   const bool smaller_worse = q == Question::max_size;
   double worst = smaller_worse ? 1e300 : -1e300;
-  for (const auto& c : choices) {
+  for (std::size_t k = 1; k <= choices.size(); ++k) {
     ChoiceAnswer a;
-    a.label = c.label;
-    Scenario one = s;
-    c.apply(one);
-    try {
-      a.rounded = solve(q, one, libs, o).rounded;
+    a.label = choices[k - 1].label;
+    if (answers[k]) {
+      a.rounded = answers[k]->rounded;
       const bool w = smaller_worse ? *a.rounded < worst : *a.rounded > worst;
       if (w && out.driven_by.find("no solution") == std::string::npos) {
         worst = *a.rounded;
-        out.driven_by = c.label;
+        out.driven_by = a.label;
       }
-    } catch (const NoSolution& e) {
-      a.no_solution = e.what();
-      out.driven_by = c.label + " (no solution with it alone)";
+    } else {
+      a.no_solution = no_solution[k];
+      out.driven_by = a.label + " (no solution with it alone)";
     }
     out.alone.push_back(std::move(a));
   }

@@ -2,8 +2,10 @@
 
 #include <algorithm>
 #include <limits>
+#include <optional>
 
 #include "coldcore/error.hpp"
+#include "process/detail/parallel.hpp"
 
 namespace coldcore::process {
 
@@ -43,7 +45,7 @@ std::vector<RangeChoice> deviation_worst_case_choices(const DeviationInput& in, 
 }
 
 ConservativeDeviation evaluate_deviation_conservative(const DeviationInput& in, const Ranges& r, const Libraries& libs,
-                                                      const DeviationOptions& o) {
+                                                      const DeviationOptions& o, unsigned threads) {
   if (!in.medium_log)
     throw InputError("deviation --conservative: needs --medium-log; a measured probe log does not depend on the "
                      "file's ranges");
@@ -61,16 +63,25 @@ ConservativeDeviation evaluate_deviation_conservative(const DeviationInput& in, 
     out.choices.push_back(c.label);
     c.apply(all.scheduled);
   }
-  out.result = evaluate_deviation(all, libs, o);
+  // Slot 0: every choice together; slot k: choice k alone. Independent evaluations, run on the
+  // machine's cores; read below in the serial order.
+  std::vector<std::optional<DeviationResult>> results(choices.size() + 1);
+  detail::for_each_index(
+      choices.size() + 1,
+      [&](std::size_t k) {
+        DeviationInput x = k == 0 ? all : base;
+        if (k > 0) choices[k - 1].apply(x.scheduled);
+        results[k] = evaluate_deviation(x, libs, o);
+      },
+      threads);
+  out.result = std::move(*results[0]);
   out.result.assumptions.push_back("worst case of the file's ranges: every choice applied together to the scheduled "
                                    "process, and the same medium log replayed on it");
   double worst_hold = -1, worst_margin = std::numeric_limits<double>::infinity();
-  for (const auto& c : choices) {
-    DeviationInput one = base;
-    c.apply(one.scheduled);
-    const DeviationResult d = evaluate_deviation(one, libs, o);
+  for (std::size_t k = 1; k <= choices.size(); ++k) {
+    const DeviationResult& d = *results[k];
     DeviationChoiceResult a;
-    a.label = c.label;
+    a.label = choices[k - 1].label;
     a.all_met_delivered = d.all_met_delivered;
     a.least_margin = least_margin(d);
     a.extra_hold_s = d.extra_hold_s;
@@ -79,7 +90,7 @@ ConservativeDeviation evaluate_deviation_conservative(const DeviationInput& in, 
     if (need > worst_hold || (need == worst_hold && a.least_margin < worst_margin)) {
       worst_hold = need;
       worst_margin = a.least_margin;
-      out.driven_by = c.label;
+      out.driven_by = a.label;
     }
     out.alone.push_back(std::move(a));
   }

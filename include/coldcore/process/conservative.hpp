@@ -55,8 +55,9 @@ struct ConservativeSolve {
 };
 
 /// Solves q with every worst-case choice applied, and with each alone. Throws InputError when no
-/// range applies to the question.
+/// range applies to the question. The solves run on up to `threads` threads (0: the machine's
+/// cores); the result is the same for every thread count.
 ConservativeSolve solve_conservative(Question q, const Scenario& s, const Ranges& r, const Libraries& libs,
-                                     const SolveOptions& o = {});
+                                     const SolveOptions& o = {}, unsigned threads = 0);
 
 }  // namespace coldcore::process

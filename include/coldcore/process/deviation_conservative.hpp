@@ -49,8 +49,9 @@ std::vector<RangeChoice> deviation_worst_case_choices(const DeviationInput& in, 
 
 /// Evaluates the deviation under the worst case and each choice alone.
 /// Throws InputError when there is no medium log (a probe log alone does not depend on ranges) or
-/// when the file gives no range that applies; otherwise as evaluate_deviation().
+/// when the file gives no range that applies; otherwise as evaluate_deviation(). The evaluations
+/// run on up to `threads` threads (0: the machine's cores); the result does not depend on it.
 ConservativeDeviation evaluate_deviation_conservative(const DeviationInput& in, const Ranges& r, const Libraries& libs,
-                                                      const DeviationOptions& o = {});
+                                                      const DeviationOptions& o = {}, unsigned threads = 0);
 
 }  // namespace coldcore::process
