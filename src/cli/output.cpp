@@ -1,5 +1,7 @@
 #include "cli/output.hpp"
 
+#include "cli/progress.hpp"
+
 #include <cctype>
 #include <cmath>
 #include <cstdio>
@@ -199,7 +201,10 @@ int with_output(const OutputArgs& a, const std::function<int(std::ostream&, Side
 int with_report_output(const OutputArgs& a, std::string_view verb,
                        const std::function<int(std::ostream&, SideFiles&, VerdictSummary&)>& body) {
   VerdictSummary summary;
-  const int code = with_output(a, [&](std::ostream& out, SideFiles& side) { return body(out, side, summary); });
+  const int code = with_output(a, [&](std::ostream& out, SideFiles& side) {
+    const ProgressLine progress{std::string(verb)};  // erased before the report is written
+    return body(out, side, summary);
+  });
   // Said only after the file was written (with_output throws before that on any failure).
   if (!to_stdout(a))
     std::cerr << render_temperatures(summary_stderr_line(verb, summary, a.out), parse_temp_unit(a.units)) << "\n";

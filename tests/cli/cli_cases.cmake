@@ -398,6 +398,15 @@ add_test(NAME cli.threads_same_bytes
                  -P ${PROJECT_SOURCE_DIR}/tests/cli/threads.cmake)
 cli_expect(solve_threads_range 2 ARGS solve products/kofta-balls.toml --for hold-time --conservative --threads 1000
            STDERR_HAS "--threads")
+# issue 13: a progress line on stderr, only when it is a terminal (script(1) gives it one).
+find_program(COLDCORE_SCRIPT_TOOL script)
+if(COLDCORE_SCRIPT_TOOL)
+  add_test(NAME cli.progress_line
+           COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
+                   -DSCRIPT=${COLDCORE_SCRIPT_TOOL} -P ${PROJECT_SOURCE_DIR}/tests/cli/progress.cmake)
+else()
+  message(STATUS "script(1) not found: cli.progress_line not added")
+endif()
 # issue 18: an impossible --date is refused with the accepted form (2026 is not a leap year).
 cli_expect(run_bad_date 2 ARGS run products/kofta-balls.toml --date 2026-13-45
            STDERR_HAS "--date = 2026-13-45: must be a calendar date YYYY-MM-DD, e.g. 2026-12-01")
