@@ -25,7 +25,6 @@ constexpr double kBtu_J = 1055.05585262;
 constexpr double kFahrenheitDegree_K = 5.0 / 9.0;
 constexpr double kHour_s = 3600.0;
 
-char lower(char c) { return static_cast<char>(std::tolower(static_cast<unsigned char>(c))); }
 }  // namespace
 
 std::span<const std::string_view> unit_suffixes(Quantity q) {
@@ -120,43 +119,6 @@ std::string_view si_unit(Quantity q) {
     case Quantity::heat_transfer_coefficient: return "W/(m2 K)";
   }
   return "";
-}
-
-std::size_t edit_distance(std::string_view a, std::string_view b) {
-  const std::size_t n = a.size(), m = b.size();
-  // Full table: names are short, and the swap rule needs two rows back.
-  std::vector<std::vector<std::size_t>> d(n + 1, std::vector<std::size_t>(m + 1));
-  for (std::size_t i = 0; i <= n; ++i) d[i][0] = i;
-  for (std::size_t j = 0; j <= m; ++j) d[0][j] = j;
-  for (std::size_t i = 1; i <= n; ++i) {
-    for (std::size_t j = 1; j <= m; ++j) {
-      const std::size_t cost = lower(a[i - 1]) == lower(b[j - 1]) ? 0 : 1;
-      d[i][j] = std::min({d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + cost});
-      if (i > 1 && j > 1 && lower(a[i - 1]) == lower(b[j - 2]) && lower(a[i - 2]) == lower(b[j - 1]))
-        d[i][j] = std::min(d[i][j], d[i - 2][j - 2] + 1);
-    }
-  }
-  return d[n][m];
-}
-
-std::optional<std::string> did_you_mean(std::string_view word,
-                                        const std::vector<std::string>& candidates) {
-  // Names are short: a very long word is no typo of one (and its table would cost memory).
-  if (word.size() > 100) return std::nullopt;
-  const std::size_t limit = std::max<std::size_t>(2, word.size() / 3);
-  std::optional<std::string> best;
-  std::size_t best_d = limit + 1;
-  for (const auto& c : candidates) {
-    // The distance is at least the difference in length.
-    const std::size_t gap = word.size() > c.size() ? word.size() - c.size() : c.size() - word.size();
-    if (gap >= best_d) continue;
-    const std::size_t d = edit_distance(word, c);
-    if (d < best_d) {
-      best_d = d;
-      best = c;
-    }
-  }
-  return best;
 }
 
 }  // namespace coldcore::io

@@ -10,47 +10,12 @@
 
 namespace coldcore::detail {
 
-std::size_t edit_distance(std::string_view a, std::string_view b) {
-  std::vector<std::size_t> row(b.size() + 1);
-  for (std::size_t j = 0; j <= b.size(); ++j) row[j] = j;
-  for (std::size_t i = 1; i <= a.size(); ++i) {
-    std::size_t diag = row[0];
-    row[0] = i;
-    for (std::size_t j = 1; j <= b.size(); ++j) {
-      const std::size_t up = row[j];
-      row[j] = std::min({row[j] + 1, row[j - 1] + 1, diag + (a[i - 1] == b[j - 1] ? 0 : 1)});
-      diag = up;
-    }
-  }
-  return row[b.size()];
-}
-
 std::string nearest(std::string_view word, std::initializer_list<std::string_view> choices) {
-  std::string best;
-  std::size_t best_d = static_cast<std::size_t>(-1);
-  for (auto c : choices) {
-    const std::size_t d = edit_distance(word, c);
-    if (d < best_d) {
-      best_d = d;
-      best = std::string(c);
-    }
-  }
-  if (best_d <= std::max<std::size_t>(2, word.size() / 3)) return best;
-  return "";
+  return did_you_mean(word, choices).value_or("");
 }
 
 std::string nearest(std::string_view word, const std::vector<std::string>& choices) {
-  std::string best;
-  std::size_t best_d = static_cast<std::size_t>(-1);
-  for (const auto& c : choices) {
-    const std::size_t d = edit_distance(word, c);
-    if (d < best_d) {
-      best_d = d;
-      best = c;
-    }
-  }
-  if (best_d <= std::max<std::size_t>(2, word.size() / 3)) return best;
-  return "";
+  return did_you_mean(word, choices).value_or("");
 }
 
 toml::table parse_toml(std::string_view text, std::string_view origin) {

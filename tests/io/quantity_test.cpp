@@ -2,6 +2,10 @@
 #include <doctest/doctest.h>
 
 #include "coldcore/io/quantity.hpp"
+#include "coldcore/suggest.hpp"
+
+#include <string>
+#include <vector>
 
 using coldcore::io::Quantity;
 using coldcore::io::to_si;
@@ -74,4 +78,15 @@ TEST_CASE("issue 16: US customary property units convert by the NIST SP 811 fact
   CHECK_FALSE(to_si(Quantity::conductivity, 1, "W_mC"));
   CHECK(coldcore::io::unit_text("Btu_hft2F") == "Btu/(h ft2 F)");
   CHECK(coldcore::io::unit_text("mm") == "mm");
+}
+
+// issue 12 item 7: one suggestion rule everywhere (coldcore/suggest.hpp): the data-library
+// readers used a case-sensitive Levenshtein distance without swaps before.
+TEST_CASE("issue 12: one did-you-mean rule, case-insensitive with transpositions") {
+  const std::vector<std::string> organisms{"listeria-monocytogenes", "salmonella-meat-poultry"};
+  CHECK(coldcore::did_you_mean("lsiteria-monocytogenes", organisms) == "listeria-monocytogenes");
+  CHECK(coldcore::did_you_mean("LISTERIA-MONOCYTOGENES", organisms) == "listeria-monocytogenes");
+  CHECK_FALSE(coldcore::did_you_mean("clostridium", organisms));
+  CHECK(coldcore::did_you_mean("rnu", {"run", "modes", "probe"}) == "run");
+  CHECK(coldcore::edit_distance("ab", "ba") == 1);
 }

@@ -18,6 +18,8 @@
 #include <string_view>
 #include <vector>
 
+#include "coldcore/suggest.hpp"
+
 namespace coldcore::io {
 
 enum class Quantity {
@@ -51,13 +53,8 @@ std::string_view quantity_name(Quantity q);
 /// differences), "m", "s", "W/(m K)", "kg/m3", "J/(kg K)", "W/(m2 K)".
 std::string_view si_unit(Quantity q);
 
-/// Optimal-string-alignment edit distance (insert, delete, substitute, swap two neighbours:
-/// each costs 1), compared case-insensitively in ASCII.
-std::size_t edit_distance(std::string_view a, std::string_view b);
-
-/// The candidate nearest to `word` when it is close enough to be a likely typo
-/// (distance <= max(2, word.size() / 3)); nullopt otherwise. Ties: the first listed wins.
-std::optional<std::string> did_you_mean(std::string_view word,
-                                        const std::vector<std::string>& candidates);
+// The one "did you mean" rule (coldcore/suggest.hpp), also spelt io:: for the readers here.
+using ::coldcore::did_you_mean;
+using ::coldcore::edit_distance;
 
 }  // namespace coldcore::io

@@ -8,15 +8,13 @@
 #include <toml++/toml.h>
 
 #include "coldcore/lethality/organisms.hpp"
+#include "coldcore/suggest.hpp"
 
 #include "coldcore/model/limits.hpp"
 
 namespace coldcore::detail {
 
-/// Edit distance (Levenshtein) for spelling hints.
-std::size_t edit_distance(std::string_view a, std::string_view b);
-
-/// The nearest of `choices` to `word` when close enough (distance <= max(2, |word|/3)), else "".
+/// The nearest of `choices` to `word` by coldcore::did_you_mean (coldcore/suggest.hpp), else "".
 std::string nearest(std::string_view word, std::initializer_list<std::string_view> choices);
 std::string nearest(std::string_view word, const std::vector<std::string>& choices);
 
