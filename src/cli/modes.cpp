@@ -2,14 +2,12 @@
 #include <cmath>
 #include <iostream>
 #include <limits>
-#include <sstream>
 
 #include "cli/output.hpp"
 #include "cli/verbs.hpp"
 #include "coldcore/conduction/modes.hpp"
 #include "coldcore/error.hpp"
-#include "coldcore/report/cautions.hpp"
-#include "coldcore/report/json.hpp"
+#include "coldcore/report/reference_tables.hpp"
 
 namespace coldcore::cli {
 
@@ -44,17 +42,6 @@ double parse_biot(const std::string& s) {
   return b;
 }
 
-std::string biot_text(double biot) { return std::isinf(biot) ? "inf" : JsonWriter::number(biot); }
-
-/// Fourier number beyond which the second term at the centre is below 1 % of the first,
-/// so the one-term form is good to about 1 % there.
-double one_term_fourier(const std::vector<Mode>& m) {
-  if (m.size() < 2) return std::numeric_limits<double>::quiet_NaN();
-  const double ratio = std::abs(m[1].coefficient / m[0].coefficient);
-  const double fo = std::log(100.0 * ratio) / (m[1].zeta * m[1].zeta - m[0].zeta * m[0].zeta);
-  return std::max(fo, 0.0);
-}
-
 int run_modes(const ModesArgs& a, std::ostream& out) {
   const Geometry g = parse_geometry(a.shape);
   const double biot = parse_biot(a.biot);
@@ -63,50 +50,8 @@ int run_modes(const ModesArgs& a, std::ostream& out) {
   const Format f = output_format(a.output);
   // Two modes at least, for the one-term note.
   const std::vector<Mode> all = modes(g, biot, std::max(a.count, 2));
-  const std::vector<Mode> shown(all.begin(), all.begin() + a.count);
-  const double fo1 = one_term_fourier(all);
-  std::ostringstream note;
-  note << "At the centre the second term is below 1 % of the first once Fo > "
-       << fixed(fo1, 3) << "; the handbook rule is that one term serves for Fo > 0.2 (within about 2 %).";
-
-  if (f == Format::json) {
-    JsonWriter w(out);
-    w.begin_object();
-    w.key("shape").value(to_string(g));
-    if (std::isinf(biot)) w.key("biot").value("inf"); else w.key("biot").value(biot);
-    w.key("modes").begin_array();
-    for (const auto& m : shown) {
-      w.begin_object();
-      w.key("n").value(m.n).key("zeta").value(m.zeta).key("coefficient").value(m.coefficient);
-      w.key("mean_coefficient").value(m.mean_coefficient);
-      w.end_object();
-    }
-    w.end_array();
-    w.key("one_term_fourier").value(fo1);
-    w.key("note").value(note.str());
-    w.key("cautions").value(cautions());
-    w.end_object();
-  } else if (f == Format::csv) {
-    for (const auto& c : cautions()) out << "# caution: " << c << "\n";
-    out << "# " << note.str() << "\n";
-    out << "n,zeta,coefficient,mean_coefficient\n";
-    for (const auto& m : shown)
-      out << m.n << "," << JsonWriter::number(m.zeta) << "," << JsonWriter::number(m.coefficient) << ","
-          << JsonWriter::number(m.mean_coefficient) << "\n";
-  } else {
-    out << "Eigenvalues of the " << to_string(g) << " at Bi = " << biot_text(biot) << "\n";
-    out << "theta(x, Fo) = sum of Cn Xn(x) exp(-zeta_n^2 Fo); mean theta uses Mn in place of Cn Xn.\n\n";
-    char buf[160];
-    std::snprintf(buf, sizeof buf, "  %5s  %22s  %22s  %22s\n", "n", "zeta_n", "C_n", "M_n (mean)");
-    out << buf;
-    for (const auto& m : shown) {
-      std::snprintf(buf, sizeof buf, "  %5d  %22.15g  %22.15g  %22.15g\n", m.n, m.zeta, m.coefficient,
-                    m.mean_coefficient);
-      out << buf;
-    }
-    out << "\n" << note.str() << "\n\nCAUTIONS\n";
-    for (const auto& c : cautions()) out << "  * " << c << "\n";
-  }
+  ModesTable table{g, biot, std::vector<Mode>(all.begin(), all.begin() + a.count), one_term_fourier(all)};
+  write_modes_table(table, f, out);
   return kAllMet;
 }
 

@@ -5,7 +5,9 @@
 #include <boost/math/special_functions/sinc.hpp>
 #include <boost/math/tools/roots.hpp>
 #include <boost/math/tools/toms748_solve.hpp>
+#include <algorithm>
 #include <cmath>
+#include <limits>
 #include <cstdint>
 #include <sstream>
 #include <string>
@@ -331,6 +333,13 @@ std::vector<Mode> modes(Geometry g, double biot, int count) {
     out.push_back({n, z, p.coefficient, p.mean, p.norm});
   }
   return out;
+}
+
+double one_term_fourier(const std::vector<Mode>& m) {
+  if (m.size() < 2) return std::numeric_limits<double>::quiet_NaN();
+  const double ratio = std::abs(m[1].coefficient / m[0].coefficient);
+  const double fo = std::log(100.0 * ratio) / (m[1].zeta * m[1].zeta - m[0].zeta * m[0].zeta);
+  return std::max(fo, 0.0);
 }
 
 }  // namespace coldcore

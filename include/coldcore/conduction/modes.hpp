@@ -94,6 +94,11 @@ struct Mode {
 /// The first `count` modes. REQUIRES: count >= 0, biot in the domain above.
 std::vector<Mode> modes(Geometry g, double biot, int count);
 
+/// The Fourier number beyond which the second term at the centre is below 1 % of the first, so
+/// the one-term form is good to about 1 % there (0 when it always is). NaN with fewer than two
+/// modes.
+double one_term_fourier(const std::vector<Mode>& m);
+
 /// The exponent m of the weight x^m: 0 slab, 1 cylinder, 2 sphere. Also the lumped-capacitance
 /// factor is m + 1 (mean θ → exp(−(m+1)·Bi·Fo) as Bi → 0).
 int geometry_exponent(Geometry g);
