@@ -77,7 +77,7 @@ MediumProfile parse_medium_value(const Fields& f, const Found& m) {
 }
 
 MediumProfile parse_medium_log(const Fields& f, const std::filesystem::path& base_dir, const LogReader& read_log,
-                               ProductFile& out, double& log_length_s) {
+                               ProductFile& out, double& log_length_s, std::vector<std::array<double, 2>>& gaps_s) {
   const auto rel = f.string("medium_log");
   if (rel->empty()) f.fail("medium_log", "must name a CSV file, relative to this file");
   if (!read_log) f.fail("medium_log", "cannot read logs here (no file reader given)");
@@ -99,6 +99,9 @@ MediumProfile parse_medium_log(const Fields& f, const std::filesystem::path& bas
   TimeSeries log = parse_log_csv(*text, path.generic_string(), opts);
   for (auto& w : log.warnings) out.warnings.push_back(std::move(w));
   log_length_s = log.time_s.back();
+  // On the medium profile's clock (the stage's, medium_profile below).
+  for (std::size_t i = 1; i < log.time_s.size(); ++i)
+    if (log.time_s[i] - log.time_s[i - 1] > opts.max_gap_s) gaps_s.push_back({log.time_s[i - 1], log.time_s[i]});
   return medium_profile(log, path.generic_string(), *text);
 }
 
@@ -236,7 +239,7 @@ void parse_stages(const Fields& root, const std::filesystem::path& base_dir, con
       s.medium = parse_medium_value(f, *medium);
     } else {
       double len = 0;
-      s.medium = parse_medium_log(f, base_dir, read_log, out, len);
+      s.medium = parse_medium_log(f, base_dir, read_log, out, len, s.medium_gaps_s);
       log_length_s = len;
     }
     StageH sh;

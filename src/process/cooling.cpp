@@ -166,9 +166,23 @@ CoolingCheck check_curve(const detail::Curve& c, const CoolingRule& rule, const 
       }
     }
     if (start) {
-      r.start_s = start;
       r.end_s = c.first_at_or_below(st.to_C, *start);
       r.reached = r.end_s.has_value();
+      // issue 11: an unrecorded interval counts against the rule.
+      for (const auto& [a, b] : ctx.unrecorded_s) {
+        if (*start > a && *start < b) {
+          r.notes.push_back("the clock would start inside a gap in the record (" + minutes(a - c.start()) + " to " +
+                            minutes(b - c.start()) + "): it is taken to start at the gap's start");
+          start = a;
+        }
+        if (r.end_s && *r.end_s > a && *r.end_s < b) {
+          r.notes.push_back(temp_token(st.to_C, 10) + " is reached inside a gap in the record (" +
+                            minutes(a - c.start()) + " to " + minutes(b - c.start()) +
+                            "): it is taken as reached at the gap's end, the first reading after it");
+          r.end_s = b;
+        }
+      }
+      r.start_s = start;
       r.elapsed_s = (r.reached ? *r.end_s : c.end()) - *start;
       r.margin_s = st.within_s - r.elapsed_s;
       if (!r.reached)

@@ -35,6 +35,7 @@ Scenario extended(const Scenario& base, std::size_t k, const MediumProfile& medi
   Scenario c = base;
   Stage& st = c.stages[k];
   st.medium = medium;
+  st.medium_gaps_s.clear();  // the deviation log replaces the scheduled medium; its gaps are split out below
   if (st.end.kind != StageEndKind::duration) return c;
   st.end.duration_s = stage_s;
   if (x > 0) {

@@ -44,6 +44,18 @@ std::string target_names(const Scenario& s, const std::vector<int>& idx) {
   return out.empty() ? "no target" : out;
 }
 
+// Stage::medium_gaps_s on the history's clock, cut to each stage as it ran (issue 11: what was
+// not recorded is not credited).
+std::vector<std::array<double, 2>> unrecorded_on(const History& h, const std::vector<Stage>& stages) {
+  std::vector<std::array<double, 2>> out;
+  for (std::size_t i = 0; i < h.stages.size() && i < stages.size(); ++i)
+    for (const auto& [a, b] : stages[i].medium_gaps_s) {
+      const double from = h.stages[i].start_s + a, to = std::min(h.stages[i].start_s + b, h.stages[i].end_s);
+      if (to > from) out.push_back({from, to});
+    }
+  return out;
+}
+
 void push_unique(std::vector<std::string>& v, const std::string& x) {
   if (std::find(v.begin(), v.end(), x) == v.end()) v.push_back(x);
 }
@@ -68,6 +80,7 @@ Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<
       const Scenario one = apply_h_choices(s, groups[0].choices);
       e.history = simulate(one.product, one.stages, hopts);
     }
+    ao.unrecorded_s = unrecorded_on(e.history, s.stages);
     e.assessment = assess(e.history, s.targets, *libs.organisms, *libs.rules, ao);
   } else {
     // Each target from the scenario conservative for it; every scenario assesses every target so
@@ -77,6 +90,7 @@ Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<
     for (std::size_t gi = 0; gi < groups.size(); ++gi) {
       const Scenario one = apply_h_choices(s, groups[gi].choices);
       HScenarioRun run{groups[gi].targets, groups[gi].choices, simulate(one.product, one.stages, hopts)};
+      ao.unrecorded_s = unrecorded_on(run.history, s.stages);
       Assessment a = assess(run.history, s.targets, *libs.organisms, *libs.rules, ao);
       for (int t : groups[gi].targets) {
         const auto ti = static_cast<std::size_t>(t);

@@ -377,6 +377,7 @@ SolveResult min_medium(const Scenario& s, const Libraries& libs, const SolveOpti
     Scenario c = s;
     c.stages[k].medium.points = {{0.0, x}};
     c.stages[k].medium.description = "constant (solved)";
+    c.stages[k].medium_gaps_s.clear();
     return c;
   };
   st.considered = all_targets(s);

@@ -269,6 +269,69 @@ double f_between(const History& h, const std::function<double(double)>& T, doubl
   return lr.F_s;
 }
 
+using Gaps = std::vector<std::array<double, 2>>;
+
+// Intervals between readings further apart than max_gap_s (issue 11: nothing recorded there).
+Gaps gaps_of_log(std::span<const double> times_s, double max_gap_s) {
+  Gaps g;
+  if (!std::isfinite(max_gap_s)) return g;
+  for (std::size_t i = 1; i < times_s.size(); ++i)
+    if (times_s[i] - times_s[i - 1] > max_gap_s) g.push_back({times_s[i - 1], times_s[i]});
+  return g;
+}
+
+// [a, b] without the gaps, in order.
+std::vector<std::pair<double, double>> recorded_pieces(double a, double b, const Gaps& gaps) {
+  std::vector<std::pair<double, double>> out{{a, b}};
+  for (const auto& [ga, gb] : gaps) {
+    std::vector<std::pair<double, double>> next;
+    for (const auto& [x, y] : out) {
+      if (gb <= x || ga >= y) {
+        next.emplace_back(x, y);
+        continue;
+      }
+      if (ga > x) next.emplace_back(x, ga);
+      if (gb < y) next.emplace_back(gb, y);
+    }
+    out = std::move(next);
+  }
+  return out;
+}
+
+// F over [a, b] less the unrecorded intervals.
+double f_recorded(const History& h, const std::function<double(double)>& T, double a, double b, const Kinetics& k,
+                  double rel_tol, const Gaps& gaps, double* error_estimate_s = nullptr) {
+  double F = 0;
+  for (const auto& [x, y] : recorded_pieces(a, b, gaps)) F += f_between(h, T, x, y, k, rel_tol, error_estimate_s);
+  return F;
+}
+
+// T where something was recorded; inside a gap, absolute zero: no time at temperature is
+// credited there (cooking tables, minimum temperatures).
+std::function<double(double)> recorded_only(const std::function<double(double)>& T, const Gaps& gaps) {
+  if (gaps.empty()) return T;
+  return [T, gaps](double t) {
+    for (const auto& [a, b] : gaps)
+      if (t > a && t < b) return -273.15;
+    return T(t);
+  };
+}
+
+void add_gap_knots(std::vector<double>& knots, const Gaps& gaps) {
+  if (gaps.empty() || knots.empty()) return;
+  for (const auto& [a, b] : gaps)
+    for (double x : {a, b})
+      if (x > knots.front() && x < knots.back()) knots.push_back(x);
+  std::sort(knots.begin(), knots.end());
+  knots.erase(std::unique(knots.begin(), knots.end()), knots.end());
+}
+
+void gap_notes(TargetResult& r, const Gaps& gaps, double t0, const char* what) {
+  for (const auto& [a, b] : gaps)
+    r.notes.push_back(std::string(what) + " the gap in the log from " + minutes_down(a - t0) + " to " +
+                      minutes_down(b - t0) + ": the temperature meanwhile was not recorded");
+}
+
 std::vector<int> credited(const Target& t, const History& h, const std::string& place) {
   std::vector<int> idx;
   if (t.stages.empty()) {
@@ -548,15 +611,23 @@ const CookingTable& cooking_table_for(const Target& t, const std::string& place,
   return opts.cooking_tables->at(t.table, place);
 }
 
-void min_temperature_result(TargetResult& r, const Target& t, const detail::Curve& c, const CrossingError& err) {
+void min_temperature_result(TargetResult& r, const Target& t, const detail::Curve& c, const CrossingError& err,
+                            const Gaps& gaps = {}) {
   const auto runs = c.intervals_at_or_above(t.min_temp_C, c.start());
   double longest = 0, longest_err = 0;
-  for (const auto& [a, b] : runs)
-    if (b - a > longest) {
-      longest = b - a;
-      // The ends of the record are no crossings; the crossings carry their error.
-      longest_err = (a > c.start() ? err(a, t.min_temp_C) : 0.0) + (b < c.end() ? err(b, t.min_temp_C) : 0.0);
-    }
+  const auto is_gap_end = [&gaps](double x) {
+    for (const auto& [a, b] : gaps)
+      if (x == a || x == b) return true;
+    return false;
+  };
+  for (const auto& run : runs)
+    for (const auto& [a, b] : recorded_pieces(run.first, run.second, gaps))  // a hold is not credited across a gap
+      if (b - a > longest) {
+        longest = b - a;
+        // The ends of the record and of a gap are no crossings; the crossings carry their error.
+        longest_err = (a > c.start() && !is_gap_end(a) ? err(a, t.min_temp_C) : 0.0) +
+                      (b < c.end() && !is_gap_end(b) ? err(b, t.min_temp_C) : 0.0);
+      }
   if (!runs.empty()) r.reached_s = runs.front().first;
   r.required = t.hold_s;
   r.achieved = longest;
@@ -661,7 +732,8 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
             StageLethality sl;
             sl.stage = h.stages[s].name;
             double stage_err_s = 0;
-            sl.F_s = f_between(h, centre, h.stages[s].start_s, h.stages[s].end_s, res.k, opts.rel_tol, &stage_err_s);
+            sl.F_s = f_recorded(h, centre, h.stages[s].start_s, h.stages[s].end_s, res.k, opts.rel_tol, opts.unrecorded_s,
+                                &stage_err_s);
             sl.credited = std::find(r.credited_stages.begin(), r.credited_stages.end(),
                                     static_cast<int>(s)) != r.credited_stages.end();
             if (sl.credited) F_err_s += stage_err_s;
@@ -671,6 +743,8 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
           }
           r.F_outside_range_s = outside_range(h, centre, res.k, r.credited_stages, opts.rel_tol);
         }
+        r.unrecorded_s = opts.unrecorded_s;
+        gap_notes(r, opts.unrecorded_s, t0, "no lethality credited across");
         // The quadrature stops when its error estimate is within rel_tol·F (integrate.hpp), so
         // rel_tol·F bounds it; taken as the bound (not the estimate itself, which jumps as the
         // adaptive mesh changes) so that the margin stays smooth in a solve's parameter.
@@ -689,6 +763,7 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         std::vector<std::string> ctx_notes;
         CoolingContext ctx = infer_context(h, rule, opts, T_at, ctx_notes);
         ctx.where = t.at == "mean" ? "mass-average temperature" : "cold spot";
+        ctx.unrecorded_s = opts.unrecorded_s;
         std::vector<double> bp = knots(h, t0, t1);
         const CoolingCheck c = check_cooling(T_at, bp, rule, ctx, probes_for(bp));
         cooling_result(r, c, rule, crossing_error(T_at, tol_K, t0, t1));
@@ -698,11 +773,15 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
       case TargetKind::cooking_table: {
         const CookingTable& table = cooking_table_for(t, place, opts);
         detail::Curve c;
-        c.temp_C_at = T_at;
+        c.temp_C_at = recorded_only(T_at, opts.unrecorded_s);
         c.knots = knots(h, t0, t1);
+        add_gap_knots(c.knots, opts.unrecorded_s);
         c.probes = probes_for(c.knots);
-        const CookingCheck check = check_cooking_table(h, table, t.at == "mean");
+        const CookingCheck check = opts.unrecorded_s.empty()
+                                       ? check_cooking_table(h, table, t.at == "mean")
+                                       : check_cooking_table(c.temp_C_at, c.knots, table, c.probes);
         cooking_result(r, check, cooking_uncertainty(c, table, check, tol_K));
+        gap_notes(r, opts.unrecorded_s, t0, "no time at temperature credited across");
         break;
       }
       case TargetKind::centre_min_temperature: {
@@ -710,7 +789,8 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         c.temp_C_at = T_at;
         c.knots = knots(h, t0, t1);
         c.probes = probes_for(c.knots);
-        min_temperature_result(r, t, c, crossing_error(T_at, tol_K, t0, t1));
+        min_temperature_result(r, t, c, crossing_error(T_at, tol_K, t0, t1), opts.unrecorded_s);
+        gap_notes(r, opts.unrecorded_s, t0, "no hold time credited across");
         break;
       }
     }
@@ -731,8 +811,9 @@ std::vector<double> cumulative_f_s(const History& h, const TargetResult& r,
     spans.emplace_back(t0, std::numeric_limits<double>::infinity());
   } else {
     for (int i : r.credited_stages)
-      spans.emplace_back(h.stages[static_cast<std::size_t>(i)].start_s,
-                         h.stages[static_cast<std::size_t>(i)].end_s);
+      for (const auto& piece : recorded_pieces(h.stages[static_cast<std::size_t>(i)].start_s,
+                                               h.stages[static_cast<std::size_t>(i)].end_s, r.unrecorded_s))
+        spans.push_back(piece);
   }
   double acc = 0, prev = t0;
   for (double t : times_s) {
@@ -832,18 +913,30 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
         CoolingContext ctx;
         ctx.cook_end_s = opts.cook_end_s;
         ctx.chill_start_s = opts.chill_start_s;
+        ctx.unrecorded_s = gaps_of_log(times_s, opts.max_gap_s);
         const CoolingCheck c = check_cooling(times_s, temps_C, rule, ctx, origin);
         cooling_result(r, c, rule, crossing_error(curve.temp_C_at, 0.0, curve.start(), curve.end()));
         break;
       }
       case TargetKind::cooking_table: {
         const CookingTable& table = cooking_table_for(t, place, opts);
-        const CookingCheck check = check_cooking_table(times_s, temps_C, table, origin);
-        cooking_result(r, check, cooking_uncertainty(curve, table, check, 0.0));
+        const Gaps gaps = gaps_of_log(times_s, opts.max_gap_s);
+        if (gaps.empty()) {
+          const CookingCheck check = check_cooking_table(times_s, temps_C, table, origin);
+          cooking_result(r, check, cooking_uncertainty(curve, table, check, 0.0));
+        } else {  // no time at temperature credited across a gap
+          detail::Curve c = curve;
+          c.temp_C_at = recorded_only(curve.temp_C_at, gaps);
+          add_gap_knots(c.knots, gaps);
+          const CookingCheck check = check_cooking_table(c.temp_C_at, c.knots, table, c.probes);
+          cooking_result(r, check, cooking_uncertainty(c, table, check, 0.0));
+          gap_notes(r, gaps, times_s.front(), "no time at temperature credited across");
+        }
         break;
       }
       case TargetKind::centre_min_temperature:
-        min_temperature_result(r, t, curve, crossing_error(curve.temp_C_at, 0.0, curve.start(), curve.end()));
+        min_temperature_result(r, t, curve, crossing_error(curve.temp_C_at, 0.0, curve.start(), curve.end()),
+                               gaps_of_log(times_s, opts.max_gap_s));
         break;
     }
     out.targets.push_back(std::move(r));

@@ -3,6 +3,7 @@
 #include "deviation_figures.hpp"
 
 #include <algorithm>
+#include <optional>
 
 namespace coldcore::detail {
 
@@ -39,12 +40,10 @@ void add_curve(svg::LinePlot& p, const RunReport& r, const TimeScale& ts, const 
   p.series.push_back(std::move(s));
 }
 
-}  // namespace
-
-std::vector<RunFigure> deviation_figures(const process::DeviationResult& r, const DeviationRecordInfo& i, TempUnit u) {
+// The figures of one scheduled and one delivered run (either may be absent).
+std::vector<RunFigure> figures_of(const process::DeviationResult& r, const DeviationRecordInfo& i, TempUnit u,
+                                  const RunReport* sched, const RunReport* deliv) {
   std::vector<RunFigure> out;
-  const RunReport* sched = i.scheduled_plot;
-  const RunReport* deliv = i.delivered_plot;
   const bool probe = !i.probe_time_s.empty() && i.probe_time_s.size() == i.probe_temp_C.size();
   if (!sched && !deliv && !probe) return out;
   double end_s = 0;
@@ -128,6 +127,28 @@ std::vector<RunFigure> deviation_figures(const process::DeviationResult& r, cons
     f.caption = "Lethality accumulated at the centre, as minutes at each target's reference temperature: scheduled "
                 "(dashed) and delivered (solid); the dotted line is the required value.";
     if (!f.plot.series.empty()) out.push_back(std::move(f));
+  }
+  return out;
+}
+
+}  // namespace
+
+// With h split per target (issue 11), one set of figures per scenario: the scheduled and the
+// delivered run of that scenario, so that every verdict's history is shown.
+std::vector<RunFigure> deviation_figures(const process::DeviationResult& r, const DeviationRecordInfo& i, TempUnit u) {
+  const RunReport* sched = i.scheduled_plot;
+  const RunReport* deliv = i.delivered_plot;
+  const std::size_t n = std::max(sched ? sched->scenarios.size() : 0, deliv ? deliv->scenarios.size() : 0);
+  if (n == 0) return figures_of(r, i, u, sched, deliv);
+  std::vector<RunFigure> out;
+  for (std::size_t k = 0; k < n; ++k) {
+    std::optional<RunReport> s, d;
+    if (sched && k < sched->scenarios.size()) s = scenario_as_report(sched->scenarios[k]);
+    if (deliv && k < deliv->scenarios.size()) d = scenario_as_report(deliv->scenarios[k]);
+    const ScenarioView& v = sched && k < sched->scenarios.size() ? sched->scenarios[k] : deliv->scenarios[k];
+    auto figures = figures_of(r, i, u, s ? &*s : nullptr, d ? &*d : nullptr);
+    tag_scenario_figures(figures, v);
+    for (auto& f : figures) out.push_back(std::move(f));
   }
   return out;
 }

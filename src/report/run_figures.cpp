@@ -412,24 +412,33 @@ TextTable verdict_table(const RunReport& r) {
   return t;
 }
 
+RunReport scenario_as_report(const ScenarioView& v) {
+  RunReport one;
+  one.stages = v.stages;
+  one.history = v.history;
+  one.target_lines = v.target_lines;
+  one.rule_boxes = v.rule_boxes;
+  return one;
+}
+
+void tag_scenario_figures(std::vector<RunFigure>& figures, const ScenarioView& v) {
+  const std::string tag = "scenario" + std::to_string(v.number);
+  for (auto& f : figures) {
+    f.key = tag + "-" + f.key;
+    f.plot.id = "plot-" + f.key;
+    f.plot.title += " (scenario " + std::to_string(v.number) + ")";
+    std::string label = v.label;
+    if (!label.empty()) label[0] = 'S';  // "scenario 2: ..." opens the caption
+    f.caption = label + ". " + f.caption;
+  }
+}
+
 std::vector<RunFigure> scenario_figures(const RunReport& r, TempUnit u) {
   std::vector<RunFigure> out;
   for (const auto& v : r.scenarios) {
-    RunReport one;  // the scenario as a report of its own, for the plot builders
-    one.stages = v.stages;
-    one.history = v.history;
-    one.target_lines = v.target_lines;
-    one.rule_boxes = v.rule_boxes;
-    const std::string tag = "scenario" + std::to_string(v.number);
-    for (auto& f : run_figures(one, u)) {
-      f.key = tag + "-" + f.key;
-      f.plot.id = "plot-" + f.key;
-      f.plot.title += " (scenario " + std::to_string(v.number) + ")";
-      std::string label = v.label;
-      if (!label.empty()) label[0] = 'S';  // "scenario 2: ..." opens the caption
-      f.caption = label + ". " + f.caption;
-      out.push_back(std::move(f));
-    }
+    auto figures = run_figures(scenario_as_report(v), u);
+    tag_scenario_figures(figures, v);
+    for (auto& f : figures) out.push_back(std::move(f));
   }
   return out;
 }

@@ -41,6 +41,11 @@ TimeScale time_scale(const RunReport& r);
 /// The plots of every h scenario (RunReport::scenarios), each titled and keyed by its scenario
 /// ("scenario2-temperature"); empty when the targets were not split.
 std::vector<RunFigure> scenario_figures(const RunReport& r, TempUnit u);
+/// One h scenario as a report of its own (stages, history, required lines, rule boxes), for the
+/// plot builders.
+RunReport scenario_as_report(const ScenarioView& v);
+/// Keys, ids, titles and captions of a scenario's figures name the scenario.
+void tag_scenario_figures(std::vector<RunFigure>& figures, const ScenarioView& v);
 /// The figures a rich report shows: every scenario's when split, else run_figures(r).
 std::vector<RunFigure> report_figures(const RunReport& r, TempUnit u);
 /// "scenario 2: ...; targets: P70" per scenario.

@@ -212,10 +212,12 @@ void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
     out << "# verdict values: " << v.name << ": required " << JsonWriter::number(v.required_value) << ", achieved "
         << JsonWriter::number(v.achieved_value) << ", margin " << JsonWriter::number(v.margin_value)
         << ", margin_uncertainty " << JsonWriter::number(v.margin_uncertainty_value) << " " << v.value_unit << "\n";
-  // Which end of an h range each target was evaluated at (process/h_ends.hpp), when one was.
+  // Which end of an h range each target was evaluated at (process/h_ends.hpp), when one was, and
+  // every unrecorded interval a target's credit leaves out.
   for (const auto& v : r.verdicts)
     for (const auto& d : v.details)
-      if (d.rfind("h used: ", 0) == 0) out << "# verdict note: " << v.name << ": " << d << "\n";
+      if (d.rfind("h used: ", 0) == 0 || d.find("the gap in the log from") != std::string::npos)  // issue 11
+        out << "# verdict note: " << v.name << ": " << d << "\n";
   if (!r.scenarios.empty()) {
     write_scenario_rows(r, out, u);
     return;

@@ -407,6 +407,16 @@ if(COLDCORE_SCRIPT_TOOL)
 else()
   message(STATUS "script(1) not found: cli.progress_line not added")
 endif()
+# issue 11: a gap in a product's own medium log is named and credits no lethality (every format).
+foreach(fmt text json csv html)
+  cli_expect(run_medium_log_gap_${fmt} 0 ARGS run tests/cli/issue11-gaps/cook-gap.toml --format ${fmt} --date 2026-12-01
+             STDOUT_HAS "no lethality credited across the gap in the log from 10.0 min to 25.0 min")
+endforeach()
+# issue 11 defect 6: the deviation record plots every h scenario's scheduled and delivered runs.
+cli_expect(deviation_scenarios_plotted_html 0 ARGS deviation tests/cli/media-split/chill-credited.toml
+           --medium-log tests/cli/media-split/chill-credited-log.csv --stage cook --format html --date 2026-12-01
+           STDOUT_HAS "figure-scenario1-temperature" "figure-scenario1-lethality" "figure-scenario2-temperature"
+                      "Scheduled against delivered temperatures (scenario 2)")
 # issue 18: an impossible --date is refused with the accepted form (2026 is not a leap year).
 cli_expect(run_bad_date 2 ARGS run products/kofta-balls.toml --date 2026-13-45
            STDERR_HAS "--date = 2026-13-45: must be a calendar date YYYY-MM-DD, e.g. 2026-12-01")

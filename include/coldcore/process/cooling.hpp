@@ -20,6 +20,7 @@
 /// Rule-level condition chill_start_within_s (option 2: chilling begun within 90 min after the
 /// cook): needs CoolingContext::cook_end_s and chill_start_s; when either is missing the condition
 /// — and so the rule — is not demonstrated.
+#include <array>
 #include <functional>
 #include <optional>
 #include <span>
@@ -66,6 +67,10 @@ struct CoolingContext {
   std::optional<double> cook_end_s;     ///< end of the cook cycle
   std::optional<double> chill_start_s;  ///< when chilling began
   std::string where = "cold spot";      ///< label of the temperature checked (notes only)
+  /// Intervals in which nothing was recorded (gaps in a log). Counted against the rule: a step's
+  /// clock that starts inside one starts at its start, a step that completes inside one
+  /// completes at its end (the first reading after it).
+  std::vector<std::array<double, 2>> unrecorded_s;
 };
 
 struct CoolingStepResult {

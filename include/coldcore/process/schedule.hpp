@@ -2,6 +2,7 @@
 /// A product and the process it goes through: stages, each with a medium temperature profile,
 /// a surface heat-transfer coefficient and an end condition. All values SI (s, m, °C, W/m²K);
 /// unit conversion happens once, in io/.
+#include <array>
 #include <string>
 #include <vector>
 
@@ -58,6 +59,10 @@ struct StageEnd {
 struct Stage {
   std::string name;
   MediumProfile medium;
+  /// A logged medium (medium_log): the intervals, from the stage start, between readings further
+  /// apart than the log's allowed gap. Nothing was recorded there: no lethality is credited in
+  /// them and a cooling-rule step that completes in one counts only from its end (issue 11).
+  std::vector<std::array<double, 2>> medium_gaps_s;
   double h_W_m2K = 0;          ///< > 0; surface heat-transfer coefficient
   bool h_infinite = false;     ///< true: surface held at the medium temperature (Bi = ∞)
   StageEnd end;

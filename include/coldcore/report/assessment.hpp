@@ -15,6 +15,7 @@
 ///
 /// Lethality is evaluated at the cold spot (History centre). Cooling rules and minimum
 /// temperatures use Target::at ("centre" or "mean").
+#include <array>
 #include <limits>
 #include <optional>
 #include <span>
@@ -56,8 +57,12 @@ struct AssessOptions {
   /// their verdicts only steer the search; every reported re-run uses the engine default.)
   double temperature_tol_K = 1e-4;
   /// assess_probe_log: readings further apart than this are a gap; no lethality is credited across
-  /// it [+inf: none]. A cooling-rule crossing inside a gap is not yet moved to the gap's end.
+  /// it, and a cooling-rule step is not taken to start later than the gap's start nor to end
+  /// before the gap's end [+inf: none].
   double max_gap_s = std::numeric_limits<double>::infinity();
+  /// assess(History): intervals (absolute times) where the logged medium was not recorded
+  /// (Stage::medium_gaps_s placed on the history's clock by process::evaluate); treated as above.
+  std::vector<std::array<double, 2>> unrecorded_s;
 };
 
 /// Log reductions above this are not shown as a count (assessment.cpp says why): the text shows
@@ -102,6 +107,9 @@ struct TargetResult {
   double F_required_s = 0;       ///< F needed (log-linear: logs × D; Weibull: δ·logs^(1/p))
   std::vector<StageLethality> stages;
   std::vector<int> credited_stages;  ///< indices into History::stages
+  /// Lethality targets on a History: the unrecorded intervals (AssessOptions::unrecorded_s) left
+  /// out of the credited stages, for the cumulative F column.
+  std::vector<std::array<double, 2>> unrecorded_s;
   double F_outside_range_s = 0;  ///< credited F accrued outside [valid_min_C, valid_max_C]
   // Cooling-rule targets:
   std::optional<CoolingCheck> cooling;

@@ -1,0 +1,121 @@
+// Issue 11, defect 8 (the rest): what a logger did not record is not credited.
+//  - A product's own logged medium (medium_log) with a gap: run credits no lethality inside it.
+//  - A cooling-rule step that completes inside a gap of a measured log completes at the gap's
+//    end; one whose clock would start inside a gap starts at the gap's start.
+// Expected values: the cooling log is the line T = 70 - 0.5 t (t in min; invented), so the
+// crossings are exact arithmetic: 57 C at 26 min, 21 C at 98 min, 5 C at 130 min (FDA Food Code
+// 3-501.14 steps of products/cooling-rules.toml: 57 -> 21 C within 2 h, 57 -> 5 C within 6 h).
+#include <doctest/doctest.h>
+
+#include <cmath>
+#include <vector>
+
+#include "coldcore/io/product_file.hpp"
+#include "coldcore/io/scenario.hpp"
+#include "coldcore/lethality/integrate.hpp"
+#include "coldcore/process/inverse.hpp"
+#include "coldcore/report/assessment.hpp"
+#include "lethality/lethality_support.hpp"
+
+using namespace coldcore;
+
+namespace {
+
+const OrganismLibrary& orgs() {
+  static const OrganismLibrary lib =
+      parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
+  return lib;
+}
+const RuleLibrary& rules() {
+  static const RuleLibrary lib =
+      parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
+  return lib;
+}
+const CookingTables& cooking() {
+  static const CookingTables t =
+      parse_cooking_tables(test::read_source_file("products/cooking-tables.toml"), "cooking-tables.toml");
+  return t;
+}
+
+process::Evaluation run_file(const char* relative) {
+  const io::ProductFile f = io::load_product(std::string(COLDCORE_SOURCE_DIR) + "/" + relative);
+  return process::evaluate(io::scenario_of(f), {&orgs(), &rules(), &cooking()});
+}
+
+}  // namespace
+
+TEST_CASE("issue 11: a gap in a product's medium log credits no lethality in run") {
+  const process::Evaluation gap = run_file("tests/cli/issue11-gaps/cook-gap.toml");
+  const process::Evaluation whole = run_file("tests/cli/issue11-gaps/cook-nogap.toml");
+  // Same medium (the gap is interpolated for the temperatures), so the same history; only the
+  // credit differs, by the F of the centre over the unrecorded 10-25 min.
+  REQUIRE(gap.history.stages.size() == whole.history.stages.size());
+  CHECK(gap.history.stages[1].end_s == doctest::Approx(whole.history.stages[1].end_s).epsilon(1e-12));
+  const TargetResult& f_gap = gap.assessment.targets.at(0);
+  const TargetResult& f_whole = whole.assessment.targets.at(0);
+  Kinetics k = *f_whole.kinetics;
+  const double t0 = gap.history.stages[0].start_s;
+  const std::vector<double> bp{t0 + 600, t0 + 900, t0 + 1200, t0 + 1500};
+  const auto centre = [&](double t) { return gap.history.evaluate(t).centre_C; };
+  const double F_unrecorded_s = f_value(centre, bp, k, 1e-8).F_s;
+  CHECK(F_unrecorded_s > 60);  // the centre passes 70 C inside the gap: real lethality was dropped
+  CHECK(f_gap.F_s == doctest::Approx(f_whole.F_s - F_unrecorded_s).epsilon(3e-4));
+  CHECK(f_gap.F_s < f_whole.F_s);
+  bool named = false;
+  for (const auto& n : f_gap.notes)
+    named = named || n == "no lethality credited across the gap in the log from 10.0 min to 25.0 min: the "
+                         "temperature meanwhile was not recorded";
+  CHECK(named);
+  // The credited-F column stays flat across the gap.
+  const std::vector<double> at{t0 + 600, t0 + 1500};
+  const auto cum = cumulative_f_s(gap.history, f_gap, at, 1e-6);
+  CHECK(cum.at(1) == doctest::Approx(cum.at(0)).epsilon(1e-12));
+}
+
+TEST_CASE("issue 11: a cooling step completed inside a log gap counts only from the gap's end") {
+  std::vector<double> t_s, T_C;
+  for (int m = 0; m <= 140; ++m) {
+    if (m > 95 && m < 125) continue;  // nothing recorded from 95 to 125 min
+    t_s.push_back(60.0 * m);
+    T_C.push_back(70.0 - 0.5 * m);
+  }
+  Target rule;
+  rule.kind = TargetKind::cooling_rule;
+  rule.rule = "two-stage-6h";
+  AssessOptions o;
+  o.max_gap_s = 300;
+  const ProbeAssessment pa = assess_probe_log(t_s, T_C, {rule}, orgs(), rules(), o, "gap.csv");
+  const TargetResult& r = pa.targets.at(0);
+  REQUIRE(r.cooling);
+  const CoolingStepResult& s1 = r.cooling->steps.at(0);
+  CHECK(*s1.start_s == doctest::Approx(26 * 60.0).epsilon(1e-9));
+  CHECK(*s1.end_s == 125 * 60.0);  // 21 C at 98 min is inside the gap: taken at the reading after it
+  CHECK(s1.elapsed_s == doctest::Approx(99 * 60.0).epsilon(1e-9));
+  CHECK(r.margin == doctest::Approx(21 * 60.0).epsilon(1e-9));  // 120 - 99 min, the binding step
+  bool said = false;
+  for (const auto& n : r.notes) said = said || n.find("is reached inside a gap in the record") != std::string::npos;
+  CHECK(said);
+  // Without the gap limit the same log passes the step at 98 min (72 min after its start).
+  AssessOptions plain;
+  const ProbeAssessment pp = assess_probe_log(t_s, T_C, {rule}, orgs(), rules(), plain, "gap.csv");
+  CHECK(pp.targets.at(0).cooling->steps.at(0).elapsed_s == doctest::Approx(72 * 60.0).epsilon(1e-9));
+}
+
+TEST_CASE("issue 11: a cooling clock that would start inside a gap starts at the gap's start") {
+  std::vector<double> t_s, T_C;
+  for (int m = 0; m <= 140; ++m) {
+    if (m > 20 && m < 40) continue;  // 57 C at 26 min falls in the gap 20-40 min
+    t_s.push_back(60.0 * m);
+    T_C.push_back(70.0 - 0.5 * m);
+  }
+  Target rule;
+  rule.kind = TargetKind::cooling_rule;
+  rule.rule = "two-stage-6h";
+  AssessOptions o;
+  o.max_gap_s = 300;
+  const ProbeAssessment pa = assess_probe_log(t_s, T_C, {rule}, orgs(), rules(), o, "gap.csv");
+  const CoolingStepResult& s1 = pa.targets.at(0).cooling->steps.at(0);
+  CHECK(*s1.start_s == 20 * 60.0);
+  CHECK(*s1.end_s == doctest::Approx(98 * 60.0).epsilon(1e-9));
+  CHECK(s1.elapsed_s == doctest::Approx(78 * 60.0).epsilon(1e-9));
+}
