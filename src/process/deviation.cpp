@@ -58,7 +58,13 @@ Scenario extended(const Scenario& base, std::size_t k, const MediumProfile& medi
 /// those of the unsplit stage.
 Scenario without_gap_credit(Scenario c, std::size_t k, const std::vector<DeviationEvent>& events) {
   const Stage st = c.stages[k];
-  if (st.end.kind != StageEndKind::duration) return c;
+  if (st.end.kind != StageEndKind::duration) {
+    // Its end is found by the run: the gaps stay on the stage as unrecorded intervals (process::
+    // evaluate leaves them out of every credit and counts them against cooling rules).
+    for (const auto& e : events)
+      if (e.kind == DeviationKind::log_gap) c.stages[k].medium_gaps_s.push_back({e.start_s, e.end_s});
+    return c;
+  }
   const double end = st.end.duration_s;
   const std::string gap_name = st.name + " (gap in the log)";
   std::vector<Stage> parts;
@@ -72,6 +78,9 @@ Scenario without_gap_credit(Scenario c, std::size_t k, const std::vector<Deviati
     for (const auto& q : st.medium.points)
       if (q.time_s > a && q.time_s < b) p.medium.points.push_back({q.time_s - a, q.temp_C});
     p.medium.points.push_back({b - a, st.medium.at(b)});
+    // A gap part is unrecorded as a whole: a cooling-rule step completing in it counts from its end.
+    p.medium_gaps_s.clear();
+    if (name == gap_name) p.medium_gaps_s.push_back({0.0, b - a});
     parts.push_back(std::move(p));
   };
   double t = 0;
@@ -222,14 +231,12 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
         gap_total_s += e.end_s - e.start_s;
         ++gaps;
       }
-    if (gaps > 0 && by_duration)
+    // A duration stage is split at its gaps; a condition-ended one carries them (without_gap_credit).
+    if (gaps > 0)
       r.notes.push_back("lethality accrued in the " + std::to_string(gaps) + " gap(s) of the medium log (" +
-                        num(gap_total_s) + " s in all) is not credited: the medium meanwhile is unknown; the "
-                        "product's temperature is carried across them by linear interpolation of the medium");
-    else if (gaps > 0)
-      r.notes.push_back("the medium log has " + std::to_string(gaps) + " gap(s) (" + num(gap_total_s) +
-                        " s in all) in a stage that ends by a temperature condition: the medium is interpolated "
-                        "across them and their lethality IS credited; treat the delivered result as not recorded there");
+                        num(gap_total_s) + " s in all) is not credited, and a cooling-rule step that completes in "
+                        "one is taken to complete at its end: the medium meanwhile is unknown; the product's "
+                        "temperature is carried across them by linear interpolation of the medium");
     r.delivered = evaluate(without_gap_credit(extended(s, k, *in.medium_log, r.delivered_stage_s, 0, 0), k, r.events), libs);
 
     // Extra hold at the scheduled medium temperature (from the end of the delivered stage) that

@@ -10,9 +10,11 @@
 #include <cmath>
 #include <vector>
 
+#include "coldcore/io/logger_csv.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/scenario.hpp"
 #include "coldcore/lethality/integrate.hpp"
+#include "coldcore/process/deviation.hpp"
 #include "coldcore/process/inverse.hpp"
 #include "coldcore/report/assessment.hpp"
 #include "lethality/lethality_support.hpp"
@@ -118,4 +120,30 @@ TEST_CASE("issue 11: a cooling clock that would start inside a gap starts at the
   CHECK(*s1.start_s == 20 * 60.0);
   CHECK(*s1.end_s == doctest::Approx(98 * 60.0).epsilon(1e-9));
   CHECK(s1.elapsed_s == doctest::Approx(78 * 60.0).epsilon(1e-9));
+}
+
+// deviation: the same rule for a chill that ends on a centre temperature. The invented chill
+// log (tests/cli/issue11-gaps/chill-gap.csv, the scheduled 1 C, nothing from 5 to 40 min) leaves
+// both crossings of the FSIS option-1 first step (54.4 -> 26.7 C) inside its gap: the step is
+// taken from the gap's start to its end, 35 min, where the record without the gap limit shows
+// the 13.8 min of the demo report.
+TEST_CASE("issue 11: deviation counts a log gap against a cooling rule in a condition-ended stage") {
+  const io::ProductFile f = io::load_product(std::string(COLDCORE_SOURCE_DIR) + "/products/chicken-sausage-log.toml");
+  const process::Scenario s = io::scenario_of(f);
+  process::DeviationInput in;
+  in.scheduled = s;
+  in.stage = 2;
+  const io::TimeSeries log =
+      io::parse_log_csv(test::read_source_file("tests/cli/issue11-gaps/chill-gap.csv"), "chill-gap.csv");
+  in.medium_log = io::medium_profile(log, "chill-gap.csv", "");
+  const process::DeviationResult r = process::evaluate_deviation(in, {&orgs(), &rules(), &cooking()});
+  REQUIRE(r.delivered);
+  const double chill_start = r.delivered->history.stages.at(2).start_s;
+  const CoolingStepResult* step = nullptr;
+  for (const auto& t : r.delivered->assessment.targets)
+    if (t.cooling && t.cooling->rule_key == "fsis-stabilization-option-1") step = &t.cooling->steps.at(0);
+  REQUIRE(step != nullptr);
+  CHECK(*step->start_s == doctest::Approx(chill_start + 300).epsilon(1e-12));
+  CHECK(*step->end_s == doctest::Approx(chill_start + 2400).epsilon(1e-12));
+  CHECK(step->elapsed_s == doctest::Approx(2100).epsilon(1e-9));
 }
