@@ -133,7 +133,7 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--stage", args->stage, "the deviated stage (default: the last heating stage)");
   sub->add_option("--probe-log", args->probe_log, "measured cold-spot log (CSV, first row = process start)");
   sub->add_option("--lot", args->lot, "lot or batch identifier for the record");
-  sub->add_option("--column", args->column, "temperature column of the medium log, when it has several");
+  sub->add_option("--temp-column,--column", args->column, "temperature column of the medium log, when it has several");
   sub->add_option("--tolerance-K", args->tolerance_K, "a reading this far on the unfavourable side of the schedule is deviated")->capture_default_str()->check(within(0, 50, "K", true));
   sub->add_option("--max-gap-s", args->max_gap_s,
                   "readings further apart than this are a gap in the log (no lethality credited in it), s")

@@ -46,10 +46,26 @@ bool ends_with(std::string_view s, std::string_view suffix) {
 }
 
 /// "_C"/"_F" suffix of a temperature column name, or empty.
+/// "C" or "F" when the column name states its unit: a _C/_F suffix (the documented form), or as
+/// logger exports write it: "temp °C", "Temp (°F)", "probe [degC]", and a degree sign saved in
+/// Latin-1 (the byte 0xB0) rather than UTF-8. Empty otherwise (a bare "C" may be a sensor's name).
 std::string_view temperature_unit(std::string_view name) {
   if (ends_with(name, "_C")) return "C";
   if (ends_with(name, "_F")) return "F";
+  std::string_view n = name;
+  if (!n.empty() && (n.back() == ')' || n.back() == ']')) n.remove_suffix(1);
+  if (n.empty() || (n.back() != 'C' && n.back() != 'F')) return {};
+  const std::string_view unit = n.back() == 'C' ? "C" : "F";
+  n.remove_suffix(1);
+  for (std::string_view mark : {"\xC2\xB0", "\xB0", "deg", "(", "["})
+    if (ends_with(n, mark)) return unit;
   return {};
+}
+
+bool latin1_degree(std::string_view name) {
+  for (std::size_t i = 0; i < name.size(); ++i)
+    if (static_cast<unsigned char>(name[i]) == 0xB0 && (i == 0 || static_cast<unsigned char>(name[i - 1]) != 0xC2)) return true;
+  return false;
 }
 
 bool is_timestamp_name(std::string_view name) {
@@ -234,6 +250,11 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
       std::vector<std::size_t> temps;
       for (std::size_t i = 1; i < header.size(); ++i)
         if (!temperature_unit(header[i]).empty()) temps.push_back(i);
+      for (std::size_t i : temps)
+        if (latin1_degree(header[i]))
+          out.warnings.push_back(where(origin, line_no) + ": column " + quote(header[i]) +
+                                 ": the degree sign is the Latin-1 byte 0xB0, read as °; save the file as UTF-8 "
+                                 "to silence this");
       if (!opts.temp_column.empty()) {
         bool found = false;
         for (std::size_t i : temps)
@@ -251,12 +272,12 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
         }
       } else if (temps.empty()) {
         throw InputError(where(origin, line_no) + ": header = " + quote(line) +
-                         ": no temperature column: name one with a _C or _F suffix, e.g. medium_C");
+                         ": no temperature column: name one with its unit, e.g. medium_C, temp_F or \"temp (°C)\"");
       } else if (temps.size() > 1) {
         std::string names;
-        for (std::size_t i : temps) names += (names.empty() ? "" : ", ") + header[i];
+        for (std::size_t i : temps) names += (names.empty() ? "" : ", ") + quote(header[i]);
         throw InputError(where(origin, line_no) + ": header = " + quote(line) +
-                         ": several temperature columns (" + names + "): choose one");
+                         ": several temperature columns (" + names + "): " + opts.choose_column_hint);
       } else {
         temp_index = temps.front();
       }

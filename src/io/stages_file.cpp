@@ -90,6 +90,7 @@ MediumProfile parse_medium_log(const Fields& f, const std::filesystem::path& bas
   }
   if (!text) f.fail("medium_log", "cannot read file " + quote(path.generic_string()));
   LogOptions opts;
+  opts.choose_column_hint = "a medium_log is read with one temperature column; keep only the medium's";
   Found gap;
   if (auto g = f.quantity_si("medium_log_max_gap", &gap)) {
     if (!(*g > 0)) f.fail(gap.key, "must be > 0");

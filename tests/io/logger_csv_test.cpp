@@ -183,3 +183,34 @@ TEST_CASE("issue 11: a local-time log across a spring-forward clock change is re
                        "+01:00), +HH, Z or UTC",
                        InputError);
 }
+
+// issue 16/18: logger exports state the unit in the column name in several ways. 212 F is
+// 100 C and 32 F is 0 C (the defining points of the scales).
+TEST_CASE("issue 18: units read from the header as loggers write them, Latin-1 degree included") {
+  for (const char* header : {"time_s,temp (\xC2\xB0" "F)", "time_s,Temp [degF]", "time_s,probe \xC2\xB0" "F",
+                             "time_s,probe \xB0" "F"}) {
+    CAPTURE(header);
+    const auto log = parse_log_csv(std::string(header) + "\n0,32\n60,212\n", "l.csv");
+    CHECK(log.temp_C.at(0) == doctest::Approx(0.0).epsilon(1e-12));
+    CHECK(log.temp_C.at(1) == doctest::Approx(100.0).epsilon(1e-12));
+  }
+  // A Latin-1 degree byte is read, and said.
+  const auto latin1 = parse_log_csv("time_s,probe \xB0" "C\n0,70\n60,71\n", "l.csv");
+  REQUIRE(latin1.warnings.size() == 1);
+  CHECK(latin1.warnings[0] ==
+        "l.csv:1: column \"probe \\xB0C\": the degree sign is the Latin-1 byte 0xB0, read as \xC2\xB0; save the file "
+        "as UTF-8 to silence this");
+  // A bare letter after a space may be a sensor's name, not a unit: refused, with what is accepted.
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s,Sensor C\n0,70\n", "l.csv"),
+                       "l.csv:1: header = \"time_s,Sensor C\": no temperature column: name one with its unit, e.g. "
+                       "medium_C, temp_F or \"temp (\xC2\xB0" "C)\"",
+                       InputError);
+  // Several: the message lists them and says how to choose.
+  CHECK_THROWS_WITH_AS(parse_log_csv("time_s,a_C,b_C\n0,70,70\n", "l.csv"),
+                       "l.csv:1: header = \"time_s,a_C,b_C\": several temperature columns (\"a_C\", \"b_C\"): choose "
+                       "one with --temp-column NAME",
+                       InputError);
+  LogOptions pick;
+  pick.temp_column = "b_C";
+  CHECK(parse_log_csv("time_s,a_C,b_C\n0,70,75\n", "l.csv", pick).temp_C.at(0) == 75);
+}

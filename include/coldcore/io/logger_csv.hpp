@@ -40,6 +40,8 @@ struct LogOptions {
   double max_gap_s = 60;
   /// Name of the temperature column to read when there are several; empty = the only one.
   std::string temp_column;
+  /// What the refusal of a log with several temperature columns tells the user to do.
+  std::string choose_column_hint = "choose one with --temp-column NAME";
   /// UTC offset of timestamps written without one (local time = UTC + offset), e.g. +3600 for
   /// +01:00 (--timezone). Without it, such timestamps are read as UTC, and a log whose spacing
   /// jumps by one hour more than its usual interval (a clock set forward), or goes back by up to
