@@ -70,8 +70,8 @@ TEST_CASE("several temperature columns: the option picks one, else refused") {
   o.temp_column = "probe_C";
   CHECK(parse_log_csv(text, "two.csv", o).temp_C == std::vector<double>{4, 5});
   CHECK_THROWS_WITH_AS(parse_log_csv(text, "two.csv"),
-                       "two.csv:1: header = \"time_s,air_C,probe_C\": several temperature columns (air_C, probe_C): "
-                       "choose one",
+                       "two.csv:1: header = \"time_s,air_C,probe_C\": several temperature columns (\"air_C\", "
+                       "\"probe_C\"): choose one with --temp-column NAME",
                        InputError);
   o.temp_column = "prob_C";
   CHECK_THROWS_WITH_AS(parse_log_csv(text, "two.csv", o),
@@ -138,8 +138,8 @@ TEST_CASE("logs refused for their header or for being empty") {
                        "or tab separated)",
                        InputError);
   CHECK_THROWS_WITH_AS(parse_log_csv("time_s,temp\n0,20\n", "h.csv"),
-                       "h.csv:1: header = \"time_s,temp\": no temperature column: name one with a _C or _F suffix, "
-                       "e.g. medium_C",
+                       "h.csv:1: header = \"time_s,temp\": no temperature column: name one with its unit, "
+                       "e.g. medium_C, temp_F or \"temp (°C)\"",
                        InputError);
 }
 
