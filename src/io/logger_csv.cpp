@@ -357,9 +357,9 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
     cells0.emplace_back(cells[0]);
   }
 
-  if (header.empty()) throw InputError(where(origin, 1) + ": empty log: no header and no data rows");
+  if (header.empty()) throw InputError(where(origin, 1) + ": empty log: no header and no data rows; a log is a header naming the columns with units (e.g. time_s,temp_C) and a row per reading");
   if (out.time_s.empty())
-    throw InputError(where(origin, header_line) + ": empty log: a header but no data rows");
+    throw InputError(where(origin, header_line) + ": empty log: a header but no data rows; give a row per reading below it");
   if (iso_time && local_rows && !opts.utc_offset_s) refuse_clock_change(out, origin, header[0], lines, cells0);
   return out;
 }

@@ -119,12 +119,12 @@ TEST_CASE("logs refused with file:line, column, value and requirement") {
 }
 
 TEST_CASE("logs refused for their header or for being empty") {
-  CHECK_THROWS_WITH_AS(parse_log_csv("", "empty.csv"), "empty.csv:1: empty log: no header and no data rows",
+  CHECK_THROWS_WITH_AS(parse_log_csv("", "empty.csv"), "empty.csv:1: empty log: no header and no data rows; a log is a header naming the columns with units (e.g. time_s,temp_C) and a row per reading",
                        InputError);
   CHECK_THROWS_WITH_AS(parse_log_csv("# nothing logged\n\n", "empty.csv"),
-                       "empty.csv:1: empty log: no header and no data rows", InputError);
+                       "empty.csv:1: empty log: no header and no data rows; a log is a header naming the columns with units (e.g. time_s,temp_C) and a row per reading", InputError);
   CHECK_THROWS_WITH_AS(parse_log_csv("# logger 17\ntime_s,medium_C\n\n", "empty.csv"),
-                       "empty.csv:2: empty log: a header but no data rows", InputError);
+                       "empty.csv:2: empty log: a header but no data rows; give a row per reading below it", InputError);
   CHECK_THROWS_WITH_AS(parse_log_csv("0,20\n10,21\n", "bare.csv"),
                        "bare.csv:1: no header row: the first row must name the columns with their units, "
                        "e.g. time_s,medium_C",

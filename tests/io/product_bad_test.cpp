@@ -294,8 +294,8 @@ TEST_CASE("bad file: medium logs (file:line of the log)") {
                        "oven.csv:4: time_s = 30: must be after the previous row (60 at line 3)", InputError);
   CHECK_THROWS_WITH_AS(parse_with_log("time_s,medium_C\n0,20\n60,hot\n"),
                        "oven.csv:3: medium_C = \"hot\": not a number", InputError);
-  CHECK_THROWS_WITH_AS(parse_with_log(""), "oven.csv:1: empty log: no header and no data rows", InputError);
-  CHECK_THROWS_WITH_AS(parse_with_log("time_s,medium_C\n"), "oven.csv:1: empty log: a header but no data rows",
+  CHECK_THROWS_WITH_AS(parse_with_log(""), "oven.csv:1: empty log: no header and no data rows; a log is a header naming the columns with units (e.g. time_s,temp_C) and a row per reading", InputError);
+  CHECK_THROWS_WITH_AS(parse_with_log("time_s,medium_C\n"), "oven.csv:1: empty log: a header but no data rows; give a row per reading below it",
                        InputError);
   CHECK_THROWS_WITH_AS(parse_with_log("time_s,medium_C\n0,92\n"),
                        "t.toml: stage[1].medium_log = \"oven.csv\": the log covers 0 s (one row); give duration_s, "
