@@ -1,7 +1,8 @@
 // The pieces every suite relies on.
 #include <doctest/doctest.h>
 
-#include "coldcore/process/schedule.hpp"
+#include "coldcore/model/product.hpp"
+#include "coldcore/model/stages.hpp"
 #include "coldcore/report/cautions.hpp"
 
 TEST_CASE("medium profile is piecewise linear and held after its last point") {

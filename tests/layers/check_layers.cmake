@@ -17,15 +17,9 @@ set(rank_io 4)
 set(rank_report 5)
 set(rank_cli 6)
 
-# Known exceptions, to be removed by issue 12 (domain types still in process/, display text of
+# Known exceptions, to be removed by issue 12 (io still builds process::Scenario, display text of
 # temperatures still written below report/, Assessment still in report/). "file -> include".
 set(allowed
-  "include/coldcore/conduction/history.hpp -> coldcore/process/schedule.hpp"
-  "include/coldcore/conduction/numeric.hpp -> coldcore/process/schedule.hpp"
-  "src/conduction/detail/medium_scan.hpp -> coldcore/process/schedule.hpp"
-  "include/coldcore/io/logger_csv.hpp -> coldcore/process/schedule.hpp"
-  "include/coldcore/io/product_file.hpp -> coldcore/process/schedule.hpp"
-  "include/coldcore/io/product_file.hpp -> coldcore/process/targets.hpp"
   "include/coldcore/io/scenario.hpp -> coldcore/process/conservative.hpp"
   "include/coldcore/io/scenario.hpp -> coldcore/process/inverse.hpp"
   "include/coldcore/process/inverse.hpp -> coldcore/report/assessment.hpp"

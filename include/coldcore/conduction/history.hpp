@@ -9,7 +9,8 @@
 #include <utility>
 #include <vector>
 
-#include "coldcore/process/schedule.hpp"
+#include "coldcore/model/product.hpp"
+#include "coldcore/model/stages.hpp"
 
 namespace coldcore {
 

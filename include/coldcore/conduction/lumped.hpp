@@ -11,7 +11,7 @@
 #include <string>
 
 #include "coldcore/conduction/series.hpp"
-#include "coldcore/conduction/shape.hpp"
+#include "coldcore/model/shape.hpp"
 
 namespace coldcore {
 

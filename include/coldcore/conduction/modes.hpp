@@ -32,7 +32,7 @@
 #include <limits>
 #include <vector>
 
-#include "coldcore/conduction/shape.hpp"
+#include "coldcore/model/shape.hpp"
 
 namespace coldcore {
 

@@ -44,10 +44,11 @@
 #include <string>
 #include <vector>
 
-#include "coldcore/conduction/shape.hpp"
-#include "coldcore/process/schedule.hpp"
+#include "coldcore/model/shape.hpp"
+#include "coldcore/model/product.hpp"
+#include "coldcore/model/stages.hpp"
 #include "coldcore/properties/composition.hpp"
-#include "coldcore/properties/thermal.hpp"
+#include "coldcore/model/thermal.hpp"
 
 namespace coldcore {
 

@@ -1,7 +1,7 @@
 #pragma once
 /// Inner products of eigenfunctions with different eigenvalues, for projecting a profile that
 /// was expanded in the modes of one Biot number onto the modes of another (a stage change of h).
-#include "coldcore/conduction/shape.hpp"
+#include "coldcore/model/shape.hpp"
 
 namespace coldcore {
 

@@ -9,7 +9,7 @@
 /// Its eigen-expansion is P(x) = Σ_n C_n X_n(x) / ζ_n², so the sum over the modes a truncated
 /// series neglects, Σ_{n>N} C_n X_n(x)/ζ_n², is P(x) minus the first N terms (history engine).
 /// Derived here by direct integration (check: −∇²P = 1 and the Robin condition hold exactly).
-#include "coldcore/conduction/shape.hpp"
+#include "coldcore/model/shape.hpp"
 
 namespace coldcore {
 

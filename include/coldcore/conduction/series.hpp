@@ -48,7 +48,7 @@
 #include <vector>
 
 #include "coldcore/conduction/modes.hpp"
-#include "coldcore/conduction/shape.hpp"
+#include "coldcore/model/shape.hpp"
 
 namespace coldcore {
 

@@ -18,7 +18,7 @@
 #include <string_view>
 #include <vector>
 
-#include "coldcore/process/schedule.hpp"
+#include "coldcore/model/stages.hpp"
 
 namespace coldcore::io {
 

@@ -55,9 +55,10 @@
 
 #include "coldcore/io/logger_csv.hpp"
 #include "coldcore/io/media.hpp"
-#include "coldcore/process/schedule.hpp"
+#include "coldcore/model/product.hpp"
+#include "coldcore/model/stages.hpp"
 #include "coldcore/properties/composition.hpp"
-#include "coldcore/process/targets.hpp"
+#include "coldcore/model/targets.hpp"
 
 namespace coldcore::io {
 

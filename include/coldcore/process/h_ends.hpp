@@ -30,8 +30,9 @@
 #include <string>
 #include <vector>
 
-#include "coldcore/process/schedule.hpp"
-#include "coldcore/process/targets.hpp"
+#include "coldcore/model/product.hpp"
+#include "coldcore/model/stages.hpp"
+#include "coldcore/model/targets.hpp"
 
 namespace coldcore::process {
 

@@ -31,9 +31,10 @@
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
 #include "coldcore/process/h_ends.hpp"
-#include "coldcore/process/schedule.hpp"
+#include "coldcore/model/product.hpp"
+#include "coldcore/model/stages.hpp"
 #include "coldcore/process/solve.hpp"
-#include "coldcore/process/targets.hpp"
+#include "coldcore/model/targets.hpp"
 #include "coldcore/report/assessment.hpp"
 
 namespace coldcore::process {

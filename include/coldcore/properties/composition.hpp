@@ -15,7 +15,7 @@
 #include <string_view>
 #include <vector>
 
-#include "coldcore/properties/thermal.hpp"
+#include "coldcore/model/thermal.hpp"
 
 namespace coldcore {
 

@@ -27,7 +27,7 @@
 #include "coldcore/lethality/kinetics.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
-#include "coldcore/process/targets.hpp"
+#include "coldcore/model/targets.hpp"
 
 namespace coldcore {
 

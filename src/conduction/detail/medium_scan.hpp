@@ -3,7 +3,8 @@
 // 14,401 points and simulate() reads it several times). Private.
 #include <cstddef>
 
-#include "coldcore/process/schedule.hpp"
+#include "coldcore/model/product.hpp"
+#include "coldcore/model/stages.hpp"
 
 namespace coldcore::detail {
 

@@ -4,7 +4,7 @@
 #include <array>
 #include <vector>
 
-#include "coldcore/conduction/shape.hpp"
+#include "coldcore/model/shape.hpp"
 
 namespace coldcore::detail {
 

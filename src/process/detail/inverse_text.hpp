@@ -3,7 +3,7 @@
 #include <sstream>
 #include <string>
 
-#include "coldcore/process/targets.hpp"
+#include "coldcore/model/targets.hpp"
 
 namespace coldcore::process::detail {
 

@@ -1,33 +1,12 @@
 #pragma once
-/// A product and the process it goes through: stages, each with a medium temperature profile,
-/// a surface heat-transfer coefficient and an end condition. All values SI (s, m, °C, W/m²K);
-/// unit conversion happens once, in io/.
+/// The process a product goes through: stages, each with a medium temperature profile, a surface
+/// heat-transfer coefficient and an end condition. All values SI (s, °C, W/m²K); unit conversion
+/// happens once, in io/.
 #include <array>
 #include <string>
 #include <vector>
 
-#include "coldcore/conduction/shape.hpp"
-#include "coldcore/properties/thermal.hpp"
-
 namespace coldcore {
-
-/// Outer dimensions of the product (full sizes, not halves).
-/// sphere, cylinder: diameter_m. finite-cylinder: diameter_m and length_m. slab: thickness_m.
-/// brick: size_m[0..2]. Unused fields stay 0.
-struct Dimensions {
-  double diameter_m = 0;
-  double length_m = 0;
-  double thickness_m = 0;
-  double size_m[3] = {0, 0, 0};
-};
-
-struct Product {
-  std::string name;
-  Shape shape = Shape::sphere;
-  Dimensions dims;
-  double initial_C = 0;          ///< uniform initial temperature
-  ThermalProperties properties;
-};
 
 /// One point of a medium schedule; time from the stage's start.
 struct MediumPoint {

@@ -1,4 +1,4 @@
-#include "coldcore/process/schedule.hpp"
+#include "coldcore/model/stages.hpp"
 
 #include <algorithm>
 #include <cassert>
