@@ -23,7 +23,7 @@ namespace coldcore::cli {
 namespace {
 
 struct DeviationArgs {
-  std::string file, medium_log, probe_log, stage, lot, library, date, column, timezone;
+  std::string file, medium_log, probe_log, stage, lot, library, date, column, probe_column, timezone;
   double tolerance_K = 0.5;
   double max_gap_s = 60;
   double round_min = 1;
@@ -66,6 +66,8 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side, Ve
   if (!a.probe_log.empty()) {
     const std::string text = io::read_text_file(a.probe_log);
     io::LogOptions lo;
+    lo.temp_column = a.probe_column;
+    lo.choose_column_hint = "choose one with --probe-temp-column NAME";
     lo.max_gap_s = a.max_gap_s;
     if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
     const io::TimeSeries log = io::parse_log_csv(text, a.probe_log, lo);
@@ -133,7 +135,9 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--stage", args->stage, "the deviated stage (default: the last heating stage)");
   sub->add_option("--probe-log", args->probe_log, "measured cold-spot log (CSV, first row = process start)");
   sub->add_option("--lot", args->lot, "lot or batch identifier for the record");
+  // --temp-column as on probe; --column kept for scripts written before it.
   sub->add_option("--temp-column,--column", args->column, "temperature column of the medium log, when it has several");
+  sub->add_option("--probe-temp-column", args->probe_column, "temperature column of the probe log, when it has several");
   sub->add_option("--tolerance-K", args->tolerance_K, "a reading this far on the unfavourable side of the schedule is deviated")->capture_default_str()->check(within(0, 50, "K", true));
   sub->add_option("--max-gap-s", args->max_gap_s,
                   "readings further apart than this are a gap in the log (no lethality credited in it), s")
