@@ -148,10 +148,7 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--round-min", args->round_min, "additional time rounded UP to this, min")->capture_default_str()->check(within(0, 1440, "min", true));
   sub->add_flag("--conservative", args->conservative,
                 "also evaluate the deviation at the documented worst case of the file's ranges and name the choice that drove it");
-  sub->add_option("--threads", args->threads,
-                  "--conservative: evaluate its cases on this many threads (default 0: every core; the "
-                  "result is the same for any count)")
-      ->check(CLI::Range(0u, 256u));
+  add_threads_option(*sub, args->threads);
   add_library_option(*sub, args->library);
   sub->add_option("--date", args->date, "record date, YYYY-MM-DD (default: today in local time)");
   add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);

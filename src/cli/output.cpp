@@ -32,6 +32,13 @@ void add_output_options(CLI::App& sub, OutputArgs& a, std::vector<Format> format
         ->check(within(0.1, limits::duration_s.high, "s"));
 }
 
+void add_threads_option(CLI::App& sub, unsigned& threads) {
+  sub.add_option("--threads", threads,
+                 "--conservative: evaluate its cases on this many threads (default 0: every core; the result is "
+                 "the same for any count)")
+      ->check(CLI::Range(0u, 256u));
+}
+
 CLI::Validator within(double low, double high, const std::string& unit, bool low_open) {
   const auto text = [](double v) {
     char buf[32];

@@ -36,6 +36,9 @@ bool to_stdout(const OutputArgs& a);
 /// md on standard output (its plots are files beside the report).
 Format output_format(const OutputArgs& a);
 
+/// Adds --threads N (a --conservative run's cases on N threads; 0: every core).
+void add_threads_option(CLI::App& sub, unsigned& threads);
+
 /// A CLI11 check that a numeric option is finite and within [low, high] (`low_open`: > low),
 /// stated in `unit`; NaN and inf fail. Message: `--opt: nan: must be from 0 to 1 s`.
 CLI::Validator within(double low, double high, const std::string& unit, bool low_open = false);

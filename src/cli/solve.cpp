@@ -123,10 +123,7 @@ void add_solve_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_flag("--mean", args->mean, "chill-time: the mass average instead of the centre");
   sub->add_flag("--conservative", args->conservative,
                 "also solve the documented worst case of the file's ranges and name the choice that drove it");
-  sub->add_option("--threads", args->threads,
-                  "--conservative: evaluate its cases on this many threads (default 0: every core; the "
-                  "result is the same for any count)")
-      ->check(CLI::Range(0u, 256u));
+  add_threads_option(*sub, args->threads);
   add_library_option(*sub, args->library);
   sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today in local time)");
   add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);

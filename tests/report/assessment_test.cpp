@@ -11,21 +11,14 @@
 #include "coldcore/lethality/integrate.hpp"
 #include "coldcore/report/assessment.hpp"
 #include "lethality/lethality_support.hpp"
+#include "support/libraries.hpp"
 
 using namespace coldcore;
 
 namespace {
 
-const OrganismLibrary& orgs() {
-  static const OrganismLibrary lib =
-      parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
-  return lib;
-}
-const RuleLibrary& rules() {
-  static const RuleLibrary lib =
-      parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
-  return lib;
-}
+const OrganismLibrary& orgs() { return test::project_organisms(); }
+const RuleLibrary& rules() { return test::project_rules(); }
 
 // Cook: 20 -> 72 C linear over 20 min, hold 72 C to 30 min; chill: 72 -> 2 C linear over 60 min.
 double cook_chill(double t) {

@@ -8,6 +8,7 @@
 #include <doctest/doctest.h>
 
 #include <cmath>
+#include <limits>
 #include <vector>
 
 #include "coldcore/io/logger_csv.hpp"
@@ -18,25 +19,32 @@
 #include "coldcore/process/inverse.hpp"
 #include "coldcore/report/assessment.hpp"
 #include "lethality/lethality_support.hpp"
+#include "support/libraries.hpp"
 
 using namespace coldcore;
 
 namespace {
 
-const OrganismLibrary& orgs() {
-  static const OrganismLibrary lib =
-      parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
-  return lib;
-}
-const RuleLibrary& rules() {
-  static const RuleLibrary lib =
-      parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
-  return lib;
-}
-const CookingTables& cooking() {
-  static const CookingTables t =
-      parse_cooking_tables(test::read_source_file("products/cooking-tables.toml"), "cooking-tables.toml");
-  return t;
+const OrganismLibrary& orgs() { return test::project_organisms(); }
+const RuleLibrary& rules() { return test::project_rules(); }
+const CookingTables& cooking() { return test::project_cooking_tables(); }
+
+// The line T = 70 - 0.5 t (t in min) sampled every minute from 0 to 140 min, with nothing
+// recorded strictly between gap_from and gap_to (min), checked against two-stage-6h with a 5-min
+// gap limit.
+ProbeAssessment cooling_line_with_gap(int gap_from, int gap_to, double max_gap_s = 300) {
+  std::vector<double> t_s, T_C;
+  for (int m = 0; m <= 140; ++m) {
+    if (m > gap_from && m < gap_to) continue;
+    t_s.push_back(60.0 * m);
+    T_C.push_back(70.0 - 0.5 * m);
+  }
+  Target rule;
+  rule.kind = TargetKind::cooling_rule;
+  rule.rule = "two-stage-6h";
+  AssessOptions o;
+  o.max_gap_s = max_gap_s;
+  return assess_probe_log(t_s, T_C, {rule}, orgs(), rules(), o, "gap.csv");
 }
 
 process::Evaluation run_file(const char* relative) {
@@ -75,18 +83,7 @@ TEST_CASE("issue 11: a gap in a product's medium log credits no lethality in run
 }
 
 TEST_CASE("issue 11: a cooling step completed inside a log gap counts only from the gap's end") {
-  std::vector<double> t_s, T_C;
-  for (int m = 0; m <= 140; ++m) {
-    if (m > 95 && m < 125) continue;  // nothing recorded from 95 to 125 min
-    t_s.push_back(60.0 * m);
-    T_C.push_back(70.0 - 0.5 * m);
-  }
-  Target rule;
-  rule.kind = TargetKind::cooling_rule;
-  rule.rule = "two-stage-6h";
-  AssessOptions o;
-  o.max_gap_s = 300;
-  const ProbeAssessment pa = assess_probe_log(t_s, T_C, {rule}, orgs(), rules(), o, "gap.csv");
+  const ProbeAssessment pa = cooling_line_with_gap(95, 125);  // nothing recorded from 95 to 125 min
   const TargetResult& r = pa.targets.at(0);
   REQUIRE(r.cooling);
   const CoolingStepResult& s1 = r.cooling->steps.at(0);
@@ -98,24 +95,12 @@ TEST_CASE("issue 11: a cooling step completed inside a log gap counts only from 
   for (const auto& n : r.notes) said = said || n.find("is reached inside a gap in the record") != std::string::npos;
   CHECK(said);
   // Without the gap limit the same log passes the step at 98 min (72 min after its start).
-  AssessOptions plain;
-  const ProbeAssessment pp = assess_probe_log(t_s, T_C, {rule}, orgs(), rules(), plain, "gap.csv");
+  const ProbeAssessment pp = cooling_line_with_gap(95, 125, std::numeric_limits<double>::infinity());
   CHECK(pp.targets.at(0).cooling->steps.at(0).elapsed_s == doctest::Approx(72 * 60.0).epsilon(1e-9));
 }
 
 TEST_CASE("issue 11: a cooling clock that would start inside a gap starts at the gap's start") {
-  std::vector<double> t_s, T_C;
-  for (int m = 0; m <= 140; ++m) {
-    if (m > 20 && m < 40) continue;  // 57 C at 26 min falls in the gap 20-40 min
-    t_s.push_back(60.0 * m);
-    T_C.push_back(70.0 - 0.5 * m);
-  }
-  Target rule;
-  rule.kind = TargetKind::cooling_rule;
-  rule.rule = "two-stage-6h";
-  AssessOptions o;
-  o.max_gap_s = 300;
-  const ProbeAssessment pa = assess_probe_log(t_s, T_C, {rule}, orgs(), rules(), o, "gap.csv");
+  const ProbeAssessment pa = cooling_line_with_gap(20, 40);  // 57 C at 26 min falls in the gap
   const CoolingStepResult& s1 = pa.targets.at(0).cooling->steps.at(0);
   CHECK(*s1.start_s == 20 * 60.0);
   CHECK(*s1.end_s == doctest::Approx(98 * 60.0).epsilon(1e-9));

@@ -17,21 +17,14 @@
 #include "coldcore/report/probe_report.hpp"
 #include "coldcore/report/temperature_text.hpp"
 #include "lethality/lethality_support.hpp"
+#include "support/libraries.hpp"
 
 using namespace coldcore;
 
 namespace {
 
-const OrganismLibrary& orgs() {
-  static const OrganismLibrary lib =
-      parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
-  return lib;
-}
-const RuleLibrary& rules() {
-  static const RuleLibrary lib =
-      parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
-  return lib;
-}
+const OrganismLibrary& orgs() { return test::project_organisms(); }
+const RuleLibrary& rules() { return test::project_rules(); }
 
 io::TimeSeries constant_log() {
   return io::parse_log_csv(test::read_source_file("tests/cli/probe/constant-70C.csv"), "constant-70C.csv");

@@ -17,22 +17,15 @@
 #include "coldcore/report/assessment.hpp"
 #include "coldcore/report/temperature_text.hpp"
 #include "lethality/lethality_support.hpp"
+#include "support/libraries.hpp"
 #include "process/inverse_support.hpp"
 
 using namespace coldcore;
 
 namespace {
 
-const OrganismLibrary& orgs() {
-  static const OrganismLibrary lib =
-      parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
-  return lib;
-}
-const RuleLibrary& rules() {
-  static const RuleLibrary lib =
-      parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
-  return lib;
-}
+const OrganismLibrary& orgs() { return test::project_organisms(); }
+const RuleLibrary& rules() { return test::project_rules(); }
 
 std::string shown_C(const std::string& s) { return render_temperatures(s, TempUnit::C); }
 
