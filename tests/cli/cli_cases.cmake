@@ -440,7 +440,7 @@ cli_expect(run_step_too_many_rows 2 ARGS run tests/cli/long_hold.toml --format c
 add_test(NAME cli.determinism_cwd_tz
          COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
                  -P ${PROJECT_SOURCE_DIR}/tests/cli/determinism.cmake)
-set_tests_properties(cli.determinism_cwd_tz PROPERTIES TIMEOUT 600)
+set_tests_properties(cli.determinism_cwd_tz PROPERTIES TIMEOUT 600 COST 5000)  # started early under ctest -j
 
 # issue 18: the bad-input suite (tests/bad_inputs/): over 100 bad files, logs, libraries, options
 # and output paths, each refused with its exact message and exit code, without a crash, a hang,

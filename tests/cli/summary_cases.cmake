@@ -63,3 +63,6 @@ add_test(NAME cli.summary_walk_every_verb_and_format
          COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
                  "-DCASES=${COLDCORE_SUMMARY_WALK}" "-DKNOWN=${COLDCORE_SUMMARY_KNOWN}"
                  -P ${PROJECT_SOURCE_DIR}/tests/cli/summary_walk.cmake)
+# The longest case (minutes under the sanitizers): a high COST makes `ctest -j` start it first,
+# beside the short ones, instead of alone at the end.
+set_tests_properties(cli.summary_walk_every_verb_and_format PROPERTIES COST 10000)
