@@ -10,6 +10,7 @@ void add_all_verbs(CLI::App& app, VerbContext& ctx) {
   add_library_verbs(app, ctx);
   add_solve_verb(app, ctx);
   add_deviation_verb(app, ctx);
+  add_fit_verb(app, ctx);
   add_media_verb(app, ctx);
   add_pending_verbs(app, ctx);
   add_help_verb(app, ctx);

@@ -27,6 +27,7 @@ void add_probe_verb(CLI::App& app, VerbContext& ctx);
 void add_run_verb(CLI::App& app, VerbContext& ctx);
 void add_solve_verb(CLI::App& app, VerbContext& ctx);
 void add_deviation_verb(CLI::App& app, VerbContext& ctx);
+void add_fit_verb(CLI::App& app, VerbContext& ctx);
 void add_media_verb(CLI::App& app, VerbContext& ctx);
 void add_pending_verbs(CLI::App& app, VerbContext& ctx);
 /// `coldcore help [VERB]`: the app's help, or the verb's.

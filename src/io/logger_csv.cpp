@@ -395,4 +395,21 @@ double parse_utc_offset_s(std::string_view text, std::string_view option) {
   return (t[0] == '+' ? 1.0 : -1.0) * (hours * 3600.0 + minutes * 60.0);
 }
 
+std::vector<std::string> temperature_columns(std::string_view text) {
+  std::vector<std::string> names;
+  std::size_t pos = 0;
+  while (pos <= text.size()) {
+    const std::size_t nl = text.find('\n', pos);
+    const std::string_view line = trim(text.substr(pos, nl == std::string_view::npos ? text.size() - pos : nl - pos));
+    pos = nl == std::string_view::npos ? text.size() + 1 : nl + 1;
+    if (line.empty() || line.front() == '#') continue;
+    const auto cells = split_cells(line);
+    if (parse_number(cells[0]) || parse_iso8601_s(cells[0])) return names;  // no header
+    for (std::size_t i = 1; i < cells.size(); ++i)
+      if (!temperature_unit(cells[i]).empty()) names.emplace_back(cells[i]);
+    return names;
+  }
+  return names;
+}
+
 }  // namespace coldcore::io

@@ -59,6 +59,10 @@ double parse_utc_offset_s(std::string_view text, std::string_view option = "--ti
 /// cells, temperatures below -273.15 C, times not strictly increasing, no data rows.
 TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const LogOptions& = {});
 
+/// The names of the header's temperature columns, in order (a study's probe log may hold one
+/// column per container). Empty when the text has no header row; parse_log_csv then says why.
+std::vector<std::string> temperature_columns(std::string_view text);
+
 /// A parsed log as a stage's medium schedule (points at the logged times, linear between).
 /// `origin` and the log's bytes go into the description: "log <origin> (sha256 <hex>)".
 /// REQUIRES: !log.time_s.empty() (parse_log_csv guarantees it).

@@ -1,0 +1,372 @@
+#include "coldcore/process/fit.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+
+#include <Eigen/Dense>
+#include <boost/math/distributions/students_t.hpp>
+#include <unsupported/Eigen/LevenbergMarquardt>
+
+#include "coldcore/error.hpp"
+#include "detail/parallel.hpp"
+
+namespace coldcore::process {
+
+HistoryOptions FitInput::fit_engine_options() {
+  // Finite differences of the model need it far smoother than the readings' noise (0.1 K):
+  // 1e-5 K against a parameter step of 1e-4 in ln θ keeps the Jacobian's noise below 1 %.
+  HistoryOptions o;
+  o.tol_K = 1e-5;
+  o.sample_tol_K = 0.05;
+  return o;
+}
+
+std::vector<double> model_curve(const Product& product, const std::vector<Stage>& stages, double initial_C,
+                                const std::vector<double>& time_s, const HistoryOptions& engine) {
+  Product p = product;
+  p.initial_C = initial_C;
+  const History h = simulate(p, stages, engine);
+  std::vector<double> out;
+  out.reserve(time_s.size());
+  for (double t : time_s) out.push_back(h.evaluate(std::clamp(t, 0.0, h.end_s())).centre_C);
+  return out;
+}
+
+namespace {
+
+constexpr double kStep = 1e-4;  // forward-difference step in ln θ
+
+/// Which parameters are free and how they map onto the stages.
+struct Layout {
+  std::vector<FittedH> groups;
+  std::vector<int> free_groups;  ///< indices into groups fitted now
+  bool alpha_free = true;
+  double alpha = 0;              ///< when not free
+};
+
+std::vector<FittedH> stage_groups(const std::vector<Stage>& stages) {
+  std::vector<FittedH> groups;
+  std::map<double, int> by_h;
+  for (int i = 0; i < static_cast<int>(stages.size()); ++i) {
+    const Stage& s = stages[static_cast<std::size_t>(i)];
+    if (s.h_infinite) {
+      if (groups.empty() || groups.back().status != HStatus::fixed_infinite || groups.back().stages.back() != i - 1) {
+        FittedH g;
+        g.status = HStatus::fixed_infinite;
+        g.h_W_m2K = g.h_start_W_m2K = s.h_W_m2K;
+        groups.push_back(g);
+      }
+      groups.back().stages.push_back(i);
+      continue;
+    }
+    auto it = by_h.find(s.h_W_m2K);
+    if (it == by_h.end()) {
+      FittedH g;
+      g.h_W_m2K = g.h_start_W_m2K = s.h_W_m2K;
+      groups.push_back(g);
+      it = by_h.emplace(s.h_W_m2K, static_cast<int>(groups.size()) - 1).first;
+    }
+    groups[static_cast<std::size_t>(it->second)].stages.push_back(i);
+  }
+  return groups;
+}
+
+/// Smallest half-dimension (radius, half-thickness, half-edge) of the product.
+double smallest_half_m(const Product& p) {
+  const Dimensions& d = p.dims;
+  switch (p.shape) {
+    case Shape::sphere:
+    case Shape::cylinder: return d.diameter_m / 2;
+    case Shape::finite_cylinder: return std::min(d.diameter_m, d.length_m) / 2;
+    case Shape::slab: return d.thickness_m / 2;
+    case Shape::brick: return std::min({d.size_m[0], d.size_m[1], d.size_m[2]}) / 2;
+  }
+  return d.diameter_m / 2;
+}
+
+/// A probe's initial temperature: the mean of its readings while the centre cannot yet have
+/// moved (Fo <= 0.02 at the file's α: the centre is then within 1e-6 of its start), so one
+/// noisy first reading does not bias the whole fit.
+double initial_of(const ProbeCurve& c, double window_s) {
+  double sum = 0;
+  int n = 0;
+  for (std::size_t i = 0; i < c.time_s.size() && (i == 0 || c.time_s[i] <= window_s); ++i, ++n) sum += c.temp_C[i];
+  return sum / n;
+}
+
+struct Model {
+  const FitInput& in;
+  Layout layout;
+  int n = 0;
+  std::vector<double> initial_C;  ///< per probe
+
+  int parameters() const { return (layout.alpha_free ? 1 : 0) + static_cast<int>(layout.free_groups.size()); }
+
+  /// α and the stages' h for parameter vector x.
+  std::pair<Product, std::vector<Stage>> apply(const Eigen::VectorXd& x) const {
+    Product p = in.product;
+    const double rho_cp = p.properties.density_kg_m3 * p.properties.specific_heat_J_kgK;
+    int k = 0;
+    const double alpha = layout.alpha_free ? std::exp(x[k++]) : layout.alpha;
+    p.properties.conductivity_W_mK = alpha * rho_cp;
+    std::vector<Stage> st = in.stages;
+    for (const FittedH& g : layout.groups)
+      for (int s : g.stages) st[static_cast<std::size_t>(s)].h_W_m2K = g.h_W_m2K;
+    for (int gi : layout.free_groups) {
+      const double h = std::exp(x[k++]);
+      for (int s : layout.groups[static_cast<std::size_t>(gi)].stages) st[static_cast<std::size_t>(s)].h_W_m2K = h;
+    }
+    return {p, st};
+  }
+
+  /// Residuals model − measured at every reading after each probe's first.
+  Eigen::VectorXd residuals(const Eigen::VectorXd& x, std::vector<std::vector<double>>* curves = nullptr) const {
+    const auto [p, st] = apply(x);
+    std::vector<std::vector<double>> model(in.probes.size());
+    detail::for_each_index(in.probes.size(), [&](std::size_t i) {
+      const ProbeCurve& c = in.probes[i];
+      model[i] = model_curve(p, st, initial_C[i], c.time_s, in.engine);
+    });
+    Eigen::VectorXd r(n);
+    int k = 0;
+    for (std::size_t i = 0; i < in.probes.size(); ++i)
+      for (std::size_t j = 1; j < in.probes[i].time_s.size(); ++j) r[k++] = model[i][j] - in.probes[i].temp_C[j];
+    if (curves) *curves = std::move(model);
+    return r;
+  }
+
+  Eigen::MatrixXd jacobian(const Eigen::VectorXd& x, const Eigen::VectorXd& r0) const {
+    Eigen::MatrixXd J(n, x.size());
+    for (Eigen::Index c = 0; c < x.size(); ++c) {
+      Eigen::VectorXd xs = x;
+      xs[c] += kStep;
+      J.col(c) = (residuals(xs) - r0) / kStep;
+    }
+    return J;
+  }
+};
+
+struct LmFunctor : Eigen::DenseFunctor<double> {
+  const Model& m;
+  LmFunctor(const Model& model, int params) : DenseFunctor<double>(params, model.n), m(model) {}
+  int operator()(const InputType& x, ValueType& f) const {
+    f = m.residuals(x);
+    return 0;
+  }
+  int df(const InputType& x, JacobianType& J) const {
+    J = m.jacobian(x, m.residuals(x));
+    return 0;
+  }
+};
+
+struct Solution {
+  Eigen::VectorXd x;
+  Eigen::VectorXd r;
+  double ssr = 0;
+  int iterations = 0;
+  bool converged = false;
+};
+
+Solution minimise(const Model& m, Eigen::VectorXd x) {
+  Solution s;
+  if (x.size() > 0) {
+    LmFunctor f(m, static_cast<int>(x.size()));
+    Eigen::LevenbergMarquardt<LmFunctor> lm(f);
+    lm.setXtol(1e-8);
+    lm.setFtol(1e-10);
+    lm.setMaxfev(200);
+    const auto status = lm.minimize(x);
+    s.iterations = static_cast<int>(lm.nfev());
+    using namespace Eigen::LevenbergMarquardtSpace;
+    s.converged = status == RelativeReductionTooSmall || status == RelativeErrorTooSmall ||
+                  status == RelativeErrorAndReductionTooSmall || status == CosinusTooSmall ||
+                  status == FtolTooSmall || status == XtolTooSmall || status == GtolTooSmall;
+  } else {
+    s.converged = true;
+  }
+  s.x = x;
+  s.r = m.residuals(x);
+  s.ssr = s.r.squaredNorm();
+  return s;
+}
+
+Eigen::VectorXd start_vector(const Model& m, double alpha) {
+  Eigen::VectorXd x(m.parameters());
+  int k = 0;
+  if (m.layout.alpha_free) x[k++] = std::log(alpha);
+  for (int gi : m.layout.free_groups) x[k++] = std::log(m.layout.groups[static_cast<std::size_t>(gi)].h_W_m2K);
+  return x;
+}
+
+/// Stores the solution's values into the layout (α and every free group's h).
+void store(Model& m, const Eigen::VectorXd& x) {
+  int k = 0;
+  if (m.layout.alpha_free) m.layout.alpha = std::exp(x[k++]);
+  for (int gi : m.layout.free_groups) m.layout.groups[static_cast<std::size_t>(gi)].h_W_m2K = std::exp(x[k++]);
+}
+
+/// Smallest h of group `gi` whose profiled SSR stays within `limit` (α and the other groups
+/// refitted at each trial): bisection in ln h below the optimum.
+double profile_lower_bound(const Model& fitted, int gi, double limit) {
+  Model m = fitted;
+  m.layout.free_groups.erase(std::find(m.layout.free_groups.begin(), m.layout.free_groups.end(), gi));
+  const double h_hat = fitted.layout.groups[static_cast<std::size_t>(gi)].h_W_m2K;
+  const auto ssr_at = [&](double h) {
+    Model t = m;
+    t.layout.groups[static_cast<std::size_t>(gi)].h_W_m2K = h;
+    return minimise(t, start_vector(t, fitted.layout.alpha)).ssr;
+  };
+  double inside = std::log(h_hat), outside = inside;
+  // Step down a decade at a time until the fit is clearly worse (or h is absurdly small).
+  for (int i = 0; i < 8; ++i) {
+    outside -= std::log(10.0);
+    if (ssr_at(std::exp(outside)) > limit) break;
+    inside = outside;
+  }
+  for (int i = 0; i < 14; ++i) {  // 14 halvings of a decade: 0.02 % in h
+    const double mid = 0.5 * (inside + outside);
+    (ssr_at(std::exp(mid)) > limit ? outside : inside) = mid;
+  }
+  return std::exp(inside);
+}
+
+/// Biot number of every study stage at parameters x (from one cheap run of the engine).
+std::vector<double> stage_biots(const Model& m, const Eigen::VectorXd& x) {
+  const auto [p0, st] = m.apply(x);
+  Product p = p0;
+  p.initial_C = m.initial_C.front();
+  HistoryOptions quick;
+  quick.tol_K = 1e-2;
+  const History h = simulate(p, st, quick);
+  std::vector<double> out;
+  for (const StageRecord& r : h.stages) out.push_back(r.biot);
+  return out;
+}
+
+}  // namespace
+
+FitResult fit_study(const FitInput& in) {
+  if (in.probes.empty()) throw InputError("fit: no probe curve to fit");
+  Model m{in, {}, 0, {}};
+  for (const ProbeCurve& c : in.probes) {
+    if (c.time_s.size() < 3)
+      throw InputError("fit: probe " + c.name + " has " + std::to_string(c.time_s.size()) +
+                       " readings: at least 3 are needed");
+    m.n += static_cast<int>(c.time_s.size()) - 1;
+  }
+  const ThermalProperties& tp = in.product.properties;
+  const double window_s = 0.02 * std::pow(smallest_half_m(in.product), 2) / tp.diffusivity_m2_s();
+  for (const ProbeCurve& c : in.probes) m.initial_C.push_back(initial_of(c, window_s));
+  const double rho_cp = tp.density_kg_m3 * tp.specific_heat_J_kgK;
+  FitResult res;
+  res.alpha_start_m2_s = tp.diffusivity_m2_s();
+  m.layout.groups = stage_groups(in.stages);
+  m.layout.alpha = res.alpha_start_m2_s;
+  for (int g = 0; g < static_cast<int>(m.layout.groups.size()); ++g)
+    if (m.layout.groups[static_cast<std::size_t>(g)].status == HStatus::fitted) m.layout.free_groups.push_back(g);
+  if (m.n < m.parameters() + 2)
+    throw InputError("fit: " + std::to_string(m.n) + " readings for " + std::to_string(m.parameters()) +
+                     " parameters: at least parameters + 2 are needed");
+
+  Solution sol = minimise(m, start_vector(m, res.alpha_start_m2_s));
+  store(m, sol.x);
+  res.iterations = sol.iterations;
+  res.converged = sol.converged;
+
+  // Identifiability of each h group, from the Jacobian at the optimum.
+  Eigen::MatrixXd J = m.jacobian(sol.x, sol.r);
+  int dof = m.n - m.parameters();
+  double t95 = boost::math::quantile(boost::math::students_t(std::max(dof, 1)), 0.975);
+  Eigen::MatrixXd cov = (J.transpose() * J).completeOrthogonalDecomposition().pseudoInverse() * (sol.ssr / dof);
+  const double ssr_limit = sol.ssr * (1.0 + t95 * t95 / dof);
+  std::vector<int> fixed_now;
+  {
+    const std::vector<double> biots = stage_biots(m, sol.x);
+    int k = m.layout.alpha_free ? 1 : 0;
+    for (int gi : m.layout.free_groups) {
+      FittedH& g = m.layout.groups[static_cast<std::size_t>(gi)];
+      g.biot = biots[static_cast<std::size_t>(g.stages.front())];
+      const double se = std::sqrt(std::max(cov(k, k), 0.0));
+      if (J.col(k).cwiseAbs().maxCoeff() < 1e-3) {  // a change of h moves no reading by 1 mK
+        g.status = HStatus::not_identified;
+        g.h_W_m2K = g.h_start_W_m2K;
+        fixed_now.push_back(gi);
+      } else if (!std::isfinite(se) || 2 * t95 * se > std::log(100.0) || g.biot > kHighBiot) {
+        g.status = HStatus::lower_bound;
+        fixed_now.push_back(gi);
+      }
+      ++k;
+    }
+  }
+  if (!fixed_now.empty()) {
+    for (int gi : fixed_now) {
+      FittedH& g = m.layout.groups[static_cast<std::size_t>(gi)];
+      if (g.status == HStatus::lower_bound) g.h_W_m2K = profile_lower_bound(m, gi, ssr_limit);
+    }
+    for (int gi : fixed_now)
+      m.layout.free_groups.erase(std::find(m.layout.free_groups.begin(), m.layout.free_groups.end(), gi));
+    sol = minimise(m, start_vector(m, m.layout.alpha));
+    store(m, sol.x);
+    res.iterations += sol.iterations;
+    res.converged = res.converged && sol.converged;
+    J = m.jacobian(sol.x, sol.r);
+    dof = m.n - m.parameters();
+    t95 = boost::math::quantile(boost::math::students_t(std::max(dof, 1)), 0.975);
+    cov = (J.transpose() * J).completeOrthogonalDecomposition().pseudoInverse() * (sol.ssr / dof);
+  }
+
+  // The result.
+  res.alpha_m2_s = m.layout.alpha;
+  res.conductivity_W_mK = m.layout.alpha * rho_cp;
+  res.alpha_se_log = std::sqrt(std::max(cov(0, 0), 0.0));
+  res.alpha_ci95_m2_s = {res.alpha_m2_s * std::exp(-t95 * res.alpha_se_log),
+                         res.alpha_m2_s * std::exp(t95 * res.alpha_se_log)};
+  res.parameters = {"alpha"};
+  {
+    const std::vector<double> biots = stage_biots(m, sol.x);
+    int k = 1;
+    for (int gi = 0; gi < static_cast<int>(m.layout.groups.size()); ++gi) {
+      FittedH& g = m.layout.groups[static_cast<std::size_t>(gi)];
+      g.biot = biots[static_cast<std::size_t>(g.stages.front())];
+      if (std::find(m.layout.free_groups.begin(), m.layout.free_groups.end(), gi) == m.layout.free_groups.end()) continue;
+      g.se_log = std::sqrt(std::max(cov(k, k), 0.0));
+      g.ci95_W_m2K = {g.h_W_m2K * std::exp(-t95 * g.se_log), g.h_W_m2K * std::exp(t95 * g.se_log)};
+      res.parameters.push_back("h:" + std::to_string(gi));
+      ++k;
+    }
+  }
+  res.h = m.layout.groups;
+  const auto p = static_cast<std::size_t>(cov.rows());
+  res.covariance_log.assign(p, std::vector<double>(p, 0.0));
+  res.correlation.assign(p, std::vector<double>(p, 0.0));
+  for (std::size_t a = 0; a < p; ++a)
+    for (std::size_t b = 0; b < p; ++b) {
+      const auto ia = static_cast<Eigen::Index>(a), ib = static_cast<Eigen::Index>(b);
+      res.covariance_log[a][b] = cov(ia, ib);
+      const double d = std::sqrt(cov(ia, ia) * cov(ib, ib));
+      res.correlation[a][b] = d > 0 ? cov(ia, ib) / d : (a == b ? 1.0 : 0.0);
+    }
+  res.n_points = m.n;
+  res.n_parameters = m.parameters();
+  res.dof = dof;
+  res.t95 = t95;
+  res.rms_K = std::sqrt(sol.ssr / m.n);
+  std::vector<std::vector<double>> curves;
+  m.residuals(sol.x, &curves);
+  for (std::size_t i = 0; i < in.probes.size(); ++i) {
+    const ProbeCurve& c = in.probes[i];
+    ProbeFit pf;
+    pf.name = c.name;
+    pf.time_s = c.time_s;
+    pf.measured_C = c.temp_C;
+    pf.model_C = curves[i];
+    double ss = 0;
+    for (std::size_t j = 1; j < c.time_s.size(); ++j) ss += (pf.model_C[j] - c.temp_C[j]) * (pf.model_C[j] - c.temp_C[j]);
+    pf.rms_K = std::sqrt(ss / static_cast<double>(c.time_s.size() - 1));
+    res.probes.push_back(std::move(pf));
+  }
+  return res;
+}
+
+}  // namespace coldcore::process
