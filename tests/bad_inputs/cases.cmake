@@ -126,7 +126,7 @@ bad(opt_solve_end_nan 2 "--end-C: nan: must be from -200 to 400 C" ARGS solve p.
 bad(opt_modes_biot_negative 2 "--biot = -3: must be >= 1e-6 (or inf)" ARGS modes --shape sphere --biot -3)
 bad(opt_props_sum 2 "--composition: composition.water = 2: must be within 0 and 1" ARGS props --composition water=2)
 bad(opt_props_step_zero 2 "--step-C: 0: must be greater than 0 and at most 600 C" ARGS props --composition water=0.7,protein=0.3 --step-C 0)
-bad(verb_unknown 2 "unknown verb 'rnu'; did you mean 'run'? (verbs: run, modes, props, probe, organisms, rules, solve, deviation, media, help; coldcore --help)" ARGS rnu p.toml)
+bad(verb_unknown 2 "unknown verb 'rnu'; did you mean 'run'? (verbs: run, modes, props, probe, organisms, rules, solve, deviation, fit, media, help; coldcore --help)" ARGS rnu p.toml)
 bad(deviation_without_log 2 "deviation: give --medium-log LOG.csv and/or --probe-log LOG.csv" ARGS deviation p.toml)
 bad(deviation_stage_unknown 2 "--stage = \"cok\": no such stage; stages are \"cook\", \"chill\"" ARGS deviation p.toml --medium-log l.csv --stage cok)
 bad(deviation_tolerance_nan 2 "--tolerance-K: nan: must be greater than 0 and at most 50 K" ARGS deviation p.toml --medium-log l.csv --tolerance-K nan)
