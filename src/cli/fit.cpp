@@ -1,4 +1,4 @@
-// coldcore fit FILE --probe-log LOG.csv [...] [--medium-log LOG.csv]:
+// coldcore fit FILE --probe-log LOG.csv [...] [--medium-log LOG.csv] [--write-product OUT.toml]:
 // a heat-penetration study described the trade's way and the exact model calibrated to it.
 #include <filesystem>
 #include <iostream>
@@ -9,6 +9,7 @@
 #include "cli/verbs.hpp"
 #include "coldcore/error.hpp"
 
+#include "coldcore/io/calibration_file.hpp"
 #include "coldcore/io/logger_csv.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/scenario.hpp"
@@ -26,6 +27,7 @@ struct FitArgs {
   std::vector<std::string> probe_logs;
   std::string medium_log;
   std::string medium_column;
+  std::string write_product;
   double max_gap_s = 60;
   std::string timezone;
   std::string date;
@@ -128,6 +130,19 @@ int run_fit(const FitArgs& a, std::ostream& out, SideFiles& side) {
   ctx.provenance.insert(ctx.provenance.end(), lib_rows.begin(), lib_rows.end());
   ctx.provenance.push_back({"date", report_date(a.date)});
   ctx.provenance.push_back({"version", kVersion});
+  if (!a.write_product.empty()) {
+    std::vector<std::string> study;
+    for (const auto& kv : ctx.provenance) study.push_back(kv.key + ": " + kv.value);
+    const Calibration cal = process::calibration_of(analysis.fit_slowest, ctx.stage_names,
+                                                    analysis.curves[static_cast<std::size_t>(analysis.slowest)].name,
+                                                    report_date(a.date), study);
+    const ThermalProperties& tp = file.product.properties;
+    const std::string toml = io::calibrated_product_toml(io::read_text_file(a.file), cal,
+                                                         tp.density_kg_m3 * tp.specific_heat_J_kgK);
+    write_whole_file(a.write_product, toml, "--write-product");
+    ctx.written_product = a.write_product;
+  }
+
   switch (f) {
     case Format::json: write_fit_json(analysis, ctx, out, u); break;
     case Format::csv: write_fit_csv(analysis, ctx, out, u); break;
@@ -152,6 +167,7 @@ void add_fit_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--probe-log", a->probe_logs, "measured cold-spot log (repeat for several; a log may hold one *_C column per container)")->required();
   sub->add_option("--medium-log", a->medium_log, "measured medium log over the whole study (default: the scheduled media)");
   sub->add_option("--medium-column", a->medium_column, "which temperature column of the medium log to use when it has several");
+  sub->add_option("--write-product", a->write_product, "write the calibrated product file (fitted k and h, their intervals as ranges, the covariance) here");
   sub->add_option("--max-gap-s", a->max_gap_s, "gaps longer than this in a log are reported, s")->capture_default_str()->check(within(0, limits::duration_s.high, "s", true));
   sub->add_option("--timezone", a->timezone, "fixed UTC offset of timestamps written without one, e.g. +01:00");
   sub->add_option("--date", a->date, "report date for provenance, YYYY-MM-DD (default: today in local time)");

@@ -175,6 +175,12 @@ void write_all_or_nothing(const std::vector<std::pair<fs::path, std::string>>& f
 
 }  // namespace
 
+void write_whole_file(const std::string& path, const std::string& text, const std::string& option) {
+  const std::string shown = option + " = " + path;
+  check_target(path, shown);
+  write_all_or_nothing({{fs::path(path), text}}, {shown});
+}
+
 int with_output(const OutputArgs& a, const std::function<int(std::ostream&)>& body) {
   return with_output(a, [&](std::ostream& out, SideFiles&) { return body(out); });
 }

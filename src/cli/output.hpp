@@ -56,6 +56,10 @@ std::string report_date(const std::string& given);
 /// returns body's exit code. On an exception nothing is written.
 int with_output(const OutputArgs& a, const std::function<int(std::ostream&)>& body);
 
+/// Writes `text` to `path` whole or not at all (a temporary renamed into place), refusing an
+/// input file, a directory or a device; messages start with `<option> = <path>`.
+void write_whole_file(const std::string& path, const std::string& text, const std::string& option);
+
 /// Files written beside --out (e.g. the SVG plots of a Markdown report): name relative to the
 /// folder of --out, and content.
 using SideFiles = std::vector<std::pair<std::string, std::string>>;

@@ -7,6 +7,7 @@
 #include "cli/verbs.hpp"
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/error.hpp"
+#include "coldcore/process/fit_bound.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/scenario.hpp"
 #include "coldcore/process/inverse.hpp"
@@ -58,6 +59,9 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side, VerdictSummary
   add_assessment(report, history_of, assessment, file.targets);
   add_scenarios(report, eval, &file.product, file.targets, a.output.step_s);  // every scenario's history
   add_h_assumptions(report, eval);
+  if (file.calibration)
+    add_fit_bound(report, process::targets_at_fit_bound(scenario, *file.calibration, {&lib.organisms, &lib.rules, &lib.cooking}),
+                  *file.calibration);
   summary = verdict_summary(report);
   switch (f) {
     case Format::json: write_run_json(report, out, u); break;

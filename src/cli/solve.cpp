@@ -7,6 +7,7 @@
 #include "cli/output.hpp"
 #include "cli/verbs.hpp"
 #include "coldcore/error.hpp"
+#include "coldcore/process/fit_bound.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/scenario.hpp"
 #include "coldcore/process/conservative.hpp"
@@ -69,7 +70,11 @@ int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side, VerdictSum
     cons = process::solve_conservative(q, s, io::ranges_of(file), {&libs.organisms, &libs.rules, &libs.cooking}, o,
                                        a.threads);
   }
+  std::optional<process::SolveResult> at_bound;
+  if (file.calibration)
+    at_bound = process::solve_at_fit_bound(q, s, *file.calibration, {&libs.organisms, &libs.rules, &libs.cooking}, o, r);
   SolveReportContext c;
+  if (at_bound) c.at_fit_bound = &*at_bound;
   c.product_name = file.product.name;
   c.warnings = file.warnings;
   if (cons) c.conservative = &*cons;

@@ -12,6 +12,7 @@
 #include <sstream>
 
 #include "coldcore/error.hpp"
+#include "coldcore/io/calibration_file.hpp"
 #include "coldcore/io/can_size.hpp"
 #include "coldcore/io/sha256.hpp"
 #include "io/detail/fields.hpp"
@@ -278,7 +279,8 @@ ProductFile parse_product(std::string_view toml_text, std::string_view origin_sv
     throw InputError(origin + ": schema = " + detail::format_value(*schema) +
                      ": must be 1 (the only product-file schema this coldcore reads)");
 
-  Fields root(doc, origin, "", {plain("schema"), plain("product"), plain("stage"), plain("target")});
+  Fields root(doc, origin, "",
+              {plain("schema"), plain("product"), plain("stage"), plain("target"), plain("calibration")});
   const toml::node* product = root.node("product");
   if (product == nullptr) root.missing("product", "a [product] table (name, shape, size, initial temperature, properties)");
   if (!product->is_table()) root.fail("product", "must be a table [product]");
@@ -291,6 +293,11 @@ ProductFile parse_product(std::string_view toml_text, std::string_view origin_sv
 
   detail::parse_stages(root, base_dir, read_log, out);
   detail::parse_targets(root, out);
+  if (const toml::node* cal = root.node("calibration")) {
+    if (!cal->is_table()) root.fail("calibration", "must be a table [calibration] (written by coldcore fit)");
+    out.calibration = parse_calibration(*cal->as_table(), origin);
+    if (!out.composition) check_calibration(*out.calibration, out.product, out.stages, origin);
+  }
   return out;
 }
 

@@ -22,6 +22,33 @@ HistoryOptions FitInput::fit_engine_options() {
   return o;
 }
 
+Calibration calibration_of(const FitResult& fit, const std::vector<std::string>& stage_names,
+                           const std::string& design_probe, const std::string& date,
+                           const std::vector<std::string>& study) {
+  Calibration c;
+  c.alpha_m2_s = fit.alpha_m2_s;
+  c.alpha_ci95_m2_s = fit.alpha_ci95_m2_s;
+  for (const FittedH& g : fit.h) {
+    if (g.status == HStatus::fixed_infinite) continue;
+    CalibratedH ch;
+    for (int i : g.stages) ch.stages.push_back(stage_names[static_cast<std::size_t>(i)]);
+    ch.status = g.status == HStatus::fitted        ? CalibratedHStatus::fitted
+                : g.status == HStatus::lower_bound ? CalibratedHStatus::lower_bound
+                                                   : CalibratedHStatus::not_identified;
+    ch.h_W_m2K = g.h_W_m2K;
+    ch.ci95_W_m2K = g.ci95_W_m2K;
+    c.h.push_back(std::move(ch));
+  }
+  c.covariance_log = fit.covariance_log;
+  c.dof = fit.dof;
+  c.rms_K = fit.rms_K;
+  c.n_points = fit.n_points;
+  c.design_probe = design_probe;
+  c.date = date;
+  c.study = study;
+  return c;
+}
+
 std::vector<double> model_curve(const Product& product, const std::vector<Stage>& stages, double initial_C,
                                 const std::vector<double>& time_s, const HistoryOptions& engine) {
   Product p = product;

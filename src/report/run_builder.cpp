@@ -363,4 +363,30 @@ void add_assessment(RunReport& report, const std::vector<const History*>& histor
   report.warnings.insert(report.warnings.end(), assessment.warnings.begin(), assessment.warnings.end());
 }
 
+void add_fit_bound(RunReport& report, const std::vector<TargetResult>& at_bound, const Calibration& c) {
+  report.assumptions.push_back(
+      "Calibrated by a heat-penetration study (" + c.date + ", design probe " + c.design_probe + ", " +
+      std::to_string(c.n_points) + " readings, residual RMS " + fixed(c.rms_K, 3) +
+      " K): each target is also shown at the one-sided 95 % bound of the fit, the least favourable point of the "
+      "fit's confidence region for that target (delta method, Student t with " + std::to_string(c.dof) +
+      " degrees of freedom), computed with the full model. The bound covers the fit's statistical uncertainty only, "
+      "not container-to-container variation beyond the probes studied.");
+  for (std::size_t i = 0; i < report.verdicts.size() && i < at_bound.size(); ++i) {
+    VerdictRow& v = report.verdicts[i];
+    const TargetResult& t = at_bound[i];
+    VerdictRow::AtFitBound b;
+    b.achieved = t.achieved_text;
+    b.margin = detail::margin_cell(t);
+    b.met = t.verdict == Verdict::met;
+    b.achieved_value = t.achieved;
+    b.margin_value = t.margin;
+    v.details.push_back("at the 95 % bound of the fit: achieved " + b.achieved + ", margin " + b.margin + " (" +
+                        std::string(verdict_word(b.met)) + ")");
+    if (v.met && !b.met)
+      report.warnings.push_back(v.name + ": met with the fitted values but not demonstrated at the 95 % bound of the "
+                                "fit; more study data (or a longer process) is needed to claim it with confidence");
+    v.at_fit_bound = b;
+  }
+}
+
 }  // namespace coldcore

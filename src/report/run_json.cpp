@@ -114,6 +114,17 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
     w.key("value_unit").value(v.value_unit);
     if (!v.scenario.empty()) w.key("scenario").value(v.scenario);
     w.key("details").value(v.details);
+    if (v.at_fit_bound) {
+      const auto& b = *v.at_fit_bound;
+      w.key("at_fit_bound").begin_object();
+      w.key("verdict").value(verdict_word(b.met));
+      w.key("met").value(b.met);
+      w.key("achieved").value(b.achieved);
+      w.key("margin").value(b.margin);
+      w.key("achieved_value").value(b.achieved_value);
+      w.key("margin_value").value(b.margin_value);
+      w.end_object();
+    }
     if (v.cooling) write_cooling_steps_json(w, *v.cooling);
     w.end_object();
   }

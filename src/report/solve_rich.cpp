@@ -66,10 +66,11 @@ void question_section(RichDoc& d, const SolveResult& r, const SolveReportContext
   d.section_end();
 }
 
-void answer_section(RichDoc& d, const SolveResult& r, TempUnit u) {
+void answer_section(RichDoc& d, const SolveResult& r, const SolveReportContext& c, TempUnit u) {
   d.section_begin("answer", "Answer");
   d.statement("Use " + detail::solve_shown(r, r.rounded, u) + " (" + detail::solve_rounding_text(r, u) +
               ", toward the safe side).");
+  if (c.at_fit_bound) d.statement("Fit bound: " + fit_bound_sentence(r, *c.at_fit_bound, u) + ".");
   d.key_value({{"answer, unrounded", detail::solve_shown_raw(r, r.answer, u)},
                {"answer to use", detail::solve_shown(r, r.rounded, u)},
                {"rounding", detail::solve_rounding_text(r, u)},
@@ -175,7 +176,7 @@ void write_solve_doc(RichDoc& d, const SolveResult& r, const SolveReportContext&
           " — " + c.product_name);
   d.verdict_summary(verdict_summary(r, c.conservative));
   question_section(d, r, c, u);
-  answer_section(d, r, u);
+  answer_section(d, r, c, u);
   verification_section(d, r, u);
   plot_section(d, c, u);
   conservative_section(d, r, c, u);

@@ -99,6 +99,7 @@ void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::os
   out << "  scheduled:        " << shown(r, r.nominal, u) << "\n";
   out << "  answer:           " << shown_raw(r, r.answer, u) << " (unrounded)\n";
   out << "  use:              " << shown(r, r.rounded, u) << "  (" << detail::solve_rounding_text(r, u) << ")\n";
+  if (c.at_fit_bound) out << "  fit bound:        " << fit_bound_sentence(r, *c.at_fit_bound, u) << "\n";
   out << "  solved for:       ";
   for (std::size_t i = 0; i < r.considered.size(); ++i) out << (i ? ", " : "") << r.considered[i];
   out << "\n\nVERIFICATION (forward re-run)\n";
@@ -163,6 +164,17 @@ void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::os
   w.key("nominal_" + r.unit).value(r.nominal);
   w.key("verification");
   json_check(w, r, r.verification);
+  w.key("at_fit_bound");
+  if (c.at_fit_bound) {
+    w.begin_object();
+    w.key("answer_" + r.unit).value(c.at_fit_bound->answer);
+    w.key("rounded_" + r.unit).value(c.at_fit_bound->rounded);
+    w.key("verification");
+    json_check(w, *c.at_fit_bound, c.at_fit_bound->verification);
+    w.end_object();
+  } else {
+    w.null();
+  }
   w.key("one_unit_less");
   if (r.one_unit_less) json_check(w, r, *r.one_unit_less); else w.null();
   if (r.end_C) {
@@ -224,6 +236,8 @@ void write_solve_csv(const SolveResult& r, const SolveReportContext& c, std::ost
   out << "# question: " << to_string(r.question) << (r.stage.empty() ? "" : "; stage: " + r.stage) << "\n";
   out << "# answer_" << r.unit << " (unrounded): " << JsonWriter::number(r.answer) << "\n";
   out << "# rounded_" << r.unit << " (to use): " << JsonWriter::number(r.rounded) << "\n";
+  if (c.at_fit_bound)
+    out << "# at_fit_bound rounded_" << r.unit << ": " << JsonWriter::number(c.at_fit_bound->rounded) << "\n";
   for (const auto& n : r.notes) out << "# note: " << n << "\n";
   for (const auto& n : r.assumptions) out << "# assumption: " << n << "\n";
   for (const auto& n : c.warnings) out << "# warning: " << n << "\n";
@@ -264,6 +278,13 @@ void write_solve_csv(const SolveResult& r, const SolveReportContext& c, std::ost
     rows("conservative", cr.verification, cr.end_C ? std::optional<double>(cr.end_at_rounded_C) : std::nullopt,
          cr.end_reached_at_rounded);
   }
+}
+
+std::string fit_bound_sentence(const SolveResult& nominal, const SolveResult& bound, TempUnit u) {
+  return detail::solve_shown(nominal, nominal.rounded, u) + " with the fitted values; " +
+         detail::solve_shown(bound, bound.rounded, u) +
+         " at the one-sided 95 % bound of the fit (the least favourable point of its confidence region, "
+         "computed with the full model and rounded the same way)";
 }
 
 }  // namespace coldcore

@@ -44,6 +44,7 @@
 ///              kind = cooling-rule: rule, optional at = "centre" | "mean", name (default rule)
 ///              kind = centre-min-temperature: min_*, hold_* >= 0, optional at, name
 ///              z_F is a temperature difference: z_C = z_F / 1.8. Target names are unique.
+///   [calibration]  optional, written by coldcore fit (io/calibration_file.hpp)
 #include <array>
 #include <cstdint>
 #include <filesystem>
@@ -55,6 +56,7 @@
 
 #include "coldcore/io/logger_csv.hpp"
 #include "coldcore/io/media.hpp"
+#include "coldcore/model/calibration.hpp"
 #include "coldcore/model/product.hpp"
 #include "coldcore/model/stages.hpp"
 #include "coldcore/properties/composition.hpp"
@@ -94,6 +96,8 @@ struct ProductFile {
   ProductRanges ranges;                      ///< [product.ranges], when given
   std::string origin;                        ///< as passed to parse_product
   std::string sha256_hex;                    ///< of the TOML text, for provenance
+  /// [calibration] (io/calibration_file.hpp), written by `coldcore fit --write-product`.
+  std::optional<Calibration> calibration;
 };
 
 /// Reads a medium log for parse_product. Returns the file's bytes, or nullopt when it cannot

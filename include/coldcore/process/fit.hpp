@@ -26,6 +26,7 @@
 #include <vector>
 
 #include "coldcore/conduction/history.hpp"
+#include "coldcore/model/calibration.hpp"
 #include "coldcore/model/product.hpp"
 #include "coldcore/process/study.hpp"
 
@@ -82,6 +83,12 @@ inline constexpr double kHighBiot = 200;
 /// Fits α and the h groups. InputError when there are fewer readings than parameters + 2, or a
 /// probe has fewer than 3 readings; NotConverged when the solver fails outright.
 FitResult fit_study(const FitInput& in);
+
+/// The fit as a product file's calibration: the h groups by stage name (`stage_names` indexes
+/// the study's stages), the covariance of the free parameters, provenance.
+Calibration calibration_of(const FitResult& fit, const std::vector<std::string>& stage_names,
+                           const std::string& design_probe, const std::string& date,
+                           const std::vector<std::string>& study);
 
 /// The model's cold-spot curve of one probe at the given α and h per study stage (for bounds
 /// and cross-checks): centre temperatures at `time_s`, from `initial_C`.

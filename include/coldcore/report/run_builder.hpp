@@ -7,6 +7,7 @@
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/report/assessment.hpp"
 #include "coldcore/io/product_file.hpp"
+#include "coldcore/model/calibration.hpp"
 #include "coldcore/process/inverse.hpp"
 #include "coldcore/report/run_report.hpp"
 
@@ -47,6 +48,12 @@ void add_assessment(RunReport& report, const std::vector<const History*>& histor
 /// (every format shows them); when the targets were split, also that every verdict names its
 /// scenario and the report shows each scenario's history.
 void add_h_assumptions(RunReport& report, const process::Evaluation& e);
+
+/// A calibrated product: each verdict row gets its target at the one-sided 95 % bound of the
+/// fit (process/fit_bound.hpp; at_bound[i] is target i, in the verdict rows' order), a detail
+/// line saying it, an assumption naming the calibration, and a warning for every target met
+/// nominally but not at the bound.
+void add_fit_bound(RunReport& report, const std::vector<TargetResult>& at_bound, const Calibration& c);
 
 /// When the targets were split over h scenarios (e.h_scenarios.size() > 1): one ScenarioView per
 /// scenario from the histories evaluate made (sampled every `step_s` (> 0) and at every stage

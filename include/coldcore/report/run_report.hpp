@@ -58,6 +58,14 @@ struct VerdictRow {
   double margin_uncertainty_value = 0;  ///< error bound of margin_value ("met" needs margin above it)
   std::string value_unit;
   std::optional<CoolingCheck> cooling;  ///< cooling-rule targets: the steps (json "cooling_steps")
+  /// A calibrated product (model/calibration.hpp): the target at the one-sided 95 % bound of
+  /// the fit (json "at_fit_bound"); also one line in details.
+  struct AtFitBound {
+    std::string achieved, margin;
+    bool met = false;
+    double achieved_value = 0, margin_value = 0;
+  };
+  std::optional<AtFitBound> at_fit_bound;
 };
 
 /// What a lethality calculation delivered where no requirement was given: there is no verdict

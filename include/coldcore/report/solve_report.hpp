@@ -33,7 +33,13 @@ struct SolveReportContext {
   /// md/html plots: the verification re-run's own history and assessment, sampled by
   /// build_rerun_report (run_builder.hpp). Null: the rich reports have no plots.
   const RunReport* verification_plot = nullptr;
+  /// A calibrated product: the answer at the one-sided 95 % bound of the fit
+  /// (process/fit_bound.hpp; JSON key "at_fit_bound"). Null otherwise.
+  const process::SolveResult* at_fit_bound = nullptr;
 };
+
+/// "62 min; 66 min at the one-sided 95 % bound of the fit" style line for a calibrated product.
+std::string fit_bound_sentence(const process::SolveResult& nominal, const process::SolveResult& bound, TempUnit u);
 
 void write_solve_text(const process::SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
 void write_solve_json(const process::SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
