@@ -289,7 +289,7 @@ SPH_H = 150.0
 SPH_SEGMENTS = [(0.0, 300.0, 5.0, 95.0, SPH_H),
                 (300.0, 3600.0, 95.0, 95.0, SPH_H),
                 (3600.0, 7200.0, 2.0, 2.0, SPH_H)]
-SPH_FINE, SPH_COARSE = ((400,), 0.5), ((200,), 1.0)
+SPH_FINE, SPH_COARSE = ((800,), 0.25), ((400,), 0.5)
 
 BRK = dict(shape="sphere", R=0.030, k=0.50, rho=1050.0, cp=3500.0)
 BRK_H, BRK_K1, BRK_K2 = 300.0, 0.50, 0.25
