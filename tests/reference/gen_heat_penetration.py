@@ -282,7 +282,7 @@ CAN_H_HEAT, CAN_H_COOL = 600.0, 400.0
 CAN_SEGMENTS = [(0.0, 600.0, 40.0, 121.1, CAN_H_HEAT),        # come-up 40 -> 121.1 in 10 min
                 (600.0, 4200.0, 121.1, 121.1, CAN_H_HEAT),     # hold 60 min
                 (4200.0, 7200.0, 25.0, 25.0, CAN_H_COOL)]      # cooling water 25 C, 50 min
-CAN_FINE, CAN_COARSE = ((80, 120), 1.0), ((40, 60), 2.0)
+CAN_FINE, CAN_COARSE = ((160, 240), 1.0), ((80, 120), 2.0)
 
 SPH = dict(shape="sphere", R=0.030, k=0.45, rho=1050.0, cp=3500.0)
 SPH_H = 150.0
