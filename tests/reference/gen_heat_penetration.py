@@ -33,7 +33,7 @@ All data written are INVENTED (synthetic truth for tests and the Harbour Lane Ki
 Noise: numpy.random.default_rng with the fixed seeds below; readings rounded to 0.1 degC where
 stated.
 
-rerun (from the repository root, ~1-3 minutes on 2 cores):
+rerun (from the repository root; about 6 minutes on 2 cores, most of it the six cans):
     /usr/bin/python3 tests/reference/gen_heat_penetration.py
 """
 import math
@@ -409,9 +409,11 @@ CAN_PROC = ("medium 40 -> 121.1 C linear over 10 min (come-up), 121.1 C to 70 mi
             "W/m2K cooling")
 
 
-def can_desc(alpha):
-    return (f"finite cylinder diameter 0.073 m, length 0.110 m, rho {CAN['rho']:g} kg/m3, "
-            f"cp {CAN['cp']:g} J/kgK, alpha {alpha:.6e} m2/s; cold spot = geometric centre")
+def can_desc(k):
+    alpha = k / (CAN["rho"] * CAN["cp"])
+    return (f"finite cylinder diameter 0.073 m, length 0.110 m, k {k:g} W/mK, rho {CAN['rho']:g}"
+            f" kg/m3, cp {CAN['cp']:g} J/kgK, alpha {alpha:.6e} m2/s; cold spot = geometric "
+            "centre")
 
 
 def can_clean():
@@ -419,10 +421,9 @@ def can_clean():
     cen, diff = converged(lambda: can_run(CAN, 40.0, times, CAN_FINE),
                           lambda: can_run(CAN, 40.0, times, CAN_COARSE), "can_clean")
     med = [medium_at(CAN_SEGMENTS, t) for t in times]
-    alpha = CAN["k"] / (CAN["rho"] * CAN["cp"])
     write_csv(os.path.join(OUT_REF, "can_clean.csv"),
               gen_comments("synthetic truth curve of the corned-beef can, no noise, not rounded")
-              + [can_desc(alpha) + f", k {CAN['k']} W/mK, initial 40 C", CAN_PROC,
+              + [can_desc(CAN["k"]) + "; initial 40 C", CAN_PROC,
                  f"convergence: max |centre fine - centre check grid| over the rows = {diff:.1e} "
                  "K; " + grid_desc(CAN_FINE, CAN_COARSE, "cyl")],
               ["time_s", "medium_C", "centre_C"],
@@ -459,7 +460,7 @@ def can_study():
               + ["draw order: 6 alpha factors N(1, 0.03) clipped to [0.93, 1.07], 6 initial "
                  "temperatures U(38, 42) C, medium noise (sigma 0.15 K), probe noise (sigma "
                  "0.1 K, 6 x rows); every reading rounded to 0.1 C; a reading every 30 s",
-                 can_desc(alpha0) + f" (k {CAN['k']} W/mK) for factor 1",
+                 "alpha factor 1: " + can_desc(CAN["k"]),
                  CAN_PROC + "; the model is driven by the exact medium, the medium log is that "
                  "plus noise",
                  "true parameters per container (thermocouple at the geometric centre):"]
