@@ -96,6 +96,9 @@ int run_fit(const FitArgs& a, std::ostream& out, SideFiles& side) {
   const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
   if (a.probe_logs.empty()) throw InputError("fit: give at least one --probe-log LOG.csv");
+  if (!a.write_product.empty() && a.file == "-")
+    throw InputError("--write-product = " + a.write_product +
+                     ": needs the product file by name (it is read twice), not standard input");
   const io::ProductFile file = io::load_product(a.file);
   io::require_constant_properties(file);
   const LibraryFiles lib = load_libraries(a.library, a.file);

@@ -9,6 +9,7 @@
 #include <unsupported/Eigen/LevenbergMarquardt>
 
 #include "coldcore/error.hpp"
+#include "coldcore/model/limits.hpp"
 #include "detail/parallel.hpp"
 
 namespace coldcore::process {
@@ -72,9 +73,26 @@ struct Layout {
   double alpha = 0;              ///< when not free
 };
 
-std::vector<FittedH> stage_groups(const std::vector<Stage>& stages) {
+/// A stage heats when its highest medium point is not below the lowest of the stage before it
+/// (the first: not below the product's initial temperature); the rule of h_ends.hpp.
+std::vector<bool> heating_stages(const std::vector<Stage>& stages, double initial_C) {
+  std::vector<bool> out;
+  double before = initial_C;
+  for (const Stage& s : stages) {
+    double hi = -INFINITY, lo = INFINITY;
+    for (const MediumPoint& p : s.medium.points) {
+      hi = std::max(hi, p.temp_C);
+      lo = std::min(lo, p.temp_C);
+    }
+    out.push_back(hi >= before);
+    before = lo;
+  }
+  return out;
+}
+
+std::vector<FittedH> stage_groups(const std::vector<Stage>& stages, const std::vector<bool>& heats) {
   std::vector<FittedH> groups;
-  std::map<double, int> by_h;
+  std::map<std::pair<double, bool>, int> by_h;
   for (int i = 0; i < static_cast<int>(stages.size()); ++i) {
     const Stage& s = stages[static_cast<std::size_t>(i)];
     if (s.h_infinite) {
@@ -87,12 +105,13 @@ std::vector<FittedH> stage_groups(const std::vector<Stage>& stages) {
       groups.back().stages.push_back(i);
       continue;
     }
-    auto it = by_h.find(s.h_W_m2K);
+    const std::pair<double, bool> key{s.h_W_m2K, heats[static_cast<std::size_t>(i)]};
+    auto it = by_h.find(key);
     if (it == by_h.end()) {
       FittedH g;
       g.h_W_m2K = g.h_start_W_m2K = s.h_W_m2K;
       groups.push_back(g);
-      it = by_h.emplace(s.h_W_m2K, static_cast<int>(groups.size()) - 1).first;
+      it = by_h.emplace(key, static_cast<int>(groups.size()) - 1).first;
     }
     groups[static_cast<std::size_t>(it->second)].stages.push_back(i);
   }
@@ -135,13 +154,18 @@ struct Model {
     Product p = in.product;
     const double rho_cp = p.properties.density_kg_m3 * p.properties.specific_heat_J_kgK;
     int k = 0;
-    const double alpha = layout.alpha_free ? std::exp(x[k++]) : layout.alpha;
+    const auto clamp_alpha = [](double a, double rc) {
+      return std::clamp(a, limits::conductivity_W_mK.low / rc, limits::conductivity_W_mK.high / rc);
+    };
+    // Within the accepted ranges of model/limits.hpp: a wild trial step (bad data) must not reach
+    // the engine with a value it refuses; a fit that ends at a limit is reported as such.
+    const double alpha = layout.alpha_free ? clamp_alpha(std::exp(x[k++]), rho_cp) : layout.alpha;
     p.properties.conductivity_W_mK = alpha * rho_cp;
     std::vector<Stage> st = in.stages;
     for (const FittedH& g : layout.groups)
       for (int s : g.stages) st[static_cast<std::size_t>(s)].h_W_m2K = g.h_W_m2K;
     for (int gi : layout.free_groups) {
-      const double h = std::exp(x[k++]);
+      const double h = std::clamp(std::exp(x[k++]), limits::h_W_m2K.low, limits::h_W_m2K.high);
       for (int s : layout.groups[static_cast<std::size_t>(gi)].stages) st[static_cast<std::size_t>(s)].h_W_m2K = h;
     }
     return {p, st};
@@ -229,8 +253,14 @@ Eigen::VectorXd start_vector(const Model& m, double alpha) {
 /// Stores the solution's values into the layout (α and every free group's h).
 void store(Model& m, const Eigen::VectorXd& x) {
   int k = 0;
-  if (m.layout.alpha_free) m.layout.alpha = std::exp(x[k++]);
-  for (int gi : m.layout.free_groups) m.layout.groups[static_cast<std::size_t>(gi)].h_W_m2K = std::exp(x[k++]);
+  const ThermalProperties& tp = m.in.product.properties;
+  const double rho_cp = tp.density_kg_m3 * tp.specific_heat_J_kgK;
+  if (m.layout.alpha_free)
+    m.layout.alpha = std::clamp(std::exp(x[k++]), limits::conductivity_W_mK.low / rho_cp,
+                                limits::conductivity_W_mK.high / rho_cp);
+  for (int gi : m.layout.free_groups)
+    m.layout.groups[static_cast<std::size_t>(gi)].h_W_m2K =
+        std::clamp(std::exp(x[k++]), limits::h_W_m2K.low, limits::h_W_m2K.high);
 }
 
 /// Smallest h of group `gi` whose profiled SSR stays within `limit` (α and the other groups
@@ -288,7 +318,8 @@ FitResult fit_study(const FitInput& in) {
   const double rho_cp = tp.density_kg_m3 * tp.specific_heat_J_kgK;
   FitResult res;
   res.alpha_start_m2_s = tp.diffusivity_m2_s();
-  m.layout.groups = stage_groups(in.stages);
+  m.layout.groups = stage_groups(
+      in.stages, in.heating.size() == in.stages.size() ? in.heating : heating_stages(in.stages, in.product.initial_C));
   m.layout.alpha = res.alpha_start_m2_s;
   for (int g = 0; g < static_cast<int>(m.layout.groups.size()); ++g)
     if (m.layout.groups[static_cast<std::size_t>(g)].status == HStatus::fitted) m.layout.free_groups.push_back(g);
@@ -364,6 +395,10 @@ FitResult fit_study(const FitInput& in) {
     }
   }
   res.h = m.layout.groups;
+  const auto at_edge = [](double v, const limits::Range& r) { return v <= r.low * 1.0001 || v >= r.high * 0.9999; };
+  res.at_limit = at_edge(res.conductivity_W_mK, limits::conductivity_W_mK);
+  for (const FittedH& g : res.h)
+    if (g.status == HStatus::fitted && at_edge(g.h_W_m2K, limits::h_W_m2K)) res.at_limit = true;
   const auto p = static_cast<std::size_t>(cov.rows());
   res.covariance_log.assign(p, std::vector<double>(p, 0.0));
   res.correlation.assign(p, std::vector<double>(p, 0.0));

@@ -69,7 +69,9 @@ ProbeDescription describe_probe(const StudyInput& in, const StudyPhases& ph, con
   if (ph.has_cooling && c.time_s.back() > ph.heating_end_s)
     d.cooling = describe_curve(c.time_s, c.temp_C, ph.cooling_medium_C, ph.heating_end_s, c.time_s.back(),
                                ph.heating_end_s, false);
+  // After the come-up only: a hot-filled container may start warmer than the water coming up.
   for (std::size_t i = 0; i < c.time_s.size() && c.time_s[i] < ph.heating_end_s; ++i) {
+    if (c.time_s[i] < ph.come_up_s) continue;
     const double m = medium_at(in.study_stages, c.time_s[i]);
     if (c.temp_C[i] > m + 1.0) {
       d.hotter_than_medium = ProbeAnomaly{static_cast<int>(i) + 1, c.time_s[i], c.temp_C[i], m};
@@ -96,6 +98,9 @@ FitInput fit_input(const StudyInput& in, std::vector<ProbeCurve> probes) {
   f.product = in.scheduled.product;
   f.stages = in.study_stages;
   f.probes = std::move(probes);
+  Scenario s = in.scheduled;  // the direction comes from the schedule, not from a noisy log
+  s.stages.resize(in.study_stages.size());
+  for (std::size_t i = 0; i < s.stages.size(); ++i) f.heating.push_back(heating_stage(s, i));
   return f;
 }
 

@@ -1,6 +1,7 @@
 #include "coldcore/process/study.hpp"
 
 #include <algorithm>
+#include <cmath>
 
 #include "coldcore/error.hpp"
 
@@ -17,15 +18,35 @@ double trace_at(const MediumTrace& m, double t) {
   return m.temp_C[j - 1] + w * (m.temp_C[j] - m.temp_C[j - 1]);
 }
 
-/// The logged medium over [start, end], as points from the stage start.
-MediumProfile logged_span(const MediumTrace& m, double start_s, double end_s) {
+/// The logged medium over [start, end], as points from the stage start. Where the schedule steps
+/// at a stage boundary (step_at_start / step_at_end), the log is not interpolated across it: the
+/// readings between which the step fell belong to different stages, so the stage's first (last)
+/// reading inside it is held back to its start (forward to its end).
+MediumProfile logged_span(const MediumTrace& m, double start_s, double end_s, bool step_at_start, bool step_at_end) {
   MediumProfile p;
   p.description = "logged medium";
-  p.points.push_back({0.0, trace_at(m, start_s)});
-  for (std::size_t i = 0; i < m.time_s.size(); ++i)
-    if (m.time_s[i] > start_s && m.time_s[i] < end_s) p.points.push_back({m.time_s[i] - start_s, m.temp_C[i]});
-  if (end_s > start_s) p.points.push_back({end_s - start_s, trace_at(m, end_s)});
+  std::vector<MediumPoint> inside;
+  for (std::size_t i = 0; i < m.time_s.size(); ++i) {
+    const double t = m.time_s[i];
+    const bool after_start = step_at_start ? t > start_s : t >= start_s;
+    const bool before_end = step_at_end ? t < end_s : t <= end_s;
+    if (after_start && before_end) inside.push_back({t - start_s, m.temp_C[i]});
+  }
+  const double span = end_s - start_s;
+  const double first = step_at_start && !inside.empty() ? inside.front().temp_C : trace_at(m, start_s);
+  const double last = step_at_end && !inside.empty() ? inside.back().temp_C : trace_at(m, end_s);
+  p.points.push_back({0.0, first});
+  for (const MediumPoint& q : inside)
+    if (q.time_s > 0 && q.time_s < span) p.points.push_back(q);
+  if (span > 0) p.points.push_back({span, last});
   return p;
+}
+
+/// True when the schedule's medium jumps (by more than 0.5 K) from stage i − 1's end to stage i's start.
+bool scheduled_step(const std::vector<Stage>& st, std::size_t i) {
+  if (i == 0 || i >= st.size()) return false;
+  const Stage& before = st[i - 1];
+  return std::abs(before.medium.at(before.end.duration_s) - st[i].medium.at(0)) > 0.5;
 }
 
 }  // namespace
@@ -57,7 +78,7 @@ std::vector<Stage> study_stages(const std::vector<Stage>& scheduled, const std::
     s.end.kind = StageEndKind::duration;
     s.end.duration_s = end - start;
     s.medium_gaps_s.clear();
-    if (logged) s.medium = logged_span(*logged, start, end);
+    if (logged) s.medium = logged_span(*logged, start, end, scheduled_step(scheduled, i), scheduled_step(scheduled, i + 1));
     out.push_back(std::move(s));
     start = end;
   }

@@ -76,6 +76,10 @@ void add_fit_section(FitContent& out, const std::string& id, const std::string& 
   if (f.correlation.size() > 1)
     s.key_values.push_back({"correlation of ln α and ln h (first group)", fixed(f.correlation[0][1], 3)});
   if (!f.converged) s.items.push_back("the least-squares solver stopped before meeting its tolerance");
+  if (f.at_limit)
+    s.items.push_back("the fit ran to the edge of the accepted range of k (0.01 to 10 W/mK) or h (0.1 to 1e6 "
+                      "W/m²K): these readings do not look like this product in this process; check the probe "
+                      "position, the logs and the file before using any value here");
   out.sections.push_back(std::move(s));
 }
 

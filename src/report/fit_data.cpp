@@ -85,6 +85,7 @@ void fit_json(JsonWriter& w, const FitResult& f, const std::vector<std::string>&
   for (const ProbeFit& p : f.probes) w.value(p.name);
   w.end_array();
   w.key("converged").value(f.converged);
+  w.key("at_limit").value(f.at_limit);
   w.end_object();
 }
 

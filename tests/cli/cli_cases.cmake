@@ -511,3 +511,8 @@ cli_expect(issue11_probe_spring_forward_timezone 1 ARGS probe tests/cli/deviatio
            --organism listeria-monocytogenes --target-log 6 --timezone +01:00
            STDOUT_HAS "no lethality credited across the gap in the log from 14.0 min to 75.0 min (longer than 60.0 s)"
                       "not demonstrated")
+# issue 14: coldcore fit on the demo heat-penetration study, its calibrated product through run,
+# solve and deviation, and the study's bad inputs (tests/cli/fit_study.cmake).
+add_test(NAME cli.fit_study
+         COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
+                 -P ${PROJECT_SOURCE_DIR}/tests/cli/fit_study.cmake)

@@ -11,8 +11,9 @@
 /// Standard errors from s²·(JᵀJ)⁻¹ at the optimum (s² = SSR/(n − p)); 95 % intervals
 /// exp(ln θ ± t(0.975, n − p)·se) with Student's t from Boost.Math.
 ///
-/// Stage groups: stages whose file gives the same finite h share one fitted h; a stage with
-/// h = inf keeps a surface at the medium (not fitted). A group whose h cannot be identified is
+/// Stage groups: stages whose file gives the same finite h and that go the same way (heating or
+/// cooling, by h_ends.hpp's rule from the product's initial temperature) share one fitted h; a
+/// stage with h = inf keeps a surface at the medium (not fitted). A group whose h cannot be identified is
 /// not given an interval:
 ///  - lower_bound: the data are as well explained by any larger h (a high Biot number): the
 ///    interval would run to infinity. h is fixed at the smallest value the data allow, the h
@@ -65,14 +66,22 @@ struct FitResult {
   int n_points = 0, n_parameters = 0, dof = 0;
   double t95 = 0;                ///< t(0.975, dof)
   std::vector<ProbeFit> probes;
-  int iterations = 0;
+  int iterations = 0;            ///< model evaluations of the solver
   bool converged = false;
+  /// k or a fitted h ended at the edge of its accepted range (model/limits.hpp): the readings
+  /// do not look like this product in this process (probe position, swapped logs, wrong file).
+  bool at_limit = false;
 };
 
 struct FitInput {
-  Product product;               ///< shape, size, ρ, cp, k (the starting α); initial_C unused
+  Product product;               ///< shape, size, ρ, cp, k (the starting α); initial_C only for
+                                 ///< the stages' direction (the probes' own initial temperatures are used)
   std::vector<Stage> stages;     ///< the study's stages (study_stages)
   std::vector<ProbeCurve> probes;///< the curves fitted together (one, or the pool)
+  /// Direction of each stage for the grouping (true: heats). Empty: from the stages' media by
+  /// h_ends.hpp's rule; pass the schedule's when the stages carry a logged medium, whose noise
+  /// at a stage boundary could turn the rule.
+  std::vector<bool> heating;
   HistoryOptions engine = fit_engine_options();
   static HistoryOptions fit_engine_options();
 };

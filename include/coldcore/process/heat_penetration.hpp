@@ -32,8 +32,8 @@ struct StudyPhases {
   double cooling_medium_C = 0;
 };
 
-/// A probe reading on the wrong side of the medium while heating (hotter than the medium by more
-/// than 1 K): a misplaced or swapped thermocouple.
+/// A probe reading on the wrong side of the medium while heating after the come-up (hotter than
+/// the medium by more than 1 K): a misplaced or swapped thermocouple.
 struct ProbeAnomaly {
   int reading = 0;          ///< 1-based index of the reading in the probe's curve
   double time_s = 0, probe_C = 0, medium_C = 0;

@@ -25,7 +25,9 @@ struct MediumTrace {
 
 /// The stages the study's product went through: the scheduled stages in order, each lasting its
 /// scheduled duration, the last one running to `end_s`; each stage's medium is `logged` over its
-/// span (rebased to the stage start) when given, else the schedule's. Stages that start at or
+/// span (rebased to the stage start) when given, else the schedule's. Where the schedule steps
+/// between two stages (a jump of more than 0.5 K), the log is not interpolated across the
+/// boundary: each side holds its own nearest reading to it (the file states when the step was). Stages that start at or
 /// after end_s are left out. REQUIRES: a stage that ends on a temperature (until_*) is the last
 /// one kept; otherwise InputError "<origin>: stage[i] ends on a temperature: a study needs its
 /// duration (duration_*)". end_s > 0.
