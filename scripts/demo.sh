@@ -26,6 +26,11 @@ say "coldcore solve products/corned-beef-can.toml --for hold-time"
 $cc solve products/corned-beef-can.toml --for hold-time || true
 say "coldcore deviation: the invented retort dip of the corned beef hold"
 $cc deviation products/corned-beef-can.toml --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 || true
+say "coldcore fit: an invented heat-penetration study of six cans, calibrating the model"
+$cc fit products/corned-beef-can-study.toml --probe-log products/logs/can-study-probes.csv \
+  --medium-log products/logs/can-study-medium.csv --write-product build/corned-beef-can-calibrated.toml || true
+say "coldcore solve on the calibrated product: the hold, and the hold at the fit's 95 % bound"
+$cc solve build/corned-beef-can-calibrated.toml --for hold-time --library products || true
 say "Example reports"
 scripts/make_reports.sh "$cc" reports
 ls -1 reports

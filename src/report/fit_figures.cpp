@@ -52,7 +52,8 @@ std::vector<RunFigure> fit_figures(const StudyAnalysis& a, TempUnit u) {
   meas.colour = svg::okabe_ito::orange;
   meas.dash = svg::Dash::short_dash;
   model.colour = svg::okabe_ito::blue;
-  curves.plot.series = {std::move(meas), std::move(model)};
+  curves.plot.series.push_back(std::move(meas));
+  curves.plot.series.push_back(std::move(model));
   curves.caption = "The design probe's readings (short dashes) and the fitted exact model (solid line); the other "
                    "probes' readings dotted.";
   figs.push_back(std::move(curves));
