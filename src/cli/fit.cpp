@@ -1,5 +1,6 @@
 // coldcore fit FILE --probe-log LOG.csv [...] [--medium-log LOG.csv] [--write-product OUT.toml]:
 // a heat-penetration study described the trade's way and the exact model calibrated to it.
+#include <algorithm>
 #include <filesystem>
 #include <iostream>
 #include <memory>
@@ -27,6 +28,7 @@ struct FitArgs {
   std::vector<std::string> probe_logs;
   std::string medium_log;
   std::string medium_column;
+  std::vector<std::string> probe_columns;
   std::string write_product;
   double max_gap_s = 60;
   std::string timezone;
@@ -59,7 +61,19 @@ std::vector<process::ProbeCurve> probe_curves(const FitArgs& a, const std::optio
   for (const std::string& path : a.probe_logs) {
     const std::string bytes = io::read_text_file(path);
     std::vector<std::string> columns = io::temperature_columns(bytes);
-    if (columns.size() <= 1) columns = {""};
+    if (!a.probe_columns.empty()) {
+      std::vector<std::string> chosen;
+      for (const std::string& c : columns)
+        if (std::find(a.probe_columns.begin(), a.probe_columns.end(), c) != a.probe_columns.end()) chosen.push_back(c);
+      if (chosen.empty()) {
+        std::string names;
+        for (const std::string& c : columns) names += (names.empty() ? "" : ", ") + c;
+        throw InputError(path + ": --probe-column names none of its temperature columns (" + names + ")");
+      }
+      columns = chosen;
+    } else if (columns.size() <= 1) {
+      columns = {""};
+    }
     provenance.push_back({"probe log " + path, "sha256 " + io::sha256_hex(bytes)});
     for (const std::string& col : columns) {
       const ReadLog r = read_log(path, col, a, "");
@@ -169,6 +183,7 @@ void add_fit_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("FILE", a->file, "product file: shape, size, density, specific heat, the stages as scheduled, starting k and h")->required();
   sub->add_option("--probe-log", a->probe_logs, "measured cold-spot log (repeat for several; a log may hold one *_C column per container)")->required();
   sub->add_option("--medium-log", a->medium_log, "measured medium log over the whole study (default: the scheduled media)");
+  sub->add_option("--probe-column", a->probe_columns, "read only this temperature column of the probe logs (repeat for several; default: every *_C / *_F column is a probe)");
   sub->add_option("--medium-column", a->medium_column, "which temperature column of the medium log to use when it has several");
   sub->add_option("--write-product", a->write_product, "write the calibrated product file (fitted k and h, their intervals as ranges, the covariance) here");
   sub->add_option("--max-gap-s", a->max_gap_s, "gaps longer than this in a log are reported, s")->capture_default_str()->check(within(0, limits::duration_s.high, "s", true));

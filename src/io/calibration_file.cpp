@@ -193,10 +193,11 @@ std::string calibrated_product_toml(std::string_view original, const Calibration
   toml::table cal;
   cal.insert("alpha_m2_s", c.alpha_m2_s);
   cal.insert("alpha_ci95_m2_s", number_pair(c.alpha_ci95_m2_s));
-  toml::array cov;
-  for (const auto& row : c.covariance_log) {
+  toml::array cov;  // written exactly symmetric (the solver's product may differ in the last bit)
+  for (std::size_t i = 0; i < c.covariance_log.size(); ++i) {
     toml::array r;
-    for (double x : row) r.push_back(x);
+    for (std::size_t j = 0; j < c.covariance_log.size(); ++j)
+      r.push_back(0.5 * (c.covariance_log[i][j] + c.covariance_log[j][i]));
     cov.push_back(std::move(r));
   }
   cal.insert("covariance_log", std::move(cov));

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <map>
+#include <optional>
 
 #include <Eigen/Dense>
 #include <boost/math/distributions/students_t.hpp>
@@ -16,9 +17,11 @@ namespace coldcore::process {
 
 HistoryOptions FitInput::fit_engine_options() {
   // Finite differences of the model need it far smoother than the readings' noise (0.1 K):
-  // 1e-5 K against a parameter step of 1e-4 in ln θ keeps the Jacobian's noise below 1 %.
+  // 1e-4 K against a parameter step of 1e-3 in ln θ is 0.1 K per unit of ln θ, under 1 % of the
+  // readings' sensitivity to α or h (tens of kelvin per unit). The coverage benchmark
+  // (coldcore_bench --case fit-coverage) gives the same intervals as at 1e-5 K.
   HistoryOptions o;
-  o.tol_K = 1e-5;
+  o.tol_K = 1e-4;
   o.sample_tol_K = 0.05;
   return o;
 }
@@ -57,13 +60,21 @@ std::vector<double> model_curve(const Product& product, const std::vector<Stage>
   const History h = simulate(p, stages, engine);
   std::vector<double> out;
   out.reserve(time_s.size());
-  for (double t : time_s) out.push_back(h.evaluate(std::clamp(t, 0.0, h.end_s())).centre_C);
+  // Readings at the engine's own sample times (a probe logged with the medium) are read off the
+  // samples; others are evaluated exactly. Both are the same exact series.
+  std::size_t k = 0;
+  for (double t : time_s) {
+    const double tc = std::clamp(t, 0.0, h.end_s());
+    while (k + 1 < h.samples.size() && h.samples[k + 1].time_s <= tc) ++k;
+    out.push_back(h.samples[k].time_s == tc ? h.samples[k].centre_C : h.evaluate(tc).centre_C);
+  }
   return out;
 }
 
 namespace {
 
-constexpr double kStep = 1e-4;  // forward-difference step in ln θ
+constexpr double kStep = 1e-3;          // forward-difference step in ln θ
+constexpr double kStepInitial = 0.01;  // and in a probe's initial temperature, K
 
 /// Which parameters are free and how they map onto the stages.
 struct Layout {
@@ -147,7 +158,14 @@ struct Model {
   int n = 0;
   std::vector<double> initial_C;  ///< per probe
 
-  int parameters() const { return (layout.alpha_free ? 1 : 0) + static_cast<int>(layout.free_groups.size()); }
+  /// α and the free h groups (the physical parameters), then one initial temperature per probe.
+  int shared() const { return (layout.alpha_free ? 1 : 0) + static_cast<int>(layout.free_groups.size()); }
+  int parameters() const { return shared() + static_cast<int>(in.probes.size()); }
+  int first_row(std::size_t probe) const {
+    int r = 0;
+    for (std::size_t i = 0; i < probe; ++i) r += static_cast<int>(in.probes[i].time_s.size());
+    return r;
+  }
 
   /// α and the stages' h for parameter vector x.
   std::pair<Product, std::vector<Stage>> apply(const Eigen::VectorXd& x) const {
@@ -171,29 +189,42 @@ struct Model {
     return {p, st};
   }
 
-  /// Residuals model − measured at every reading after each probe's first.
+  /// Residuals model − measured at every reading of every probe, probe by probe.
   Eigen::VectorXd residuals(const Eigen::VectorXd& x, std::vector<std::vector<double>>* curves = nullptr) const {
     const auto [p, st] = apply(x);
     std::vector<std::vector<double>> model(in.probes.size());
     detail::for_each_index(in.probes.size(), [&](std::size_t i) {
       const ProbeCurve& c = in.probes[i];
-      model[i] = model_curve(p, st, initial_C[i], c.time_s, in.engine);
+      model[i] = model_curve(p, st, x[shared() + static_cast<Eigen::Index>(i)], c.time_s, in.engine);
     });
     Eigen::VectorXd r(n);
     int k = 0;
     for (std::size_t i = 0; i < in.probes.size(); ++i)
-      for (std::size_t j = 1; j < in.probes[i].time_s.size(); ++j) r[k++] = model[i][j] - in.probes[i].temp_C[j];
+      for (std::size_t j = 0; j < in.probes[i].time_s.size(); ++j) r[k++] = model[i][j] - in.probes[i].temp_C[j];
     if (curves) *curves = std::move(model);
     return r;
   }
 
+  /// Forward differences: ln θ columns re-run every probe; a probe's initial temperature moves
+  /// only its own rows (the response is linear in it, so the step is exact).
   Eigen::MatrixXd jacobian(const Eigen::VectorXd& x, const Eigen::VectorXd& r0) const {
-    Eigen::MatrixXd J(n, x.size());
-    for (Eigen::Index c = 0; c < x.size(); ++c) {
+    Eigen::MatrixXd J = Eigen::MatrixXd::Zero(n, x.size());
+    for (Eigen::Index c = 0; c < shared(); ++c) {
       Eigen::VectorXd xs = x;
       xs[c] += kStep;
       J.col(c) = (residuals(xs) - r0) / kStep;
     }
+    const auto [p, st] = apply(x);
+    detail::for_each_index(in.probes.size(), [&](std::size_t i) {
+      const ProbeCurve& c = in.probes[i];
+      const Eigen::Index col = shared() + static_cast<Eigen::Index>(i);
+      const std::vector<double> moved = model_curve(p, st, x[col] + kStepInitial, c.time_s, in.engine);
+      const int row0 = first_row(i);
+      for (std::size_t j = 0; j < c.time_s.size(); ++j) {
+        const Eigen::Index row = row0 + static_cast<Eigen::Index>(j);
+        J(row, col) = (moved[j] - c.temp_C[j] - r0[row]) / kStepInitial;
+      }
+    });
     return J;
   }
 };
@@ -247,6 +278,7 @@ Eigen::VectorXd start_vector(const Model& m, double alpha) {
   int k = 0;
   if (m.layout.alpha_free) x[k++] = std::log(alpha);
   for (int gi : m.layout.free_groups) x[k++] = std::log(m.layout.groups[static_cast<std::size_t>(gi)].h_W_m2K);
+  for (double t0 : m.initial_C) x[k++] = t0;
   return x;
 }
 
@@ -261,6 +293,7 @@ void store(Model& m, const Eigen::VectorXd& x) {
   for (int gi : m.layout.free_groups)
     m.layout.groups[static_cast<std::size_t>(gi)].h_W_m2K =
         std::clamp(std::exp(x[k++]), limits::h_W_m2K.low, limits::h_W_m2K.high);
+  for (double& t0 : m.initial_C) t0 = x[k++];
 }
 
 /// Smallest h of group `gi` whose profiled SSR stays within `limit` (α and the other groups
@@ -281,7 +314,7 @@ double profile_lower_bound(const Model& fitted, int gi, double limit) {
     if (ssr_at(std::exp(outside)) > limit) break;
     inside = outside;
   }
-  for (int i = 0; i < 14; ++i) {  // 14 halvings of a decade: 0.02 % in h
+  for (int i = 0; i < 9; ++i) {  // 9 halvings of a decade: 0.5 % in h (rounded toward the fit, inside)
     const double mid = 0.5 * (inside + outside);
     (ssr_at(std::exp(mid)) > limit ? outside : inside) = mid;
   }
@@ -310,7 +343,7 @@ FitResult fit_study(const FitInput& in) {
     if (c.time_s.size() < 3)
       throw InputError("fit: probe " + c.name + " has " + std::to_string(c.time_s.size()) +
                        " readings: at least 3 are needed");
-    m.n += static_cast<int>(c.time_s.size()) - 1;
+    m.n += static_cast<int>(c.time_s.size());
   }
   const ThermalProperties& tp = in.product.properties;
   const double window_s = 0.02 * std::pow(smallest_half_m(in.product), 2) / tp.diffusivity_m2_s();
@@ -339,6 +372,7 @@ FitResult fit_study(const FitInput& in) {
   Eigen::MatrixXd cov = (J.transpose() * J).completeOrthogonalDecomposition().pseudoInverse() * (sol.ssr / dof);
   const double ssr_limit = sol.ssr * (1.0 + t95 * t95 / dof);
   std::vector<int> fixed_now;
+  std::optional<std::pair<Eigen::VectorXd, Eigen::MatrixXd>> span_top;  // the fit with bounded h at the top
   {
     const std::vector<double> biots = stage_biots(m, sol.x);
     int k = m.layout.alpha_free ? 1 : 0;
@@ -346,11 +380,15 @@ FitResult fit_study(const FitInput& in) {
       FittedH& g = m.layout.groups[static_cast<std::size_t>(gi)];
       g.biot = biots[static_cast<std::size_t>(g.stages.front())];
       const double se = std::sqrt(std::max(cov(k, k), 0.0));
-      if (J.col(k).cwiseAbs().maxCoeff() < 1e-3) {  // a change of h moves no reading by 1 mK
+      // High Bi first: there h ran off toward infinity (up to the limit, where the readings no
+      // longer move with it); elsewhere a change of h that moves no reading by 1 mK means no
+      // reading depends on this group.
+      const bool high = g.biot > kHighBiot || g.h_W_m2K >= limits::h_W_m2K.high * 0.9999;
+      if (!high && J.col(k).cwiseAbs().maxCoeff() < 1e-3) {
         g.status = HStatus::not_identified;
         g.h_W_m2K = g.h_start_W_m2K;
         fixed_now.push_back(gi);
-      } else if (!std::isfinite(se) || 2 * t95 * se > std::log(100.0) || g.biot > kHighBiot) {
+      } else if (high || !std::isfinite(se) || 2 * t95 * se > std::log(100.0)) {
         g.status = HStatus::lower_bound;
         fixed_now.push_back(gi);
       }
@@ -372,6 +410,23 @@ FitResult fit_study(const FitInput& in) {
     dof = m.n - m.parameters();
     t95 = boost::math::quantile(boost::math::students_t(std::max(dof, 1)), 0.975);
     cov = (J.transpose() * J).completeOrthogonalDecomposition().pseudoInverse() * (sol.ssr / dof);
+    // With an h held at its lower bound the other parameters' intervals would be conditional on
+    // that one value; any larger h fits as well, so they span the fit at the bound and the fit
+    // with that h at the top of its range (a surface at the medium, in effect).
+    bool any_bound = false;
+    Model top = m;
+    for (int gi : fixed_now)
+      if (m.layout.groups[static_cast<std::size_t>(gi)].status == HStatus::lower_bound) {
+        top.layout.groups[static_cast<std::size_t>(gi)].h_W_m2K = limits::h_W_m2K.high;
+        any_bound = true;
+      }
+    if (any_bound) {
+      const Solution st = minimise(top, start_vector(top, m.layout.alpha));
+      const Eigen::MatrixXd Jt = top.jacobian(st.x, st.r);
+      const Eigen::MatrixXd ct = (Jt.transpose() * Jt).completeOrthogonalDecomposition().pseudoInverse() * (st.ssr / dof);
+      span_top = std::make_pair(st.x, ct);
+      res.intervals_span_bound = true;
+    }
   }
 
   // The result.
@@ -380,6 +435,13 @@ FitResult fit_study(const FitInput& in) {
   res.alpha_se_log = std::sqrt(std::max(cov(0, 0), 0.0));
   res.alpha_ci95_m2_s = {res.alpha_m2_s * std::exp(-t95 * res.alpha_se_log),
                          res.alpha_m2_s * std::exp(t95 * res.alpha_se_log)};
+  // The interval of parameter k (a log) widened to cover the top fit's interval too.
+  const auto widened = [&](Eigen::Index k, std::array<double, 2> ci) {
+    if (!span_top) return ci;
+    const double x = span_top->first[k], se = std::sqrt(std::max(span_top->second(k, k), 0.0));
+    return std::array<double, 2>{std::min(ci[0], std::exp(x - t95 * se)), std::max(ci[1], std::exp(x + t95 * se))};
+  };
+  res.alpha_ci95_m2_s = widened(0, res.alpha_ci95_m2_s);
   res.parameters = {"alpha"};
   {
     const std::vector<double> biots = stage_biots(m, sol.x);
@@ -389,7 +451,7 @@ FitResult fit_study(const FitInput& in) {
       g.biot = biots[static_cast<std::size_t>(g.stages.front())];
       if (std::find(m.layout.free_groups.begin(), m.layout.free_groups.end(), gi) == m.layout.free_groups.end()) continue;
       g.se_log = std::sqrt(std::max(cov(k, k), 0.0));
-      g.ci95_W_m2K = {g.h_W_m2K * std::exp(-t95 * g.se_log), g.h_W_m2K * std::exp(t95 * g.se_log)};
+      g.ci95_W_m2K = widened(k, {g.h_W_m2K * std::exp(-t95 * g.se_log), g.h_W_m2K * std::exp(t95 * g.se_log)});
       res.parameters.push_back("h:" + std::to_string(gi));
       ++k;
     }
@@ -399,7 +461,7 @@ FitResult fit_study(const FitInput& in) {
   res.at_limit = at_edge(res.conductivity_W_mK, limits::conductivity_W_mK);
   for (const FittedH& g : res.h)
     if (g.status == HStatus::fitted && at_edge(g.h_W_m2K, limits::h_W_m2K)) res.at_limit = true;
-  const auto p = static_cast<std::size_t>(cov.rows());
+  const auto p = static_cast<std::size_t>(m.shared());  // the physical block; the initial temperatures are nuisance
   res.covariance_log.assign(p, std::vector<double>(p, 0.0));
   res.correlation.assign(p, std::vector<double>(p, 0.0));
   for (std::size_t a = 0; a < p; ++a)
@@ -424,8 +486,9 @@ FitResult fit_study(const FitInput& in) {
     pf.measured_C = c.temp_C;
     pf.model_C = curves[i];
     double ss = 0;
-    for (std::size_t j = 1; j < c.time_s.size(); ++j) ss += (pf.model_C[j] - c.temp_C[j]) * (pf.model_C[j] - c.temp_C[j]);
-    pf.rms_K = std::sqrt(ss / static_cast<double>(c.time_s.size() - 1));
+    for (std::size_t j = 0; j < c.time_s.size(); ++j) ss += (pf.model_C[j] - c.temp_C[j]) * (pf.model_C[j] - c.temp_C[j]);
+    pf.rms_K = std::sqrt(ss / static_cast<double>(c.time_s.size()));
+    pf.initial_C = m.initial_C[i];
     res.probes.push_back(std::move(pf));
   }
   return res;

@@ -46,7 +46,8 @@ void add_fit_section(FitContent& out, const std::string& id, const std::string& 
   s.heading = heading;
   s.key_values.push_back({"probes fitted", std::to_string(f.probes.size())});
   s.key_values.push_back({"readings fitted", std::to_string(f.n_points) + " (" + std::to_string(f.n_parameters) +
-                                                 " parameters, " + std::to_string(f.dof) + " degrees of freedom)"});
+                                                 " parameters: α, each fitted h and each probe's initial "
+                                                 "temperature; " + std::to_string(f.dof) + " degrees of freedom)"});
   s.key_values.push_back({"α (thermal diffusivity)", sci(f.alpha_m2_s) + " m²/s, 95 % interval " +
                                                          sci(f.alpha_ci95_m2_s[0]) + " to " + sci(f.alpha_ci95_m2_s[1])});
   s.key_values.push_back({"k (α·ρ·cp)", fixed(f.conductivity_W_mK, 4) + " W/mK"});
@@ -73,8 +74,15 @@ void add_fit_section(FitContent& out, const std::string& id, const std::string& 
     }
   }
   s.key_values.push_back({"residual RMS", fixed(f.rms_K, 3) + " K"});
-  if (f.correlation.size() > 1)
-    s.key_values.push_back({"correlation of ln α and ln h (first group)", fixed(f.correlation[0][1], 3)});
+  for (const FittedH& g : f.h)  // the first fitted group is parameter 1 of the correlation matrix
+    if (g.status == HStatus::fitted && f.correlation.size() > 1) {
+      s.key_values.push_back({"correlation of ln α and ln h (" + stage_list(g.stages, stage_name) + ")",
+                              fixed(f.correlation[0][1], 3)});
+      break;
+    }
+  if (f.intervals_span_bound)
+    s.items.push_back("an h is only bounded below: the intervals of α and of the other h span the fit at that bound "
+                      "and the fit with that h at the top of its range, since any larger h fits as well");
   if (!f.converged) s.items.push_back("the least-squares solver stopped before meeting its tolerance");
   if (f.at_limit)
     s.items.push_back("the fit ran to the edge of the accepted range of k (0.01 to 10 W/mK) or h (0.1 to 1e6 "

@@ -86,6 +86,7 @@ void fit_json(JsonWriter& w, const FitResult& f, const std::vector<std::string>&
   w.end_array();
   w.key("converged").value(f.converged);
   w.key("at_limit").value(f.at_limit);
+  w.key("intervals_span_bound").value(f.intervals_span_bound);
   w.end_object();
 }
 

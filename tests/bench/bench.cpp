@@ -48,20 +48,27 @@ double time_ms(const Product& p, const std::vector<Stage>& st, int repeat, doubl
 
 }  // namespace
 
+namespace coldcore::bench {
+void fit_coverage(int replicates);  // fit_coverage.cpp
+}
+
 int main(int argc, char** argv) {
   int repeat = 21;
-  bool run_sphere = true, run_cylinder = true;
+  bool run_sphere = true, run_cylinder = true, run_fit = true;
   for (int i = 1; i < argc; ++i) {
     if (std::strcmp(argv[i], "--repeat") == 0 && i + 1 < argc) {
       repeat = std::max(1, std::atoi(argv[++i]));
+    } else if (std::strcmp(argv[i], "--case") == 0 && i + 1 < argc && std::strcmp(argv[i + 1], "fit-coverage") == 0) {
+      run_sphere = run_cylinder = false;
+      ++i;
     } else if (std::strcmp(argv[i], "--case") == 0 && i + 1 < argc && std::strcmp(argv[i + 1], "sphere") == 0) {
-      run_cylinder = false;
+      run_cylinder = run_fit = false;
       ++i;
     } else if (std::strcmp(argv[i], "--case") == 0 && i + 1 < argc && std::strcmp(argv[i + 1], "cylinder") == 0) {
-      run_sphere = false;
+      run_sphere = run_fit = false;
       ++i;
     } else {
-      std::fprintf(stderr, "usage: coldcore_bench [--repeat N] [--case sphere|cylinder]\n");
+      std::fprintf(stderr, "usage: coldcore_bench [--repeat N] [--case sphere|cylinder|fit-coverage]\n");
       return 2;
     }
   }
@@ -92,5 +99,6 @@ int main(int argc, char** argv) {
     const double ms_f = time_ms(fc, st, std::max(1, repeat / 3), c);
     std::printf("finite-cylinder-4h-log %.3f ms\n", ms_f);
   }
+  if (run_fit) coldcore::bench::fit_coverage(100);
   return 0;
 }

@@ -30,7 +30,7 @@ endfunction()
 # (probe2, the smallest alpha factor, 0.93).
 run_cc(json 0 fit ${study} --probe-log ${probes} --medium-log ${medium} ${lib} --format json --write-product cal.toml --date 2026-12-01)
 foreach(key "\"alpha_m2_s\"" "\"alpha_ci95_m2_s\"" "\"h_W_m2K\"" "\"h_ci95_W_m2K\"" "\"h_lower_bound\"" "\"rms_K\""
-            "\"n_points\": 240" "\"curves\"" "\"f_h_s\"" "\"j_h\"" "\"f_c_s\"" "\"j_c\"" "\"straight_from_s\""
+            "\"n_points\": 241" "\"curves\"" "\"f_h_s\"" "\"j_h\"" "\"f_c_s\"" "\"j_c\"" "\"straight_from_s\""
             "\"straight_to_s\"" "\"broken\": false" "\"slowest_probe\": \"probe2_C\"" "\"cautions\"")
   must_have(json "${out}" "${key}")
 endforeach()
@@ -45,17 +45,31 @@ if(lo GREATER 1.3118e-7 OR hi LESS 1.3118e-7)
   message(FATAL_ERROR "json: the 95 % interval [${lo}, ${hi}] misses the truth 1.3118e-07")
 endif()
 
-foreach(fmt text html csv)
-  run_cc(${fmt} 0 fit ${study} --probe-log ${probes} --medium-log ${medium} ${lib} --format ${fmt} --date 2026-12-01)
+# Every format, on the quick sphere study (tests/cli/fit/sphere-study.toml against the finite-volume
+# readings of tests/reference/heat_penetration/sphere_noisy.csv: one file holds the medium and the probe).
+set(sphere ${SRC}/tests/cli/fit/sphere-study.toml --probe-log ${SRC}/tests/reference/heat_penetration/sphere_noisy.csv
+    --probe-column centre_C --medium-log ${SRC}/tests/reference/heat_penetration/sphere_noisy.csv --medium-column medium_C
+    ${lib} --date 2026-12-01)
+foreach(fmt text html csv json)
+  run_cc(${fmt} 0 fit ${sphere} --format ${fmt})
   must_have(${fmt} "${out}" "process authority")
 endforeach()
-must_have(text "${out}" "probe2_C")
-run_cc(md 0 fit ${study} --probe-log ${probes} --medium-log ${medium} ${lib} --out fit.md --date 2026-12-01)
+# The truth (k 0.45 W/mK, h 150 W/m2K) lies inside the sphere fit's intervals.
+string(JSON k GET "${out}" fit conductivity_W_mK)
+string(JSON hlo GET "${out}" fit h 0 h_ci95_W_m2K 0)
+string(JSON hhi GET "${out}" fit h 0 h_ci95_W_m2K 1)
+if(k LESS 0.441 OR k GREATER 0.459 OR hlo GREATER 150 OR hhi LESS 150)
+  message(FATAL_ERROR "sphere: k ${k} (truth 0.45, 2 %) or h interval [${hlo}, ${hhi}] (truth 150) wrong")
+endif()
+run_cc(md 0 fit ${sphere} --out fit.md)
 foreach(f fit.md fit-fit.svg fit-semilog.svg fit-residuals.svg)
   if(NOT EXISTS ${w}/${f})
     message(FATAL_ERROR "md: ${f} was not written")
   endif()
 endforeach()
+run_cc(probe_column 2 fit ${SRC}/tests/cli/fit/sphere-study.toml --probe-log ${SRC}/tests/reference/heat_penetration/sphere_noisy.csv
+       --probe-column nothing_C ${lib})
+must_have(probe_column "${err}" "--probe-column names none of its temperature columns (medium_C, centre_C)")
 
 # The calibrated product file runs through every verb unchanged. The study's own process (a 60 min
 # hold) does not deliver F0 3 min at the slowest can (it delivered 1.44 min there): run says so

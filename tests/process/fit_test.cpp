@@ -106,7 +106,7 @@ TEST_CASE("fit: sphere study by an independent finite-volume model: alpha within
   }
   // The residuals are the noise: σ = 0.1 K plus the rounding's 0.029 K.
   CHECK(f.rms_K == doctest::Approx(0.104).epsilon(0.15));
-  CHECK(f.dof == f.n_points - 3);
+  CHECK(f.dof == f.n_points - 4);  // α, two h groups and the probe's initial temperature
   // t(0.975, dof) from Boost.Math; for large dof it approaches the normal 1.960 (standard tables).
   CHECK(f.t95 == doctest::Approx(1.97).epsilon(0.01));
 }

@@ -2,12 +2,14 @@
 /// Calibration of the exact conduction model to a heat-penetration study: the thermal
 /// diffusivity α and one surface coefficient h per stage group, by nonlinear least squares
 /// (Eigen's Levenberg–Marquardt) on the series model driven by the study's stages (the logged
-/// medium, come-up included), against every probe reading after the first.
+/// medium, come-up included), against every probe reading.
 ///
 /// Parameters are fitted as logarithms (both are positive, and their intervals are then
-/// asymmetric as they should be). Each probe is simulated from a uniform initial temperature:
-/// the mean of its readings up to Fo = 0.02 at the file's α (the centre has not moved yet), at
-/// least its first reading. Residuals are model − measured, in kelvin, unweighted.
+/// asymmetric as they should be). Each probe is simulated from a uniform initial temperature
+/// fitted with the rest (a nuisance parameter: one noisy first reading would otherwise bias the
+/// whole fit and the intervals would not cover it); its start is the mean of the readings up to
+/// Fo = 0.02 at the file's α, when the centre has not moved yet. Residuals are model − measured,
+/// in kelvin, unweighted.
 /// Standard errors from s²·(JᵀJ)⁻¹ at the optimum (s² = SSR/(n − p)); 95 % intervals
 /// exp(ln θ ± t(0.975, n − p)·se) with Student's t from Boost.Math.
 ///
@@ -19,7 +21,9 @@
 ///    interval would run to infinity. h is fixed at the smallest value the data allow, the h
 ///    where the profiled sum of squares rises to SSR·(1 + t²/(n − p)) (the one-parameter 95 %
 ///    profile limit), and α is fitted again with it. Flagged when the fitted Bi exceeds
-///    kHighBiot or the interval's ends are more than a factor 100 apart.
+///    kHighBiot or the interval's ends are more than a factor 100 apart. The intervals of α and
+///    of the other h then span the fits at the bound and at the top of h's range, so they do not
+///    pretend h is known.
 ///  - not_identified: the readings do not depend on it (e.g. no probe reading in its stages):
 ///    kept at the file's value.
 #include <array>
@@ -47,8 +51,9 @@ struct FittedH {
 
 struct ProbeFit {
   std::string name;
-  std::vector<double> time_s, measured_C, model_C;  ///< every reading (the first included)
-  double rms_K = 0;              ///< over the fitted readings (all but the first)
+  std::vector<double> time_s, measured_C, model_C;  ///< every reading
+  double rms_K = 0;
+  double initial_C = 0;          ///< the fitted uniform initial temperature
 };
 
 struct FitResult {
@@ -63,7 +68,7 @@ struct FitResult {
   std::vector<std::string> parameters;
   std::vector<std::vector<double>> covariance_log, correlation;
   double rms_K = 0;
-  int n_points = 0, n_parameters = 0, dof = 0;
+  int n_points = 0, n_parameters = 0, dof = 0;  ///< n_parameters counts each probe's initial temperature
   double t95 = 0;                ///< t(0.975, dof)
   std::vector<ProbeFit> probes;
   int iterations = 0;            ///< model evaluations of the solver
@@ -71,6 +76,9 @@ struct FitResult {
   /// k or a fitted h ended at the edge of its accepted range (model/limits.hpp): the readings
   /// do not look like this product in this process (probe position, swapped logs, wrong file).
   bool at_limit = false;
+  /// An h is held at its lower bound, and the intervals of α and the fitted h span the fit at
+  /// that bound and the fit with that h at the top of its range (any larger h fits as well).
+  bool intervals_span_bound = false;
 };
 
 struct FitInput {
