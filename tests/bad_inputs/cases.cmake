@@ -139,3 +139,8 @@ bad(out_is_directory 2 "--out = sub: is a directory; give a file name" FILE "sub
 bad(out_is_device 2 "--out = /dev/null: exists and is not a regular file; give a file name" ARGS run p.toml --out /dev/null)
 bad(out_folder_missing 2 "--out = nowhere/r.md: side file nowhere/r-temperature.svg: cannot be opened for writing" ARGS run p.toml --format md --out nowhere/r.md)
 bad(md_without_out 2 "--format md writes its plots as SVG files beside the report: give --out PATH.md" ARGS run p.toml --format md)
+
+# --- fit (issue 14): a study's logs; nothing written when refused (--write-product included) ---
+bad(fit_probe_outside_medium 2 "l.csv: probe l has readings from 0 s to 540 s of the process, the medium log m.csv covers 0 s to 60 s: every probe reading must lie within the medium log" FILE "m.csv" "time_s,medium_C\n0,40\n60,45\n" ARGS fit p.toml --probe-log l.csv --medium-log m.csv --write-product out.toml)
+bad(fit_too_few_readings 2 "two.csv: probe two: 2 reading(s): a curve needs at least 3 (better, one every minute or less through the process)" FILE "two.csv" "time_s,probe_C\n0,4\n30,4.1\n" ARGS fit p.toml --probe-log two.csv --write-product out.toml)
+bad(fit_write_over_input 2 "--write-product = p.toml: is the input file p.toml; choose another name (coldcore never overwrites what it reads)" ARGS fit p.toml --probe-log l.csv --write-product p.toml)

@@ -11,7 +11,8 @@ set(cases
   "modes|--shape sphere --biot 2|text,json,csv"
   "props|--composition water=0.74,protein=0.22,fat=0.03,ash=0.01|text,json,csv"
   "organisms|-|text,json,csv"
-  "rules|-|text,json,csv")
+  "rules|-|text,json,csv"
+  "fit|tests/cli/fit/sphere-study.toml --probe-log tests/reference/heat_penetration/sphere_noisy.csv --probe-column centre_C --library products|text,md,html,json,csv")
 foreach(extra IN LISTS EXTRA_CASES)
   list(APPEND cases "${extra}")
 endforeach()
