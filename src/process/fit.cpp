@@ -191,7 +191,9 @@ struct Model {
 
   /// Residuals model − measured at every reading of every probe, probe by probe.
   Eigen::VectorXd residuals(const Eigen::VectorXd& x, std::vector<std::vector<double>>* curves = nullptr) const {
-    const auto [p, st] = apply(x);
+    const auto applied = apply(x);  // named members: a lambda may not capture structured bindings (C++20, clang < 16)
+    const Product& p = applied.first;
+    const std::vector<Stage>& st = applied.second;
     std::vector<std::vector<double>> model(in.probes.size());
     detail::for_each_index(in.probes.size(), [&](std::size_t i) {
       const ProbeCurve& c = in.probes[i];
@@ -214,7 +216,9 @@ struct Model {
       xs[c] += kStep;
       J.col(c) = (residuals(xs) - r0) / kStep;
     }
-    const auto [p, st] = apply(x);
+    const auto applied = apply(x);  // named members: a lambda may not capture structured bindings (C++20, clang < 16)
+    const Product& p = applied.first;
+    const std::vector<Stage>& st = applied.second;
     detail::for_each_index(in.probes.size(), [&](std::size_t i) {
       const ProbeCurve& c = in.probes[i];
       const Eigen::Index col = shared() + static_cast<Eigen::Index>(i);

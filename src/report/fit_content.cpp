@@ -40,7 +40,7 @@ std::string stage_list(const std::vector<int>& stages, const std::vector<std::st
 std::string temp(double c, TempUnit u) { return fixed(display_temp(c, u), 1) + " " + std::string(unit_symbol(u)); }
 
 void add_fit_section(FitContent& out, const std::string& id, const std::string& heading, const FitResult& f,
-                     const StudyAnalysis& a, const std::vector<std::string>& stage_name) {
+                     const std::vector<std::string>& stage_name) {
   FitSection s;
   s.id = id;
   s.heading = heading;
@@ -156,11 +156,11 @@ FitContent fit_content(const StudyAnalysis& a, const FitReportContext& c, TempUn
       "than 20 %) is reported with both slopes, never forced into one line.");
   out.sections.push_back(cv);
 
-  add_fit_section(out, "fit", "Model fit to the slowest-heating probe (design value)", a.fit_slowest, a, stage_name);
+  add_fit_section(out, "fit", "Model fit to the slowest-heating probe (design value)", a.fit_slowest, stage_name);
   out.sections.back().statements.push_back("Design value: the slowest-heating probe, " +
                                            a.curves[static_cast<std::size_t>(a.slowest)].name +
                                            " (common practice: a process is set for the slowest container).");
-  if (a.fit_pool) add_fit_section(out, "pool", "Model fit to all probes together (for comparison)", *a.fit_pool, a, stage_name);
+  if (a.fit_pool) add_fit_section(out, "pool", "Model fit to all probes together (for comparison)", *a.fit_pool, stage_name);
 
   if (a.cross_check) {
     FitSection x;
