@@ -129,19 +129,6 @@ std::vector<FittedH> stage_groups(const std::vector<Stage>& stages, const std::v
   return groups;
 }
 
-/// Smallest half-dimension (radius, half-thickness, half-edge) of the product.
-double smallest_half_m(const Product& p) {
-  const Dimensions& d = p.dims;
-  switch (p.shape) {
-    case Shape::sphere:
-    case Shape::cylinder: return d.diameter_m / 2;
-    case Shape::finite_cylinder: return std::min(d.diameter_m, d.length_m) / 2;
-    case Shape::slab: return d.thickness_m / 2;
-    case Shape::brick: return std::min({d.size_m[0], d.size_m[1], d.size_m[2]}) / 2;
-  }
-  return d.diameter_m / 2;
-}
-
 /// A probe's initial temperature: the mean of its readings while the centre cannot yet have
 /// moved (Fo <= 0.02 at the file's α: the centre is then within 1e-6 of its start), so one
 /// noisy first reading does not bias the whole fit.
@@ -350,7 +337,7 @@ FitResult fit_study(const FitInput& in) {
     m.n += static_cast<int>(c.time_s.size());
   }
   const ThermalProperties& tp = in.product.properties;
-  const double window_s = 0.02 * std::pow(smallest_half_m(in.product), 2) / tp.diffusivity_m2_s();
+  const double window_s = 0.02 * std::pow(smallest_half_dimension_m(in.product), 2) / tp.diffusivity_m2_s();
   for (const ProbeCurve& c : in.probes) m.initial_C.push_back(initial_of(c, window_s));
   const double rho_cp = tp.density_kg_m3 * tp.specific_heat_J_kgK;
   FitResult res;

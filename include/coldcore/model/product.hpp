@@ -26,4 +26,8 @@ struct Product {
   ThermalProperties properties;
 };
 
+/// Smallest half-dimension (radius or half-thickness), m: the length of the stage Biot number,
+/// and the one the centre's insulated time L²/α is built on.
+double smallest_half_dimension_m(const Product& p);
+
 }  // namespace coldcore

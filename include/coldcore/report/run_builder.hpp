@@ -21,8 +21,6 @@ struct RunReportOptions {
 
 /// Characteristic length V/A of the product, m (for the lumped-capacitance Biot number).
 double volume_to_area_m(const Product& p);
-/// Smallest half-dimension (radius or half-thickness), m: the length of the stage Biot number.
-double smallest_half_dimension_m(const Product& p);
 /// Biot number on Lc = V/A: h·(V/A)/k. The one Bi the run report shows (table, notes, reading).
 /// REQUIRES h_W_m2K > 0 finite, conductivity > 0.
 double biot_volume_to_area(const Product& p, double h_W_m2K);
