@@ -433,6 +433,17 @@ FitResult fit_study(const FitInput& in) {
     return std::array<double, 2>{std::min(ci[0], std::exp(x - t95 * se)), std::max(ci[1], std::exp(x + t95 * se))};
   };
   res.alpha_ci95_m2_s = widened(0, res.alpha_ci95_m2_s);
+  // A widened interval widens the standard error the covariance carries (scale[k] ≥ 1), so the
+  // bound run and solve draw from the calibration is as wide as the intervals shown.
+  std::vector<double> scale(static_cast<std::size_t>(m.shared()), 1.0);
+  const auto widen_se = [&](Eigen::Index k, double value, const std::array<double, 2>& ci, double& se_log) {
+    const double half = std::max(std::log(value / ci[0]), std::log(ci[1] / value)) / t95;
+    if (se_log > 0 && half > se_log) {
+      scale[static_cast<std::size_t>(k)] = half / se_log;
+      se_log = half;
+    }
+  };
+  widen_se(0, res.alpha_m2_s, res.alpha_ci95_m2_s, res.alpha_se_log);
   res.parameters = {"alpha"};
   {
     const std::vector<double> biots = stage_biots(m, sol.x);
@@ -443,6 +454,7 @@ FitResult fit_study(const FitInput& in) {
       if (std::find(m.layout.free_groups.begin(), m.layout.free_groups.end(), gi) == m.layout.free_groups.end()) continue;
       g.se_log = std::sqrt(std::max(cov(k, k), 0.0));
       g.ci95_W_m2K = widened(k, {g.h_W_m2K * std::exp(-t95 * g.se_log), g.h_W_m2K * std::exp(t95 * g.se_log)});
+      widen_se(k, g.h_W_m2K, g.ci95_W_m2K, g.se_log);
       res.parameters.push_back("h:" + std::to_string(gi));
       ++k;
     }
@@ -458,7 +470,7 @@ FitResult fit_study(const FitInput& in) {
   for (std::size_t a = 0; a < p; ++a)
     for (std::size_t b = 0; b < p; ++b) {
       const auto ia = static_cast<Eigen::Index>(a), ib = static_cast<Eigen::Index>(b);
-      res.covariance_log[a][b] = cov(ia, ib);
+      res.covariance_log[a][b] = cov(ia, ib) * scale[a] * scale[b];
       const double d = std::sqrt(cov(ia, ia) * cov(ib, ib));
       res.correlation[a][b] = d > 0 ? cov(ia, ib) / d : (a == b ? 1.0 : 0.0);
     }

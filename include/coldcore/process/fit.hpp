@@ -77,7 +77,8 @@ struct FitResult {
   /// do not look like this product in this process (probe position, swapped logs, wrong file).
   bool at_limit = false;
   /// An h is held at its lower bound, and the intervals of α and the fitted h span the fit at
-  /// that bound and the fit with that h at the top of its range (any larger h fits as well).
+  /// that bound and the fit with that h at the top of its range (any larger h fits as well);
+  /// their standard errors and covariance_log are widened to match (correlations kept).
   bool intervals_span_bound = false;
 };
 
