@@ -516,3 +516,5 @@ cli_expect(issue11_probe_spring_forward_timezone 1 ARGS probe tests/cli/deviatio
 add_test(NAME cli.fit_study
          COMMAND ${CMAKE_COMMAND} -DEXE=$<TARGET_FILE:coldcore> -DSRC=${PROJECT_SOURCE_DIR} -DWORK=${CMAKE_BINARY_DIR}
                  -P ${PROJECT_SOURCE_DIR}/tests/cli/fit_study.cmake)
+# About 4 min under the sanitizers (it ran last, alone): a COST makes `ctest -j` start it early.
+set_tests_properties(cli.fit_study PROPERTIES COST 4000)
