@@ -118,7 +118,10 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side, Ve
       break;
     }
     case Format::json: write_deviation_json(r, info, out, u); break;
-    case Format::csv: write_deviation_csv(r, info, out, u); break;
+    case Format::csv:
+      write_deviation_csv(r, info, out, u);
+      add_csv_sidecar(a.output, side, [&](std::ostream& o) { write_deviation_json(r, info, o, u); });
+      break;
     default: write_deviation_text(r, info, out, u); break;
   }
   // The worst case not met is not a demonstrated process either.

@@ -74,7 +74,11 @@ std::vector<process::ProbeCurve> probe_curves(const FitArgs& a, const std::optio
     } else if (columns.size() <= 1) {
       columns = {""};
     }
-    provenance.push_back({"probe log " + path, "sha256 " + io::sha256_hex(bytes)});
+    // One row per log, numbered from the second on, so that each label (and json key) is unique.
+    const auto logs = std::count_if(provenance.begin(), provenance.end(),
+                                    [](const KeyValue& kv) { return kv.key.rfind("probe log", 0) == 0; });
+    provenance.push_back({logs ? "probe log " + std::to_string(logs + 1) : std::string("probe log"),
+                          path + " (sha256 " + io::sha256_hex(bytes) + ")"});
     for (const std::string& col : columns) {
       const ReadLog r = read_log(path, col, a, "");
       warnings.insert(warnings.end(), r.series.warnings.begin(), r.series.warnings.end());
@@ -125,7 +129,7 @@ int run_fit(const FitArgs& a, std::ostream& out, SideFiles& side) {
   std::optional<ReadLog> medium;
   if (!a.medium_log.empty()) {
     medium = read_log(a.medium_log, a.medium_column, a, "choose one with --medium-column NAME");
-    ctx.provenance.push_back({"medium log " + a.medium_log, "sha256 " + io::sha256_hex(medium->bytes)});
+    ctx.provenance.push_back({"medium log", a.medium_log + " (sha256 " + io::sha256_hex(medium->bytes) + ")"});
     ctx.warnings.insert(ctx.warnings.end(), medium->series.warnings.begin(), medium->series.warnings.end());
   }
   std::vector<process::ProbeCurve> probes = probe_curves(a, medium, ctx.provenance, ctx.warnings);
@@ -162,7 +166,10 @@ int run_fit(const FitArgs& a, std::ostream& out, SideFiles& side) {
 
   switch (f) {
     case Format::json: write_fit_json(analysis, ctx, out, u); break;
-    case Format::csv: write_fit_csv(analysis, ctx, out, u); break;
+    case Format::csv:
+      write_fit_csv(analysis, ctx, out, u);
+      add_csv_sidecar(a.output, side, [&](std::ostream& o) { write_fit_json(analysis, ctx, o, u); });
+      break;
     case Format::html: write_fit_html(analysis, ctx, out, u); break;
     case Format::md: {
       MarkdownReport md = write_fit_markdown(analysis, ctx, u, std::filesystem::path(a.output.out).stem().string());

@@ -51,7 +51,7 @@ int run_modes(const ModesArgs& a, std::ostream& out) {
   // Two modes at least, for the one-term note.
   const std::vector<Mode> all = modes(g, biot, std::max(a.count, 2));
   ModesTable table{g, biot, std::vector<Mode>(all.begin(), all.begin() + a.count), one_term_fourier(all)};
-  write_modes_table(table, f, out);
+  write_modes_table(table, f, parse_temp_unit(a.output.units), out);
   return kAllMet;
 }
 

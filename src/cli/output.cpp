@@ -2,6 +2,7 @@
 
 #include "cli/progress.hpp"
 
+#include <algorithm>
 #include <cctype>
 #include <cmath>
 #include <cstdio>
@@ -14,6 +15,7 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/io/product_file.hpp"
+#include "coldcore/report/csv_layout.hpp"
 #include "coldcore/report/temperature_text.hpp"
 
 namespace coldcore::cli {
@@ -25,6 +27,11 @@ void add_output_options(CLI::App& sub, OutputArgs& a, std::vector<Format> format
   sub.add_option("-f,--format", a.format, list + " (default: named by the --out extension, else text)");
   sub.add_option("-o,--out", a.out, "write to this file instead of standard output (- : standard output)");
   sub.add_option("--units", a.units, "temperatures in C or F")->capture_default_str();
+  if (std::find(a.formats.begin(), a.formats.end(), Format::csv) != a.formats.end())
+    sub.add_flag("--csv-comments", a.csv_comments,
+                 "csv: notes (cautions, verdicts, provenance) as leading '# ' lines instead of a last column "
+                 "'notes' (the default puts the header first, as spreadsheets and pandas expect; -o x.csv also "
+                 "writes x.meta.json)");
   // Bounded below so that a history table stays within a few million rows.
   if (with_step)
     sub.add_option("--step-s", a.step_s, "output sampling of history tables, s")
@@ -192,7 +199,8 @@ int with_output(const OutputArgs& a, const std::function<int(std::ostream&, Side
   // Temperatures inside free text reach here as tokens (report/temperature_text.hpp): shown in
   // the display unit now, for every verb and format (the body has validated --units).
   const TempUnit u = parse_temp_unit(a.units);
-  const std::string text = render_temperatures(buf.str(), u);
+  std::string text = render_temperatures(buf.str(), u);
+  if (!a.csv_comments && output_format(a) == Format::csv) text = header_first_csv(text);
   if (to_stdout(a)) {
     std::cout << text;
     return code;
@@ -209,6 +217,15 @@ int with_output(const OutputArgs& a, const std::function<int(std::ostream&, Side
   for (std::size_t i = 0; i < files.size(); ++i) check_target(files[i].first, shown[i]);
   write_all_or_nothing(files, shown);
   return code;
+}
+
+void add_csv_sidecar(const OutputArgs& a, SideFiles& side, const std::function<void(std::ostream&)>& write_json) {
+  if (to_stdout(a) || a.csv_comments) return;
+  fs::path name = fs::path(a.out).filename();
+  if (name.extension() == ".csv") name.replace_extension();
+  std::ostringstream json;
+  write_json(json);
+  side.emplace_back(name.string() + ".meta.json", json.str());
 }
 
 int with_report_output(const OutputArgs& a, std::string_view verb,

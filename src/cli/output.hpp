@@ -21,11 +21,12 @@ struct OutputArgs {
   std::string out;        ///< empty or "-": stdout
   std::string units = "C";
   double step_s = 60;     ///< output sampling for history tables
+  bool csv_comments = false;  ///< csv: notes as leading '# ' lines instead of a notes column
   std::vector<Format> formats;  ///< the formats the verb writes (set by add_output_options)
 };
 
-/// Adds -f/--format (help lists `formats`, the verb's own), -o/--out, --units and, with_step,
-/// --step-s.
+/// Adds -f/--format (help lists `formats`, the verb's own), -o/--out, --units, --csv-comments
+/// when the verb writes csv and, with_step, --step-s.
 void add_output_options(CLI::App& sub, OutputArgs& a, std::vector<Format> formats, bool with_step = false);
 
 /// True when the report goes to standard output (no --out, or --out -).
@@ -53,12 +54,14 @@ std::string today_local();
 std::string report_date(const std::string& given);
 
 /// Runs `body` writing into a buffer; on success writes the buffer to --out (or stdout) and
-/// returns body's exit code. On an exception nothing is written.
+/// returns body's exit code. On an exception nothing is written. A csv report is turned into the
+/// header-first layout (report/csv_layout.hpp) unless --csv-comments.
 int with_output(const OutputArgs& a, const std::function<int(std::ostream&)>& body);
 
 /// Writes `text` to `path` whole or not at all (a temporary renamed into place), refusing an
 /// input file, a directory or a device; messages start with `<option> = <path>`.
 void write_whole_file(const std::string& path, const std::string& text, const std::string& option);
+
 
 /// Files written beside --out (e.g. the SVG plots of a Markdown report): name relative to the
 /// folder of --out, and content.
@@ -67,6 +70,11 @@ using SideFiles = std::vector<std::pair<std::string, std::string>>;
 /// As above, and the body may add side files; they are written only when --out is given and
 /// the body succeeded (a body that adds side files without --out is refused by the verb).
 int with_output(const OutputArgs& a, const std::function<int(std::ostream&, SideFiles&)>& body);
+
+/// A csv report written to --out gets its metadata beside it: "x.meta.json" for x.csv, holding
+/// the verb's json report (cautions, provenance, verdicts, notes), written by `write_json`.
+/// Nothing is added for standard output or with --csv-comments (the notes are then in the file).
+void add_csv_sidecar(const OutputArgs& a, SideFiles& side, const std::function<void(std::ostream&)>& write_json);
 
 /// As above, for a verb whose report opens with a verdict summary (run, probe, solve,
 /// deviation): the body sets `summary` to the one its report shows; once the report is written

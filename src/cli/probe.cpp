@@ -127,7 +127,10 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side, VerdictSum
   summary = verdict_summary(r);
   switch (f) {
     case Format::json: write_run_json(r, out, u); break;
-    case Format::csv: write_run_csv(r, out, u); break;
+    case Format::csv:
+      write_run_csv(r, out, u);
+      add_csv_sidecar(a.output, side, [&](std::ostream& o) { write_run_json(r, o, u); });
+      break;
     case Format::html: write_run_html(r, out, u); break;
     case Format::md: {
       MarkdownReport md = write_run_markdown(r, u, std::filesystem::path(a.output.out).stem().string());

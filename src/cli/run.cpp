@@ -65,7 +65,10 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side, VerdictSummary
   summary = verdict_summary(report);
   switch (f) {
     case Format::json: write_run_json(report, out, u); break;
-    case Format::csv: write_run_csv(report, out, u); break;
+    case Format::csv:
+      write_run_csv(report, out, u);
+      add_csv_sidecar(a.output, side, [&](std::ostream& o) { write_run_json(report, o, u); });
+      break;
     case Format::html: write_run_html(report, out, u); break;
     case Format::md: {
       const std::string base = std::filesystem::path(a.output.out).stem().string();

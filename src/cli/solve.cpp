@@ -101,7 +101,10 @@ int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side, VerdictSum
       break;
     }
     case Format::json: write_solve_json(r, c, out, u); break;
-    case Format::csv: write_solve_csv(r, c, out, u); break;
+    case Format::csv:
+      write_solve_csv(r, c, out, u);
+      add_csv_sidecar(a.output, side, [&](std::ostream& o) { write_solve_json(r, c, o, u); });
+      break;
     default: write_solve_text(r, c, out, u); break;
   }
   // The answer exists; the exit code says whether its re-run meets every target.

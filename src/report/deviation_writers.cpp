@@ -6,6 +6,7 @@
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/deviation_report.hpp"
 #include "coldcore/report/json.hpp"
+#include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/solve_report.hpp"
 #include "coldcore/report/verdict_summary.hpp"
 
@@ -76,7 +77,7 @@ void text_conservative(const process::ConservativeDeviation& c, const DeviationR
 
 /// Per target scheduled against delivered, then the extra hold: the same keys for the nominal
 /// record and for its conservative worst case.
-void json_targets_and_hold(JsonWriter& w, const DeviationResult& r) {
+void json_targets_and_hold(JsonWriter& w, const DeviationResult& r, TempUnit u) {
   w.key("targets").begin_array();
   for (const auto& t : r.targets) {
     w.begin_object();
@@ -95,6 +96,7 @@ void json_targets_and_hold(JsonWriter& w, const DeviationResult& r) {
     w.key("verdict").value(to_string(t.verdict));
     w.key("met").value(t.verdict == Verdict::met);  // as delivered
     w.key("scheduled_verdict").value(to_string(t.scheduled.verdict));
+    w.key("margin_unit").value(raw_unit(t.delivered));  // of delivered_margin and its uncertainty
     w.key("delivered_margin").value(t.delivered.margin);
     w.key("delivered_margin_uncertainty").value(t.delivered.margin_uncertainty);
     w.key("delivered_verdict_text").value(t.delivered.verdict_text);
@@ -106,16 +108,16 @@ void json_targets_and_hold(JsonWriter& w, const DeviationResult& r) {
   w.key("all_met_delivered").value(r.all_met_delivered);
   json_opt(w, "extra_hold_s", r.extra_hold_s);
   json_opt(w, "extra_hold_unrounded_s", r.extra_hold_unrounded_s);
-  w.key("extension_medium_C").value(r.extension_medium_C);
+  w.key("extension_medium_" + std::string(unit_suffix(u))).value(display_temp(r.extension_medium_C, u));
   if (!r.extra_hold_note.empty()) w.key("extra_hold_note").value(r.extra_hold_note);
 }
 
-void json_conservative(JsonWriter& w, const process::ConservativeDeviation& c) {
+void json_conservative(JsonWriter& w, const process::ConservativeDeviation& c, TempUnit u) {
   const DeviationResult& r = c.result;
   w.key("conservative").begin_object();
   w.key("choices").value(c.choices);
   w.key("initial_reason").value(c.initial_reason);
-  json_targets_and_hold(w, r);
+  json_targets_and_hold(w, r, u);
   w.key("alone").begin_array();
   for (const auto& a : c.alone) {
     w.begin_object();
@@ -233,9 +235,10 @@ void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i
   for (const auto& cau : cautions()) out << "  * " << cau << "\n";
 }
 
-void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit) {
+void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u) {
   JsonWriter w(out);
   w.begin_object();
+  write_json_envelope(w, "deviation", u);
   w.key("product").value(i.product_name);
   write_summary_json(w, verdict_summary(r, i.conservative));
   if (i.lot.empty()) w.key("lot").null(); else w.key("lot").value(i.lot);
@@ -251,12 +254,13 @@ void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i
     w.key("start_s").value(e.start_s);
     w.key("end_s").value(e.end_s);
     if (e.kind == process::DeviationKind::medium_colder || e.kind == process::DeviationKind::medium_warmer) {
-      w.key("extreme_C").value(e.extreme_C);
+      const std::string us(unit_suffix(u));
+      w.key("extreme_" + us).value(display_temp(e.extreme_C, u));
       w.key("extreme_at_s").value(e.extreme_at_s);
-      w.key("scheduled_at_extreme_C").value(e.scheduled_at_extreme_C);
+      w.key("scheduled_at_extreme_" + us).value(display_temp(e.scheduled_at_extreme_C, u));
       w.key("departure_K").value(e.departure_K);
     }
-    w.key("description").value(deviation_event_text(e, TempUnit::C));
+    w.key("description").value(deviation_event_text(e, u));
     w.end_object();
   }
   w.end_array();
@@ -264,7 +268,7 @@ void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i
   json_opt(w, "extension_given_s", r.extension_given_s);
   json_opt(w, "extension_needed_s", r.extension_needed_s);
   if (!r.extension_needed_note.empty()) w.key("extension_needed_note").value(r.extension_needed_note);
-  json_targets_and_hold(w, r);
+  json_targets_and_hold(w, r, u);
   w.key("restored");
   if (r.restored) {
     w.begin_object();
@@ -296,14 +300,13 @@ void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i
   w.key("review_date").value("");
   w.key("decision").value("");
   w.end_object();
-  if (i.conservative) json_conservative(w, *i.conservative);
+  if (i.conservative) json_conservative(w, *i.conservative, u);
   w.key("disposition").value(disposition_statement());
   w.key("notes").value(r.notes);
   w.key("assumptions").value(r.assumptions);
   w.key("warnings").value(i.warnings);
-  w.key("provenance").begin_object();
-  for (const auto& kv : i.provenance) w.key(kv.key).value(kv.value);
-  w.end_object();
+  w.key("provenance");
+  write_labelled_object(w, i.provenance);
   w.key("cautions").value(cautions());
   w.end_object();
   out << "\n";

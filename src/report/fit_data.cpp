@@ -4,6 +4,7 @@
 
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
+#include "coldcore/report/json_contract.hpp"
 #include "fit_content.hpp"
 
 namespace coldcore {
@@ -47,14 +48,15 @@ void fit_json(JsonWriter& w, const FitResult& f, const std::vector<std::string>&
     for (int i : g.stages) w.value(stage_names[static_cast<std::size_t>(i)]);
     w.end_array();
     w.key("status").value(h_status_key(g.status));
+    w.key("h_infinite").value(!std::isfinite(g.h_W_m2K));
     if (std::isfinite(g.h_W_m2K)) w.key("h_W_m2K").value(g.h_W_m2K);
-    else w.key("h_W_m2K").value("inf");
+    else w.key("h_W_m2K").null();
     w.key("h_lower_bound").value(g.status == HStatus::lower_bound);
     w.key("h_ci95_W_m2K");
     if (g.status == HStatus::fitted) pair(w, g.ci95_W_m2K);
     else w.null();
     w.key("biot");
-    std::isfinite(g.biot) ? w.value(g.biot) : w.value("inf");
+    std::isfinite(g.biot) ? w.value(g.biot) : w.null();  // null with h_infinite
     w.end_object();
   }
   w.end_array();
@@ -102,9 +104,11 @@ void curve_json(JsonWriter& w, const CurveDescription* c, const char* f_key, con
 
 }  // namespace
 
-void write_fit_json(const StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit) {
+void write_fit_json(const StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u) {
   JsonWriter w(out);
   w.begin_object();
+  write_json_envelope(w, "fit", u);
+  const std::string us(unit_suffix(u));
   w.key("product").value(c.product_name);
   w.key("fit");
   fit_json(w, a.fit_slowest, c.stage_names);
@@ -113,18 +117,18 @@ void write_fit_json(const StudyAnalysis& a, const FitReportContext& c, std::ostr
   else w.null();
   w.key("phases").begin_object();
   w.key("heating_end_s").value(a.phases.heating_end_s);
-  w.key("retort_C").value(a.phases.retort_C);
+  w.key("retort_" + us).value(display_temp(a.phases.retort_C, u));
   w.key("come_up_s").value(a.phases.come_up_s);
   w.key("corrected_zero_s").value(a.phases.corrected_zero_s);
-  w.key("cooling_medium_C");
-  if (a.phases.has_cooling) w.value(a.phases.cooling_medium_C);
+  w.key("cooling_medium_" + us);
+  if (a.phases.has_cooling) w.value(display_temp(a.phases.cooling_medium_C, u));
   else w.null();
   w.end_object();
   w.key("curves").begin_array();
   for (const ProbeDescription& d : a.curves) {
     w.begin_object();
     w.key("probe").value(d.name);
-    w.key("initial_C").value(d.initial_C);
+    w.key("initial_" + us).value(display_temp(d.initial_C, u));
     w.key("heating_status").value(curve_status_key(d.heating.status));
     curve_json(w, &d.heating, "f_h_s", "j_h");
     const CurveDescription* cool = d.cooling ? &*d.cooling : nullptr;
@@ -145,8 +149,8 @@ void write_fit_json(const StudyAnalysis& a, const FitReportContext& c, std::ostr
     d.heating.broken ? w.value(d.heating.f2_s) : w.null();
     w.key("break_s");
     d.heating.broken ? w.value(d.heating.break_s) : w.null();
-    w.key("F_delivered_s");
-    d.F_s ? w.value(*d.F_s) : w.null();
+    w.key("F_delivered_min");
+    d.F_s ? w.value(*d.F_s / 60.0) : w.null();
     w.key("hotter_than_medium_at_reading");
     d.hotter_than_medium ? w.value(d.hotter_than_medium->reading) : w.null();
     w.end_object();
@@ -161,7 +165,8 @@ void write_fit_json(const StudyAnalysis& a, const FitReportContext& c, std::ostr
     w.key("alpha_m2_s").value(a.cross_check->estimate.alpha_m2_s);
     w.key("biot");
     std::isfinite(a.cross_check->estimate.biot_smallest_dimension) ? w.value(a.cross_check->estimate.biot_smallest_dimension)
-                                                                   : w.value("inf");
+                                                                   : w.null();
+    w.key("biot_infinite").value(!std::isfinite(a.cross_check->estimate.biot_smallest_dimension));
     w.key("alpha_ratio").value(a.cross_check->alpha_ratio);
     w.key("predicted_f_h_s").value(a.cross_check->predicted.f_s);
     w.key("predicted_j_h").value(a.cross_check->predicted.j);
@@ -195,9 +200,8 @@ void write_fit_json(const StudyAnalysis& a, const FitReportContext& c, std::ostr
   c.written_product.empty() ? w.null() : w.value(c.written_product);
   w.key("warnings").value(c.warnings);
   w.key("cautions").value(cautions());
-  w.key("provenance").begin_object();
-  for (const auto& kv : c.provenance) w.key(kv.key).value(kv.value);
-  w.end_object();
+  w.key("provenance");
+  write_labelled_object(w, c.provenance);
   w.end_object();
   out << "\n";
 }

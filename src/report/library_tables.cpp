@@ -3,6 +3,7 @@
 
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
+#include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/reference_tables.hpp"
 
 namespace coldcore {
@@ -22,15 +23,21 @@ void write_cautions_text(std::ostream& out) {
 void write_organism_library(const OrganismLibrary& lib, Format f, TempUnit u, std::ostream& out) {
   if (f == Format::json) {
     JsonWriter w(out);
-    w.begin_object().key("library").value(lib.origin).key("organisms").begin_array();
+    w.begin_object();
+    write_json_envelope(w, "organisms", u);
+    w.key("library").value(lib.origin).key("organisms").begin_array();
     for (const auto& o : lib.organisms) {
       const Kinetics& k = o.kinetics;
       w.begin_object();
       w.key("key").value(k.key).key("name").value(k.name).key("kind").value(o.kind);
-      w.key("reference_C").value(k.reference_C).key("z_C").value(k.z_C);
-      if (k.split_C) w.key("split_C").value(*k.split_C).key("z_below_C").value(*k.z_below_C);
+      // In the report's unit; "values" below keeps each entry as the library writes it, with its source.
+      const std::string us(unit_suffix(u));
+      w.key("reference_" + us).value(display_temp(k.reference_C, u));
+      w.key("z_" + us).value(display_temp_difference(k.z_C, u));
+      if (k.split_C)
+        w.key("split_" + us).value(display_temp(*k.split_C, u)).key("z_below_" + us).value(display_temp_difference(*k.z_below_C, u));
       if (k.D_ref_s) w.key("D_ref_s").value(*k.D_ref_s);
-      w.key("valid_min_C").value(k.valid_min_C).key("valid_max_C").value(k.valid_max_C);
+      w.key("valid_min_" + us).value(display_temp(k.valid_min_C, u)).key("valid_max_" + us).value(display_temp(k.valid_max_C, u));
       w.key("values").begin_array();
       for (const auto& [key, v] : o.values)
         w.begin_object().key("key").value(key).key("value").value(v.value).key("source").value(v.source)
@@ -68,7 +75,9 @@ void write_organism_library(const OrganismLibrary& lib, Format f, TempUnit u, st
 void write_rule_library(const RuleLibrary& lib, Format f, TempUnit u, std::ostream& out) {
   if (f == Format::json) {
     JsonWriter w(out);
-    w.begin_object().key("library").value(lib.origin).key("rules").begin_array();
+    w.begin_object();
+    write_json_envelope(w, "rules", u);
+    w.key("library").value(lib.origin).key("rules").begin_array();
     for (const auto& r : lib.rules) {
       w.begin_object().key("key").value(r.key).key("name").value(r.name).key("source").value(r.source)
           .key("status").value(r.status);

@@ -4,11 +4,12 @@
 
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
+#include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/reference_tables.hpp"
 
 namespace coldcore {
 
-void write_media_library(const io::MediaLibrary& lib, Format f, std::ostream& out) {
+void write_media_library(const io::MediaLibrary& lib, Format f, TempUnit u, std::ostream& out) {
   const std::string use =
       "a stage naming medium_type uses, for each target, the end of the range conservative for it: the LOW end in "
       "a heating stage (slower heating, conservative for lethality and minimum temperatures) and for a cooling "
@@ -18,6 +19,7 @@ void write_media_library(const io::MediaLibrary& lib, Format f, std::ostream& ou
   if (f == Format::json) {
     JsonWriter w(out);
     w.begin_object();
+    write_json_envelope(w, "media", u);
     w.key("library").value(lib.origin);
     w.key("use").value(use);
     w.key("media").begin_array();

@@ -6,6 +6,7 @@
 
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
+#include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/reference_tables.hpp"
 
 namespace coldcore {
@@ -14,7 +15,7 @@ namespace {
 std::string biot_text(double biot) { return std::isinf(biot) ? "inf" : JsonWriter::number(biot); }
 }  // namespace
 
-void write_modes_table(const ModesTable& t, Format f, std::ostream& out) {
+void write_modes_table(const ModesTable& t, Format f, TempUnit u, std::ostream& out) {
   std::ostringstream note;
   note << "At the centre the second term is below 1 % of the first once Fo > "
        << fixed(t.one_term_fourier, 3) << "; the handbook rule is that one term serves for Fo > 0.2 (within about 2 %).";
@@ -22,8 +23,10 @@ void write_modes_table(const ModesTable& t, Format f, std::ostream& out) {
   if (f == Format::json) {
     JsonWriter w(out);
     w.begin_object();
+    write_json_envelope(w, "modes", u);
     w.key("shape").value(to_string(t.geometry));
-    if (std::isinf(t.biot)) w.key("biot").value("inf"); else w.key("biot").value(t.biot);
+    w.key("biot_infinite").value(std::isinf(t.biot));
+    if (std::isinf(t.biot)) w.key("biot").null(); else w.key("biot").value(t.biot);
     w.key("modes").begin_array();
     for (const auto& m : t.modes) {
       w.begin_object();

@@ -4,6 +4,7 @@
 
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
+#include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/reference_tables.hpp"
 
 namespace coldcore {
@@ -17,6 +18,7 @@ void write_properties_table(const PropertiesTable& t, Format f, TempUnit u, std:
   if (f == Format::json) {
     JsonWriter w(out);
     w.begin_object();
+    write_json_envelope(w, "props", u);
     w.key("composition").begin_object();
     w.key("water").value(c.water).key("protein").value(c.protein).key("fat").value(c.fat);
     w.key("carbohydrate").value(c.carbohydrate).key("fiber").value(c.fiber).key("ash").value(c.ash);

@@ -4,6 +4,7 @@
 #include <ostream>
 
 #include "coldcore/report/json.hpp"
+#include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/run_report.hpp"
 #include "coldcore/report/solve_report.hpp"
 #include "coldcore/report/verdict_summary.hpp"
@@ -34,8 +35,10 @@ void write_stage(JsonWriter& w, const StageRow& s, const RunReport& r, TempUnit 
   w.key("end_s").value(s.end_s);
   w.key("ended_by").value(s.ended_by);
   if (with_medium) w.key("medium").value(s.medium);
-  if (s.h_infinite) w.key("h_W_m2K").value("inf"); else w.key("h_W_m2K").value(s.h_W_m2K);
-  if (s.h_infinite) w.key("biot").value("inf"); else w.key("biot").value(s.biot);
+  // An infinite h (a surface held at the medium) has no finite number: null beside the flag.
+  w.key("h_infinite").value(s.h_infinite);
+  if (s.h_infinite) w.key("h_W_m2K").null(); else w.key("h_W_m2K").value(s.h_W_m2K);
+  if (s.h_infinite) w.key("biot").null(); else w.key("biot").value(s.biot);
   if (!r.biot_length.empty()) w.key("biot_length").value(r.biot_length);  // "V/A": Bi = h·(V/A)/k
   if (with_medium) w.key("biot_note").value(s.biot_note);
   const std::string us(unit_suffix(u));
@@ -58,10 +61,9 @@ std::string display_column(const Column& c, TempUnit u) {
 void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
   JsonWriter w(out);
   w.begin_object();
-  w.key("verb").value(r.verb);
+  write_json_envelope(w, r.verb, u);
   w.key("title").value(r.title);
   write_summary_json(w, verdict_summary(r));
-  w.key("units").value(unit_suffix(u));
   w.key("history").begin_array();
   for (const auto& row : r.history.rows) {
     w.begin_object();
@@ -73,9 +75,8 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
   }
   w.end_array();
   w.key("summary").begin_object();
-  w.key("product").begin_object();
-  for (const auto& kv : r.product) w.key(kv.key).value(kv.value);
-  w.end_object();
+  w.key("product");
+  write_labelled_object(w, r.product);
   w.key("stages").begin_array();
   for (const auto& s : r.stages) write_stage(w, s, r, u, true);
   w.end_array();
@@ -104,14 +105,15 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
     w.key("kind").value(v.kind);
     w.key("verdict").value(verdict_word(v.met));
     w.key("met").value(v.met);
-    w.key("required").value(v.required);
-    w.key("achieved").value(v.achieved);
-    w.key("margin").value(v.margin);
-    w.key("required_value").value(v.required_value);
-    w.key("achieved_value").value(v.achieved_value);
-    w.key("margin_value").value(v.margin_value);
-    w.key("margin_uncertainty_value").value(v.margin_uncertainty_value);
-    w.key("value_unit").value(v.value_unit);
+    // Numbers in `unit` (as solve and deviation write them), then the rounded texts shown.
+    w.key("unit").value(v.value_unit);
+    w.key("required").value(v.required_value);
+    w.key("achieved").value(v.achieved_value);
+    w.key("margin").value(v.margin_value);
+    w.key("margin_uncertainty").value(v.margin_uncertainty_value);
+    w.key("required_text").value(v.required);
+    w.key("achieved_text").value(v.achieved);
+    w.key("margin_text").value(v.margin);
     if (!v.scenario.empty()) w.key("scenario").value(v.scenario);
     w.key("details").value(v.details);
     if (v.at_fit_bound) {
@@ -119,10 +121,10 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
       w.key("at_fit_bound").begin_object();
       w.key("verdict").value(verdict_word(b.met));
       w.key("met").value(b.met);
-      w.key("achieved").value(b.achieved);
-      w.key("margin").value(b.margin);
-      w.key("achieved_value").value(b.achieved_value);
-      w.key("margin_value").value(b.margin_value);
+      w.key("achieved").value(b.achieved_value);
+      w.key("margin").value(b.margin_value);
+      w.key("achieved_text").value(b.achieved);
+      w.key("margin_text").value(b.margin);
       w.end_object();
     }
     if (v.cooling) write_cooling_steps_json(w, *v.cooling);
@@ -137,7 +139,7 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
       w.key("name").value(d.name);
       w.key("kind").value(d.kind);
       w.key("verdict").value("none: no target given");
-      w.key("F_s").value(d.F_s);
+      w.key("F_min").value(d.F_s / 60.0);
       w.key("F_text").value(d.F_text);
       w.key("reference_" + std::string(unit_suffix(u))).value(display_temp(d.reference_C, u));
       w.key("z_" + std::string(unit_suffix(u))).value(display_temp_difference(d.z_C, u));
@@ -164,9 +166,8 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
   w.key("warnings").value(r.warnings);
   w.key("assumptions").value(r.assumptions);
   w.key("cautions").value(r.cautions);
-  w.key("provenance").begin_object();
-  for (const auto& kv : r.provenance) w.key(kv.key).value(kv.value);
-  w.end_object();
+  w.key("provenance");
+  write_labelled_object(w, r.provenance);
   w.end_object();
 }
 
@@ -229,15 +230,30 @@ void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
     for (const auto& d : v.details)
       if (d.rfind("h used: ", 0) == 0 || d.find("the gap in the log from") != std::string::npos)  // issue 11
         out << "# verdict note: " << v.name << ": " << d << "\n";
+  for (const auto& c : r.history.columns)
+    if (c.name == "lumped_centre_C")
+      out << "# column " << display_column(c, u)
+          << ": the centre as the lumped (uniform-temperature) shortcut would have it, shown to compare with the "
+             "exact centre; never used for a verdict\n";
   if (!r.scenarios.empty()) {
     write_scenario_rows(r, out, u);
     return;
   }
-  for (size_t i = 0; i < r.history.columns.size(); ++i)
+  // The stage each row falls in, by the file's stage names (a row at a boundary starts the next).
+  const bool staged = !r.stages.empty() && !r.history.rows.empty();
+  const auto stage_at = [&](double t) -> const std::string& {
+    for (const auto& s : r.stages)
+      if (t < s.end_s) return s.name;
+    return r.stages.back().name;
+  };
+  for (size_t i = 0; i < r.history.columns.size(); ++i) {
     out << (i ? "," : "") << display_column(r.history.columns[i], u);
+    if (i == 0 && staged) out << ",stage";
+  }
   out << "\n";
   for (const auto& row : r.history.rows) {
     for (size_t i = 0; i < row.size(); ++i) {
+      if (i == 1 && staged) out << "," << csv_cell(stage_at(row[0]));
       const bool temp = i < r.history.columns.size() && r.history.columns[i].temperature;
       out << (i ? "," : "") << JsonWriter::number(temp ? display_temp(row[i], u) : row[i]);
     }

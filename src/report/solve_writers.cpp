@@ -4,6 +4,7 @@
 
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
+#include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/solve_report.hpp"
 #include "coldcore/report/verdict_summary.hpp"
 #include "solve_text.hpp"
@@ -40,15 +41,14 @@ void json_check(JsonWriter& w, const SolveResult& r, const Check& c) {
   w.end_object();
 }
 
-/// Unit of TargetResult's raw numbers (its `unit` names the unit of the texts).
+
+}  // namespace
+
 const char* raw_unit(const TargetResult& t) {
   if (t.kind == TargetKind::log_reduction) return "log10";
   if (t.kind == TargetKind::cooking_table) return "fraction";  // of the table's required equivalent time
   return "s";
 }
-
-
-}  // namespace
 
 void write_target_json(JsonWriter& w, const TargetResult& t) {
   w.begin_object();
@@ -65,8 +65,8 @@ void write_target_json(JsonWriter& w, const TargetResult& t) {
   w.key("verdict_text").value(t.verdict_text);
   w.key("met").value(t.verdict == Verdict::met);
   if (t.kinetics) {
-    w.key("F_s").value(t.F_s);
-    w.key("F_required_s").value(t.F_required_s);
+    w.key("F_min").value(t.F_s / 60.0);
+    w.key("F_required_min").value(t.F_required_s / 60.0);
   }
   w.key("notes").value(t.notes);
   if (t.cooling) write_cooling_steps_json(w, *t.cooling);
@@ -150,9 +150,10 @@ void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::os
   for (const auto& cau : cautions()) out << "  * " << cau << "\n";
 }
 
-void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit) {
+void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u) {
   JsonWriter w(out);
   w.begin_object();
+  write_json_envelope(w, "solve", u);
   w.key("question").value(to_string(r.question));
   write_summary_json(w, verdict_summary(r, c.conservative));
   if (r.stage.empty()) w.key("stage").null(); else w.key("stage").value(r.stage);
@@ -180,11 +181,12 @@ void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::os
   if (r.end_C) {
     w.key("end").begin_object();
     w.key("point").value(r.end_point);
-    w.key("end_C").value(*r.end_C);
-    w.key("at_rounded_C").value(r.end_at_rounded_C);
+    const std::string us(unit_suffix(u));
+    w.key("end_" + us).value(display_temp(*r.end_C, u));
+    w.key("at_rounded_" + us).value(display_temp(r.end_at_rounded_C, u));
     w.key("reached_at_rounded").value(r.end_reached_at_rounded);
     if (r.end_at_less_C) {
-      w.key("at_one_unit_less_C").value(*r.end_at_less_C);
+      w.key("at_one_unit_less_" + us).value(display_temp(*r.end_at_less_C, u));
       w.key("reached_at_one_unit_less").value(r.end_reached_at_less.value_or(false));
     }
     w.key("temperature_tolerance_K").value(r.end_tol_K);
@@ -221,9 +223,8 @@ void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::os
   w.key("notes").value(r.notes);
   w.key("assumptions").value(r.assumptions);
   w.key("warnings").value(c.warnings);
-  w.key("provenance").begin_object();
-  for (const auto& kv : c.provenance) w.key(kv.key).value(kv.value);
-  w.end_object();
+  w.key("provenance");
+  write_labelled_object(w, c.provenance);
   w.key("cautions").value(cautions());
   w.end_object();
   out << "\n";

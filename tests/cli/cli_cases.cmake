@@ -26,8 +26,8 @@ endfunction()
 cli_expect(modes_sphere_bi1_text 0 ARGS modes --shape sphere --biot 1 --count 3
            STDOUT_HAS "1.5707963267949" "1.27323954473516" "process authority")
 cli_expect(modes_json_inf 0 ARGS modes --shape cylinder --biot inf --count 2 --format json
-           STDOUT_HAS "\"shape\": \"cylinder\"" "\"biot\": \"inf\"" "\"zeta\": 2.404825557695773" "cautions")
-cli_expect(modes_csv 0 ARGS modes --shape slab --biot 10 --format csv
+           STDOUT_HAS "\"shape\": \"cylinder\"" "\"biot_infinite\": true" "\"biot\": null" "\"schema_version\": 1" "\"zeta\": 2.404825557695773" "cautions")
+cli_expect(modes_csv 0 ARGS modes --shape slab --biot 10 --format csv --csv-comments
            STDOUT_HAS "n,zeta,coefficient,mean_coefficient" "# caution:")
 cli_expect(modes_bad_biot 2 ARGS modes --shape sphere --biot -3 STDERR_HAS "--biot = -3: must be >= 1e-6")
 cli_expect(modes_bad_shape 2 ARGS modes --shape cube --biot 1 STDERR_HAS "--shape = cube: must be sphere, cylinder or slab")
@@ -36,7 +36,7 @@ cli_expect(modes_bad_format 2 ARGS modes --shape sphere --biot 1 --format html S
 
 # coldcore props: lean beef 74/22/3/1 at 20 °C -> k 0.517, rho 1056.3, cp 3609 J/kgK
 # (REFERENCES 7 item 20, Choi & Okos 1986 evaluated independently).
-cli_expect(props_lean_beef 0 ARGS props --composition water=0.74,protein=0.22,fat=0.03,ash=0.01 --from-C 20 --to-C 20 --format csv
+cli_expect(props_lean_beef 0 ARGS props --composition water=0.74,protein=0.22,fat=0.03,ash=0.01 --from-C 20 --to-C 20 --format csv --csv-comments
            STDOUT_HAS "20,0.5169" "1056.2" "3609.3" "# caution:")
 cli_expect(props_bad_sum 2 ARGS props --composition water=0.7 STDERR_HAS "composition sum = 0.7: must be 1 within 0.005")
 cli_expect(props_bad_component 2 ARGS props --composition water=0.7,sugar=0.3 STDERR_HAS "--composition sugar: unknown component")
@@ -48,14 +48,14 @@ cli_expect(solve_hold_kofta_text 0 ARGS solve products/kofta-balls.toml --for ho
 cli_expect(solve_hold_kofta_json 0 ARGS solve products/kofta-balls.toml --for hold-time --format json
            STDOUT_HAS "\"question\": \"hold-time\"" "\"stage\": \"combi-oven steam cook\"" "\"answer_s\": 812.01"
                       "\"rounded_s\": 840" "\"verification\"" "\"cautions\"")
-cli_expect(solve_hold_kofta_csv 0 ARGS solve products/kofta-balls.toml --for hold-time --format csv
+cli_expect(solve_hold_kofta_csv 0 ARGS solve products/kofta-balls.toml --for hold-time --format csv --csv-comments
            STDOUT_HAS "# caution:" "# rounded_s (to use): 840" "rounded,840,listeria-monocytogenes,log-reduction,6,"
                       "one-unit-less,780,listeria-monocytogenes")
 cli_expect(solve_chill_sausage 0 ARGS solve products/chicken-sausage-log.toml --for chill-time --format json
            STDOUT_HAS "\"question\": \"chill-time\"" "\"stage\": \"ice-water chill\"" "\"reached_at_rounded\": true")
 cli_expect(solve_size_kofta 0 ARGS solve products/kofta-balls.toml --for max-size --format json
            STDOUT_HAS "\"question\": \"max-size\"" "\"quantity\": \"diameter\"" "\"rounded_m\": 0.054")
-cli_expect(solve_medium_sausage 0 ARGS solve products/chicken-sausage-log.toml --for min-medium --format csv
+cli_expect(solve_medium_sausage 0 ARGS solve products/chicken-sausage-log.toml --for min-medium --format csv --csv-comments
            STDOUT_HAS "# rounded_C (to use): 62.5" "one-unit-less,62,salmonella-meat-poultry,log-reduction,7")
 cli_expect(solve_no_solution 1 ARGS solve tests/cli/inverse/cold-medium.toml --for hold-time --max-hold-h 4
            STDERR_HAS "coldcore: no solution: no hold time of stage \"cook\" up to 4 h"
@@ -77,7 +77,7 @@ cli_expect(deviation_corned_json 0 ARGS deviation products/corned-beef-can.toml
            STDOUT_HAS "\"scheduled_F_min\": 16.9" "\"delivered_F_min\": 14.7" "\"verdict\": \"met\""
                       "\"extra_hold_s\": 0" "\"disposition\"" "\"cautions\"")
 cli_expect(deviation_corned_csv 0 ARGS deviation products/corned-beef-can.toml
-           --medium-log products/logs/corned-beef-hold-deviation.csv --format csv
+           --medium-log products/logs/corned-beef-hold-deviation.csv --format csv --csv-comments
            STDOUT_HAS "# caution:" "# disposition:" "target,kind,scheduled_F_min,delivered_F_min" "F0,F-value,16.9")
 cli_expect(deviation_probe_kofta 0 ARGS deviation products/kofta-balls.toml --probe-log products/logs/kofta-probe.csv
            STDOUT_HAS "measured probe" "process authority")
@@ -117,7 +117,7 @@ cli_expect(deviation_conservative_kofta_json 0 ARGS deviation products/kofta-bal
            STDOUT_HAS "\"conservative\": {" "\"driven_by\"" "\"alone\"" "\"initial_reason\"")
 # Invented: the nominal deviation meets F 100 min, the worst case (40 mm, 2 C) does not: exit 1.
 cli_expect(deviation_conservative_not_met 1 ARGS deviation tests/cli/media-split/chill-credited-tight.toml
-           --medium-log tests/cli/media-split/chill-credited-log.csv --stage cook --conservative --format csv
+           --medium-log tests/cli/media-split/chill-credited-log.csv --stage cook --conservative --format csv --csv-comments
            STDOUT_HAS "# conservative driven by: diameter 40 mm (largest)" "# conservative all met as delivered: no"
                       "delivered_log_reduction,verdict,case" ",met,nominal" ",not demonstrated,conservative")
 cli_expect(deviation_conservative_not_met_html 1 ARGS deviation tests/cli/media-split/chill-credited-tight.toml
@@ -137,7 +137,7 @@ cli_expect(media_split_run_text 0 ARGS run tests/cli/media-split/chill-credited.
            STDOUT_HAS "P70: h used: stage \"blast chill\": h 60 W/m2K, the high end of 20-60"
                       "two-stage-6h: h used: stage \"blast chill\": h 20 W/m2K, the low end of 20-60"
                       "evaluated on 2 scenarios")
-cli_expect(media_split_run_csv 0 ARGS run tests/cli/media-split/chill-credited.toml --format csv
+cli_expect(media_split_run_csv 0 ARGS run tests/cli/media-split/chill-credited.toml --format csv --csv-comments
            STDOUT_HAS "# verdict note: P70: h used: stage \"blast chill\": h 60 W/m2K")
 cli_expect(media_split_run_json 0 ARGS run tests/cli/media-split/chill-credited.toml --format json
            STDOUT_HAS "h per target: stage \\\"blast chill\\\": h 20 W/m2K")
@@ -153,7 +153,7 @@ cli_expect(issue11_scenarios_text 0 ARGS run tests/cli/media-split/chill-credite
            STDOUT_HAS "  scenario 1: \"blast chill\" h 60 W/m²K (high end); targets: P70\n"
                       "  scenario 2: \"blast chill\" h 20 W/m²K (low end); targets: two-stage-6h\n"
                       "two-stage-6h: verdict from scenario 2")
-cli_expect(issue11_scenarios_csv 0 ARGS run tests/cli/media-split/chill-credited.toml --format csv
+cli_expect(issue11_scenarios_csv 0 ARGS run tests/cli/media-split/chill-credited.toml --format csv --csv-comments
            STDOUT_HAS "\nscenario,time_s,medium_C,centre_C,surface_C,mean_C,F_P70_min,lumped_centre_C\n1,0,96,4,4,4,0,4\n"
                       "\n2,0,96,4,4,4,,\n"
                       ", from scenario 2: \"blast chill\" h 20 W/m²K (low end)\n")
@@ -183,7 +183,7 @@ foreach(p kofta-balls chicken-sausage-log corned-beef-can lasagne-tray)
   endforeach()
 endforeach()
 cli_expect(run_units_F 0 ARGS run products/kofta-balls.toml --format csv --units F --date 2026-12-01
-           STDOUT_HAS "time_s,medium_F,centre_F,surface_F,mean_F,F_listeria-monocytogenes_min" "\n0,204.8,39.2,39.2,39.2,0")
+           STDOUT_HAS "time_s,stage,medium_F,centre_F,surface_F,mean_F,F_listeria-monocytogenes_min" "\n0,combi-oven steam cook,204.8,39.2,39.2,39.2,0")
 # run and probe name the data libraries they read in their provenance, with the SHA-256 that
 # CMake's own file(SHA256) computes (FIPS 180-4).
 file(SHA256 ${PROJECT_SOURCE_DIR}/products/organisms.toml organisms_sha)
@@ -196,7 +196,7 @@ cli_expect(run_library_provenance 0 ARGS run products/kofta-balls.toml --date 20
 cli_expect(probe_library_provenance 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes
            --target-log 6 --format json --date 2026-12-01
            STDOUT_HAS "\"organisms\": \"organisms.toml (SHA-256 ${organisms_sha})\""
-                      "\"cooling rules\": \"cooling-rules.toml (SHA-256 ${rules_sha})\"")
+                      "\"cooling_rules\": \"cooling-rules.toml (SHA-256 ${rules_sha})\"")
 cli_expect(run_md_needs_out 2 ARGS run products/kofta-balls.toml --format md STDERR_HAS "give --out PATH.md")
 cli_expect(run_missing_file 2 ARGS run products/no-such-file.toml
            STDERR_HAS "products/no-such-file.toml: cannot read file: No such file or directory")
@@ -232,12 +232,12 @@ foreach(fmt text html)
              STDERR_HAS "no target given (--target-log, or --F-min with own kinetics)")
 endforeach()
 cli_expect(issue11_probe_no_target_csv 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
-           --D-min 0.5 --format csv --date 2026-12-01
+           --D-min 0.5 --format csv --csv-comments --date 2026-12-01
            STDOUT_HAS "# delivered, no target given, no verdict: own: F 4.00 min at 70.0 °C (z 7.50 °C), 8.00 log10\n"
            STDOUT_LACKS "# verdict:" "not demonstrated" "none given" "F needed")
 cli_expect(issue11_probe_no_target_json 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
            --D-min 0.5 --format json --date 2026-12-01
-           STDOUT_HAS "\"assessment\": []" "\"verdict\": \"none: no target given\"" "\"F_s\": 240" "\"log_reduction\": 8"
+           STDOUT_HAS "\"assessment\": []" "\"verdict\": \"none: no target given\"" "\"F_min\": 4," "\"log_reduction\": 8"
            STDOUT_LACKS "not demonstrated" "none given" "F needed")
 cli_expect(issue11_probe_no_target_organism 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes
            STDOUT_HAS "Delivered lethality (no target given: no verdict)" "listeria-monocytogenes: F 868 min at 70.0 °C"
@@ -266,7 +266,7 @@ cli_expect(issue11_probe_rule_clock 0 ARGS probe tests/cli/probe/timestamped-coo
            STDOUT_HAS "two-stage-6h: step 57 °C -> 21 °C: clock started 2026-11-30 06:08:40 UTC, deadline 2026-11-30 08:08:40 UTC"
                       "two-stage-6h: step 57 °C -> 5 °C: clock started 2026-11-30 06:08:40 UTC, deadline 2026-11-30 12:08:40 UTC")
 cli_expect(issue11_probe_measured_csv 0 ARGS probe tests/cli/probe/constant-70C.csv --reference-C 70 --z-C 7.5
-           --F-min 3 --lot L-2026-11-30-A --format csv --date 2026-12-01
+           --F-min 3 --lot L-2026-11-30-A --format csv --csv-comments --date 2026-12-01
            STDOUT_HAS "# lot: L-2026-11-30-A\n" "# first reading: 2026-11-30 06:00:00 UTC\n" "time_s,measured_C,F_own_min\n"
            STDOUT_LACKS "conduction model")
 
@@ -287,7 +287,7 @@ foreach(p kofta-balls chicken-sausage-log corned-beef-can lasagne-tray)
     elseif(fmt STREQUAL "json")
       set(c "\"cautions\"")
     else()
-      set(c "# caution:")
+      set(c "caution:")
     endif()
     cli_expect(solve_hold_${p}_${fmt} 0 ARGS solve products/${p}.toml --for hold-time --format ${fmt} STDOUT_HAS "${c}")
   endforeach()
@@ -301,7 +301,7 @@ foreach(p kofta-balls chicken-sausage-log lasagne-tray)
   cli_expect(deviation_${p}_json 0 ARGS deviation products/${p}.toml --medium-log ${COLDCORE_DEV_${p}} --format json
              STDOUT_HAS "\"delivered_F_min\"" "\"disposition\"" "\"cautions\"")
   cli_expect(deviation_${p}_csv 0 ARGS deviation products/${p}.toml --medium-log ${COLDCORE_DEV_${p}} --format csv
-             STDOUT_HAS "target,kind,scheduled_F_min" "# disposition:" "# caution:")
+             STDOUT_HAS "target,kind,scheduled_F_min" "disposition:" "caution:")
 endforeach()
 # The delivered-process example file runs forward like any product file.
 cli_expect(run_corned_delivered 0 ARGS run products/corned-beef-can-delivered.toml
@@ -457,15 +457,15 @@ cli_expect(issue11_cap_rule_text 1 ARGS run tests/cli/cap_rule.toml
                       "none: not reached by the end of the process"
            STDOUT_LACKS "89.8 min")
 cli_expect(issue11_cap_rule_json 1 ARGS run tests/cli/cap_rule.toml --format json
-           STDOUT_HAS "\"margin\": \"none: not reached by the end of the process\"" "\"margin_value\": 0,"
-                      "\"margin_uncertainty_value\": 0,")
-cli_expect(issue11_cap_rule_csv 1 ARGS run tests/cli/cap_rule.toml --format csv
+           STDOUT_HAS "\"margin_text\": \"none: not reached by the end of the process\"" "\"margin\": 0,"
+                      "\"margin_uncertainty\": 0,")
+cli_expect(issue11_cap_rule_csv 1 ARGS run tests/cli/cap_rule.toml --format csv --csv-comments
            STDOUT_HAS "# verdict: two-stage-6h: not demonstrated (required 360 min (step 57 °C -> 5 °C)"
                       "# verdict values: two-stage-6h: required 21600, achieved 6574.6" ", margin 0, margin_uncertainty 0 s")
 # Defect 3: chill-time's one-unit-less re-run judged by the answer's own end condition (4 °C).
 cli_expect(issue11_chill_less_json 0 ARGS solve products/chicken-sausage-log.toml --for chill-time --format json
            STDOUT_HAS "\"reached_at_one_unit_less\": false" "\"at_one_unit_less_C\": 4.03" "\"temperature_tolerance_K\": 1e-04")
-cli_expect(issue11_chill_less_csv 0 ARGS solve products/chicken-sausage-log.toml --for chill-time --format csv
+cli_expect(issue11_chill_less_csv 0 ARGS solve products/chicken-sausage-log.toml --for chill-time --format csv --csv-comments
            STDOUT_HAS "# end at rounded: 3.87" "# end at one unit less: 4.03" ", not reached"
                       "run,value_s,target,kind,required,achieved,margin,unit,verdict,met,margin_uncertainty,end_temp_C,end_reached"
                       ",4.03869978356" ",false")
@@ -474,7 +474,7 @@ cli_expect(issue11_probe_tie 1 ARGS probe tests/cli/issue11/hold_70C_123s.csv --
            STDOUT_HAS "exactly at the required value" "exactly at the required value: not demonstrated by a positive margin"
            STDOUT_LACKS "met, margin" "0.000000000000000")
 cli_expect(issue11_probe_tie_json 1 ARGS probe tests/cli/issue11/hold_70C_123s.csv --reference-C 70 --z-C 7.5 --F-min 2.05 --format json
-           STDOUT_HAS "\"margin_uncertainty_value\": " "\"verdict\": \"not demonstrated\"")
+           STDOUT_HAS "\"margin_uncertainty\": " "\"verdict\": \"not demonstrated\"")
 # Meaningless log reductions: 70 °C for 20 h is 3600 log10 of L. monocytogenes by D70 = 20 s.
 cli_expect(issue11_probe_huge_logs 0 ARGS probe tests/cli/issue11/hold_70C_20h.csv --organism listeria-monocytogenes --target-log 6
            STDOUT_HAS "more than 15 log10 (credited F 1200 min)" "more than 9.00 log10"
@@ -490,7 +490,7 @@ cli_expect(issue11_deviation_cook_colder_gap_short 0 ARGS deviation products/kof
                       "2. gap in the log of 5 min 00 s, 13 min 00 s to 18 min 00 s into the stage (780-1080 s): the medium meanwhile is unknown, and no lethality accrued in it is credited"
                       "3. stage shorter than scheduled by 1 min 00 s: the log ends 23 min 00 s into the stage (1380 s), the scheduled end is 24 min 00 s (1440 s)")
 cli_expect(issue11_deviation_cook_csv 0 ARGS deviation products/kofta-balls.toml
-           --medium-log tests/cli/deviation/kofta-cook-short-gap.csv --format csv
+           --medium-log tests/cli/deviation/kofta-cook-short-gap.csv --format csv --csv-comments
            STDOUT_HAS "# deviation: medium_colder; start_s 660; end_s 780; extreme_C 88; extreme_at_s 660; scheduled_at_extreme_C 96; departure_K 8"
                       "# deviation: log_gap; start_s 780; end_s 1080" "# deviation: stage_shortened; start_s 1380; end_s 1440")
 cli_expect(issue11_deviation_chill_warmer 0 ARGS deviation products/kofta-balls.toml

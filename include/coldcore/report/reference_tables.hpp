@@ -21,7 +21,7 @@ struct ModesTable {
   std::vector<Mode> modes;     ///< the modes shown
   double one_term_fourier = 0; ///< conduction/modes.hpp, from at least two modes
 };
-void write_modes_table(const ModesTable& t, Format f, std::ostream& out);
+void write_modes_table(const ModesTable& t, Format f, TempUnit u, std::ostream& out);
 
 struct PropertiesTable {
   Composition composition;
@@ -31,6 +31,6 @@ void write_properties_table(const PropertiesTable& t, Format f, TempUnit u, std:
 
 void write_organism_library(const OrganismLibrary& lib, Format f, TempUnit u, std::ostream& out);
 void write_rule_library(const RuleLibrary& lib, Format f, TempUnit u, std::ostream& out);
-void write_media_library(const io::MediaLibrary& lib, Format f, std::ostream& out);
+void write_media_library(const io::MediaLibrary& lib, Format f, TempUnit u, std::ostream& out);
 
 }  // namespace coldcore

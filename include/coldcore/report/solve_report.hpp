@@ -61,6 +61,9 @@ MarkdownReport write_solve_markdown(const process::SolveResult& r, const SolveRe
 /// Shared by the solve and deviation writers: one target result in JSON.
 /// Every target carries "met" (true only for the verdict "met") and, for a cooling rule, its steps.
 void write_target_json(class JsonWriter& w, const TargetResult& t);
+/// Unit of TargetResult's raw numbers (required, achieved, margin): "log10", "s" or "fraction"
+/// (its `unit` names the unit of the texts).
+const char* raw_unit(const TargetResult& t);
 /// The key "cooling_steps": one object per step {"label", "advisory", "clock_started", "reached",
 /// "passed", "elapsed_s" (a lower bound when not reached), "within_s", "margin_s"}.
 void write_cooling_steps_json(class JsonWriter& w, const CoolingCheck& c);
