@@ -21,7 +21,7 @@ std::string temp(double c, TempUnit u, int d = 2) { return fixed(display_temp(c,
 
 std::string min_down(double s) { return shown_down(s / 60.0) + " min"; }
 
-std::string opt_num(const std::optional<double>& v) { return v ? JsonWriter::number(*v) : ""; }
+std::string opt_num(const std::optional<double>& v) { return v ? csv_number(*v) : ""; }
 
 void json_opt(JsonWriter& w, const char* k, const std::optional<double>& v) {
   w.key(k);
@@ -364,7 +364,7 @@ void write_deviation_csv(const DeviationResult& r, const DeviationRecordInfo& i,
   const auto rows = [&](const DeviationResult& d, const char* which) {
     for (const auto& t : d.targets) {
       out << csv_cell(t.name) << "," << to_string(t.kind) << ",";
-      if (t.lethality) out << JsonWriter::number(t.scheduled_F_s / 60.0) << "," << JsonWriter::number(t.delivered_F_s / 60.0);
+      if (t.lethality) out << csv_number(t.scheduled_F_s / 60.0) << "," << csv_number(t.delivered_F_s / 60.0);
       else out << ",";
       out << "," << opt_num(t.scheduled_logs) << "," << opt_num(t.delivered_logs) << "," << to_string(t.verdict);
       if (cons) out << "," << which;

@@ -217,13 +217,13 @@ void write_fit_csv(const StudyAnalysis& a, const FitReportContext& c, std::ostre
     const ProbeFit& pool_or_design = a.fit_pool ? a.fit_pool->probes[k] : f.probes[k];
     const bool is_design = pool_or_design.name == f.probes.front().name;
     for (std::size_t i = 0; i < pool_or_design.time_s.size(); ++i) {
-      out << csv_cell(pool_or_design.name) << "," << JsonWriter::number(pool_or_design.time_s[i]) << ","
-          << JsonWriter::number(display_temp(pool_or_design.measured_C[i], u)) << ",";
-      if (is_design) out << JsonWriter::number(display_temp(f.probes.front().model_C[i], u));
+      out << csv_cell(pool_or_design.name) << "," << csv_number(pool_or_design.time_s[i]) << ","
+          << csv_number(display_temp(pool_or_design.measured_C[i], u)) << ",";
+      if (is_design) out << csv_number(display_temp(f.probes.front().model_C[i], u));
       out << ",";
-      if (a.fit_pool) out << JsonWriter::number(display_temp(pool_or_design.model_C[i], u));
+      if (a.fit_pool) out << csv_number(display_temp(pool_or_design.model_C[i], u));
       out << ",";
-      if (is_design) out << JsonWriter::number(f.probes.front().model_C[i] - f.probes.front().measured_C[i]);
+      if (is_design) out << csv_number(f.probes.front().model_C[i] - f.probes.front().measured_C[i]);
       out << "\n";
     }
   }

@@ -1,5 +1,6 @@
 #include "coldcore/report/format.hpp"
 
+#include <charconv>
 #include <cmath>
 #include <cstdio>
 
@@ -49,6 +50,13 @@ std::string csv_cell(const std::string& s) {
     o += ch;
   }
   return o + "\"";
+}
+
+std::string csv_number(double x) {
+  if (!std::isfinite(x)) return "";
+  char buf[64];
+  const auto res = std::to_chars(buf, buf + sizeof buf, x);
+  return std::string(buf, res.ptr);
 }
 
 std::string fixed(double x, int digits) {

@@ -53,7 +53,7 @@ void write_organism_library(const OrganismLibrary& lib, Format f, TempUnit u, st
     out << "key,quantity,value,status,source\n";
     for (const auto& o : lib.organisms)
       for (const auto& [key, v] : o.values)
-        out << o.kinetics.key << "," << key << "," << JsonWriter::number(v.value) << "," << v.status << ","
+        out << o.kinetics.key << "," << key << "," << csv_number(v.value) << "," << v.status << ","
             << csv_cell(v.source) << "\n";
     return;
   }

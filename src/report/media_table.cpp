@@ -39,7 +39,7 @@ void write_media_library(const io::MediaLibrary& lib, Format f, TempUnit u, std:
     out << "# library: " << lib.origin << "\n# use: " << use << "\n";
     out << "key,h_min_W_m2K,h_max_W_m2K,status,description,source\n";
     for (const auto& m : lib.media)
-      out << m.key << "," << JsonWriter::number(m.h_min_W_m2K) << "," << JsonWriter::number(m.h_max_W_m2K) << ","
+      out << m.key << "," << csv_number(m.h_min_W_m2K) << "," << csv_number(m.h_max_W_m2K) << ","
           << csv_cell(m.status) << "," << csv_cell(m.description) << "," << csv_cell(m.source) << "\n";
   } else {
     out << "Surface heat-transfer coefficient ranges (" << lib.origin << ")\n  " << use << "\n\n";

@@ -44,8 +44,8 @@ void write_modes_table(const ModesTable& t, Format f, TempUnit u, std::ostream& 
     out << "# " << note.str() << "\n";
     out << "n,zeta,coefficient,mean_coefficient\n";
     for (const auto& m : t.modes)
-      out << m.n << "," << JsonWriter::number(m.zeta) << "," << JsonWriter::number(m.coefficient) << ","
-          << JsonWriter::number(m.mean_coefficient) << "\n";
+      out << m.n << "," << csv_number(m.zeta) << "," << csv_number(m.coefficient) << ","
+          << csv_number(m.mean_coefficient) << "\n";
   } else {
     out << "Eigenvalues of the " << to_string(t.geometry) << " at Bi = " << biot_text(t.biot) << "\n";
     out << "theta(x, Fo) = sum of Cn Xn(x) exp(-zeta_n^2 Fo); mean theta uses Mn in place of Cn Xn.\n\n";

@@ -42,9 +42,9 @@ void write_properties_table(const PropertiesTable& t, Format f, TempUnit u, std:
     out << "# source: " << source << "\n";
     out << "temp_" << us << ",conductivity_W_mK,density_kg_m3,specific_heat_J_kgK,diffusivity_m2_s\n";
     for (const auto& r : t.rows)
-      out << JsonWriter::number(display_temp(r.temp_C, u)) << "," << JsonWriter::number(r.conductivity_W_mK) << ","
-          << JsonWriter::number(r.density_kg_m3) << "," << JsonWriter::number(r.specific_heat_J_kgK) << ","
-          << JsonWriter::number(r.diffusivity_m2_s) << "\n";
+      out << csv_number(display_temp(r.temp_C, u)) << "," << csv_number(r.conductivity_W_mK) << ","
+          << csv_number(r.density_kg_m3) << "," << csv_number(r.specific_heat_J_kgK) << ","
+          << csv_number(r.diffusivity_m2_s) << "\n";
   } else {
     out << "Thermal properties from composition\n  source: " << source << "\n\n";
     char buf[160];

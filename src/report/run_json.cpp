@@ -196,7 +196,7 @@ void write_scenario_rows(const RunReport& r, std::ostream& out, TempUnit u) {
         out << ",";
         for (size_t i = 0; i < sc.history.columns.size() && i < row.size(); ++i)
           if (sc.history.columns[i].name == c.name) {
-            out << JsonWriter::number(c.temperature ? display_temp(row[i], u) : row[i]);
+            out << csv_number(c.temperature ? display_temp(row[i], u) : row[i]);
             break;
           }
       }
@@ -255,7 +255,7 @@ void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
     for (size_t i = 0; i < row.size(); ++i) {
       if (i == 1 && staged) out << "," << csv_cell(stage_at(row[0]));
       const bool temp = i < r.history.columns.size() && r.history.columns[i].temperature;
-      out << (i ? "," : "") << JsonWriter::number(temp ? display_temp(row[i], u) : row[i]);
+      out << (i ? "," : "") << csv_number(temp ? display_temp(row[i], u) : row[i]);
     }
     out << "\n";
   }

@@ -262,12 +262,12 @@ void write_solve_csv(const SolveResult& r, const SolveReportContext& c, std::ost
       << (r.end_C ? ",end_temp_C,end_reached" : "") << "\n";
   const auto rows = [&](const char* run, const Check& ch, std::optional<double> end_temp_C, bool end_reached) {
     for (const auto& t : ch.eval.assessment.targets) {
-      out << run << "," << JsonWriter::number(ch.value) << "," << csv_cell(t.name) << "," << to_string(t.kind) << ","
-          << JsonWriter::number(t.required) << "," << JsonWriter::number(t.achieved) << ","
-          << JsonWriter::number(t.margin) << "," << raw_unit(t) << "," << to_string(t.verdict) << ","
-          << (t.verdict == Verdict::met ? "true" : "false") << "," << JsonWriter::number(t.margin_uncertainty);
+      out << run << "," << csv_number(ch.value) << "," << csv_cell(t.name) << "," << to_string(t.kind) << ","
+          << csv_number(t.required) << "," << csv_number(t.achieved) << ","
+          << csv_number(t.margin) << "," << raw_unit(t) << "," << to_string(t.verdict) << ","
+          << (t.verdict == Verdict::met ? "true" : "false") << "," << csv_number(t.margin_uncertainty);
       if (r.end_C)
-        out << "," << (end_temp_C ? JsonWriter::number(*end_temp_C) : "") << "," << (end_reached ? "true" : "false");
+        out << "," << (end_temp_C ? csv_number(*end_temp_C) : "") << "," << (end_reached ? "true" : "false");
       out << "\n";
     }
   };

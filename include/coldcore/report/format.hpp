@@ -26,6 +26,10 @@ std::string_view unit_suffix(TempUnit u);  ///< "C" or "F", for column names
 /// a comma, a quote or a line break.
 std::string csv_cell(const std::string& s);
 
+/// A number cell of a csv: the shortest text that reads back to the same double; empty for
+/// NaN or infinity (a missing value to every csv reader, never the word "null" or "inf").
+std::string csv_number(double x);
+
 /// Fixed-point text of x with `digits` decimals; "-" for NaN.
 std::string fixed(double x, int digits);
 /// A duration as "1 h 05 min 30 s" style text, rounded UP to whole seconds.
