@@ -32,7 +32,11 @@ std::filesystem::path library_path(const std::string& name, const std::string& l
     if (fs::exists(installed)) return installed;
   }
   const fs::path src = fs::path(COLDCORE_SOURCE_DIR) / "products" / name;
-  if (fs::exists(src)) return src;
+  if (fs::exists(src)) {
+    // Shown in reports: relative to the working folder when inside it, as a product file is.
+    const fs::path near = src.lexically_proximate(fs::current_path(ec));
+    return !ec && !near.empty() && *near.begin() != ".." ? near : src;
+  }
   throw InputError(name + ": not found beside the product file, in $COLDCORE_DATA_DIR, in " COLDCORE_DATA_SUBDIR
                    " beside the executable's folder nor in " + src.parent_path().generic_string() +
                    "; give --library DIR");

@@ -41,6 +41,7 @@ void write_modes_table(const ModesTable& t, Format f, TempUnit u, std::ostream& 
     w.end_object();
   } else if (f == Format::csv) {
     for (const auto& c : cautions()) out << "# caution: " << c << "\n";
+    out << "# shape: " << to_string(t.geometry) << "; Bi: " << biot_text(t.biot) << "\n";  // what the rows are of
     out << "# " << note.str() << "\n";
     out << "n,zeta,coefficient,mean_coefficient\n";
     for (const auto& m : t.modes)
