@@ -218,8 +218,8 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
         "; h and the other stages as scheduled");
     r.assumptions.push_back(std::string("stage \"") + st.name + "\" " +
                             (r.stage_heats ? "heats, so a reading colder" : "cools, so a reading warmer") +
-                            " than the schedule by more than " + num(o.tolerance_K) +
-                            " K is deviated; the medium is linear between logged readings; readings more than " +
+                            " than the schedule by more than " + temp_difference_token(o.tolerance_K) +
+                            " is deviated; the medium is linear between logged readings; readings more than " +
                             num(o.max_gap_s) + " s apart are a gap in the log");
     if (!by_duration && log_end + 1e-9 < sched_len)
       r.notes.push_back("the medium log covers " + num(log_end) + " s of the stage's " + num(sched_len) +
