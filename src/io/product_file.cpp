@@ -15,6 +15,7 @@
 #include "coldcore/io/calibration_file.hpp"
 #include "coldcore/io/can_size.hpp"
 #include "coldcore/io/sha256.hpp"
+#include "coldcore/model/limits.hpp"
 #include "io/detail/fields.hpp"
 #include "io/detail/product_parts.hpp"
 #include "io/detail/text.hpp"
@@ -30,7 +31,6 @@ using detail::plain;
 using detail::quantity;
 using detail::quote;
 
-constexpr double kAbsoluteZero_C = -273.15;
 
 struct ShapeName {
   std::string_view name;
@@ -235,7 +235,7 @@ Product parse_product_table(const toml::table& t, const std::string& origin, std
   Found fi;
   const auto initial = f.quantity_si("initial", &fi);
   if (!initial) f.missing("initial_*", "the uniform initial temperature (initial_C or initial_F)");
-  if (*initial < kAbsoluteZero_C) f.fail(fi.key, "below absolute zero (-273.15 C, -459.67 F)");
+  if (*initial < limits::absolute_zero_C) f.fail(fi.key, "below absolute zero (-273.15 C, -459.67 F)");
   f.require_range(fi.key, *initial, limits::temperature_C, Quantity::temperature, fi.unit);
   p.initial_C = *initial;
 

@@ -3,6 +3,7 @@
 #include <limits>
 
 #include "coldcore/error.hpp"
+#include "coldcore/model/limits.hpp"
 #include "io/detail/product_parts.hpp"
 #include "io/detail/text.hpp"
 
@@ -10,7 +11,6 @@ namespace coldcore::io::detail {
 
 namespace {
 
-constexpr double kAbsoluteZero_C = -273.15;
 
 std::vector<KeySpec> stage_specs() {
   return {plain("name"),
@@ -34,7 +34,7 @@ MediumProfile parse_medium_value(const Fields& f, const Found& m) {
       f.fail(m.key, "a constant medium temperature has no time unit; write medium_" + m.unit + " = " +
                         format_value(n));
     const double temp_C = *to_si(Quantity::temperature, f.number_of(m.key, n, false, "temperature in " + m.unit), m.unit);
-    if (temp_C < kAbsoluteZero_C) f.fail(m.key, "below absolute zero (-273.15 C, -459.67 F)");
+    if (temp_C < limits::absolute_zero_C) f.fail(m.key, "below absolute zero (-273.15 C, -459.67 F)");
     f.require_range(m.key, temp_C, limits::temperature_C, Quantity::temperature, m.unit);
     prof.points.push_back({0.0, temp_C});
     prof.description = "constant";
@@ -63,7 +63,7 @@ MediumProfile parse_medium_value(const Fields& f, const Found& m) {
       el_fail("time must be after the previous point's " + format_number(prev_raw_t) + " " + m.time_unit +
               " (times must increase)");
     const double temp_C = *to_si(Quantity::temperature, temp_raw, m.unit);
-    if (temp_C < kAbsoluteZero_C) el_fail("below absolute zero (-273.15 C, -459.67 F)");
+    if (temp_C < limits::absolute_zero_C) el_fail("below absolute zero (-273.15 C, -459.67 F)");
     if (!limits::temperature_C.contains(temp_C))
       el_fail("temperature must be " + range_text(limits::temperature_C, Quantity::temperature, m.unit));
     const double t_s = *to_si(Quantity::time, t_raw, m.time_unit);
@@ -181,7 +181,7 @@ void parse_end(const Fields& f, Stage& s, std::optional<double> log_length_s, Pr
   if (centre || mean) {
     const Found& fu = centre ? fc : fm;
     const double target = centre ? *centre : *mean;
-    if (target < kAbsoluteZero_C) f.fail(fu.key, "below absolute zero (-273.15 C, -459.67 F)");
+    if (target < limits::absolute_zero_C) f.fail(fu.key, "below absolute zero (-273.15 C, -459.67 F)");
     f.require_range(fu.key, target, limits::temperature_C, Quantity::temperature, fu.unit);
     if (!cap)
       f.missing("max_duration_*", fu.key + " = " + format_value(*fu.node) +

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "coldcore/error.hpp"
+#include "coldcore/model/limits.hpp"
 #include "io/detail/product_parts.hpp"
 #include "io/detail/text.hpp"
 
@@ -11,7 +12,6 @@ namespace coldcore::io::detail {
 
 namespace {
 
-constexpr double kAbsoluteZero_C = -273.15;
 
 struct KindName {
   std::string_view name;
@@ -49,7 +49,7 @@ double reference_temperature(const Fields& f, const std::string& why) {
   Found fr;
   const auto v = f.quantity_si("reference", &fr);
   if (!v) f.missing("reference_*", why + " (reference_C or reference_F)");
-  if (*v < kAbsoluteZero_C) f.fail(fr.key, "below absolute zero (-273.15 C, -459.67 F)");
+  if (*v < limits::absolute_zero_C) f.fail(fr.key, "below absolute zero (-273.15 C, -459.67 F)");
   f.require_range(fr.key, *v, limits::temperature_C, Quantity::temperature, fr.unit);
   return *v;
 }
@@ -184,7 +184,7 @@ Target parse_target(const Fields& f, TargetKind kind, std::size_t index, const s
       Found fm, fh;
       const auto min = f.quantity_si("min", &fm);
       if (!min) f.missing("min_*", "the temperature to reach (min_C or min_F)");
-      if (*min < kAbsoluteZero_C) f.fail(fm.key, "below absolute zero (-273.15 C, -459.67 F)");
+      if (*min < limits::absolute_zero_C) f.fail(fm.key, "below absolute zero (-273.15 C, -459.67 F)");
       f.require_range(fm.key, *min, limits::temperature_C, Quantity::temperature, fm.unit);
       const auto hold = f.quantity_si("hold", &fh);
       if (!hold) f.missing("hold_*", "how long to stay at or above it (hold_s, hold_min or hold_h, >= 0)");

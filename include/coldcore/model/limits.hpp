@@ -25,6 +25,8 @@ inline constexpr Range density_kg_m3{50.0, 3000.0};
 /// Specific heat: dry foods (~1,200) to water (~4,200), widened; apparent values in freezing
 /// are computed, never read.
 inline constexpr Range specific_heat_J_kgK{500.0, 10000.0};
+/// Absolute zero, °C (the kelvin's definition, SI Brochure 9th ed.): no temperature read may be below it.
+inline constexpr double absolute_zero_C = -273.15;
 /// Every temperature read (product, media, targets, logs): liquid nitrogen (−196 °C) to frying
 /// oil and ovens (≤ 300 °C), widened.
 inline constexpr Range temperature_C{-200.0, 400.0};
