@@ -11,7 +11,7 @@
 // τ_ins/2 are dropped a whole epoch at a time, by which time their left-out part has decayed
 // below tol (the mode cut is chosen for that), so only two epochs are ever held.
 #include "coldcore/conduction/history.hpp"
-#include "coldcore/report/temperature_text.hpp"
+#include "coldcore/model/temperature_token.hpp"
 
 #include <algorithm>
 #include <boost/math/tools/toms748_solve.hpp>

@@ -1,5 +1,5 @@
 #include "coldcore/lethality/integrate.hpp"
-#include "coldcore/report/temperature_text.hpp"
+#include "coldcore/model/temperature_token.hpp"
 
 #include <algorithm>
 #include <boost/math/quadrature/gauss_kronrod.hpp>

@@ -1,6 +1,6 @@
 #include "coldcore/process/conservative.hpp"
 
-#include "coldcore/report/temperature_text.hpp"
+#include "coldcore/model/temperature_token.hpp"
 
 #include <cmath>
 #include <sstream>

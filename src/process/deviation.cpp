@@ -1,5 +1,5 @@
 #include "coldcore/process/deviation.hpp"
-#include "coldcore/report/temperature_text.hpp"
+#include "coldcore/model/temperature_token.hpp"
 
 #include <algorithm>
 #include <cmath>

@@ -5,7 +5,7 @@
 #include <sstream>
 
 #include "coldcore/error.hpp"
-#include "coldcore/report/temperature_text.hpp"
+#include "coldcore/model/temperature_token.hpp"
 #include "coldcore/lethality/kinetics.hpp"
 #include "coldcore/process/inverse.hpp"
 

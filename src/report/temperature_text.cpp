@@ -8,24 +8,14 @@ namespace coldcore {
 
 namespace {
 
-constexpr std::string_view kOpen = "\xEE\x80\x80";   // U+E000
-constexpr std::string_view kSep = "\xEE\x80\x82";    // U+E002: between the °C text and the exact value
-constexpr std::string_view kClose = "\xEE\x80\x81";  // U+E001
+constexpr std::string_view kOpen = temperature_token::open;
+constexpr std::string_view kSep = temperature_token::separator;
+constexpr std::string_view kClose = temperature_token::close;
 
 std::string printf_text(const char* format, int digits, double v) {
   char buf[64];
   std::snprintf(buf, sizeof buf, format, digits, v);
   return buf;
-}
-
-std::string token(char kind, std::string_view celsius_text, double exact) {
-  std::string s(kOpen);
-  s += kind;
-  s += celsius_text;
-  s += kSep;
-  s += printf_text("%.*g", 17, exact);
-  s += kClose;
-  return s;
 }
 
 int decimals_of(std::string_view text) {
@@ -53,22 +43,6 @@ std::string fahrenheit_text(std::string_view celsius_text, double exact, bool di
 }
 
 }  // namespace
-
-std::string temp_token(double celsius, int significant) {
-  return token('T', printf_text("%.*g", significant, celsius), celsius);
-}
-std::string temp_difference_token(double kelvin, int significant) {
-  return token('D', printf_text("%.*g", significant, kelvin), kelvin);
-}
-std::string temp_token_fixed(double celsius, int decimals) {
-  return token('T', printf_text("%.*f", decimals, celsius), celsius);
-}
-std::string temp_difference_token_fixed(double kelvin, int decimals) {
-  return token('D', printf_text("%.*f", decimals, kelvin), kelvin);
-}
-std::string temp_token_text(std::string_view celsius_text, double exact_celsius) {
-  return token('T', celsius_text, exact_celsius);
-}
 
 std::string render_temperatures(std::string_view text, TempUnit u) {
   if (text.find(kOpen) == std::string_view::npos) return std::string(text);

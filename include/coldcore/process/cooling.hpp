@@ -32,7 +32,7 @@ namespace coldcore {
 
 struct CoolingStep {
   std::string label;       ///< free text from the file, or "<from> -> <to>" with temperature tokens
-                           ///< (report/temperature_text.hpp); `from_label` words the start
+                           ///< (model/temperature_token.hpp); `from_label` words the start
   double from_C = 0;
   double to_C = 0;         ///< < from_C
   double within_s = 0;     ///< > 0
