@@ -10,7 +10,7 @@
 #include "coldcore/io/logger_csv.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/sha256.hpp"
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "coldcore/report/html.hpp"
 #include "coldcore/report/markdown.hpp"
 #include "coldcore/report/probe_report.hpp"

@@ -11,7 +11,7 @@
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/scenario.hpp"
 #include "coldcore/process/inverse.hpp"
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "coldcore/report/html.hpp"
 #include "coldcore/report/markdown.hpp"
 #include "coldcore/report/run_builder.hpp"

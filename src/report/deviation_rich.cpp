@@ -4,7 +4,7 @@
 // DeviationResult or of the runs the process layer made.
 #include <sstream>
 
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/deviation_report.hpp"
 #include "deviation_figures.hpp"

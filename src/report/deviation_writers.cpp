@@ -2,7 +2,7 @@
 #include <cmath>
 #include <ostream>
 
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/deviation_report.hpp"
 #include "coldcore/report/json.hpp"

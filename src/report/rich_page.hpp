@@ -10,7 +10,7 @@
 #include <utility>
 #include <vector>
 
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "coldcore/report/run_report.hpp"
 #include "coldcore/report/verdict_summary.hpp"
 #include "run_figures.hpp"

@@ -8,7 +8,7 @@
 #include <vector>
 
 #include "coldcore/lethality/integrate.hpp"
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "lethality/lethality_support.hpp"
 
 using namespace coldcore;

@@ -3,7 +3,7 @@
 #include <doctest/doctest.h>
 
 #include "coldcore/error.hpp"
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "lethality/lethality_support.hpp"
 
 using namespace coldcore;

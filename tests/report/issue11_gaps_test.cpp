@@ -17,7 +17,7 @@
 #include "coldcore/lethality/integrate.hpp"
 #include "coldcore/process/deviation.hpp"
 #include "coldcore/process/inverse.hpp"
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "lethality/lethality_support.hpp"
 #include "support/libraries.hpp"
 

@@ -14,7 +14,7 @@
 #include <vector>
 
 #include "coldcore/process/inverse.hpp"
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "coldcore/report/temperature_text.hpp"
 #include "lethality/lethality_support.hpp"
 #include "support/libraries.hpp"

@@ -7,7 +7,7 @@
 
 #include <sstream>
 
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "coldcore/report/json.hpp"
 #include "coldcore/report/markdown.hpp"
 #include "coldcore/report/html.hpp"

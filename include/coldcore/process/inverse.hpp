@@ -35,7 +35,7 @@
 #include "coldcore/model/stages.hpp"
 #include "coldcore/process/solve.hpp"
 #include "coldcore/model/targets.hpp"
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 
 namespace coldcore::process {
 

@@ -9,7 +9,7 @@
 #include <vector>
 
 #include "coldcore/io/logger_csv.hpp"
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "coldcore/report/run_report.hpp"
 
 namespace coldcore {

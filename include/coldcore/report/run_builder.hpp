@@ -5,7 +5,7 @@
 #include <string>
 
 #include "coldcore/conduction/history.hpp"
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/model/calibration.hpp"
 #include "coldcore/process/inverse.hpp"

@@ -9,7 +9,7 @@
 #include "coldcore/report/temperature_text.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/integrate.hpp"
-#include "coldcore/report/assessment.hpp"
+#include "coldcore/process/assessment.hpp"
 #include "lethality/lethality_support.hpp"
 #include "support/libraries.hpp"
 

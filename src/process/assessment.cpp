@@ -1,5 +1,5 @@
-#include "coldcore/report/assessment.hpp"
-#include "coldcore/report/temperature_text.hpp"
+#include "coldcore/process/assessment.hpp"
+#include "coldcore/model/temperature_token.hpp"
 
 #include <algorithm>
 #include <cmath>
