@@ -1,0 +1,90 @@
+#pragma once
+// The pieces the assessment is built from, shared by its source files (process/assessment.cpp,
+// target_verdict.cpp, assessment_curves.cpp, target_results.cpp). Private to src/process/.
+#include <array>
+#include <functional>
+#include <limits>
+#include <span>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "coldcore/process/assessment.hpp"
+#include "lethality/detail/crossing.hpp"
+
+namespace coldcore::assessing {
+
+// ---- verdicts, shown values and error bounds (target_verdict.cpp) ----
+
+inline constexpr double kEps = std::numeric_limits<double>::epsilon();
+
+/// How a kind's raw values are shown: scale to the shown unit and its suffix.
+struct ShownUnit {
+  double scale = 1;
+  std::string suffix;
+};
+inline const ShownUnit kLog{1.0, " log10"};
+inline const ShownUnit kMin{1.0 / 60.0, " min"};
+
+std::string shown(double value, int significant, bool up);
+std::string minutes_down(double s);
+std::string minutes_up(double s);
+/// Rounding of the unit conversions behind a margin and of the subtraction: a tie inside it.
+double rounding_bound(double a, double b);
+/// Crossing-time error of detail::Curve::refine.
+double refine_tol_s(double t);
+/// Error of a crossing time at t when the temperatures are accurate to tol_K (∞ at a tangent).
+double crossing_uncertainty_s(const std::function<double(double)>& T, double t, double tol_K, double lo, double hi);
+/// Relative error of F on a history whose temperatures are accurate to tol_K.
+double f_relative_error_of_temperature(const Kinetics& k, double tol_K);
+std::string signed_small(double v, const ShownUnit& u);
+/// The verdict, margin and verdict texts from r.margin and r.margin_uncertainty.
+void decide(TargetResult& r, const ShownUnit& u);
+void finish(TargetResult& r, bool log_units);
+void cap_log_reduction_text(TargetResult& r);
+
+// ---- curves, quadrature knots and gaps (assessment_curves.cpp) ----
+
+struct Resolved {
+  Kinetics k;
+  const Organism* organism = nullptr;
+};
+Resolved resolve(const Target& t, const std::string& place, const OrganismLibrary& lib);
+std::function<double(double)> temp_function(const History& h, bool mean);
+std::vector<double> knots(const History& h, double a, double b, std::size_t max_intervals = 0);
+std::vector<double> knots_of(const detail::Curve& c, double a, double b);
+int probes_for(const std::vector<double>& k);
+double f_between(const History& h, const std::function<double(double)>& T, double a, double b, const Kinetics& k,
+                 double rel_tol, double* error_estimate_s = nullptr);
+/// Unrecorded intervals of a log: [start, end] of each gap.
+using Gaps = std::vector<std::array<double, 2>>;
+Gaps gaps_of_log(std::span<const double> times_s, double max_gap_s);
+std::vector<std::pair<double, double>> recorded_pieces(double a, double b, const Gaps& gaps);
+double f_recorded(const History& h, const std::function<double(double)>& T, double a, double b, const Kinetics& k,
+                  double rel_tol, const Gaps& gaps, double* error_estimate_s = nullptr);
+std::function<double(double)> recorded_only(const std::function<double(double)>& T, const Gaps& gaps);
+void add_gap_knots(std::vector<double>& knots, const Gaps& gaps);
+void gap_notes(TargetResult& r, const Gaps& gaps, double t0, const char* what);
+std::vector<int> credited(const Target& t, const History& h, const std::string& place);
+
+// ---- one target's result (target_results.cpp) ----
+
+/// Error bound (s) of a crossing time on the checked curve; 0 for a time that is no crossing.
+using CrossingError = std::function<double(double time_s, double level_C)>;
+void provenance_notes(TargetResult& r, const Resolved& res);
+double outside_range(const History& h, const std::function<double(double)>& T, const Kinetics& k,
+                     const std::vector<int>& stages, double rel_tol);
+void lethality_verdict(TargetResult& r, const Target& t, const Resolved& res, const AssessOptions& o,
+                       const std::string& place, double F_uncertainty_s);
+std::string label_of(const Target& t);
+void cooling_result(TargetResult& r, const CoolingCheck& c, const CoolingRule& rule, const CrossingError& err);
+void cooking_result(TargetResult& r, const CookingCheck& c, double fraction_uncertainty);
+double cooking_uncertainty(const detail::Curve& c, const CookingTable& table, const CookingCheck& check, double tol_K);
+const CookingTable& cooking_table_for(const Target& t, const std::string& place, const AssessOptions& opts);
+void min_temperature_result(TargetResult& r, const Target& t, const detail::Curve& c, const CrossingError& err,
+                            const Gaps& gaps = {});
+CrossingError crossing_error(const std::function<double(double)>& T, double tol_K, double lo, double hi);
+CoolingContext infer_context(const History& h, const CoolingRule& rule, const AssessOptions& o,
+                             const std::function<double(double)>& T, std::vector<std::string>& notes);
+
+}  // namespace coldcore::assessing
