@@ -2,14 +2,14 @@
 
 namespace coldcore::io {
 
-process::Scenario scenario_of(const ProductFile& file) {
-  process::Scenario s{file.product, file.stages, file.targets, file.origin};
+Scenario scenario_of(const ProductFile& file) {
+  Scenario s{file.product, file.stages, file.targets, file.origin};
   bool any = false;
-  std::vector<std::optional<process::StageHRange>> per(file.stages.size());
+  std::vector<std::optional<StageHRange>> per(file.stages.size());
   for (std::size_t i = 0; i < file.stages.size() && i < file.stage_h.size(); ++i) {
     const StageH& sh = file.stage_h[i];
     if (sh.medium_type.empty() || !sh.h_range_W_m2K) continue;
-    per[i] = process::StageHRange{(*sh.h_range_W_m2K)[0], (*sh.h_range_W_m2K)[1],
+    per[i] = StageHRange{(*sh.h_range_W_m2K)[0], (*sh.h_range_W_m2K)[1],
                                   "medium_type = \"" + sh.medium_type + "\""};
     any = true;
   }
@@ -17,8 +17,8 @@ process::Scenario scenario_of(const ProductFile& file) {
   return s;
 }
 
-process::Ranges ranges_of(const ProductFile& file) {
-  process::Ranges r;
+Ranges ranges_of(const ProductFile& file) {
+  Ranges r;
   r.diameter_m = file.ranges.diameter_m;
   r.length_m = file.ranges.length_m;
   r.thickness_m = file.ranges.thickness_m;

@@ -31,13 +31,6 @@ bool heating_question(Question q, const Scenario& s) {
 
 }  // namespace
 
-bool Ranges::any() const {
-  if (diameter_m || length_m || thickness_m || conductivity_W_mK || initial_C) return true;
-  for (const auto& h : stage_h_W_m2K)
-    if (h) return true;
-  return false;
-}
-
 std::vector<RangeChoice> worst_case_choices(const Scenario& s, const Ranges& r, bool heating, bool sizes) {
   std::vector<RangeChoice> c;
   if (sizes) {

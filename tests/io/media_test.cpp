@@ -6,6 +6,7 @@
 #include "coldcore/io/media.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/scenario.hpp"
+#include "coldcore/process/conservative.hpp"
 
 using namespace coldcore;
 

@@ -2,8 +2,7 @@
 /// From a loaded product file to the process layer's inputs: the Scenario every process verb
 /// evaluates, and the tolerance ranges of --conservative.
 #include "coldcore/io/product_file.hpp"
-#include "coldcore/process/conservative.hpp"
-#include "coldcore/process/inverse.hpp"
+#include "coldcore/model/scenario.hpp"
 
 namespace coldcore::io {
 
@@ -11,9 +10,9 @@ namespace coldcore::io {
 /// medium's h range in Scenario::per_target_h, so each target is evaluated at the end of it that
 /// is conservative for that target (process/h_ends.hpp). A stage with h_W_m2K (and perhaps
 /// h_range_W_m2K) keeps its h; its range is used only by --conservative (ranges_of).
-process::Scenario scenario_of(const ProductFile& file);
+Scenario scenario_of(const ProductFile& file);
 
 /// [product.ranges] and every stage's h range (h_range_W_m2K or the medium's), in SI.
-process::Ranges ranges_of(const ProductFile& file);
+Ranges ranges_of(const ProductFile& file);
 
 }  // namespace coldcore::io

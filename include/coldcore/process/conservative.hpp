@@ -21,12 +21,7 @@
 
 namespace coldcore::process {
 
-/// Ranges [low, high] in SI; stage_h parallel to Scenario::stages (empty entries: no range).
-struct Ranges {
-  std::optional<std::array<double, 2>> diameter_m, length_m, thickness_m, conductivity_W_mK, initial_C;
-  std::vector<std::optional<std::array<double, 2>>> stage_h_W_m2K;
-  bool any() const;
-};
+using coldcore::Ranges;  // model/scenario.hpp
 
 /// One worst-case choice: what it sets and to what.
 struct RangeChoice {

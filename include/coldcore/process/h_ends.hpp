@@ -31,18 +31,14 @@
 #include <vector>
 
 #include "coldcore/model/product.hpp"
+#include "coldcore/model/scenario.hpp"
 #include "coldcore/model/stages.hpp"
 #include "coldcore/model/targets.hpp"
 
 namespace coldcore::process {
 
-struct Scenario;
-
-/// The h range of one stage taken per target. REQUIRES 0 < low_W_m2K <= high_W_m2K.
-struct StageHRange {
-  double low_W_m2K = 0, high_W_m2K = 0;
-  std::string label;  ///< where the range comes from, e.g. medium_type = "blast-air" (source; status)
-};
+using coldcore::Scenario;  // model/scenario.hpp
+using coldcore::StageHRange;
 
 enum class HEnd { low, high };
 

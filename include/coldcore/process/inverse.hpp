@@ -39,17 +39,6 @@
 
 namespace coldcore::process {
 
-/// The forward model's inputs.
-struct Scenario {
-  Product product;
-  std::vector<Stage> stages;
-  std::vector<Target> targets;
-  std::string origin = "product";  ///< for messages
-  /// Parallel to stages (or empty): a stage with a range takes, for each target, the end that is
-  /// conservative for it (process/h_ends.hpp); its h_W_m2K is then replaced at evaluation.
-  std::vector<std::optional<StageHRange>> per_target_h = {};
-};
-
 struct Libraries {
   const OrganismLibrary* organisms = nullptr;  ///< REQUIRES non-null
   const RuleLibrary* rules = nullptr;          ///< REQUIRES non-null
