@@ -4,6 +4,7 @@
 #include <memory>
 #include <optional>
 
+#include "cli/log_options.hpp"
 #include "cli/library_files.hpp"
 #include "cli/output.hpp"
 #include "cli/verbs.hpp"
@@ -24,6 +25,8 @@ namespace {
 
 struct DeviationArgs {
   std::string file, medium_log, probe_log, stage, lot, library, date, column, probe_column, timezone;
+  LogFormatArgs log_format;        ///< both logs; --time-column names the medium log's
+  std::string probe_time_column;   ///< --probe-time-column
   double tolerance_K = 0.5;
   double max_gap_s = 60;
   double round_min = 1;
@@ -53,6 +56,7 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side, Ve
     const std::string text = io::read_text_file(a.medium_log);
     io::LogOptions lo;
     lo.temp_column = a.column;
+    apply_log_format(a.log_format, lo);
     lo.max_gap_s = a.max_gap_s;
     if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
     const io::TimeSeries log = io::parse_log_csv(text, a.medium_log, lo);
@@ -68,6 +72,8 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side, Ve
     io::LogOptions lo;
     lo.temp_column = a.probe_column;
     lo.choose_column_hint = "choose one with --probe-temp-column NAME";
+    apply_log_format(a.log_format, lo);
+    lo.time_column = a.probe_time_column;
     lo.max_gap_s = a.max_gap_s;
     if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
     const io::TimeSeries log = io::parse_log_csv(text, a.probe_log, lo);
@@ -141,6 +147,8 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   // --temp-column as on probe; --column kept for scripts written before it.
   sub->add_option("--temp-column,--column", args->column, "temperature column of the medium log, when it has several");
   sub->add_option("--probe-temp-column", args->probe_column, "temperature column of the probe log, when it has several");
+  add_log_format_options(*sub, args->log_format);
+  sub->add_option("--probe-time-column", args->probe_time_column, "the probe log's time column by its header name");
   sub->add_option("--tolerance-K", args->tolerance_K, "a reading this far on the unfavourable side of the schedule is deviated")->capture_default_str()->check(within(0, 50, "K", true));
   sub->add_option("--max-gap-s", args->max_gap_s,
                   "readings further apart than this are a gap in the log (no lethality credited in it), s")

@@ -5,6 +5,7 @@
 #include <iostream>
 #include <memory>
 
+#include "cli/log_options.hpp"
 #include "cli/library_files.hpp"
 #include "cli/output.hpp"
 #include "cli/verbs.hpp"
@@ -28,6 +29,7 @@ struct FitArgs {
   std::vector<std::string> probe_logs;
   std::string medium_log;
   std::string medium_column;
+  LogFormatArgs log_format;  ///< every log of the study
   std::vector<std::string> probe_columns;
   std::string write_product;
   double max_gap_s = 60;
@@ -49,6 +51,7 @@ ReadLog read_log(const std::string& path, const std::string& column, const FitAr
   lo.max_gap_s = a.max_gap_s;
   lo.temp_column = column;
   lo.choose_column_hint = hint;
+  apply_log_format(a.log_format, lo);
   if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
   r.series = io::parse_log_csv(r.bytes, path, lo);
   return r;
@@ -192,6 +195,7 @@ void add_fit_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--medium-log", a->medium_log, "measured medium log over the whole study (default: the scheduled media)");
   sub->add_option("--probe-column", a->probe_columns, "read only this temperature column of the probe logs (repeat for several; default: every *_C / *_F column is a probe)");
   sub->add_option("--medium-column", a->medium_column, "which temperature column of the medium log to use when it has several");
+  add_log_format_options(*sub, a->log_format);
   sub->add_option("--write-product", a->write_product, "write the calibrated product file (fitted k and h, their intervals as ranges, the covariance) here");
   sub->add_option("--max-gap-s", a->max_gap_s, "gaps longer than this in a log are reported, s")->capture_default_str()->check(within(0, limits::duration_s.high, "s", true));
   sub->add_option("--timezone", a->timezone, "fixed UTC offset of timestamps written without one, e.g. +01:00");

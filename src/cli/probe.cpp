@@ -3,6 +3,7 @@
 #include <iostream>
 #include <optional>
 
+#include "cli/log_options.hpp"
 #include "cli/library_files.hpp"
 #include "cli/output.hpp"
 #include "cli/verbs.hpp"
@@ -22,6 +23,7 @@ namespace {
 
 struct ProbeArgs {
   std::string log;
+  LogFormatArgs log_format;
   std::string library;  ///< --library DIR; empty: beside the log, then the usual search order
   std::string organism;
   std::optional<double> target_log;
@@ -105,6 +107,7 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side, VerdictSum
   io::LogOptions lo;
   lo.max_gap_s = a.max_gap_s;
   lo.temp_column = a.temp_column;
+  apply_log_format(a.log_format, lo);
   if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
   const io::TimeSeries log = io::parse_log_csv(bytes, a.log, lo);
   const LibraryFiles lib = load_libraries(a.library, a.log);
@@ -166,6 +169,7 @@ void add_probe_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--D-min", a->D_min, "own kinetics: D at the reference temperature, min")->check(within(0, limits::duration_s.high / 60, "min", true));
   sub->add_option("--F-min", a->F_min, "own kinetics: required F at the reference temperature, min")->check(within(0, limits::duration_s.high / 60, "min", true));
   sub->add_option("--temp-column", a->temp_column, "which temperature column to use when the log has several");
+  add_log_format_options(*sub, a->log_format);
   sub->add_option("--max-gap-s", a->max_gap_s, "gaps longer than this are reported, s")->capture_default_str()->check(within(0, limits::duration_s.high, "s", true));
   sub->add_option("--lot", a->lot, "lot or batch identifier for the report");
   sub->add_option("--timezone", a->timezone,

@@ -19,20 +19,69 @@ using detail::format_number;
 using detail::quote;
 using detail::trim;
 
-std::vector<std::string_view> split_cells(std::string_view line) {
-  std::vector<std::string_view> cells;
-  std::size_t start = 0;
-  for (;;) {
-    const std::size_t comma = line.find(',', start);
-    cells.push_back(trim(line.substr(start, comma == std::string_view::npos ? comma : comma - start)));
-    if (comma == std::string_view::npos) break;
-    start = comma + 1;
+/// The cells of a line split at `delimiter` outside double quotes (RFC 4180 within a line: a
+/// quoted cell keeps delimiters, and a doubled quote in it is one quote), each trimmed.
+std::vector<std::string> split_cells(std::string_view line, char delimiter) {
+  std::vector<std::string> cells(1);
+  bool quoted = false;
+  bool was_quoted = false;
+  for (std::size_t i = 0; i < line.size(); ++i) {
+    const char ch = line[i];
+    if (quoted) {
+      if (ch == '"' && i + 1 < line.size() && line[i + 1] == '"') {
+        cells.back() += '"';
+        ++i;
+      } else if (ch == '"') {
+        quoted = false;
+      } else {
+        cells.back() += ch;
+      }
+    } else if (ch == '"' && trim(cells.back()).empty()) {
+      cells.back().clear();  // blanks before an opening quote are not part of the cell
+      quoted = was_quoted = true;
+    } else if (ch == delimiter) {
+      if (!was_quoted) cells.back() = std::string(trim(cells.back()));
+      cells.emplace_back();
+      was_quoted = false;
+    } else if (!(was_quoted && (ch == ' ' || ch == '\t'))) {
+      cells.back() += ch;
+    }
   }
+  if (!was_quoted) cells.back() = std::string(trim(cells.back()));
   return cells;
 }
 
+/// How many times `ch` occurs in `line` outside double quotes.
+std::size_t count_unquoted(std::string_view line, char ch) {
+  std::size_t n = 0;
+  bool quoted = false;
+  for (char c : line) {
+    if (c == '"') quoted = !quoted;
+    else if (c == ch && !quoted) ++n;
+  }
+  return n;
+}
+
+/// The separator of a log: the one asked for, else ';' or tab when the header has it and no comma
+/// outside quotes (spreadsheet exports where the decimal mark is a comma), else ','.
+char delimiter_of(std::string_view header_line, char asked) {
+  if (asked != 0) return asked;
+  if (count_unquoted(header_line, ',') == 0) {
+    if (count_unquoted(header_line, ';') > 0) return ';';
+    if (count_unquoted(header_line, '\t') > 0) return '\t';
+  }
+  return ',';
+}
+
 /// The whole cell as a double, or nullopt (a partial parse such as "12abc" is not a number).
-std::optional<double> parse_number(std::string_view cell) {
+/// With `decimal_comma`, one comma and no point is the decimal mark ("12,5").
+std::optional<double> parse_number(std::string_view cell, bool decimal_comma = false) {
+  std::string swapped;
+  if (decimal_comma && cell.find('.') == std::string_view::npos && count_unquoted(cell, ',') == 1) {
+    swapped = std::string(cell);
+    swapped[swapped.find(',')] = '.';
+    cell = swapped;
+  }
   if (!cell.empty() && cell.front() == '+') cell.remove_prefix(1);
   if (cell.empty()) return std::nullopt;
   double v = 0;
@@ -82,6 +131,24 @@ std::string_view time_unit(std::string_view name) {
 
 std::string where(std::string_view origin, std::size_t line) {
   return std::string(origin) + ":" + std::to_string(line);
+}
+
+/// Index of the time column: `asked` by name (--time-column), else the first column named as a
+/// time (time_s, time_min, time_h, timestamp, ...). `at` is "<origin>:<line>" of the header.
+std::size_t time_column_of(const std::vector<std::string>& header, const std::string& asked, const std::string& at,
+                           std::string_view line) {
+  if (!asked.empty()) {
+    for (std::size_t i = 0; i < header.size(); ++i)
+      if (header[i] == asked) return i;
+    std::string msg = at + ": time column = " + quote(asked) + ": not in the header " + quote(line);
+    if (auto near = did_you_mean(asked, header)) msg += "; did you mean " + quote(*near) + "?";
+    throw InputError(msg);
+  }
+  for (std::size_t i = 0; i < header.size(); ++i)
+    if (is_timestamp_name(header[i]) || !time_unit(header[i]).empty()) return i;
+  throw InputError(at + ": time column = " + quote(header[0]) +
+                   ": must be time_s, time_min, time_h (numbers) or timestamp (ISO-8601), or name the time column "
+                   "with --time-column NAME");
 }
 
 /// A cell as written in a message: numbers bare, anything else quoted.
@@ -208,7 +275,11 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
   std::size_t header_line = 0;
   bool iso_time = false;
   std::string_view time_unit_name;
+  std::size_t time_index = 0;
   std::size_t temp_index = 0;
+  char delimiter = ',';
+  bool decimal_comma = false;
+  std::size_t skipped = 0;  // rows with a blank time or temperature cell
   std::string_view temp_unit;
   std::string prev_time_cell;
   std::size_t prev_line = 0;
@@ -227,29 +298,26 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
     ++line_no;
     const std::string_view line = trim(raw);
     if (line.empty() || line.front() == '#') continue;
-    const auto cells = split_cells(line);
+    if (header.empty()) {
+      delimiter = delimiter_of(line, opts.delimiter);
+      decimal_comma = opts.decimal_comma.value_or(delimiter != ',');
+    }
+    const auto cells = split_cells(line, delimiter);
 
     if (header.empty()) {
       header_line = line_no;
-      if (parse_number(cells[0]) || parse_iso8601_s(cells[0]))
+      if (parse_number(cells[0], decimal_comma) || parse_iso8601_s(cells[0]))
         throw InputError(where(origin, line_no) + ": no header row: the first row must name the columns " +
                          "with their units, e.g. time_s,medium_C");
-      if (cells.size() == 1 && (line.find(';') != std::string_view::npos || line.find('\t') != std::string_view::npos))
-        throw InputError(where(origin, line_no) + ": header = " + quote(line) +
-                         ": cells must be separated by commas (this looks like ';' or tab separated)");
-      for (auto c : cells) header.emplace_back(c);
-      const std::string& tname = header[0];
-      if (is_timestamp_name(tname)) {
-        iso_time = true;
-      } else {
-        time_unit_name = time_unit(tname);
-        if (time_unit_name.empty())
-          throw InputError(where(origin, line_no) + ": time column = " + quote(tname) +
-                           ": must be time_s, time_min, time_h (numbers) or timestamp (ISO-8601)");
-      }
+      for (const auto& c : cells) header.push_back(c);
+      time_index = time_column_of(header, opts.time_column, where(origin, line_no), line);
+      const std::string& tname = header[time_index];
+      time_unit_name = time_unit(tname);
+      // A column chosen by name that states no time unit holds timestamps ("Date Time, GMT+00:00").
+      iso_time = time_unit_name.empty();
       std::vector<std::size_t> temps;
-      for (std::size_t i = 1; i < header.size(); ++i)
-        if (!temperature_unit(header[i]).empty()) temps.push_back(i);
+      for (std::size_t i = 0; i < header.size(); ++i)
+        if (i != time_index && !temperature_unit(header[i]).empty()) temps.push_back(i);
       for (std::size_t i : temps)
         if (latin1_degree(header[i]))
           out.warnings.push_back(where(origin, line_no) + ": column " + quote(header[i]) +
@@ -292,12 +360,21 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
       throw InputError(at + ": " + std::to_string(cells.size()) + " cell(s), the header has " +
                        std::to_string(header.size()) + ": every row needs one cell per column");
 
+    // A blank reading is not a reading: the row is skipped and said so; the rows around it are
+    // then further apart, and the gap rules decide what that interval is worth.
+    if (cells[time_index].empty() || cells[temp_index].empty()) {
+      out.warnings.push_back(at + ": " + quote(cells[time_index].empty() ? header[time_index] : header[temp_index]) +
+                             " is blank: the row is skipped, nothing is filled in for it");
+      ++skipped;
+      continue;
+    }
+    const std::string_view time_cell = cells[time_index];
     double time_abs = 0;
     if (iso_time) {
       bool zoned = false;
-      const auto t = parse_iso8601_s(cells[0], &zoned);
+      const auto t = parse_iso8601_s(time_cell, &zoned);
       if (!t)
-        throw InputError(at + ": " + header[0] + " = " + quote(cells[0]) +
+        throw InputError(at + ": " + header[time_index] + " = " + quote(time_cell) +
                          ": not an ISO-8601 timestamp (YYYY-MM-DDTHH:MM:SS, optional .fff and Z or +HH:MM)");
       time_abs = *t;
       if (!zoned) {
@@ -305,14 +382,15 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
         if (opts.utc_offset_s) time_abs -= *opts.utc_offset_s;  // local = UTC + offset
       }
     } else {
-      const auto t = parse_number(cells[0]);
-      if (!t) throw InputError(at + ": " + header[0] + " = " + quote(cells[0]) + ": not a number");
-      if (!std::isfinite(*t)) throw InputError(at + ": " + header[0] + " = " + std::string(cells[0]) + ": must be finite");
+      const auto t = parse_number(time_cell, decimal_comma);
+      if (!t) throw InputError(at + ": " + header[time_index] + " = " + quote(time_cell) + ": not a number");
+      if (!std::isfinite(*t))
+        throw InputError(at + ": " + header[time_index] + " = " + std::string(time_cell) + ": must be finite");
       time_abs = *to_si(Quantity::time, *t, time_unit_name);
     }
 
     const std::string_view temp_cell = cells[temp_index];
-    const auto temp = parse_number(temp_cell);
+    const auto temp = parse_number(temp_cell, decimal_comma);
     const std::string& temp_name = header[temp_index];
     if (!temp) throw InputError(at + ": " + temp_name + " = " + quote(temp_cell) + ": not a number");
     if (!std::isfinite(*temp)) throw InputError(at + ": " + temp_name + " = " + std::string(temp_cell) + ": must be finite");
@@ -326,12 +404,12 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
     if (!out.time_s.empty()) {
       if (iso_time && local_rows && !opts.utc_offset_s && time_abs <= prev_time_abs &&
           prev_time_abs - time_abs <= 3600)
-        throw InputError(at + ": " + header[0] + " = " + show_cell(cells[0]) + ": goes back to before the previous row (" +
+        throw InputError(at + ": " + header[time_index] + " = " + show_cell(time_cell) + ": goes back to before the previous row (" +
                          show_cell(prev_time_cell) + " at line " + std::to_string(prev_line) +
                          "): the timestamps have no UTC offset, and this looks like a clock change (local time set "
                          "back); " + kWhatToDo);
       if (!(time_abs > prev_time_abs))
-        throw InputError(at + ": " + header[0] + " = " + show_cell(cells[0]) + ": must be after the previous row (" +
+        throw InputError(at + ": " + header[time_index] + " = " + show_cell(time_cell) + ": must be after the previous row (" +
                          show_cell(prev_time_cell) + " at line " + std::to_string(prev_line) + ")");
       const double gap_s = time_abs - prev_time_abs;
       if (gap_s > opts.max_gap_s)
@@ -343,7 +421,7 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
       if (iso_time) out.start_unix_s = time_abs;
     }
     if (time_abs - first_time_abs > limits::duration_s.high)
-      throw InputError(at + ": " + header[0] + " = " + show_cell(cells[0]) +
+      throw InputError(at + ": " + header[time_index] + " = " + show_cell(time_cell) +
                        ": more than a year after the first row; a log covers at most 366 days");
     if (out.time_s.size() == limits::max_log_rows)
       throw InputError(at + ": more than " + std::to_string(limits::max_log_rows) +
@@ -351,16 +429,18 @@ TimeSeries parse_log_csv(std::string_view text, std::string_view origin, const L
     out.time_s.push_back(time_abs - first_time_abs);
     out.temp_C.push_back(temp_C);
     prev_time_abs = time_abs;
-    prev_time_cell = std::string(cells[0]);
+    prev_time_cell = std::string(time_cell);
     prev_line = line_no;
     lines.push_back(line_no);
-    cells0.emplace_back(cells[0]);
+    cells0.emplace_back(time_cell);
   }
 
   if (header.empty()) throw InputError(where(origin, 1) + ": empty log: no header and no data rows; a log is a header naming the columns with units (e.g. time_s,temp_C) and a row per reading");
   if (out.time_s.empty())
-    throw InputError(where(origin, header_line) + ": empty log: a header but no data rows; give a row per reading below it");
-  if (iso_time && local_rows && !opts.utc_offset_s) refuse_clock_change(out, origin, header[0], lines, cells0);
+    throw InputError(where(origin, header_line) + ": empty log: a header but no data rows" +
+                     (skipped ? " with both a time and a temperature (" + std::to_string(skipped) + " blank)" : "") +
+                     "; give a row per reading below it");
+  if (iso_time && local_rows && !opts.utc_offset_s) refuse_clock_change(out, origin, header[time_index], lines, cells0);
   return out;
 }
 
@@ -403,10 +483,14 @@ std::vector<std::string> temperature_columns(std::string_view text) {
     const std::string_view line = trim(text.substr(pos, nl == std::string_view::npos ? text.size() - pos : nl - pos));
     pos = nl == std::string_view::npos ? text.size() + 1 : nl + 1;
     if (line.empty() || line.front() == '#') continue;
-    const auto cells = split_cells(line);
-    if (parse_number(cells[0]) || parse_iso8601_s(cells[0])) return names;  // no header
-    for (std::size_t i = 1; i < cells.size(); ++i)
-      if (!temperature_unit(cells[i]).empty()) names.emplace_back(cells[i]);
+    const char delimiter = delimiter_of(line, 0);
+    const auto cells = split_cells(line, delimiter);
+    if (parse_number(cells[0], delimiter != ',') || parse_iso8601_s(cells[0])) return names;  // no header
+    std::size_t time_index = cells.size();
+    for (std::size_t i = 0; i < cells.size() && time_index == cells.size(); ++i)
+      if (is_timestamp_name(cells[i]) || !time_unit(cells[i]).empty()) time_index = i;
+    for (std::size_t i = 0; i < cells.size(); ++i)
+      if (i != time_index && !temperature_unit(cells[i]).empty()) names.push_back(cells[i]);
     return names;
   }
   return names;

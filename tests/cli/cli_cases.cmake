@@ -518,3 +518,20 @@ add_test(NAME cli.fit_study
                  -P ${PROJECT_SOURCE_DIR}/tests/cli/fit_study.cmake)
 # About 4 min under the sanitizers (it ran last, alone): a COST makes `ctest -j` start it early.
 set_tests_properties(cli.fit_study PROPERTIES COST 4000)
+
+# issue 16: a decimal-comma spreadsheet export (';' separators, quoted headers holding a comma,
+# °F in the header, a row-number column, one blank reading; invented log). Constant 158 °F = 70 °C
+# for 4 min: F70 = 4 min by the definition of F (common practice). With the default 60 s limit the
+# blank reading leaves no gap; with --max-gap-s 45 the 60 s around it is a gap, credited nothing:
+# 3 min (the 1.5 to 2.5 min stretch removed, plain arithmetic).
+set(export_args probe tests/cli/probe/export-semicolon.csv --time-column "Date Time, GMT+00:00" --reference-C 70
+    --z-C 7.5 --D-min 0.5 --date 2026-12-01)
+cli_expect(issue16_probe_export 0 ARGS ${export_args}
+           STDOUT_HAS "F 4.00 min at 70.0 °C (z 7.50 °C), 8.00 log10" "first reading: 2026-11-30 06:00:00 UTC"
+                      "export-semicolon.csv:11: \"Temp, °F\" is blank: the row is skipped")
+cli_expect(issue16_probe_export_gap 0 ARGS ${export_args} --max-gap-s 45
+           STDOUT_HAS "F 3.00 min at 70.0 °C (z 7.50 °C), 6.00 log10" "no lethality credited across the gap in the log from 1.50 min to 2.50 min")
+cli_expect(issue16_probe_export_no_time_column 2 ARGS probe tests/cli/probe/export-semicolon.csv --reference-C 70 --z-C 7.5 --D-min 0.5
+           STDERR_HAS "time column = \"#\": must be time_s, time_min, time_h (numbers) or timestamp (ISO-8601), or name the time column with --time-column NAME")
+cli_expect(issue16_probe_bad_delimiter 2 ARGS ${export_args} --delimiter "|"
+           STDERR_HAS "--delimiter = \"|\": must be , or ; or tab")

@@ -2,13 +2,22 @@
 /// Temperature logs (CSV) from a data logger: a medium (oven, water, chiller air) or a probe.
 ///
 /// Format: a header row naming the columns with their units, then one row per reading.
-///   time column (the first):  time_s | time_min | time_h  (numbers), or
-///                             timestamp  (ISO-8601 `YYYY-MM-DDTHH:MM:SS[.fff][Z|±HH:MM]`, or a
-///                             space instead of the `T`)
-///   temperature column:       any name ending in _C or _F (`medium_C`, `temp_F`, `probe1_C`)
-/// Other columns without a temperature suffix are ignored. With several temperature columns,
-/// LogOptions::temp_column picks one. Cells are comma-separated, surrounding blanks ignored;
-/// blank lines and lines starting with '#' are skipped; CRLF line ends are accepted.
+///   time column:          LogOptions::time_column, else the first column named
+///                         time_s | time_min | time_h  (numbers), or
+///                         timestamp | datetime | date_time | time_iso  (ISO-8601
+///                         `YYYY-MM-DDTHH:MM:SS[.fff][Z|±HH:MM]`, or a space instead of the `T`);
+///                         a column chosen by name that states no time unit holds timestamps
+///   temperature column:   a name stating its unit: ending in _C or _F (`medium_C`, `probe1_C`),
+///                         or as loggers write it (`temp (°F)`, `"Temp, °F"`, `probe [degC]`)
+/// Other columns are ignored. With several temperature columns, LogOptions::temp_column picks one.
+/// Cells are separated by LogOptions::delimiter; without it, by ';' (or a tab) when the header has
+/// that and no comma outside quotes, else by ','. A cell may be in double quotes (a doubled quote
+/// inside is one quote), so a header such as "Date Time, GMT+00:00" keeps its comma. With ';' or
+/// tab as the separator a decimal comma is read (`12,5`), as LogOptions::decimal_comma forces.
+/// Surrounding blanks are ignored; blank lines and lines starting with '#' are skipped; CRLF line
+/// ends are accepted. A row whose time or temperature cell is blank is skipped with a warning that
+/// names its line: nothing is filled in for it, so the readings around it are further apart and
+/// the gap rules (max_gap_s, and each verb's rule for gaps) decide what that interval is worth.
 /// A header is required: a log without one cannot say its units, so it is refused.
 ///
 /// Errors (coldcore::InputError) name `<origin>:<line>`, the column, the value and the
@@ -40,6 +49,12 @@ struct LogOptions {
   double max_gap_s = 60;
   /// Name of the temperature column to read when there are several; empty = the only one.
   std::string temp_column;
+  /// Name of the time column; empty = the first column named as a time (see above).
+  std::string time_column;
+  /// The cell separator: ',', ';' or '\t'; 0 = from the header (see above).
+  char delimiter = 0;
+  /// Read `12,5` as 12.5; nullopt = when the separator is not a comma.
+  std::optional<bool> decimal_comma;
   /// What the refusal of a log with several temperature columns tells the user to do.
   std::string choose_column_hint = "choose one with --temp-column NAME";
   /// UTC offset of timestamps written without one (local time = UTC + offset), e.g. +3600 for
