@@ -84,7 +84,7 @@ bad(media_h_tiny 2 "media.toml: media.x.h_min_W_m2K = 1e-300: must be from 0.1 t
 
 # --- logs (probe) ---
 bad(log_no_header 2 "l.csv:1: no header row: the first row must name the columns with their units, e.g. time_s,medium_C" LOG "time_s,temp_C\n" "<none>" ARGS probe l.csv ${O})
-bad(log_unknown_time_column 2 "l.csv:1: time column = \"time_days\": must be time_s, time_min, time_h (numbers) or timestamp (ISO-8601)" LOG "time_s" "time_days" ARGS probe l.csv ${O})
+bad(log_unknown_time_column 2 "l.csv:1: time column = \"time_days\": must be time_s, time_min, time_h (numbers) or timestamp (ISO-8601), or name the time column with --time-column NAME" LOG "time_s" "time_days" ARGS probe l.csv ${O})
 bad(log_no_temperature_column 2 "l.csv:1: header = \"time_s,temp\": no temperature column: name one with its unit, e.g. medium_C, temp_F or \"temp (°C)\"" LOG "temp_C" "temp" ARGS probe l.csv ${O})
 bad(log_word_cell 2 "l.csv:4: temp_C = \"hot\": not a number" LOG "120,45" "120,hot" ARGS probe l.csv ${O})
 bad(log_nan_cell 2 "l.csv:4: temp_C = nan: must be finite" LOG "120,45" "120,nan" ARGS probe l.csv ${O})
@@ -99,8 +99,11 @@ bad(log_two_temperature_columns 2 "l.csv:1: header = \"time_s,temp_C,probe2_C\":
 bad(log_two_columns_latin1 2 "l.csv:1: header = \"time_s,temp_C,probe \\xB0C\": several temperature columns (\"temp_C\", \"probe \\xB0C\"): choose one with --temp-column NAME" LOG "time_s,temp_C" "time_s,temp_C,probe <latin1-degree>C" ARGS probe l.csv ${O})
 bad(deviation_probe_two_temperature_columns 2 "l.csv:1: header = \"time_s,temp_C,probe2_C\": several temperature columns (\"temp_C\", \"probe2_C\"): choose one with --probe-temp-column NAME" LOG "time_s,temp_C" "time_s,temp_C,probe2_C" ARGS deviation p.toml --probe-log l.csv)
 bad(product_log_two_columns 2 "m.csv:1: header = \"time_s,temp_C,probe2_C\": several temperature columns (\"temp_C\", \"probe2_C\"): a medium_log is read with one temperature column; keep only the medium's" FILE "m.csv" "time_s,temp_C,probe2_C\n0,80,80\n60,80,80\n" EDIT "medium_C = 90" "medium_log = \"m.csv\"" ARGS run p.toml)
-bad(log_blank_cell 2 "l.csv:4: temp_C = \"\": not a number" LOG "120,45" "120," ARGS probe l.csv ${O})
-bad(log_semicolons 2 "s.csv:1: header = \"time_s;temp_C\": cells must be separated by commas (this looks like ';' or tab separated)" FILE "s.csv" "time_s<semicolon>temp_C\n0<semicolon>4\n60<semicolon>20\n" ARGS probe s.csv ${O})
+# issue 16: a blank cell skips its row (with a warning); a log of blank readings has none left.
+bad(log_all_blank 2 "b.csv:1: empty log: a header but no data rows with both a time and a temperature (2 blank); give a row per reading below it" FILE "b.csv" "time_s,temp_C\n0,\n60,\n" ARGS probe b.csv ${O})
+# issue 16: ';' files are read; a separator the reader does not know is refused by name.
+bad(log_bad_delimiter 2 "--delimiter = \"|\": must be , or ; or tab" ARGS probe l.csv ${O} --delimiter "|")
+bad(log_time_column_absent 2 "l.csv:1: time column = \"clock\": not in the header \"time_s,temp_C\"" ARGS probe l.csv ${O} --time-column clock)
 bad(log_impossible_date 2 "d.csv:3: timestamp = \"2026-02-30T10:01:00Z\": not an ISO-8601 timestamp (YYYY-MM-DDTHH:MM:SS, optional .fff and Z or +HH:MM)" FILE "d.csv" "timestamp,temp_C\n2026-02-28T10:00:00Z,4\n2026-02-30T10:01:00Z,20\n" ARGS probe d.csv ${O})
 bad(log_missing 2 "none.csv: cannot read file: No such file or directory" ARGS probe none.csv ${O})
 bad(log_directory 2 "sub: cannot read file: it is a directory; give a regular file" FILE "sub/x" "<none>" ARGS probe sub ${O})
