@@ -39,5 +39,10 @@ std::string temp_difference_token_fixed(double kelvin, int decimals) {
 std::string temp_token_text(std::string_view celsius_text, double exact_celsius) {
   return token('T', celsius_text, exact_celsius);
 }
+std::string temp_token_written(std::string_view celsius_text, std::string_view fahrenheit_text, double exact_celsius) {
+  std::string s = token('W', celsius_text, exact_celsius);
+  s.insert(s.size() - temperature_token::close.size(), std::string(temperature_token::separator) + std::string(fahrenheit_text));
+  return s;
+}
 
 }  // namespace coldcore

@@ -31,15 +31,27 @@ const CoolingRule& RuleLibrary::at(std::string_view key, std::string_view place)
 
 namespace {
 
+/// A step's limit in °C, and its label token. A limit may be written in °C, in °F, or in both
+/// when the rule's source states both (a code's "57 °C (135 °F)"): the °C value is then the one
+/// computed with, each unit is shown as written, and the two must agree within 0.5 °C (the
+/// rounding such codes use) so that a typo is caught.
 double temperature(const toml::table& t, const std::string& stem, std::string_view origin,
-                   const std::string& place) {
+                   const std::string& place, std::string* label, std::optional<double>* written_F) {
   const bool c = t.contains(stem + "_C"), f = t.contains(stem + "_F");
-  if (c == f)
-    throw InputError(std::string(origin) + ": " + place + ": give exactly one of " + stem +
-                     "_C or " + stem + "_F");
-  const double v = c ? detail::get_number(t, stem + "_C", origin, place)
-                     : (detail::get_number(t, stem + "_F", origin, place) - 32.0) / 1.8;
+  if (!c && !f)
+    throw InputError(std::string(origin) + ": " + place + ": give " + stem + "_C, " + stem + "_F, or both as the rule's source writes them");
+  const double v_C = c ? detail::get_number(t, stem + "_C", origin, place) : 0.0;
+  const double v_F = f ? detail::get_number(t, stem + "_F", origin, place) : 0.0;
+  const double v = c ? v_C : (v_F - 32.0) / 1.8;
   detail::require_in(v, limits::temperature_C, origin, place + "." + stem + " (in C)", "C");
+  if (c && f && std::abs((v_F - 32.0) / 1.8 - v_C) > 0.5)
+    throw InputError(std::string(origin) + ": " + place + ": " + stem + "_C = " + detail::num(v_C) + " and " + stem +
+                     "_F = " + detail::num(v_F) + " (" + detail::num((v_F - 32.0) / 1.8) +
+                     " C) disagree: the two must be the same limit within 0.5 C");
+  if (f) *written_F = v_F;
+  if (label)
+    *label = c && f ? temp_token_written(detail::num(v_C), detail::num(v_F), v)
+                    : temp_token_text(detail::num(std::round(v * 10) / 10), v);
   return v;
 }
 
@@ -114,8 +126,8 @@ RuleLibrary parse_cooling_rules(std::string_view toml_text, std::string_view ori
                           "advisory", "source", "status", "label", "from_label"},
                          origin, sp);
       CoolingStep st;
-      st.from_C = temperature(*s, "from", origin, sp);
-      st.to_C = temperature(*s, "to", origin, sp);
+      st.from_C = temperature(*s, "from", origin, sp, &st.from_text, &st.from_written_F);
+      st.to_C = temperature(*s, "to", origin, sp, &st.to_text, &st.to_written_F);
       if (!(st.to_C < st.from_C))
         throw InputError(std::string(origin) + ": " + sp + ": to = " + detail::num(st.to_C) +
                          " C: must be below from = " + detail::num(st.from_C) + " C");
@@ -132,9 +144,7 @@ RuleLibrary parse_cooling_rules(std::string_view toml_text, std::string_view ori
       // from_label words the start ("ambient") and keeps the end a temperature (shown in --units)
       const std::string from_label = detail::get_string(*s, "from_label", origin, sp, false);
       if (st.label.empty())
-        st.label = (from_label.empty() ? temp_token_text(detail::num(std::round(st.from_C * 10) / 10), st.from_C)
-                                       : from_label) +
-                   " -> " + temp_token_text(detail::num(std::round(st.to_C * 10) / 10), st.to_C);
+        st.label = (from_label.empty() ? st.from_text : from_label) + " -> " + st.to_text;
       r.steps.push_back(st);
     }
     lib.rules.push_back(std::move(r));

@@ -3,6 +3,7 @@
 
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
+#include "coldcore/report/temperature_text.hpp"
 #include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/reference_tables.hpp"
 
@@ -83,9 +84,16 @@ void write_rule_library(const RuleLibrary& lib, Format f, TempUnit u, std::ostre
           .key("status").value(r.status);
       if (r.chill_start_within_s) w.key("chill_start_within_s").value(*r.chill_start_within_s);
       w.key("steps").begin_array();
-      for (const auto& s : r.steps)
-        w.begin_object().key("from_C").value(s.from_C).key("to_C").value(s.to_C).key("within_s").value(s.within_s)
+      // In the report's unit, as the rule writes the limit when it writes that unit.
+      const auto as_written = [&](double c, const std::optional<double>& f) {
+        return u == TempUnit::F && f ? *f : display_temp(c, u);
+      };
+      const std::string us(unit_suffix(u));
+      for (const auto& s : r.steps) {
+        w.begin_object().key("from_" + us).value(as_written(s.from_C, s.from_written_F));
+        w.key("to_" + us).value(as_written(s.to_C, s.to_written_F)).key("within_s").value(s.within_s)
             .key("advisory").value(s.advisory).key("source").value(s.source).key("status").value(s.status).end_object();
+      }
       w.end_array().end_object();
     }
     w.end_array().key("cautions").value(cautions()).end_object();
@@ -107,7 +115,8 @@ void write_rule_library(const RuleLibrary& lib, Format f, TempUnit u, std::ostre
   for (const auto& r : lib.rules) {
     out << "\n" << r.key << ": " << r.name << " [" << r.status << "]\n  source: " << r.source << "\n";
     for (const auto& s : r.steps)
-      out << "  " << temp_text(s.from_C, u) << " -> " << temp_text(s.to_C, u) << " within " << duration_text(s.within_s)
+      out << "  " << render_temperatures(s.from_text, u) << " -> " << render_temperatures(s.to_text, u) << " within "
+          << duration_text(s.within_s)
           << (s.advisory ? " (advisory)" : "") << "\n";
     if (r.chill_start_within_s) out << "  chilling must begin within " << duration_text(*r.chill_start_within_s) << " of the cook\n";
     if (!r.note.empty()) out << "  note: " << r.note << "\n";

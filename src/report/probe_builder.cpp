@@ -94,7 +94,8 @@ RunReport build_probe_report(const io::TimeSeries& log, const ProbeAssessment& p
                               ", deadline " + utc_text(*log.start_unix_s + *st.start_s + st.step.within_s));
         if (st.start_s)
           r.rule_boxes.push_back({"step " + std::to_string(n) + " (" + duration_text(st.step.within_s) + ")", *st.start_s,
-                                  *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C});
+                                  *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C,
+                                  st.step.from_text + " → " + st.step.to_text});
       }
     }
     r.verdicts.push_back(v);

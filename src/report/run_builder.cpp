@@ -341,7 +341,8 @@ void add_assessment(RunReport& report, const std::vector<const History*>& histor
         if (!st.start_s) continue;
         // the writers append the step's limits in the display unit
         report.rule_boxes.push_back({"step " + std::to_string(n) + " (" + duration_text(st.step.within_s) + ")",
-                                     *st.start_s, *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C});
+                                     *st.start_s, *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C,
+                                  st.step.from_text + " → " + st.step.to_text});
       }
     }
   }

@@ -10,6 +10,7 @@
 #include <optional>
 
 #include "coldcore/report/cautions.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 namespace coldcore::detail {
 
@@ -262,8 +263,11 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
       hi = std::max({hi, b.t0_s, b.t1_s});
       f.plot.boxes.push_back({b.t0_s / ts.seconds_per_unit, b.t1_s / ts.seconds_per_unit,
                               display_temp(b.temp_lo_C, u), display_temp(b.temp_hi_C, u),
-                              b.label + (b.label.empty() ? "" : ": ") + fixed(display_temp(b.temp_hi_C, u), 1) +
-                                  " → " + fixed(display_temp(b.temp_lo_C, u), 1) + " " + std::string(unit_symbol(u)),
+                              b.label + (b.label.empty() ? "" : ": ") +
+                                  (b.limits.empty() ? fixed(display_temp(b.temp_hi_C, u), 1) + " → " +
+                                                          fixed(display_temp(b.temp_lo_C, u), 1) + " " +
+                                                          std::string(unit_symbol(u))
+                                                    : render_temperatures(b.limits, u)),
                               oi::reddish_purple});
     }
     const double pad = 0.05 * (hi - lo);

@@ -97,7 +97,8 @@ void add_scenarios(RunReport& report, const process::Evaluation& e, const Produc
           ++n;
           if (!st.start_s) continue;
           v.rule_boxes.push_back({"step " + std::to_string(n) + " (" + duration_text(st.step.within_s) + ")",
-                                  *st.start_s, *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C});
+                                  *st.start_s, *st.start_s + st.step.within_s, st.step.from_C, st.step.to_C,
+                                  st.step.from_text + " → " + st.step.to_text});
         }
       }
       if (i < targets.size() && targets[i].kind == TargetKind::centre_min_temperature)

@@ -59,8 +59,19 @@ std::string render_temperatures(std::string_view text, TempUnit u) {
     out.append(text.substr(pos, open - pos));
     const bool difference = text[body] == 'D';
     const std::string_view c = text.substr(body + 1, sep - body - 1);
-    const std::string exact(text.substr(sep + kSep.size(), close - sep - kSep.size()));
-    out += u == TempUnit::C ? std::string(c) : fahrenheit_text(c, std::strtod(exact.c_str(), nullptr), difference);
+    std::string_view exact_text = text.substr(sep + kSep.size(), close - sep - kSep.size());
+    std::string_view written_F;  // 'W': the °F text as the source writes it
+    if (text[body] == 'W') {
+      const std::size_t sep2 = exact_text.find(kSep);
+      if (sep2 != std::string_view::npos) {
+        written_F = exact_text.substr(sep2 + kSep.size());
+        exact_text = exact_text.substr(0, sep2);
+      }
+    }
+    const std::string exact(exact_text);
+    if (u == TempUnit::C) out += c;
+    else if (!written_F.empty()) out += written_F;
+    else out += fahrenheit_text(c, std::strtod(exact.c_str(), nullptr), difference);
     out += ' ';
     out += unit_symbol(u);
     pos = close + kClose.size();

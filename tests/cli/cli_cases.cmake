@@ -277,7 +277,10 @@ foreach(verb organisms rules)
   endforeach()
 endforeach()
 cli_expect(organisms_sources 0 ARGS organisms STDOUT_HAS "c-botulinum-proteolytic" "from memory" "REFERENCES")
-cli_expect(rules_food_code 0 ARGS rules STDOUT_HAS "two-stage-6h" "57.0 °C -> 21.0 °C within 2 h 00 min 00 s")
+# The Food Code writes its limits in both units (FDA Food Code 2022, 3-501.14): each shown as written (issue 16).
+cli_expect(rules_food_code 0 ARGS rules STDOUT_HAS "two-stage-6h" "57 °C -> 21 °C within 2 h 00 min 00 s")
+cli_expect(rules_food_code_F 0 ARGS rules --units F STDOUT_HAS "135 °F -> 70 °F within 2 h 00 min 00 s" "135 °F -> 41 °F within 6 h")
+cli_expect(run_food_code_F 0 ARGS run products/kofta-balls.toml --units F STDOUT_HAS "(step 135 °F -> 70 °F)" STDOUT_LACKS "134.6")
 
 # solve and deviation on every demo product, in every format this verb writes: cautions always.
 foreach(p kofta-balls chicken-sausage-log corned-beef-can lasagne-tray)

@@ -72,8 +72,8 @@ inline RunReport sample_report(const SampleOptions& opt = {}) {
   };
   r.target_lines = {{"F_F70_min", 2.0, ""}, {"centre_C", 72.0, ""}};
   if (passed57_s > 0 && passed21_s > 0) {
-    r.rule_boxes.push_back({"rule step 1 (2 h)", passed57_s, passed57_s + 2 * 3600, 57, 21});
-    r.rule_boxes.push_back({"rule step 2 (6 h in all)", passed21_s, passed57_s + 6 * 3600, 21, 5});
+    r.rule_boxes.push_back({"rule step 1 (2 h)", passed57_s, passed57_s + 2 * 3600, 57, 21, ""});
+    r.rule_boxes.push_back({"rule step 2 (6 h in all)", passed21_s, passed57_s + 6 * 3600, 21, 5, ""});
   }
   VerdictRow f70;
   f70.name = "F70";

@@ -9,7 +9,9 @@
 ///
 /// Token: U+E000, 'T' (absolute) or 'D' (difference), the °C text, U+E002, the exact value in
 /// °C (%.17g), U+E001 (private-use code points, never in the tool's own text). °F is computed
-/// from the exact value, so 54.4444 °C shown as "54.4 °C" is "130 °F", not 129.92.
+/// from the exact value, so 54.4444 °C shown as "54.4 °C" is "130 °F", not 129.92. A limit that
+/// its source writes in both units ('W') carries both texts: U+E000 'W' °C text U+E002 exact
+/// U+E002 °F text U+E001, shown as written in either unit ("57 °C", "135 °F").
 #include <string>
 #include <string_view>
 
@@ -30,5 +32,8 @@ std::string temp_token_fixed(double celsius, int decimals);
 std::string temp_difference_token_fixed(double kelvin, int decimals);
 /// An absolute temperature whose °C text the caller chose (e.g. rounded for a label).
 std::string temp_token_text(std::string_view celsius_text, double exact_celsius);
+/// A limit as its source writes it in both units (e.g. a code's "57 °C (135 °F)"): each unit
+/// shows its own text; `exact_celsius` is the value computed with.
+std::string temp_token_written(std::string_view celsius_text, std::string_view fahrenheit_text, double exact_celsius);
 
 }  // namespace coldcore

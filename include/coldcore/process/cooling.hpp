@@ -35,6 +35,10 @@ struct CoolingStep {
                            ///< (model/temperature_token.hpp); `from_label` words the start
   double from_C = 0;
   double to_C = 0;         ///< < from_C
+  /// The limits as the rule writes them (temperature tokens): a limit written in both units
+  /// shows each as written ("135 °F", not the 134.6 °F that 57 °C converts to).
+  std::string from_text, to_text;
+  std::optional<double> from_written_F, to_written_F;  ///< the °F values, when the rule writes them
   double within_s = 0;     ///< > 0
   bool advisory = false;
   std::string source, status;

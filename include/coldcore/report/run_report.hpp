@@ -98,9 +98,10 @@ struct MeasuredSource {
 /// the deadline: the curve must leave the box through its lower edge.
 struct RuleBox {
   std::string label;     ///< e.g. "step 1 (2 h)"; no temperatures: writers append the limits
-                         ///< in the display unit ("step 1 (2 h): 57.0 → 21.0 °C")
+                         ///< in the display unit ("step 1 (2 h): 57 °C → 21 °C")
   double t0_s = 0, t1_s = 0;
   double temp_hi_C = 0, temp_lo_C = 0;
+  std::string limits;    ///< the limits as the rule writes them, temperature tokens ("57 °C → 21 °C")
 };
 
 /// A required value drawn as a horizontal line on the plot that shows history column `column`,
