@@ -4,7 +4,8 @@
 # It passes when the page loads without console messages, the dumped DOM has the plots and the
 # cautions, the page is no wider than 180 mm (A4 less margins) at that viewport width, every
 # plot box in the screenshot has drawn pixels (and the centre curve's blue where it belongs),
-# and each PDF has pages of the right size.
+# and each PDF has pages of the right size; page 2 of the A4 print carries the running header and
+# footer (title, date, "page 2 of N"), read back with pdftotext (poppler-utils).
 #
 # usage: scripts/browser_check.sh MAKE_SAMPLE_REPORT OUT_DIR
 #   MAKE_SAMPLE_REPORT  the make_sample_report test program (writes a synthetic report as html)
@@ -94,4 +95,36 @@ for size in A4 letter; do
   chrome --no-pdf-header-footer --print-to-pdf="$out/report_$size.pdf" "file://$out/print_$size.html" >/dev/null 2>&1
   $py "$measure" pdf "$out/report_$size.pdf" "$size"
 done
+
+# 5. The printed record's running header and footer (issue 16): page 2 of the A4 print carries the
+# title, the date and "page 2 of N". pdftotext comes from Debian's poppler-utils (installed here
+# when missing). The check must be able to fail: the same page without the margin boxes fails it.
+if command -v pdftotext >/dev/null 2>&1 || (coldcore_install_missing poppler-utils) >/dev/null 2>&1; then
+  title="$(sed -n 's:.*<title>\(.*\)</title>.*:\1:p' "$out/report.html" | head -1 | sed 's/&quot;/"/g; s/&lt;/</g; s/&gt;/>/g; s/&amp;/\&/g')"
+  running_ok() {  # PDF: page 2 has the title's start, the footer's page count and the caution line
+    local text
+    text="$(pdftotext -f 2 -l 2 -layout "$1" - 2>/dev/null)"
+    grep -qF "${title:0:24}" <<<"$text" && grep -qE "page 2 of [0-9]+" <<<"$text" &&
+      grep -qF "engineering estimate: see the cautions" <<<"$text"
+  }
+  pages="$(pdfinfo "$out/report_A4.pdf" 2>/dev/null | sed -n 's/^Pages: *//p')"
+  if [ "${pages:-0}" -lt 2 ]; then
+    echo "browser check: FAIL: the A4 print has ${pages:-0} page(s); the running header needs a page 2"
+    exit 1
+  fi
+  if ! running_ok "$out/report_A4.pdf"; then
+    echo "browser check: FAIL: page 2 of the A4 print lacks the running header or footer"
+    pdftotext -f 2 -l 2 -layout "$out/report_A4.pdf" - | head -5
+    exit 1
+  fi
+  sed 's|<style>@page { @top-left[^<]*</style>||' "$out/print_A4.html" > "$out/no_running.html"
+  chrome --no-pdf-header-footer --print-to-pdf="$out/no_running.pdf" "file://$out/no_running.html" >/dev/null 2>&1
+  if running_ok "$out/no_running.pdf"; then
+    echo "browser check: FAIL: the running-header check passed a print without one"
+    exit 1
+  fi
+  echo "running header: page 2 of $pages has the title, the page count and the caution line; a print without them fails"
+else
+  echo "running header: SKIPPED: poppler-utils (pdftotext) could not be installed"
+fi
 echo "browser check: PASS (files in $out)"

@@ -65,6 +65,7 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side, Ve
     in.stage = a.stage.empty() ? process::default_stage(in.scheduled, true)
                                : process::stage_index(in.scheduled, a.stage, "--stage");
     info.medium_log = a.medium_log;
+    info.medium_log_start_unix_s = log.start_unix_s;
     info.medium_log_sha256 = io::sha256_hex(text);
   }
   if (!a.probe_log.empty()) {

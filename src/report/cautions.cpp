@@ -1,5 +1,7 @@
 #include "coldcore/report/cautions.hpp"
 
+#include <ostream>
+
 namespace coldcore {
 
 const std::vector<std::string>& cautions() {
@@ -14,6 +16,24 @@ const std::vector<std::string>& cautions() {
       "properties unless stated, no phase change; the cold spot is taken at the geometric centre.",
   };
   return kCautions;
+}
+
+const std::vector<std::string>& sign_off_labels() {
+  static const std::vector<std::string> kLabels = {"Prepared by (name, role)", "Reviewed by (process authority)",
+                                                   "Date",
+                                                   "Decision (accept / hold / reprocess / reject)",
+                                                   "Corrective action"};
+  return kLabels;
+}
+
+const char* sign_off_note() {
+  return "Filled in by hand: the decision is the reviewer's, under the local regulator; this tool makes none.";
+}
+
+void write_sign_off_text(std::ostream& out) {
+  out << "SIGN-OFF\n  " << sign_off_note() << "\n";
+  for (const auto& l : sign_off_labels()) out << "  " << l << ": " << std::string(30, '_') << "\n";
+  out << "\n";
 }
 
 const std::vector<std::string>& measured_cautions() {

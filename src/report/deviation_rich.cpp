@@ -50,7 +50,7 @@ void record_section(RichDoc& d, const DeviationResult& r, const DeviationRecordI
     if (r.events.empty()) kv.push_back({"deviation", no_deviation_text(r)});
     for (std::size_t n = 0; n < r.events.size(); ++n)
       kv.push_back({"deviation " + std::to_string(n + 1) + " of " + std::to_string(r.events.size()),
-                    deviation_event_text(r.events[n], u)});
+                    deviation_event_text(r.events[n], u, i.medium_log_start_unix_s)});
     if (r.extension_given_s)
       kv.push_back({"hold extension",
                     "the log runs " + at_time(*r.extension_given_s) + " past the scheduled end, credited as delivered; " +
@@ -184,8 +184,7 @@ void notes_section(RichDoc& d, const DeviationResult& r) {
 
 void disposition_section(RichDoc& d) {
   d.section_begin("disposition", "Disposition");
-  d.statement(disposition_statement());
-  d.sign_off({"Reviewer name", "Date", "Decision"});
+  d.statement(disposition_statement());  // the sign-off follows, before the cautions
   d.section_end();
 }
 
@@ -206,7 +205,7 @@ void closing_sections(RichDoc& d, const DeviationResult& r, const DeviationRecor
 }
 
 void write_deviation_doc(RichDoc& d, const DeviationResult& r, const DeviationRecordInfo& i, TempUnit u) {
-  d.begin("coldcore deviation record: lot " + lot_text(i) + " — " + i.product_name);
+  d.begin("coldcore deviation record: lot " + lot_text(i) + " — " + i.product_name, detail::running_text(i.lot, i.provenance));
   d.verdict_summary(verdict_summary(r, i.conservative));
   record_section(d, r, i, u);
   comparison_section(d, r);

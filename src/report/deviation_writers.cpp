@@ -157,7 +157,7 @@ void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i
     } else {
       out << "  deviations:          " << r.events.size() << " (times from the stage start)\n";
       for (std::size_t n = 0; n < r.events.size(); ++n)
-        out << "    " << n + 1 << ". " << deviation_event_text(r.events[n], u) << "\n";
+        out << "    " << n + 1 << ". " << deviation_event_text(r.events[n], u, i.medium_log_start_unix_s) << "\n";
     }
     if (r.extension_given_s) {
       out << "  hold extension:      the log runs " << duration_text(*r.extension_given_s) << " ("
@@ -228,10 +228,8 @@ void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i
   out << "\nASSUMPTIONS\n";
   for (const auto& n : r.assumptions) out << "  - " << n << "\n";
   out << "\nDISPOSITION\n  " << disposition_statement() << "\n\n";
-  out << "  Reviewer name: ______________________________\n";
-  out << "  Date:          ______________________________\n";
-  out << "  Decision:      ______________________________\n";
-  out << "\nCAUTIONS\n";
+  write_sign_off_text(out);
+  out << "CAUTIONS\n";
   for (const auto& cau : cautions()) out << "  * " << cau << "\n";
 }
 
@@ -260,7 +258,7 @@ void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i
       w.key("scheduled_at_extreme_" + us).value(display_temp(e.scheduled_at_extreme_C, u));
       w.key("departure_K").value(e.departure_K);
     }
-    w.key("description").value(deviation_event_text(e, u));
+    w.key("description").value(deviation_event_text(e, u, i.medium_log_start_unix_s));
     w.end_object();
   }
   w.end_array();

@@ -68,7 +68,9 @@ void write_fit_text(const process::StudyAnalysis& a, const FitReportContext& c, 
     for (const auto& p : s.paragraphs) out << "  " << p << "\n";
     for (const auto& i : s.items) out << "  - " << i << "\n";
   }
-  out << "\nCautions\n";
+  out << "\n";
+  write_sign_off_text(out);
+  out << "Cautions\n";
   for (const auto& cau : cautions()) out << "  * " << cau << "\n";
 }
 

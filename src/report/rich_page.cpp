@@ -5,6 +5,7 @@
 #include <cctype>
 #include <ostream>
 
+#include "coldcore/report/cautions.hpp"
 #include "coldcore/report/svg_plot.hpp"
 
 namespace coldcore::detail {
@@ -69,10 +70,44 @@ TextTable target_table(const std::vector<TargetResult>& targets, std::vector<boo
 
 void html_page_begin(std::ostream& o, const std::string& title) { html_page_begin(o, title, lead_sentence()); }
 
-void html_page_begin(std::ostream& o, const std::string& title, std::string_view lead) {
+namespace {
+
+// A CSS string literal inside <style> (raw text, no entities): quotes and backslashes escaped,
+// '<', '>' and '&' as CSS escapes (no "</style" can end the element, and the page stays
+// well-formed XML), line breaks as spaces.
+std::string css_string(std::string_view s) {
+  std::string out = "\"";
+  for (char ch : s) {
+    if (ch == '<' || ch == '>' || ch == '&') {  // CSS escapes: the page stays well-formed XML too
+      out += ch == '<' ? "\\3c " : ch == '>' ? "\\3e " : "\\26 ";
+      continue;
+    }
+    if (ch == '"' || ch == '\\') out += '\\';
+    out += (ch == '\n' || ch == '\r') ? ' ' : ch;
+  }
+  return out + "\"";
+}
+
+}  // namespace
+
+std::string running_text(std::string_view lot, const std::vector<KeyValue>& provenance) {
+  std::string s = lot.empty() ? "" : "lot " + std::string(lot);
+  for (const auto& kv : provenance)
+    if (kv.key == "date") s += (s.empty() ? "" : " · ") + kv.value;
+  return s;
+}
+
+void html_page_begin(std::ostream& o, const std::string& title, std::string_view lead, std::string_view running) {
   o << "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n"
     << "<meta charset=\"utf-8\"/>\n<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"/>\n"
-    << "<title>" << xml_escape(title) << "</title>\n<style>" << kCss << "</style>\n</head>\n<body>\n";
+    << "<title>" << xml_escape(title) << "</title>\n<style>" << kCss << "</style>\n";
+  // The printed record's running header and footer (CSS paged media margin boxes): what it is,
+  // the lot and date when known, and "page X of Y", on every page.
+  o << "<style>@page { @top-left { content: " << css_string(title)
+    << "; font-size: 8pt; color: #333333; } @top-right { content: " << css_string(running)
+    << "; font-size: 8pt; color: #333333; } @bottom-left { content: \"engineering estimate: see the cautions; "
+       "decided by the signed reviewer\"; font-size: 8pt; color: #333333; } @bottom-right { content: \"page \" "
+       "counter(page) \" of \" counter(pages); font-size: 8pt; color: #333333; } }</style>\n</head>\n<body>\n";
   o << "<h1>" << xml_escape(title) << "</h1>\n";
   o << "<p class=\"lead\">" << xml_escape(lead) << "</p>\n";
 }
@@ -84,7 +119,15 @@ void html_verdict_summary(std::ostream& o, const VerdictSummary& s) {
     << "</p>\n";
 }
 
+void html_sign_off(std::ostream& o) {
+  o << "<section id=\"sign-off\">\n<h2>Sign-off</h2>\n<p>" << xml_escape(sign_off_note()) << "</p>\n";
+  o << "<table class=\"sign-off\">\n<tbody>\n";
+  for (const auto& l : sign_off_labels()) o << "<tr><td>" << xml_escape(l) << "</td><td class=\"line\"> </td></tr>\n";
+  o << "</tbody>\n</table>\n</section>\n";
+}
+
 void html_page_end(std::ostream& o, const std::vector<std::string>& cautions) {
+  html_sign_off(o);
   o << "<section id=\"cautions\" class=\"cautions\">\n<h2>Cautions</h2>\n";
   html_list(o, cautions);
   o << "</section>\n</body>\n</html>\n";
@@ -247,6 +290,9 @@ void md_figures(std::ostream& o, const std::vector<RunFigure>& figures, std::str
 }
 
 void md_cautions(std::ostream& o, const std::vector<std::string>& cautions) {
+  o << "## Sign-off\n\n" << md_escape(sign_off_note()) << "\n\n";
+  // a bare run of underscores is no emphasis in CommonMark: left unescaped, it reads as a line
+  for (const auto& l : sign_off_labels()) o << md_escape(l) << ": " << std::string(40, '_') << "\n\n";
   o << "## Cautions\n\n";
   for (const auto& c : cautions) o << "> - " << md_escape(c) << "\n";
 }
@@ -260,7 +306,9 @@ namespace {
 class HtmlDoc final : public RichDoc {
  public:
   explicit HtmlDoc(std::ostream& o) : o_(o) {}
-  void begin(const std::string& title) override { html_page_begin(o_, title); }
+  void begin(const std::string& title, std::string_view running) override {
+    html_page_begin(o_, title, lead_sentence(), running);
+  }
   void verdict_summary(const VerdictSummary& s) override { html_verdict_summary(o_, s); }
   void section_begin(std::string_view id, std::string_view heading) override { html_section_begin(o_, id, heading); }
   void section_end() override { html_section_end(o_); }
@@ -275,12 +323,6 @@ class HtmlDoc final : public RichDoc {
     html_list(o_, items, warnings ? "warnings" : nullptr);
   }
   void figures(const std::vector<RunFigure>& f) override { html_figures(o_, f); }
-  void sign_off(const std::vector<std::string>& labels) override {
-    o_ << "<table class=\"sign-off\">\n<tbody>\n";
-    for (const auto& l : labels)
-      o_ << "<tr><td>" << svg::xml_escape(l) << "</td><td class=\"line\"> </td></tr>\n";
-    o_ << "</tbody>\n</table>\n";
-  }
   void end(const std::vector<std::string>& cautions) override { html_page_end(o_, cautions); }
 
  private:
@@ -291,7 +333,7 @@ class MdDoc final : public RichDoc {
  public:
   MdDoc(std::ostream& o, std::string_view base, std::vector<std::pair<std::string, std::string>>& files)
       : o_(o), base_(base), files_(files) {}
-  void begin(const std::string& title) override { md_page_begin(o_, title); }
+  void begin(const std::string& title, std::string_view) override { md_page_begin(o_, title); }
   void verdict_summary(const VerdictSummary& s) override { md_verdict_summary(o_, s); }
   void section_begin(std::string_view, std::string_view heading) override { md_heading(o_, heading); }
   void section_end() override {}
@@ -302,9 +344,6 @@ class MdDoc final : public RichDoc {
   void key_value(const std::vector<KeyValue>& kv) override { md_key_value_table(o_, kv); }
   void list(const std::vector<std::string>& items, bool) override { md_list(o_, items); }
   void figures(const std::vector<RunFigure>& f) override { md_figures(o_, f, base_, files_); }
-  void sign_off(const std::vector<std::string>& labels) override {
-    for (const auto& l : labels) o_ << md_escape(l) << ": " << md_escape(std::string(40, '_')) << "\n\n";
-  }
   void end(const std::vector<std::string>& cautions) override { md_cautions(o_, cautions); }
 
  private:

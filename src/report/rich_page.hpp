@@ -29,7 +29,11 @@ TextTable target_table(const std::vector<TargetResult>& targets, std::vector<boo
 /// Doctype, head with the inline CSS, <body>, the <h1> title and the lead sentence.
 void html_page_begin(std::ostream& o, const std::string& title);
 /// The same with its own lead sentence (a report about measured data).
-void html_page_begin(std::ostream& o, const std::string& title, std::string_view lead);
+/// The printed pages' header beside the title: "lot <lot> · <date>" from what is known (either
+/// may be empty; the date is provenance's "date").
+std::string running_text(std::string_view lot, const std::vector<KeyValue>& provenance);
+/// `running`: the printed pages' header text beside the title (lot, date), may be empty.
+void html_page_begin(std::ostream& o, const std::string& title, std::string_view lead, std::string_view running = {});
 /// The verdict summary box, just after the title and lead (verdict_summary.hpp): the sentence
 /// in words (never colour alone), classed "met", "not-demonstrated" or "no-verdict".
 void html_verdict_summary(std::ostream& o, const VerdictSummary& s);
@@ -78,7 +82,8 @@ namespace coldcore::detail {
 class RichDoc {
  public:
   virtual ~RichDoc() = default;
-  virtual void begin(const std::string& title) = 0;
+  /// `running`: the printed pages' header beside the title (lot, date); may be empty.
+  virtual void begin(const std::string& title, std::string_view running = {}) = 0;
   /// The verdict summary the report opens with (call just after begin).
   virtual void verdict_summary(const VerdictSummary& s) = 0;
   virtual void section_begin(std::string_view id, std::string_view heading) = 0;
@@ -91,8 +96,6 @@ class RichDoc {
   virtual void key_value(const std::vector<KeyValue>& kv) = 0;
   virtual void list(const std::vector<std::string>& items, bool warnings = false) = 0;
   virtual void figures(const std::vector<RunFigure>& figures) = 0;
-  /// Blank lines to fill in by hand (reviewer name, date, decision): printable lines in HTML.
-  virtual void sign_off(const std::vector<std::string>& labels) = 0;
   /// The cautions box and the end of the document.
   virtual void end(const std::vector<std::string>& cautions) = 0;
 };

@@ -10,7 +10,7 @@ namespace coldcore {
 
 void write_run_html(const RunReport& r, std::ostream& o, TempUnit u) {
   using namespace detail;
-  html_page_begin(o, r.title, lead_sentence(r));
+  html_page_begin(o, r.title, lead_sentence(r), running_text(r.measured ? r.measured->lot : "", r.provenance));
   html_verdict_summary(o, verdict_summary(r));
   if (!r.product.empty()) {
     html_section_begin(o, "product", subject_heading(r));

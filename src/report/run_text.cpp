@@ -2,6 +2,7 @@
 #include <algorithm>
 #include <ostream>
 
+#include "coldcore/report/cautions.hpp"
 #include "coldcore/report/run_report.hpp"
 #include "coldcore/report/temperature_text.hpp"
 #include "coldcore/report/verdict_summary.hpp"
@@ -134,6 +135,7 @@ void write_run_text(const RunReport& r, std::ostream& out, TempUnit u) {
     for (const auto& kv : r.provenance) out << "  " << kv.key << ": " << kv.value << "\n";
     out << "\n";
   }
+  write_sign_off_text(out);
   out << "CAUTIONS\n";
   for (const auto& c : r.cautions) out << "  * " << c << "\n";
 }

@@ -173,7 +173,8 @@ void closing_sections(RichDoc& d, const SolveResult& r, const SolveReportContext
 
 void write_solve_doc(RichDoc& d, const SolveResult& r, const SolveReportContext& c, TempUnit u) {
   d.begin(std::string("coldcore solve --for ") + process::to_string(r.question) + ": " + question_words(r.question) +
-          " — " + c.product_name);
+          " — " + c.product_name,
+          detail::running_text("", c.provenance));
   d.verdict_summary(verdict_summary(r, c.conservative));
   question_section(d, r, c, u);
   answer_section(d, r, c, u);

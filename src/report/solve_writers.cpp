@@ -146,7 +146,9 @@ void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::os
   for (const auto& n : r.assumptions) out << "  - " << n << "\n";
   out << "\nPROVENANCE\n";
   for (const auto& kv : c.provenance) out << "  " << kv.key << ": " << kv.value << "\n";
-  out << "\nCAUTIONS\n";
+  out << "\n";
+  write_sign_off_text(out);
+  out << "CAUTIONS\n";
   for (const auto& cau : cautions()) out << "  * " << cau << "\n";
 }
 

@@ -46,6 +46,16 @@ foreach(c IN LISTS cases)
         message(FATAL_ERROR "${verb} --format ${fmt}: the cautions lack '${p}'")
       endif()
     endforeach()
+    # Every record a person signs (the verbs with a verdict or a study, in the formats read by
+    # people) carries the sign-off lines (issue 16): prepared, reviewed, date, decision, action.
+    if(NOT verb MATCHES "^(modes|props|organisms|rules|media)$" AND fmt MATCHES "^(text|md|html)$")
+      foreach(p "Prepared by" "Reviewed by" "Decision (accept / hold / reprocess / reject)" "Corrective action")
+        string(FIND "${out}" "${p}" pos)
+        if(pos EQUAL -1)
+          message(FATAL_ERROR "${verb} --format ${fmt}: the sign-off lacks '${p}'")
+        endif()
+      endforeach()
+    endif()
     # temperatures in free text are tokens until shown (report/temperature_text.hpp): none may
     # reach a report unrendered. The quoted character is U+E000, the first code point of a token.
     string(FIND "${out}" "" leaked)

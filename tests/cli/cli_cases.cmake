@@ -70,7 +70,7 @@ cli_expect(deviation_corned_text 0 ARGS deviation products/corned-beef-can.toml
            --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 --date 2026-12-01
            STDOUT_HAS "lot:                 CB-0412"
                       "1. medium colder than scheduled in a stage that heats, 40 min 00 s to 46 min 00 s into the stage (2400-2760 s); lowest 113.10 °C at 2400 s, scheduled 121.10 °C (8.00 K colder)"
-                      "medium log SHA-256:" "F scheduled 16.9 min, delivered 14.7 min" "Reviewer name:"
+                      "medium log SHA-256:" "F scheduled 16.9 min, delivered 14.7 min" "Reviewed by (process authority):"
                       "is for the process authority to decide")
 cli_expect(deviation_corned_json 0 ARGS deviation products/corned-beef-can.toml
            --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 --format json
@@ -340,7 +340,7 @@ cli_expect(deviation_corned_html_F 0 ARGS deviation products/corned-beef-can.tom
            --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 --format html --units F
            STDOUT_HAS "<h1>coldcore deviation record: lot CB-0412"
                       "<td>deviation 1 of 1</td><td>medium colder than scheduled in a stage that heats, 40 min 00 s to 46 min 00 s into the stage (2400-2760 s); lowest 235.58 °F at 2400 s, scheduled 249.98 °F (14.40 °F colder)</td>"
-                      "<td>medium log SHA-256</td>" "is for the process authority to decide" "<td>Reviewer name</td>"
+                      "<td>medium log SHA-256</td>" "is for the process authority to decide" "<td>Reviewed by (process authority)</td>"
                       "<td class=\"line\"> </td>" "class=\"verdict-met\">met<" "temperature (°F)")
 cli_expect(deviation_md_needs_out 2 ARGS deviation products/corned-beef-can.toml
            --medium-log products/logs/corned-beef-hold-deviation.csv --format md STDERR_HAS "give --out PATH.md")
@@ -538,3 +538,14 @@ cli_expect(issue16_probe_export_no_time_column 2 ARGS probe tests/cli/probe/expo
            STDERR_HAS "time column = \"#\": must be time_s, time_min, time_h (numbers) or timestamp (ISO-8601), or name the time column with --time-column NAME")
 cli_expect(issue16_probe_bad_delimiter 2 ARGS ${export_args} --delimiter "|"
            STDERR_HAS "--delimiter = \"|\": must be , or ; or tab")
+
+# issue 16: a deviation on a timestamped medium log gives each departure on the log's own clock
+# too (invented log: the demo's dip at 2400-2760 s written from 2026-11-30 08:00:00 UTC, so
+# 08:40:00 to 08:46:00 by arithmetic); a log without timestamps has no clock to show.
+foreach(fmt text html json)
+  cli_expect(issue16_deviation_clock_${fmt} 0 ARGS deviation products/corned-beef-can.toml
+             --medium-log tests/cli/deviation/corned-beef-hold-clock.csv --lot CB-0412 --format ${fmt} --date 2026-12-01
+             STDOUT_HAS "(clock 2026-11-30 08:40:00 UTC to 08:46:00 UTC)")
+endforeach()
+cli_expect(issue16_deviation_no_clock 0 ARGS deviation products/corned-beef-can.toml
+           --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 STDOUT_LACKS "(clock ")

@@ -260,8 +260,11 @@ TEST_CASE("deviation html: well-formed, self-contained, record, verdicts, extra 
   CHECK(h.find("medium, logged (delivered)") != std::string::npos);
   CHECK(h.find("centre, scheduled") != std::string::npos);
   CHECK(h.find(svg::xml_escape(disposition_statement())) != std::string::npos);
-  CHECK(count_of(h, "<td class=\"line\"> </td>") == 3);
-  for (const char* l : {"<td>Reviewer name</td>", "<td>Date</td>", "<td>Decision</td>"}) CHECK(h.find(l) != std::string::npos);
+  // the sign-off every record carries (issue 16): five lines to fill in by hand
+  CHECK(count_of(h, "<td class=\"line\"> </td>") == 5);
+  for (const char* l : {"<td>Prepared by (name, role)</td>", "<td>Reviewed by (process authority)</td>", "<td>Date</td>",
+                        "<td>Decision (accept / hold / reprocess / reject)</td>", "<td>Corrective action</td>"})
+    CHECK_MESSAGE(h.find(l) != std::string::npos, l);
   CHECK(count_of(h, "class=\"verdict-not\">not demonstrated<") == 2);  // delivered; one unit less
   CHECK(count_of(h, "class=\"verdict-met\">met<") == 1);               // the restored re-run
   for (const auto& c : cautions()) CHECK(h.find(svg::xml_escape(c)) != std::string::npos);
@@ -293,7 +296,8 @@ TEST_CASE("deviation md: disposition statement, blank reviewer lines, plots as f
   RunReport sched = sample_report();
   const auto m = write_deviation_markdown(deviation_result(), deviation_info(&sched, nullptr), TempUnit::C, "cb");
   CHECK(m.markdown.find("**" + disposition_statement() + "**") != std::string::npos);
-  for (const char* l : {"Reviewer name: \\_\\_\\_", "Date: \\_\\_\\_", "Decision: \\_\\_\\_"})
+  for (const char* l : {"Reviewed by (process authority): ___", "Date: ___", "Decision (accept / hold / reprocess / reject): ___",
+                        "Corrective action: ___"})
     CHECK(m.markdown.find(l) != std::string::npos);
   CHECK(m.markdown.find("| F0 (F-value) | 16.9 min → 1.66 min | - | 2.00 min | shortfall 0.34 min | met | not demonstrated |") !=
         std::string::npos);

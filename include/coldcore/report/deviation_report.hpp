@@ -27,6 +27,7 @@
 ///      one more row per target for the worst case.
 /// Shown F and log reductions are rounded DOWN, extra time UP.
 #include <iosfwd>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -42,6 +43,9 @@ struct DeviationRecordInfo {
   std::string product_name;
   std::string lot;                    ///< "" = not given (the record says so)
   std::string medium_log, medium_log_sha256;
+  /// The medium log's first timestamp (s since 1970, UTC) when its time column is a timestamp:
+  /// each departure is then also shown on the log's clock.
+  std::optional<double> medium_log_start_unix_s;
   std::string probe_log, probe_log_sha256;
   std::vector<KeyValue> provenance;   ///< tool, input, SHA-256s, date
   std::vector<std::string> warnings;
@@ -63,7 +67,10 @@ const std::string& disposition_statement();
 std::string_view to_string(process::DeviationKind k);
 /// One sentence naming a departure for the record: its kind, when (from the stage's start),
 /// the extreme reading against the schedule, or the length of a gap or shortening and what it costs.
-std::string deviation_event_text(const process::DeviationEvent& e, TempUnit u);
+/// `clock_start_unix_s`: the deviated stage's start on the log's clock (its first timestamp); the
+/// departure's times are then also given as clock times, as the log reads them.
+std::string deviation_event_text(const process::DeviationEvent& e, TempUnit u,
+                                 std::optional<double> clock_start_unix_s = std::nullopt);
 /// The record's line when there is no departure.
 std::string no_deviation_text(const process::DeviationResult& r);
 
