@@ -2,6 +2,8 @@
 // input; every text goes through xml_escape so the output is well-formed XML.
 #include "coldcore/report/svg_plot.hpp"
 
+#include "coldcore/report/label_placer.hpp"
+
 #include <algorithm>
 #include <charconv>
 #include <cassert>
@@ -271,6 +273,9 @@ std::string render_svg(const LinePlot& p, bool standalone) {
   o << "</g>\n";
 
   const std::string clip = "clip-path=\"url(#" + id + "-clip)\"";
+  // One placer for every label drawn inside the plot: none meets another or leaves the area.
+  LabelPlacer labels(f.left, f.top, f.right, f.bottom);
+  const std::vector<double> rows_down = {0, 12, 24, 36, 48};
   if (!p.boxes.empty()) {
     o << "<g class=\"rule-boxes\" " << clip << ">\n";
     for (const auto& b : p.boxes) {
@@ -282,7 +287,9 @@ std::string render_svg(const LinePlot& p, bool standalone) {
         << "\" stroke-width=\"0.8\"/>\n";
       o << "<line class=\"rule-deadline\" x1=\"" << num(X1) << "\" y1=\"" << num(Y0) << "\" x2=\"" << num(X1)
         << "\" y2=\"" << num(Y1) << "\" stroke=\"" << c << "\" stroke-width=\"2.4\"/>\n";
-      if (!b.label.empty()) text(o, X0 + 3, Y0 + 12, b.label, "font-size=\"10\" fill=\"#333333\"");
+      if (!b.label.empty())
+        if (const auto at = labels.place(b.label, X0 + 3, Y0 + 12, 10, false, rows_down))
+          text(o, at->first, at->second, b.label, "font-size=\"10\" fill=\"#333333\"");
     }
     o << "</g>\n";
   }
@@ -297,11 +304,22 @@ std::string render_svg(const LinePlot& p, bool standalone) {
       if (X > f.left + 0.5)
         o << "<line class=\"stage-line\" x1=\"" << num(X) << "\" y1=\"" << num(f.top) << "\" x2=\"" << num(X)
           << "\" y2=\"" << num(f.bottom) << "\" stroke=\"#555555\" stroke-width=\"1\" stroke-dasharray=\"3 3\"/>\n";
-      const double next = i + 1 < v.size() ? std::min(f.px(v[i + 1].x), f.right) : f.right;
-      const size_t fit = static_cast<size_t>(std::max(0.0, (next - X - 6) / 6.0));
+      // The whole name in the first free row under the top; shortened (whole in a tooltip) only
+      // when no row has room for it.
       std::string label = v[i].label;
-      if (code_points(label) > fit) label = fit >= 4 ? prefix_code_points(label, fit - 1) + "…" : "";
-      if (!label.empty()) text(o, X + 3, f.top + 11, label, "font-size=\"10\" fill=\"#333333\"");
+      auto at = labels.place(label, X + 3, f.top + 11, 10, false, rows_down);
+      if (!at) {
+        const double next = i + 1 < v.size() ? std::min(f.px(v[i + 1].x), f.right) : f.right;
+        const size_t fit = static_cast<size_t>(std::max(0.0, (next - X - 6) / 6.2));
+        label = fit >= 4 ? prefix_code_points(label, fit - 1) + "…" : "";
+        if (!label.empty()) at = labels.place(label, X + 3, f.top + 11, 10, false, rows_down);
+      }
+      if (at && !label.empty()) {
+        o << "<text x=\"" << num(at->first) << "\" y=\"" << num(at->second) << "\" font-size=\"10\" fill=\"#333333\">"
+          << xml_escape(label);
+        if (label != v[i].label) o << "<title>" << xml_escape(v[i].label) << "</title>";
+        o << "</text>\n";
+      }
     }
     o << "</g>\n";
   }
@@ -316,8 +334,10 @@ std::string render_svg(const LinePlot& p, bool standalone) {
       const double Y = f.py(h.y);
       o << "<line class=\"target-line\" x1=\"" << num(f.left) << "\" y1=\"" << num(Y) << "\" x2=\"" << num(f.right)
         << "\" y2=\"" << num(Y) << "\" " << stroke_attrs(h.colour, h.dash, 1.6) << "/>\n";
+      // Above its line, else below, else further out: never on another label.
       if (!h.label.empty())
-        text(o, f.right - 4, Y - 4, h.label, "font-size=\"10\" text-anchor=\"end\" fill=\"#222222\"");
+        if (const auto at = labels.place(h.label, f.right - 4, Y - 4, 10, true, {0, 16, -12, 28, -24, 40, -36}))
+          text(o, at->first, at->second, h.label, "font-size=\"10\" text-anchor=\"end\" fill=\"#222222\"");
     }
     o << "</g>\n";
   }
