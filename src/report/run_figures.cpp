@@ -238,6 +238,20 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
       ++k;
     }
     add_stage_lines(f.plot, r, ts);
+    // A requirement under 5 % of the axis would lie on zero: decades instead (issue 16), from a
+    // hundredth of the smallest requirement.
+    double top = 0, least_required = std::numeric_limits<double>::infinity();
+    for (const auto& s : f.plot.series)
+      for (double v : s.y)
+        if (std::isfinite(v)) top = std::max(top, v);
+    for (const auto& h : f.plot.hlines)
+      if (h.y > 0) least_required = std::min(least_required, h.y);
+    const bool log_axis = std::isfinite(least_required) && least_required < 0.05 * top;
+    if (log_axis) {
+      f.plot.y.log_scale = true;
+      f.plot.y.min = least_required / 100;
+      f.plot.y.label = "F-value (min, log scale)";
+    }
     if (r.measured)
       f.caption = "Lethality accumulated from the measured temperatures (trapezoid rule over the readings), as "
                   "minutes at each target's reference temperature" +
@@ -246,6 +260,9 @@ std::vector<RunFigure> run_figures(const RunReport& r, TempUnit u) {
     else
       f.caption = "Lethality accumulated at the centre, as minutes at each target's reference temperature; the "
                   "dotted line is the required value.";
+    if (log_axis)
+      f.caption += " The F axis is logarithmic (decades), so that a requirement far below the F delivered stays "
+                   "visible.";
     if (!f.plot.series.empty()) out.push_back(std::move(f));
   }
 

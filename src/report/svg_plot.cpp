@@ -14,51 +14,6 @@
 
 namespace coldcore::svg {
 
-std::string_view dash_array(Dash d) {
-  switch (d) {
-    case Dash::solid: return "";
-    case Dash::dashed: return "7 4";
-    case Dash::dotted: return "1.5 3";
-    case Dash::dash_dot: return "8 3 2 3";
-    case Dash::long_dash: return "12 4";
-    case Dash::short_dash: return "3 2";
-  }
-  return "";
-}
-
-double nice_number(double x, bool round) {
-  assert(x > 0 && std::isfinite(x));
-  const double expv = std::floor(std::log10(x));
-  const double p = std::pow(10.0, expv);
-  const double f = x / p;
-  double nf;
-  if (round)
-    nf = f < 1.5 ? 1 : f < 3 ? 2 : f < 7 ? 5 : 10;
-  else
-    nf = f <= 1 ? 1 : f <= 2 ? 2 : f <= 5 ? 5 : 10;
-  return nf * p;
-}
-
-Ticks nice_ticks(double lo, double hi, int target_count) {
-  assert(std::isfinite(lo) && std::isfinite(hi) && target_count >= 2);
-  if (hi < lo) std::swap(lo, hi);
-  if (hi - lo <= 1e-12 * std::max(1.0, std::fabs(lo))) {
-    // A flat series still needs an axis: a unit-sized range around it.
-    const double half = std::max(0.5, std::fabs(lo) * 0.05);
-    lo -= half;
-    hi += half;
-  }
-  Ticks t;
-  const double range = nice_number(hi - lo, false);
-  t.step = nice_number(range / (target_count - 1), true);
-  t.first = std::floor(lo / t.step + 1e-9) * t.step;
-  t.last = std::ceil(hi / t.step - 1e-9) * t.step;
-  t.decimals = std::max(0, static_cast<int>(-std::floor(std::log10(t.step) + 1e-9)));
-  const int n = static_cast<int>(std::lround((t.last - t.first) / t.step));
-  for (int i = 0; i <= n; ++i) t.values.push_back(t.first + i * t.step);
-  return t;
-}
-
 std::string xml_escape(std::string_view s) {
   std::string r;
   r.reserve(s.size());
@@ -209,7 +164,44 @@ struct LegendEntry {
 
 }  // namespace
 
-std::string render_svg(const LinePlot& p, bool standalone) {
+namespace {
+
+// The plot with every y as log10(y) (a value <= 0 has none: NaN, not drawn), for a log y axis.
+LinePlot with_log_y(LinePlot p) {
+  const auto lg = [](double v) { return v > 0 ? std::log10(v) : std::numeric_limits<double>::quiet_NaN(); };
+  for (auto& s : p.series)
+    for (double& v : s.y) v = lg(v);
+  for (auto& h : p.hlines) h.y = lg(h.y);
+  for (auto& b : p.boxes) {
+    b.y_lo = lg(b.y_lo);
+    b.y_hi = lg(b.y_hi);
+  }
+  if (p.y.min) p.y.min = lg(*p.y.min);
+  if (p.y.max) p.y.max = lg(*p.y.max);
+  return p;
+}
+
+// Whole decades over [lo, hi] (every second one beyond eight).
+AxisLayout decades(AxisLayout l) {
+  l.lo = std::floor(l.lo + 1e-9);
+  l.hi = std::max(l.lo + 1, std::ceil(l.hi - 1e-9));
+  const int step = l.hi - l.lo > 8 ? 2 : 1;
+  l.ticks.values.clear();
+  for (double v = l.lo; v <= l.hi + 1e-9; v += step) l.ticks.values.push_back(v);
+  l.ticks.decimals = 0;
+  return l;
+}
+
+// A decade's label as a plain number: 0.01, 1, 100.
+std::string decade_text(double v) {
+  const int e = static_cast<int>(std::lround(v));
+  return fixed_c(std::pow(10.0, e), e < 0 ? -e : 0);
+}
+
+}  // namespace
+
+std::string render_svg(const LinePlot& p_in, bool standalone) {
+  const LinePlot& p = p_in.y.log_scale ? with_log_y(p_in) : p_in;  // a temporary bound to the reference lives on
   // Data ranges: y only over points whose x lies inside a fixed x range.
   Range xr, yr;
   for (const auto& s : p.series)
@@ -230,7 +222,7 @@ std::string render_svg(const LinePlot& p, bool standalone) {
     yr.add(b.y_lo);
     yr.add(b.y_hi);
   }
-  const AxisLayout ya = layout_axis(p.y, yr, 7);
+  const AxisLayout ya = p.y.log_scale ? decades(layout_axis(p.y, yr, 7)) : layout_axis(p.y, yr, 7);
 
   std::vector<LegendEntry> legend;
   for (const auto& s : p.series) legend.push_back({LegendEntry::line, s.name, s.colour, s.dash, s.width_px});
@@ -358,7 +350,7 @@ std::string render_svg(const LinePlot& p, bool standalone) {
     const double Y = f.py(v);
     o << "<line x1=\"" << num(f.left - 4) << "\" y1=\"" << num(Y) << "\" x2=\"" << num(f.left) << "\" y2=\""
       << num(Y) << "\" stroke=\"#333333\"/>\n";
-    text(o, f.left - 7, Y + 4, fixed_c(v, ya.ticks.decimals), "text-anchor=\"end\"");
+    text(o, f.left - 7, Y + 4, p.y.log_scale ? decade_text(v) : fixed_c(v, ya.ticks.decimals), "text-anchor=\"end\"");
   }
   text(o, (f.left + f.right) / 2, f.bottom + 34, p.x.label, "text-anchor=\"middle\" class=\"axis-label\"");
   const double yl_x = 16, yl_y = (f.top + f.bottom) / 2;

@@ -12,6 +12,9 @@
 #include <vector>
 
 #include "coldcore/report/label_placer.hpp"
+#include "coldcore/report/run_report.hpp"
+#include "report/run_figures.hpp"
+#include "support/sample_report.hpp"
 
 using namespace coldcore::svg;
 
@@ -87,4 +90,55 @@ TEST_CASE("issue 16: no plot label of the example reports meets another or leave
   }
   CHECK(plots >= 20);
   CHECK(labels >= 20);
+}
+
+TEST_CASE("issue 16: a requirement under 5 % of the lethality axis gets a log axis; otherwise it stays linear") {
+  using namespace coldcore;
+  using coldcore::detail::RunFigure;
+  using coldcore::detail::run_figures;
+  RunReport r = coldcore::testing::sample_report();
+  const auto lethality = [](const std::vector<RunFigure>& figs) -> const RunFigure* {
+    for (const auto& f : figs)
+      if (f.key == "lethality") return &f;
+    return nullptr;
+  };
+  // The sample requires F70 = 2 min; its F column decides the axis.
+  std::size_t col = 0;
+  while (r.history.columns[col].name != "F_F70_min") ++col;
+  double top = 0;
+  for (const auto& row : r.history.rows) top = std::max(top, row[col]);
+  REQUIRE(top > 0);
+  // 2 min against a top 100 times larger: the requirement is 1 % of the axis.
+  for (auto& row : r.history.rows) row[col] *= 200.0 / top;
+  const std::vector<RunFigure> figs = run_figures(r, TempUnit::C);
+  const RunFigure* f = lethality(figs);
+  REQUIRE(f != nullptr);
+  CHECK(f->plot.y.log_scale);
+  CHECK(f->plot.y.label == "F-value (min, log scale)");
+  const std::string svg = svg::render_svg(f->plot, true);
+  CHECK(svg.find(">0.01</text>") != std::string::npos);  // decades from a hundredth of the requirement
+  CHECK(svg.find(">100</text>") != std::string::npos);
+  // 2 min against a top of 10 min (20 %): linear, as before.
+  for (auto& row : r.history.rows) row[col] *= 10.0 / 200.0;
+  const std::vector<RunFigure> figs2 = run_figures(r, TempUnit::C);
+  const RunFigure* g = lethality(figs2);
+  REQUIRE(g != nullptr);
+  CHECK_FALSE(g->plot.y.log_scale);
+}
+
+TEST_CASE("issue 16: no caption or label of the example reports names a colour (meaningless in black and white)") {
+  // Whole words only: a plot is read in print and by readers who do not tell colours apart.
+  static const std::regex colour_word("\\b(red|blue|green|purple|orange|grey|gray|yellow|pink|black|magenta|cyan)\\b",
+                                      std::regex::icase);
+  const std::filesystem::path dir = std::filesystem::path(COLDCORE_SOURCE_DIR) / "reports";
+  int files = 0;
+  for (const auto& e : std::filesystem::directory_iterator(dir)) {
+    if (e.path().extension() != ".md" && e.path().extension() != ".svg") continue;
+    ++files;
+    const std::string text = read(e.path());
+    std::smatch m;
+    CHECK_MESSAGE(!std::regex_search(text, m, colour_word), e.path().filename().string() << ": '" << m.str() << "'");
+  }
+  CHECK(files >= 20);
+  CHECK(std::regex_search(std::string("the purple line"), colour_word));  // the check can fail
 }

@@ -65,6 +65,9 @@ struct Box {
 struct Axis {
   std::string label;               ///< with its unit, e.g. "time (min)"
   std::optional<double> min, max;  ///< fixed ends; unset ends follow the data, widened to ticks
+  /// y only: a logarithmic axis in decades (issue 16: a requirement of 2 min on an axis to
+  /// 1,780 min would lie on zero). Values <= 0 are not drawn; min and max stay in data units.
+  bool log_scale = false;
 };
 
 struct LinePlot {
