@@ -70,6 +70,7 @@ RunReport build_probe_report(const io::TimeSeries& log, const ProbeAssessment& p
     VerdictRow v = verdict_row(t);
     if (t.kinetics) {
       const ProbeLethality& pl = pa.lethality.at(lethal_index++);
+      v.general_method_F_min = std::array<double, 3>{pl.F_trapezoid_s / 60.0, pl.F_simpson_s / 60.0, pl.F_linear_s / 60.0};
       v.details.insert(v.details.begin(),
                        "General Method on the log: trapezoid " + shown_down(pl.F_trapezoid_s / 60.0) + " min, Simpson " +
                            shown_down(pl.F_simpson_s / 60.0) + " min, exact on the linear interpolant " +

@@ -128,6 +128,12 @@ void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
       w.end_object();
     }
     if (v.cooling) write_cooling_steps_json(w, *v.cooling);
+    if (v.general_method_F_min) {
+      const auto& g = *v.general_method_F_min;
+      w.key("general_method").begin_object();  // every quantity's key carries its unit
+      w.key("F_trapezoid_min").value(g[0]).key("F_simpson_min").value(g[1]).key("F_exact_linear_min").value(g[2]);
+      w.end_object();
+    }
     w.end_object();
   }
   w.end_array();
@@ -224,6 +230,12 @@ void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
     out << "# verdict values: " << v.name << ": required " << JsonWriter::number(v.required_value) << ", achieved "
         << JsonWriter::number(v.achieved_value) << ", margin " << JsonWriter::number(v.margin_value)
         << ", margin_uncertainty " << JsonWriter::number(v.margin_uncertainty_value) << " " << v.value_unit << "\n";
+  // The probe's three General Method sums, as numbers (min).
+  for (const auto& v : r.verdicts)
+    if (v.general_method_F_min)
+      out << "# general method F (min): " << v.name << ": trapezoid " << csv_number((*v.general_method_F_min)[0])
+          << ", simpson " << csv_number((*v.general_method_F_min)[1]) << ", exact_linear "
+          << csv_number((*v.general_method_F_min)[2]) << "\n";
   // Which end of an h range each target was evaluated at (process/h_ends.hpp), when one was, and
   // every unrecorded interval a target's credit leaves out.
   for (const auto& v : r.verdicts)

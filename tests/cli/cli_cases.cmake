@@ -549,3 +549,8 @@ foreach(fmt text html json)
 endforeach()
 cli_expect(issue16_deviation_no_clock 0 ARGS deviation products/corned-beef-can.toml
            --medium-log products/logs/corned-beef-hold-deviation.csv --lot CB-0412 STDOUT_LACKS "(clock ")
+
+# issue 16: the probe's three General Method sums as numbers, not only in a sentence (the
+# sentence shows them rounded down: 875, 869, 868 min).
+cli_expect(issue16_probe_general_method_json 0 ARGS probe products/logs/kofta-probe.csv --organism listeria-monocytogenes
+           --target-log 6 --format json STDOUT_HAS "\"general_method\": {" "\"F_trapezoid_min\": 875." "\"F_simpson_min\": 869." "\"F_exact_linear_min\": 868.")

@@ -3,6 +3,7 @@
 /// never recompute physics. Temperatures are stored in °C and converted by the writer.
 #include <cstddef>
 #include <iosfwd>
+#include <array>
 #include <optional>
 #include <string>
 #include <vector>
@@ -66,6 +67,9 @@ struct VerdictRow {
     double achieved_value = 0, margin_value = 0;
   };
   std::optional<AtFitBound> at_fit_bound;
+  /// probe: F by the General Method on the log, min: trapezoid, Simpson, exact on the linear
+  /// interpolant (json "general_method": F_trapezoid_min, F_simpson_min, F_exact_linear_min); the verdict uses the smallest.
+  std::optional<std::array<double, 3>> general_method_F_min;
 };
 
 /// What a lethality calculation delivered where no requirement was given: there is no verdict
