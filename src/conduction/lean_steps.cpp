@@ -1,4 +1,4 @@
-// The lean path of the stepping loop (see detail/lean_steps.hpp). Built with AVX2 clones.
+// The lean path of the stepping loop (see detail/stage_run.hpp). Built with AVX2 clones.
 //
 // The run is taken in three passes: a scan that finds how many steps it holds and their start
 // times, a pass that fills their medium, slope and slope change (no dependence between steps, so
@@ -6,7 +6,7 @@
 // small count of mode groups, so the modal kernel is fully unrolled. The ring filter, which does
 // not depend on the modal state, then corrects the run's samples four at a time. Each value is
 // the same expression, in the same order, as in the general step.
-#include "conduction/detail/lean_steps.hpp"
+#include "conduction/detail/stage_run.hpp"
 
 #include <algorithm>
 
@@ -16,7 +16,7 @@ namespace coldcore::detail {
 
 namespace {
 
-/// What the recurrence reads and writes besides LeanRun (one run of n steps, inputs filled).
+/// What the recurrence reads and writes besides the stage (one run of n steps, inputs filled).
 struct LeanPass {
   std::size_t n = 0;
   const double* step_t = nullptr;   // n step starts
@@ -28,17 +28,18 @@ struct LeanPass {
 };
 
 template <std::size_t Groups>
-[[gnu::always_inline]] inline void recurrence(LeanRun& r, const LeanPass& p) {
+[[gnu::always_inline]] inline void recurrence(const StageContext& r, StepPosition& pos, SlopeRing& ring,
+                                              const LeanPass& p) {
   const Engine& eng = *r.eng;
   const Basis& B = *r.basis;
-  StageModel& S = *r.stage_model;
+  StageModel& S = *r.model;
   ModalState& st = *r.st;
   const StepCache& c = *r.cache;
   const std::size_t K = B.lambda.size();
   // a fixed group count unrolls the kernel; 0: as many groups as the padded modes need
   const std::size_t KL = Groups > 0 ? 4 * Groups : K;
   const std::size_t Kp = padded_modes(K);
-  const double origin = S.origin_s, run_dt = r.run_dt;
+  const double origin = S.origin_s, run_dt = ring.run_dt;
   const double full_centre = B.full_centre, q_centre = B.q_centre, q_surface = B.q_surface, q_mean = B.q_mean;
   const double *e_ = c.e.data(), *bg = c.bg.data(), *bl = c.bl.data(), *vs = c.vs.data(), *vm = c.vm.data();
   double* a = st.a.data();
@@ -48,11 +49,11 @@ template <std::size_t Groups>
   bool swapped = false;
   EpochSums sp = st.s_prev, sc = st.s_cur;
   long epoch = st.epoch;
-  int until_checkpoint = r.until_checkpoint;
+  int until_checkpoint = pos.until_checkpoint;
   const int stride = S.stride;
-  long run = r.run;
-  HistorySample e = r.end_s;
-  e.stage = r.stage;
+  long run = ring.run;
+  HistorySample e{};
+  e.stage = r.index;
   double prev_tb = -1.0;  // (no step yet: ta >= origin >= 0 never equals it)
   long prev_ep_b = 0;
   for (std::size_t i = 0; i < p.n; ++i) {
@@ -132,18 +133,18 @@ template <std::size_t Groups>
   st.s_prev = sp;
   st.s_cur = sc;
   st.epoch = epoch;
-  r.until_checkpoint = until_checkpoint;
-  r.run = run;
+  pos.until_checkpoint = until_checkpoint;
+  ring.run = run;
 }
 
 /// Adds the ring filter's left-out-mode correction (the ring filter of simulate) to the surface
 /// and mean of the run's samples: over the last min(run, taps) slope changes at each step,
 /// oldest first, step_ds[i − taps + 1 + from ...]. run0 is the run's length before these steps.
 /// Four outputs at a time once the run is longer than the filter (the same sums as one by one).
-[[gnu::always_inline]] inline void ring_correction(const LeanRun& r, const LeanPass& p, long run0) {
-  const long taps = r.run_taps;
-  const double* gs = r.tab_gs;
-  const double* gm = r.tab_gm;
+[[gnu::always_inline]] inline void ring_correction(const SlopeRing& ring, const LeanPass& p, long run0) {
+  const long taps = ring.taps;
+  const double* gs = ring.gs.data();
+  const double* gm = ring.gm.data();
   const std::size_t ut = static_cast<std::size_t>(taps);
   std::size_t i = 0;
   while (i < p.n) {
@@ -170,17 +171,17 @@ template <std::size_t Groups>
 
 }  // namespace
 
-COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
+COLDCORE_SIMD_CLONES std::size_t lean_steps(const StageContext& r, StepPosition& pos, SlopeRing& ring) {
   const Engine& eng = *r.eng;
-  StageModel& S = *r.stage_model;
+  StageModel& S = *r.model;
   const MediumPoint* P = r.points;
   const std::size_t n_points = r.n_points;
-  const double t_abs = r.t_abs, limit = r.limit, run_dt = r.run_dt;
+  const double t_abs = r.t_abs, limit = r.limit, run_dt = ring.run_dt;
   const double tau_ins = eng.tau_insulated_s, start_s = S.start_s;
   const bool projected = S.projected;
   if (r.cache->dt != run_dt || r.cache->basis != r.basis) eng.fill_cache(*r.basis, run_dt, *r.cache);
-  std::size_t piece = r.piece;
-  while (piece + 1 < n_points && P[piece + 1].time_s <= r.t_local) ++piece;
+  std::size_t piece = pos.piece;
+  while (piece + 1 < n_points && P[piece + 1].time_s <= pos.t_local) ++piece;
   // at most one step per remaining medium piece: room for that many, committed at the end
   const std::size_t max_steps = n_points - 1 - std::min(piece, n_points - 1);
   double* out_t = S.step_t.room(max_steps);
@@ -190,7 +191,7 @@ COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
 
   // 1. the steps of the run: each a whole medium piece of length run_dt
   const std::size_t piece0 = piece;
-  const double t_local0 = r.t_local;
+  const double t_local0 = pos.t_local;
   double t_local = t_local0;
   std::size_t n = 0;
   bool finished = false;
@@ -214,7 +215,7 @@ COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
   // piece's first point)
   const double* piece_slope = r.piece_slope;
   out_slope[0] = piece_slope[piece0];
-  out_ds[0] = out_slope[0] - r.slope;
+  out_ds[0] = out_slope[0] - pos.slope;
   out_tm[0] = P[piece0].temp_C + out_slope[0] * (t_local0 - P[piece0].time_s);
   for (std::size_t i = 1; i < n; ++i) {
     const MediumPoint& q = P[piece0 + i];
@@ -235,41 +236,35 @@ COLDCORE_SIMD_CLONES std::size_t lean_steps(LeanRun& r) {
   pass.step_slope = out_slope;
   pass.step_ds = out_ds;
   pass.out = samples.data() + samples0;
-  const long run0 = r.run;
+  const long run0 = ring.run;
   switch (padded_modes(r.basis->lambda.size()) / 4) {
-    case 1: recurrence<1>(r, pass); break;
-    case 2: recurrence<2>(r, pass); break;
-    case 3: recurrence<3>(r, pass); break;
-    case 4: recurrence<4>(r, pass); break;
-    case 5: recurrence<5>(r, pass); break;
-    case 6: recurrence<6>(r, pass); break;
-    case 7: recurrence<7>(r, pass); break;
-    case 8: recurrence<8>(r, pass); break;
-    default: recurrence<0>(r, pass); break;
+    case 1: recurrence<1>(r, pos, ring, pass); break;
+    case 2: recurrence<2>(r, pos, ring, pass); break;
+    case 3: recurrence<3>(r, pos, ring, pass); break;
+    case 4: recurrence<4>(r, pos, ring, pass); break;
+    case 5: recurrence<5>(r, pos, ring, pass); break;
+    case 6: recurrence<6>(r, pos, ring, pass); break;
+    case 7: recurrence<7>(r, pos, ring, pass); break;
+    case 8: recurrence<8>(r, pos, ring, pass); break;
+    default: recurrence<0>(r, pos, ring, pass); break;
   }
-  ring_correction(r, pass, run0);
-  r.end_s = pass.out[n - 1];
+  ring_correction(ring, pass, run0);
+  pos.end_s = pass.out[n - 1];
   S.step_t.commit(n);
   S.step_tm.commit(n);
   S.step_slope.commit(n);
   S.step_ds.commit(n);
 
-  // the ring of simulate holds the run's last 64 slope changes (at the positions it would have
-  // had, had each step been pushed)
+  // the ring holds the run's last 64 slope changes (at the positions it would have had, had each
+  // step been pushed)
   const std::size_t ring_from = n > 64 ? n - 64 : 0;
-  r.ring_pos = static_cast<int>((static_cast<std::size_t>(r.ring_pos) + ring_from) & 63);
-  for (std::size_t i = ring_from; i < n; ++i) {
-    const int q = r.ring_pos;
-    r.ring_ds[q] = out_ds[i];
-    r.ring2[q] = r.ring2[q + 64] = out_ds[i];
-    r.ring_t[q] = out_t[i];
-    r.ring_pos = (q + 1) & 63;
-  }
-  r.piece = piece;
-  r.t_local = t_local;
-  r.slope = out_slope[n - 1];
-  r.pending_ds = out_ds[n - 1];
-  r.finished = finished;
+  ring.pos = static_cast<int>((static_cast<std::size_t>(ring.pos) + ring_from) & 63);
+  for (std::size_t i = ring_from; i < n; ++i) ring.push(out_t[i], out_ds[i]);
+  pos.piece = piece;
+  pos.t_local = t_local;
+  pos.slope = out_slope[n - 1];
+  pos.pending_ds = out_ds[n - 1];
+  pos.finished = finished;
   return n;
 }
 

@@ -7,6 +7,7 @@
 #include "coldcore/process/assessment.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/deviation_report.hpp"
+#include "coldcore/report/history_notes.hpp"
 #include "deviation_figures.hpp"
 #include "rich_page.hpp"
 
@@ -190,7 +191,10 @@ void disposition_section(RichDoc& d) {
 
 void closing_sections(RichDoc& d, const DeviationResult& r, const DeviationRecordInfo& i) {
   std::vector<std::string> warns = i.warnings;
-  if (r.delivered) warns.insert(warns.end(), r.delivered->history.warnings.begin(), r.delivered->history.warnings.end());
+  if (r.delivered) {
+    const auto engine_notes = history_warnings(r.delivered->history);
+    warns.insert(warns.end(), engine_notes.begin(), engine_notes.end());
+  }
   if (r.probe) warns.insert(warns.end(), r.probe->warnings.begin(), r.probe->warnings.end());
   if (!warns.empty()) {
     d.section_begin("warnings", "Warnings");

@@ -9,6 +9,7 @@
 #include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/solve_report.hpp"
 #include "coldcore/report/verdict_summary.hpp"
+#include "coldcore/report/history_notes.hpp"
 
 namespace coldcore {
 
@@ -219,7 +220,10 @@ void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i
   }
   if (i.conservative) text_conservative(*i.conservative, r, out, u);
   std::vector<std::string> warns = i.warnings;
-  if (r.delivered) warns.insert(warns.end(), r.delivered->history.warnings.begin(), r.delivered->history.warnings.end());
+  if (r.delivered) {
+    const auto engine_notes = history_warnings(r.delivered->history);
+    warns.insert(warns.end(), engine_notes.begin(), engine_notes.end());
+  }
   if (r.probe) warns.insert(warns.end(), r.probe->warnings.begin(), r.probe->warnings.end());
   if (!warns.empty()) {
     out << "\nWARNINGS\n";

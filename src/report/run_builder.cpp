@@ -10,6 +10,7 @@
 #include "coldcore/error.hpp"
 #include "coldcore/model/limits.hpp"
 #include "coldcore/report/cautions.hpp"
+#include "coldcore/report/history_notes.hpp"
 #include "rich_page.hpp"
 
 namespace coldcore {
@@ -165,7 +166,8 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
     for (size_t i = 0; i < r.history.rows.size(); ++i) r.history.rows[i].push_back(lumped[i]);
   }
   r.warnings = file.warnings;
-  r.warnings.insert(r.warnings.end(), history.warnings.begin(), history.warnings.end());
+  const auto engine_notes = history_warnings(history);
+  r.warnings.insert(r.warnings.end(), engine_notes.begin(), engine_notes.end());
   r.assumptions = {
       "Heat moves by conduction only; no convection inside the product, no headspace.",
       "Uniform initial temperature; constant thermal properties as given in the product file.",

@@ -6,6 +6,7 @@
 
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/solve_report.hpp"
+#include "coldcore/report/history_notes.hpp"
 #include "rich_page.hpp"
 #include "run_figures.hpp"
 #include "solve_text.hpp"
@@ -152,7 +153,8 @@ void closing_sections(RichDoc& d, const SolveResult& r, const SolveReportContext
   }
   std::vector<std::string> warns = c.warnings;
   const auto& ev = r.verification.eval;
-  warns.insert(warns.end(), ev.history.warnings.begin(), ev.history.warnings.end());
+  const auto engine_notes = history_warnings(ev.history);
+  warns.insert(warns.end(), engine_notes.begin(), engine_notes.end());
   warns.insert(warns.end(), ev.assessment.warnings.begin(), ev.assessment.warnings.end());
   if (!warns.empty()) {
     d.section_begin("warnings", "Warnings");

@@ -7,6 +7,7 @@
 #include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/solve_report.hpp"
 #include "coldcore/report/verdict_summary.hpp"
+#include "coldcore/report/history_notes.hpp"
 #include "solve_text.hpp"
 
 namespace coldcore {
@@ -37,7 +38,7 @@ void json_check(JsonWriter& w, const SolveResult& r, const Check& c) {
   w.key("targets").begin_array();
   for (const auto& t : c.eval.assessment.targets) write_target_json(w, t);
   w.end_array();
-  w.key("warnings").value(c.eval.history.warnings);
+  w.key("warnings").value(history_warnings(c.eval.history));
   w.end_object();
 }
 
@@ -135,7 +136,8 @@ void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::os
     out << "  driven by: " << cs.driven_by << "\n";
   }
   std::vector<std::string> warns = c.warnings;
-  warns.insert(warns.end(), r.verification.eval.history.warnings.begin(), r.verification.eval.history.warnings.end());
+  const auto engine_notes = history_warnings(r.verification.eval.history);
+  warns.insert(warns.end(), engine_notes.begin(), engine_notes.end());
   warns.insert(warns.end(), r.verification.eval.assessment.warnings.begin(),
                r.verification.eval.assessment.warnings.end());
   if (!warns.empty()) {

@@ -124,7 +124,7 @@ TEST_CASE("cook in hot water then chill in cold air (two h): vs reference to 0.0
   MESSAGE("chill end: engine " << h.stages[1].end_s << " s, reference " << t_ref << " s");
   CHECK(std::abs(h.stages[1].end_s - t_ref) <= 10.0);
   CHECK(h.stages[1].at_end.centre_C == doctest::Approx(10.0).epsilon(1e-6));
-  CHECK(h.warnings.empty());
+  CHECK(h.notes.empty());
 }
 
 TEST_CASE("ramp-hold-step medium: finite cylinder (product modes) vs 2D finite-volume reference to 0.02 K") {

@@ -261,9 +261,14 @@ TEST_CASE("until_centre ends at the crossing; a cap is reported, never silently 
   const auto capped = simulate(p, st);
   CHECK(capped.stages[1].ended_by == StageEndedBy::cap);
   CHECK(capped.stages[1].end_s == doctest::Approx(2400.0 + 1800.0));
-  REQUIRE(capped.warnings.size() == 1);
-  CHECK(capped.warnings[0].find("cap") != std::string::npos);
-  CHECK(capped.warnings[0].find("chill") != std::string::npos);
+  REQUIRE(capped.notes.size() == 1);
+  CHECK(capped.notes[0].kind == StageNoteKind::cap_reached);
+  CHECK(capped.notes[0].stage_number == 2);  // as the file counts stages
+  CHECK(capped.notes[0].stage_name == "chill");
+  CHECK(capped.notes[0].cap_s == 1800.0);
+  CHECK(capped.notes[0].target_C == 10.0);
+  CHECK(capped.notes[0].value_C == capped.stages[1].at_end.centre_C);
+  CHECK(capped.notes[0].value_C > 10.0);
 
   // rising: the cook until the mean reaches 70 C; crossing exact on evaluate()
   std::vector<Stage> s2 = {stage({{0, 85.0}}, 500.0, 0)};
@@ -283,7 +288,10 @@ TEST_CASE("until_centre ends at the crossing; a cap is reported, never silently 
   const auto h3 = simulate(p, s3);
   CHECK(h3.stages[0].ended_by == StageEndedBy::condition);
   CHECK(h3.end_s() == 0.0);
-  CHECK(h3.warnings.size() == 1);
+  REQUIRE(h3.notes.size() == 1);
+  CHECK(h3.notes[0].kind == StageNoteKind::ended_at_start);
+  CHECK(h3.notes[0].stage_number == 1);
+  CHECK(h3.notes[0].value_C == 2.0);
 }
 
 TEST_CASE("samples: boundaries on both sides, breakpoints, and linear interpolation within sample_tol") {
@@ -396,7 +404,8 @@ TEST_CASE("every shape through h = inf, a zero-length stage and a capped until_m
     CHECK(h.stages[0].at_end.centre_C == doctest::Approx(70.0).epsilon(1e-8));
     CHECK(h.stages[1].end_s == h.stages[1].start_s);
     CHECK(h.stages[2].ended_by == StageEndedBy::cap);
-    CHECK(h.warnings.size() == 1);
+    REQUIRE(h.notes.size() == 1);
+    CHECK(h.notes[0].stage_number == 3);
     for (const auto& r : h.stages) {
       if (r.start_s <= 0) continue;
       const double before = h.evaluate(r.start_s - 1e-7).centre_C, after = h.evaluate(r.start_s + 1e-7).centre_C;

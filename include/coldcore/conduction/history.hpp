@@ -56,12 +56,28 @@ struct SampleAllocator : std::allocator<T> {
 };
 using SampleVector = std::vector<HistorySample, SampleAllocator<HistorySample>>;
 
+/// How a stage with an end condition (centre or mean reaches a target) ran, when the report
+/// should say so. Numbers only: the report writes the sentence in the chosen units.
+enum class StageNoteKind {
+  ended_at_start,  ///< the watched value was already at or past the target at the stage start
+  cap_reached,     ///< the target was not reached within the stage's cap; the stage ended there
+};
+struct StageNote {
+  StageNoteKind kind = StageNoteKind::cap_reached;
+  int stage_number = 0;    ///< as the product file counts its stages: from 1
+  std::string stage_name;
+  bool on_mean = false;    ///< the condition watches the mean temperature (else the centre)
+  double target_C = 0;
+  double value_C = 0;      ///< the watched value at the stage start (ended_at_start) or at the cap
+  double cap_s = 0;        ///< the cap (cap_reached)
+};
+
 struct History {
   /// The engine's own sample points, increasing in time, with a sample at every stage boundary
   /// (both sides of a boundary share the boundary time; the later one belongs to the new stage).
   SampleVector samples;
   std::vector<StageRecord> stages;
-  std::vector<std::string> warnings;
+  std::vector<StageNote> notes;
   /// Exact evaluation at any 0 <= t <= end; O(modes). Set by the engine.
   std::function<HistorySample(double time_s)> evaluate;
   /// Temperature (°C) at any 0 <= t <= end and any point, O(modes). Position is dimensionless per
@@ -85,6 +101,10 @@ struct HistoryOptions {
   double sample_tol_K = 0.01;
   /// The crossing time of an until_centre / until_mean end is found to this (s). Default 1e-6 s.
   double crossing_tol_s = 1e-6;
+  /// For tests: every step takes the general path, none the lean path a regular log's run of
+  /// equal short steps takes. The two do the same arithmetic, so the samples must be the same
+  /// bits either way (tests/conduction/history_paths_test.cpp).
+  bool force_general_steps = false;
 };
 
 /// Temperature history of `product` through `stages`, by the exact eigenfunction series of each
