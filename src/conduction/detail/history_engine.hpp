@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "coldcore/conduction/history.hpp"
+#include "conduction/detail/lanes.hpp"
 #include "conduction/detail/modal_basis.hpp"
 
 namespace coldcore::detail {
@@ -178,7 +179,23 @@ inline long Engine::epoch_of(double origin, double t) const {
 inline double Engine::centre_from(const Basis& B, const ModalState& st, const ModalSums& s, double origin, double t,
                                   double tm, double slope) const {
   const long d = epoch_of(origin, t) - st.epoch;
-  if (s.combined && d != 0) return centre_from(B, st, sums(B, st), origin, t, tm, slope);
+  if (s.combined && d != 0) {
+    // The step ends in a later epoch (once per epoch): the memory sums are needed apart. They are
+    // taken in four fixed lanes over the padded modes, as the lean path takes them
+    // (lean_steps.cpp), so that both paths give the same bits (history_paths_test.cpp).
+    ModalSums apart = s;
+    apart.combined = false;
+    Lanes lp = {0, 0, 0, 0}, lc = lp;
+    const std::size_t Kp = padded_modes(B.lambda.size());
+    for (std::size_t k = 0; k < Kp; k += 4) {
+      lp += load4(st.w_prev.data() + k);
+      lc += load4(st.w_cur.data() + k);
+    }
+    apart.w_prev = lane_sum(lp);
+    apart.w_cur = lane_sum(lc);
+    apart.a = s.a + apart.w_prev + apart.w_cur;
+    return centre_from(B, st, apart, origin, t, tm, slope);
+  }
   const bool use_prev = d <= 0, use_cur = d <= 1;
   double corr = 0.0;
   const double tau0 = t - origin;
