@@ -38,17 +38,12 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side, VerdictSummary
   const process::Scenario scenario = io::scenario_of(file);
   const process::Evaluation eval = process::evaluate(scenario, {&lib.organisms, &lib.rules, &lib.cooking});
   const History& history = eval.history;
-  // The stage table shows the h of the scenario whose history is shown (the first target's), as
-  // that history recorded it (no regrouping here: the Evaluation is the one source).
-  io::ProductFile shown = file;
-  for (std::size_t i = 0; i < shown.stages.size() && i < history.stages.size(); ++i)
-    if (!shown.stages[i].h_infinite) shown.stages[i].h_W_m2K = history.stages[i].h_W_m2K;
   const Assessment& assessment = eval.assessment;
   RunReportOptions opts;
   opts.step_s = a.output.step_s;
   opts.date = report_date(a.date);
   opts.version = kVersion;
-  RunReport report = build_run_report(shown, history, opts);
+  RunReport report = build_run_report(scenario, {file.origin, file.sha256_hex, file.warnings}, history, opts);
   // the data libraries the assessment read, with their SHA-256, before the date
   const auto lib_rows = library_provenance(lib);
   const bool dated = !report.provenance.empty() && report.provenance.back().key == "date";

@@ -110,10 +110,16 @@ std::vector<double> output_times(const History& h, double step_s) {
 
 }  // namespace
 
-RunReport build_run_report(const io::ProductFile& file, const History& history, const RunReportOptions& opts) {
+RunReport build_run_report(const Scenario& model, const InputSource& source, const History& history,
+                           const RunReportOptions& opts) {
   if (!(opts.step_s > 0) || !std::isfinite(opts.step_s))
     throw InputError("--step-s = " + fixed(opts.step_s, 3) + ": must be > 0");
-  const Product& p = file.product;
+  const Product& p = model.product;
+  // the stages as they ran: the h of each from its record (a stage with an h range ran at the
+  // end of it that the shown scenario took)
+  std::vector<Stage> ran = model.stages;
+  for (std::size_t i = 0; i < ran.size() && i < history.stages.size(); ++i)
+    if (!ran[i].h_infinite) ran[i].h_W_m2K = history.stages[i].h_W_m2K;
   RunReport r;
   r.verb = "run";
   r.title = "coldcore run: " + p.name;
@@ -127,9 +133,9 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
       {"specific heat cp", fixed(p.properties.specific_heat_J_kgK, 1) + " J/kg·K"},
       {"diffusivity alpha", fixed(alpha * 1e7, 4) + "e-7 m²/s"},
   };
-  for (size_t i = 0; i < history.stages.size() && i < file.stages.size(); ++i) {
+  for (size_t i = 0; i < history.stages.size() && i < ran.size(); ++i) {
     const StageRecord& rec = history.stages[i];
-    const Stage& st = file.stages[i];
+    const Stage& st = ran[i];
     StageRow row;
     row.name = rec.name;
     row.start_s = rec.start_s;
@@ -156,16 +162,16 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
   // When any stage has Bi(V/A) > 0.1, show the lumped shortcut beside the exact centre so the
   // reader sees how far off it would be (a comparison only; never used for a verdict).
   bool lumped_misleads = false;
-  for (const auto& st : file.stages)
+  for (const auto& st : ran)
     lumped_misleads = lumped_misleads || st.h_infinite || biot_volume_to_area(p, st.h_W_m2K) > 0.1;
-  if (lumped_misleads && history.stages.size() == file.stages.size()) {
+  if (lumped_misleads && history.stages.size() == ran.size()) {
     std::vector<double> times;
     for (const auto& row : r.history.rows) times.push_back(row[0]);
-    const std::vector<double> lumped = lumped_history_C(p, volume_to_area_m(p), file.stages, history, times);
+    const std::vector<double> lumped = lumped_history_C(p, volume_to_area_m(p), ran, history, times);
     r.history.columns.push_back({"lumped_centre_C", true});
     for (size_t i = 0; i < r.history.rows.size(); ++i) r.history.rows[i].push_back(lumped[i]);
   }
-  r.warnings = file.warnings;
+  r.warnings = source.warnings;
   const auto engine_notes = history_warnings(history);
   r.warnings.insert(r.warnings.end(), engine_notes.begin(), engine_notes.end());
   r.assumptions = {
@@ -175,7 +181,7 @@ RunReport build_run_report(const io::ProductFile& file, const History& history, 
       "Surface heat-transfer coefficient constant within each stage; medium temperature as scheduled.",
       "The cold spot is the geometric centre (symmetric heating from every face).",
   };
-  r.provenance = {{"tool", "coldcore " + opts.version}, {"input", file.origin}, {"input SHA-256", file.sha256_hex}};
+  r.provenance = {{"tool", "coldcore " + opts.version}, {"input", source.origin}, {"input SHA-256", source.sha256_hex}};
   if (!opts.date.empty()) r.provenance.push_back({"date", opts.date});
   r.cautions = cautions();
   return r;

@@ -8,6 +8,7 @@
 
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/io/product_file.hpp"
+#include "coldcore/io/scenario.hpp"
 #include "coldcore/report/html.hpp"
 #include "coldcore/report/markdown.hpp"
 #include "coldcore/report/run_builder.hpp"
@@ -47,7 +48,7 @@ RunReport report_of(const io::ProductFile& f) {
   RunReportOptions o;
   o.date = "2026-12-01";
   o.version = "test";
-  return build_run_report(f, simulate(f.product, f.stages), o);
+  return build_run_report(io::scenario_of(f), {f.origin, f.sha256_hex, f.warnings}, simulate(f.product, f.stages), o);
 }
 
 }  // namespace

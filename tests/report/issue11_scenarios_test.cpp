@@ -48,7 +48,7 @@ Built build(double step_s) {
   o.step_s = step_s;
   o.date = "2026-12-01";
   o.version = "test";
-  b.report = build_run_report(file, b.eval.history, o);
+  b.report = build_run_report(io::scenario_of(file), {file.origin, file.sha256_hex, file.warnings}, b.eval.history, o);
   std::vector<const History*> history_of(b.eval.assessment.targets.size(), &b.eval.history);
   for (std::size_t t = 0; t < b.eval.target_scenario.size(); ++t)
     history_of[t] = &b.eval.h_scenarios[static_cast<std::size_t>(b.eval.target_scenario[t])].history;

@@ -1,13 +1,14 @@
 #pragma once
-/// Builds the report model of `coldcore run` from the loaded product file and the computed
+/// Builds the report model of `coldcore run` from the model that was evaluated and the computed
 /// history (and, once lethality is assessed, the verdicts). No physics is recomputed here
-/// except sampling the engine's exact evaluation at the output times.
+/// except sampling the engine's exact evaluation at the output times. What ran (each stage's h,
+/// how it ended) is read from the history's StageRecords, never from the file.
 #include <string>
 
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/process/assessment.hpp"
-#include "coldcore/io/product_file.hpp"
 #include "coldcore/model/calibration.hpp"
+#include "coldcore/model/scenario.hpp"
 #include "coldcore/process/inverse.hpp"
 #include "coldcore/report/run_report.hpp"
 
@@ -29,7 +30,17 @@ double biot_volume_to_area(const Product& p, double h_W_m2K);
 /// dominates (Bi = inside / surface resistance; lumped criterion on V/A, REFERENCES 3.2).
 std::string biot_note(const Product& p, const Stage& s);
 
-RunReport build_run_report(const io::ProductFile& file, const History& history, const RunReportOptions& opts);
+/// Where the run's inputs came from (provenance), and what their reader warned about.
+struct InputSource {
+  std::string origin;      ///< the file as given
+  std::string sha256_hex;  ///< of its bytes
+  std::vector<std::string> warnings;
+};
+
+/// The run report of `history`, the history of `model` (its first h scenario where stages take
+/// h ranges: the stage table shows the h each stage ran with, from history.stages).
+RunReport build_run_report(const Scenario& model, const InputSource& source, const History& history,
+                           const RunReportOptions& opts);
 
 /// Adds the assessment: one verdict row per target (with per-stage F shares, cooling-rule steps
 /// and flags as details), a cumulative F_<name>_min column per lethality target sampled at the
