@@ -20,6 +20,7 @@
 #include "coldcore/conduction/modes.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/model/temperature_token.hpp"
+#include "coldcore/number_text.hpp"
 #include "conduction/detail/history_engine.hpp"
 #include "conduction/detail/medium_scan.hpp"
 #include "conduction/detail/stage_run.hpp"
@@ -42,15 +43,8 @@ using detail::Engine;
 using detail::ModalState;
 using detail::StageModel;
 
-std::string fmt(double v) {
-  std::ostringstream s;
-  s.precision(10);
-  s << v;
-  return s.str();
-}
-
 [[noreturn]] void bad(const std::string& key, double v, const std::string& req) {
-  throw InputError("simulate: " + key + " = " + fmt(v) + ": " + req);
+  throw InputError("simulate: " + key + " = " + number_text(v, 10) + ": " + req);
 }
 
 struct AxisSpec {
@@ -254,17 +248,17 @@ History simulate(const Product& product, const std::vector<Stage>& stages, const
   };
   H.evaluate = [ce, end, find_stage](double t) {
     if (!(t >= 0.0 && t <= end * (1 + 1e-12) + 1e-12))
-      throw InputError("History::evaluate: time_s = " + fmt(t) + ": must be in [0, " + fmt(end) + "]");
+      throw InputError("History::evaluate: time_s = " + number_text(t, 10) + ": must be in [0, " + number_text(end, 10) + "]");
     return ce->sample(find_stage(t), std::min(t, end));
   };
   const int naxes = static_cast<int>(axes.size());
   H.temperature_at = [ce, end, find_stage, naxes](double t, std::array<double, 3> pos) {
     if (!(t >= 0.0 && t <= end * (1 + 1e-12) + 1e-12))
-      throw InputError("History::temperature_at: time_s = " + fmt(t) + ": must be in [0, " + fmt(end) + "]");
+      throw InputError("History::temperature_at: time_s = " + number_text(t, 10) + ": must be in [0, " + number_text(end, 10) + "]");
     detail::Point p{};
     for (int a = 0; a < 3; ++a) {
       const double x = std::abs(pos[a]);
-      if (a < naxes && !(x <= 1.0)) throw InputError("History::temperature_at: position[" + std::to_string(a) + "] = " + fmt(pos[a]) + ": must be in [-1, 1]");
+      if (a < naxes && !(x <= 1.0)) throw InputError("History::temperature_at: position[" + std::to_string(a) + "] = " + number_text(pos[a], 10) + ": must be in [-1, 1]");
       p[a].x = a < naxes ? x : 0.0;
     }
     return ce->profile(find_stage(t), std::min(t, end), p);

@@ -5,19 +5,13 @@
 
 #include "coldcore/conduction/modes.hpp"
 #include "coldcore/error.hpp"
+#include "coldcore/number_text.hpp"
 
 namespace coldcore {
 namespace {
 
-std::string fmt(double v, int precision = 17) {
-  std::ostringstream s;
-  s.precision(precision);
-  s << v;
-  return s.str();
-}
-
 void require(bool ok, const char* where, const char* key, double v, const char* req) {
-  if (!ok) throw InputError(std::string(where) + ": " + key + " = " + fmt(v) + ": " + req);
+  if (!ok) throw InputError(std::string(where) + ": " + key + " = " + number_text(v, 17) + ": " + req);
 }
 
 }  // namespace
@@ -74,7 +68,7 @@ std::string lumped_warning(Geometry g, double biot) {
   if (bc <= kLumpedBiotLimit) return {};
   const char* lc = g == Geometry::slab ? "L for a slab" : g == Geometry::cylinder ? "R/2 for a long cylinder"
                                                                                     : "R/3 for a sphere";
-  return "lumped capacitance with Bi = " + fmt(bc, 3) + " (Lc = V/A = " + lc +
+  return "lumped capacitance with Bi = " + number_text(bc, 3) + " (Lc = V/A = " + lc +
          ") > 0.1: the product is not at a uniform temperature; the centre lags the lumped value, "
          "use the exact series";
 }

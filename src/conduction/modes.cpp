@@ -13,18 +13,12 @@
 #include <string>
 
 #include "coldcore/error.hpp"
+#include "coldcore/number_text.hpp"
 
 namespace coldcore {
 namespace {
 
 constexpr double kPi = boost::math::constants::pi<double>();
-
-std::string fmt(double v) {
-  std::ostringstream s;
-  s.precision(17);
-  s << v;
-  return s.str();
-}
 
 // cos δ − sin δ/δ without cancellation at small δ (the sphere's first root at small Bi sits at
 // δ ≈ √(3 Bi), where both terms are ≈ 1 and their difference ≈ −δ²/3).
@@ -52,14 +46,14 @@ double solve_bracketed(F f, double lo, double hi, const char* what, int n, doubl
   if (flo == 0) return lo;
   if (fhi == 0) return hi;
   if ((flo < 0) == (fhi < 0)) {
-    throw NotConverged(std::string(what) + ": n = " + std::to_string(n) + ", biot = " + fmt(biot) +
-                       ": root not bracketed in [" + fmt(lo) + ", " + fmt(hi) + "]");
+    throw NotConverged(std::string(what) + ": n = " + std::to_string(n) + ", biot = " + number_text(biot, 17) +
+                       ": root not bracketed in [" + number_text(lo, 17) + ", " + number_text(hi, 17) + "]");
   }
   std::uintmax_t iters = 200;
   boost::math::tools::eps_tolerance<double> tol(std::numeric_limits<double>::digits - 2);
   auto r = boost::math::tools::toms748_solve(f, lo, hi, flo, fhi, tol, iters);
   if (iters >= 200) {
-    throw NotConverged(std::string(what) + ": n = " + std::to_string(n) + ", biot = " + fmt(biot) +
+    throw NotConverged(std::string(what) + ": n = " + std::to_string(n) + ", biot = " + number_text(biot, 17) +
                        ": toms748 did not converge in 200 iterations");
   }
   return 0.5 * (r.first + r.second);
@@ -96,7 +90,7 @@ void require_n(int n, const char* where) {
 
 void require_zeta(double zeta, const char* where) {
   if (!(zeta >= 0) || !std::isfinite(zeta))
-    throw InputError(std::string(where) + ": zeta = " + fmt(zeta) + ": must be finite and >= 0");
+    throw InputError(std::string(where) + ": zeta = " + number_text(zeta, 17) + ": must be finite and >= 0");
 }
 
 // Above this Bi the root is ζ∞·Bi/(Bi + 1) to within O((ζ/Bi)²) relative (< 2e-10·ε for n <= 4000):
@@ -259,7 +253,7 @@ ModeParts parts(Geometry g, double biot, double zeta, const char* where) {
 
 void require_biot(double biot, const char* where) {
   if (biot == 0 || (biot >= kMinPositiveBiot && biot <= kInfiniteBiot)) return;
-  throw InputError(std::string(where) + ": biot = " + fmt(biot) + ": must be 0 or in [1e-06, inf]");
+  throw InputError(std::string(where) + ": biot = " + number_text(biot, 17) + ": must be 0 or in [1e-06, inf]");
 }
 
 int geometry_exponent(Geometry g) {

@@ -8,19 +8,13 @@
 #include "conduction/detail/numeric_march.hpp"
 #include "coldcore/conduction/numeric.hpp"
 #include "coldcore/error.hpp"
+#include "coldcore/number_text.hpp"
 
 namespace coldcore {
 namespace {
 
-std::string fmt(double v) {
-  std::ostringstream s;
-  s.precision(10);
-  s << v;
-  return s.str();
-}
-
 [[noreturn]] void bad(const std::string& key, double value, const std::string& rule) {
-  throw InputError("numeric: " + key + " = " + fmt(value) + ": " + rule);
+  throw InputError("numeric: " + key + " = " + number_text(value, 10) + ": " + rule);
 }
 
 void validate(const NumericProblem& p, const std::vector<double>& times, const NumericOptions& o) {
@@ -56,7 +50,7 @@ void validate(const NumericProblem& p, const std::vector<double>& times, const N
   for (std::size_t i = 0; i < times.size(); ++i)
     if (!(times[i] >= 0 && times[i] <= total))
       bad("output_times_s[" + std::to_string(i) + "]", times[i],
-          "must be within 0 and the total duration " + fmt(total) + " s");
+          "must be within 0 and the total duration " + number_text(total, 10) + " s");
   if (!(o.tol_K > 0)) bad("options.tol_K", o.tol_K, "must be > 0");
   if (o.base_cells < 2) bad("options.base_cells", o.base_cells, "must be >= 2");
   if (!(o.base_fourier_step > 0)) bad("options.base_fourier_step", o.base_fourier_step, "must be > 0");
@@ -168,9 +162,9 @@ NumericResult solve_numeric(const NumericProblem& problem, const std::vector<dou
     if (level >= 2 && estimate <= options.tol_K) return finish(std::move(fine), cells, estimate);
     coarse = std::move(fine);
   }
-  throw NotConverged("numeric: self-check error estimate = " + fmt(estimate) + " K at " +
+  throw NotConverged("numeric: self-check error estimate = " + number_text(estimate, 10) + " K at " +
                      std::to_string(options.base_cells << options.max_level) +
-                     " cells: above tol_K = " + fmt(options.tol_K));
+                     " cells: above tol_K = " + number_text(options.tol_K, 10));
 }
 
 }  // namespace coldcore

@@ -7,21 +7,15 @@
 
 #include "conduction/detail/numeric_march.hpp"
 #include "coldcore/error.hpp"
+#include "coldcore/number_text.hpp"
 
 namespace coldcore::detail {
 namespace {
 
-std::string fmt(double v) {
-  std::ostringstream s;
-  s.precision(10);
-  s << v;
-  return s.str();
-}
-
 double checked(double value, const char* what, double temp_C) {
   if (!(std::isfinite(value) && value > 0.0))
-    throw InputError("numeric: " + std::string(what) + "(T = " + fmt(temp_C) +
-                     " °C) = " + fmt(value) + ": must be finite and > 0");
+    throw InputError("numeric: " + std::string(what) + "(T = " + number_text(temp_C, 10) +
+                     " °C) = " + number_text(value, 10) + ": must be finite and > 0");
   return value;
 }
 
@@ -111,7 +105,6 @@ double volume_mean(const Grid& grid, const std::vector<double>& T) {
   return s / v;
 }
 
-
 /// The equations of one time step in energy form (phase change).
 struct StepEquations {
   const Grid& grid;
@@ -163,8 +156,8 @@ void enthalpy_solve(const StepEquations& e, std::vector<double>& T, std::vector<
         const double h_pred = H[i] + C[i] * (d[i] - T[i]);
         const double t_mapped = e.mat.temperature_from_enthalpy_C(h_pred);
         if (!std::isfinite(t_mapped))
-          throw InputError("numeric: temperature_from_enthalpy_C(H = " + fmt(h_pred) + ") = " +
-                           fmt(t_mapped) + ": must be finite");
+          throw InputError("numeric: temperature_from_enthalpy_C(H = " + number_text(h_pred, 10) + ") = " +
+                           number_text(t_mapped, 10) + ": must be finite");
         // Safeguard: take the smaller of the two moves (both point the same way, H being
         // monotone). Mapping back through T(H) overshoots when a node leaves the latent band
         // (the capacity drops along the way) and the linear prediction overshoots when it
@@ -182,9 +175,9 @@ void enthalpy_solve(const StepEquations& e, std::vector<double>& T, std::vector<
     }
     if (change <= options.picard_tol_K) return;
     if (it >= options.enthalpy_max_iter)
-      throw NotConverged("numeric: enthalpy iteration at t = " + fmt(time_s) + " s changed " +
-                         fmt(change) + " K after " + std::to_string(it) +
-                         " iterations: above picard_tol_K = " + fmt(options.picard_tol_K));
+      throw NotConverged("numeric: enthalpy iteration at t = " + number_text(time_s, 10) + " s changed " +
+                         number_text(change, 10) + " K after " + std::to_string(it) +
+                         " iterations: above picard_tol_K = " + number_text(options.picard_tol_K, 10));
   }
 }
 
@@ -310,9 +303,9 @@ LevelSolution march_level(const NumericProblem& problem, const std::vector<BaseS
             ++it;
             if (change <= options.picard_tol_K) break;
             if (it >= options.picard_max_iter)
-              throw NotConverged("numeric: Picard iteration at t = " + fmt(tb) + " s changed " +
-                                 fmt(change) + " K after " + std::to_string(it) +
-                                 " iterations: above picard_tol_K = " + fmt(options.picard_tol_K));
+              throw NotConverged("numeric: Picard iteration at t = " + number_text(tb, 10) + " s changed " +
+                                 number_text(change, 10) + " K after " + std::to_string(it) +
+                                 " iterations: above picard_tol_K = " + number_text(options.picard_tol_K, 10));
           }
         }
         T.swap(T_iter);

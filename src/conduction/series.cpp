@@ -12,6 +12,7 @@
 #include <string>
 
 #include "coldcore/error.hpp"
+#include "coldcore/number_text.hpp"
 #include "conduction/detail/special.hpp"
 
 namespace coldcore {
@@ -25,24 +26,17 @@ constexpr double kCylinderCoeffBound = 2.6;
 // Landau (2000), J. London Math. Soc. 61: |J_ν(x)| <= 0.7858 x^(−1/3) for all ν > 0, x > 0.
 constexpr double kLandauC = 0.7858;
 
-std::string fmt(double v) {
-  std::ostringstream s;
-  s.precision(17);
-  s << v;
-  return s.str();
-}
-
 void require_inputs(double biot, double fourier, double x, const char* where, bool check_x) {
   require_biot(biot, where);
   if (!(fourier >= 0) || !std::isfinite(fourier))
-    throw InputError(std::string(where) + ": fourier = " + fmt(fourier) + ": must be finite and >= 0");
+    throw InputError(std::string(where) + ": fourier = " + number_text(fourier, 17) + ": must be finite and >= 0");
   if (check_x && !(x >= 0 && x <= 1))
-    throw InputError(std::string(where) + ": x = " + fmt(x) + ": must be in [0, 1]");
+    throw InputError(std::string(where) + ": x = " + number_text(x, 17) + ": must be in [0, 1]");
 }
 
 void require_tol(const SeriesOptions& o, const char* where) {
   if (!(o.tol > 0) || !std::isfinite(o.tol))
-    throw InputError(std::string(where) + ": tol = " + fmt(o.tol) + ": must be > 0");
+    throw InputError(std::string(where) + ": tol = " + number_text(o.tol, 17) + ": must be > 0");
   if (o.max_terms < 1)
     throw InputError(std::string(where) + ": max_terms = " + std::to_string(o.max_terms) + ": must be >= 1");
 }
@@ -90,8 +84,8 @@ StepResponse finish_series(Geometry g, const std::vector<Mode>& m, int count, do
   const Sum s = sum_modes(g, m, count, fourier, x);
   const double err = series_tail_bound(g, fourier, x, count) + 256 * kEps * (s.abs_sum + 1);
   if (!(err <= tol))
-    throw NotConverged(std::string(where) + ": fourier = " + fmt(fourier) + ": error bound " + fmt(err) +
-                       " exceeds tol " + fmt(tol) + " after " + std::to_string(count) + " terms");
+    throw NotConverged(std::string(where) + ": fourier = " + number_text(fourier, 17) + ": error bound " + number_text(err, 17) +
+                       " exceeds tol " + number_text(tol, 17) + " after " + std::to_string(count) + " terms");
   return {s.value, SeriesMethod::series, count, err};
 }
 
@@ -196,14 +190,14 @@ StepResponse short_time_point(Geometry g, double biot, double fourier, double x,
     theta = 1 + sphere_z(biot, fourier, d) / x;
     err = far_side_bound(biot, fourier, 8) + 1e-13;
   } else {
-    throw NotConverged(std::string(where) + "(" + std::string(to_string(g)) + "): fourier = " + fmt(fourier) +
-                       ", x = " + fmt(x) + ": the series needs more than max_terms = " +
+    throw NotConverged(std::string(where) + "(" + std::string(to_string(g)) + "): fourier = " + number_text(fourier, 17) +
+                       ", x = " + number_text(x, 17) + ": the series needs more than max_terms = " +
                        std::to_string(max_terms) +
                        " terms and no short-time form covers this point; raise max_terms or use the numeric solver");
   }
   if (!(err <= tol))
-    throw NotConverged(std::string(where) + ": fourier = " + fmt(fourier) + ": short-time error bound " +
-                       fmt(err) + " exceeds tol " + fmt(tol));
+    throw NotConverged(std::string(where) + ": fourier = " + number_text(fourier, 17) + ": short-time error bound " +
+                       number_text(err, 17) + " exceeds tol " + number_text(tol, 17));
   return {theta, SeriesMethod::short_time, 0, err};
 }
 
@@ -217,14 +211,14 @@ StepResponse short_time_mean(Geometry g, double biot, double fourier, double tol
     theta = 1 - sphere_uptake(biot, fourier);
     err = far_side_bound(biot, fourier, 24) + 1e-13;
   } else {
-    throw NotConverged(std::string(where) + "(cylinder): fourier = " + fmt(fourier) +
+    throw NotConverged(std::string(where) + "(cylinder): fourier = " + number_text(fourier, 17) +
                        ": the series needs more than max_terms = " + std::to_string(max_terms) +
                        " terms and no short-time form covers the cylinder mean; raise max_terms or use the "
                        "numeric solver");
   }
   if (!(err <= tol))
-    throw NotConverged(std::string(where) + ": fourier = " + fmt(fourier) + ": short-time error bound " +
-                       fmt(err) + " exceeds tol " + fmt(tol));
+    throw NotConverged(std::string(where) + ": fourier = " + number_text(fourier, 17) + ": short-time error bound " +
+                       number_text(err, 17) + " exceeds tol " + number_text(tol, 17));
   return {theta, SeriesMethod::short_time, 0, err};
 }
 
@@ -285,7 +279,7 @@ int series_terms_needed(Geometry g, double fourier, double x, double tail_tol, i
 
 StepResponse step_response(Geometry g, double biot, double fourier, double x, const SeriesOptions& opts) {
   if (std::isnan(x) || x < 0 || x > 1)
-    throw InputError("step_response: x = " + fmt(x) + ": must be in [0, 1]");
+    throw InputError("step_response: x = " + number_text(x, 17) + ": must be in [0, 1]");
   return evaluate(g, biot, fourier, x, opts, "step_response");
 }
 
@@ -295,27 +289,27 @@ StepResponse mean_step_response(Geometry g, double biot, double fourier, const S
 
 StepResponse step_response(Geometry g, const std::vector<Mode>& m, double fourier, double x, double tol) {
   if (std::isnan(x) || x < 0 || x > 1)
-    throw InputError("step_response: x = " + fmt(x) + ": must be in [0, 1]");
+    throw InputError("step_response: x = " + number_text(x, 17) + ": must be in [0, 1]");
   if (!(fourier >= 0) || !std::isfinite(fourier))
-    throw InputError("step_response: fourier = " + fmt(fourier) + ": must be finite and >= 0");
+    throw InputError("step_response: fourier = " + number_text(fourier, 17) + ": must be finite and >= 0");
   if (fourier == 0) return {1.0, SeriesMethod::series, 0, 0.0};
   const int count = static_cast<int>(m.size());
   const int n = count == 0 ? -1 : series_terms_needed(g, fourier, x, tol / 2, count);
   if (n < 0)
-    throw NotConverged("step_response: fourier = " + fmt(fourier) + ": " + std::to_string(count) +
-                       " modes are not enough for tol " + fmt(tol));
+    throw NotConverged("step_response: fourier = " + number_text(fourier, 17) + ": " + std::to_string(count) +
+                       " modes are not enough for tol " + number_text(tol, 17));
   return finish_series(g, m, n, fourier, x, tol, "step_response");
 }
 
 StepResponse mean_step_response(Geometry g, const std::vector<Mode>& m, double fourier, double tol) {
   if (!(fourier >= 0) || !std::isfinite(fourier))
-    throw InputError("mean_step_response: fourier = " + fmt(fourier) + ": must be finite and >= 0");
+    throw InputError("mean_step_response: fourier = " + number_text(fourier, 17) + ": must be finite and >= 0");
   if (fourier == 0) return {1.0, SeriesMethod::series, 0, 0.0};
   const int count = static_cast<int>(m.size());
   const int n = count == 0 ? -1 : series_terms_needed(g, fourier, -1.0, tol / 2, count);
   if (n < 0)
-    throw NotConverged("mean_step_response: fourier = " + fmt(fourier) + ": " + std::to_string(count) +
-                       " modes are not enough for tol " + fmt(tol));
+    throw NotConverged("mean_step_response: fourier = " + number_text(fourier, 17) + ": " + std::to_string(count) +
+                       " modes are not enough for tol " + number_text(tol, 17));
   return finish_series(g, m, n, fourier, -1.0, tol, "mean_step_response");
 }
 
@@ -373,7 +367,7 @@ namespace {
 double position_fraction(double offset_m, double half_m, const char* where, const char* key) {
   const double x = std::abs(offset_m) / half_m;
   if (!(x <= 1 + 1e-12))
-    throw InputError(std::string(where) + ": " + key + " = " + fmt(offset_m) + ": must be within +-" + fmt(half_m) +
+    throw InputError(std::string(where) + ": " + key + " = " + number_text(offset_m, 17) + ": must be within +-" + number_text(half_m, 17) +
                      " (inside the product)");
   return std::min(x, 1.0);
 }
@@ -386,7 +380,7 @@ StepResponse finite_cylinder_point_theta(double diameter_m, double length_m, dou
   const double r = diameter_m / 2, hl = length_m / 2;
   const double bi_r = biot_number(h_W_m2K, r, k_W_mK), bi_h = biot_number(h_W_m2K, hl, k_W_mK);
   const double fo_r = fourier_number(alpha_m2_s, time_s, r), fo_h = fourier_number(alpha_m2_s, time_s, hl);
-  if (r_m < 0) throw InputError("finite_cylinder_point_theta: r_m = " + fmt(r_m) + ": must be >= 0");
+  if (r_m < 0) throw InputError("finite_cylinder_point_theta: r_m = " + number_text(r_m, 17) + ": must be >= 0");
   return finite_cylinder_step_response(bi_r, fo_r, position_fraction(r_m, r, "finite_cylinder_point_theta", "r_m"),
                                        bi_h, fo_h, position_fraction(z_m, hl, "finite_cylinder_point_theta", "z_m"),
                                        opts);

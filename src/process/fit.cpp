@@ -84,23 +84,6 @@ struct Layout {
   double alpha = 0;              ///< when not free
 };
 
-/// A stage heats when its highest medium point is not below the lowest of the stage before it
-/// (the first: not below the product's initial temperature); the rule of h_ends.hpp.
-std::vector<bool> heating_stages(const std::vector<Stage>& stages, double initial_C) {
-  std::vector<bool> out;
-  double before = initial_C;
-  for (const Stage& s : stages) {
-    double hi = -INFINITY, lo = INFINITY;
-    for (const MediumPoint& p : s.medium.points) {
-      hi = std::max(hi, p.temp_C);
-      lo = std::min(lo, p.temp_C);
-    }
-    out.push_back(hi >= before);
-    before = lo;
-  }
-  return out;
-}
-
 std::vector<FittedH> stage_groups(const std::vector<Stage>& stages, const std::vector<bool>& heats) {
   std::vector<FittedH> groups;
   std::map<std::pair<double, bool>, int> by_h;

@@ -13,17 +13,6 @@ namespace {
 using detail::is_lethality;
 using detail::num;
 
-double medium_min(const Stage& s) {
-  double m = 1e300;
-  for (const auto& p : s.medium.points) m = std::min(m, p.temp_C);
-  return m;
-}
-double medium_max(const Stage& s) {
-  double m = -1e300;
-  for (const auto& p : s.medium.points) m = std::max(m, p.temp_C);
-  return m;
-}
-
 bool credits(const Target& t, const std::string& stage) {
   return t.stages.empty() || std::find(t.stages.begin(), t.stages.end(), stage) != t.stages.end();
 }
@@ -73,8 +62,7 @@ bool same(const std::vector<HChoice>& a, const std::vector<HChoice>& b) {
 }  // namespace
 
 bool heating_stage(const Scenario& s, std::size_t i) {
-  const double before = i == 0 ? s.product.initial_C : medium_min(s.stages[i - 1]);
-  return medium_max(s.stages[i]) >= before;
+  return stage_heats(s.stages[i], i == 0 ? s.product.initial_C : s.stages[i - 1].medium.lowest_C());
 }
 
 std::vector<HChoice> h_choices_for(const Scenario& s, int t) {

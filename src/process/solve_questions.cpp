@@ -31,16 +31,10 @@ std::string shortfalls(const Evaluation& e, const std::vector<int>& considered) 
   return out;
 }
 
-double max_medium_C(const Stage& st) {
-  double m = -1e300;
-  for (const auto& p : st.medium.points) m = std::max(m, p.temp_C);
-  return m;
-}
-
 /// Plain-words physical reason a stage cannot deliver a target however long it lasts.
 std::string physical_reason(const Scenario& s, const Evaluation& at_bound, int stage, const std::vector<int>& considered) {
   std::string why;
-  const double tmax = max_medium_C(s.stages[static_cast<std::size_t>(stage)]);
+  const double tmax = s.stages[static_cast<std::size_t>(stage)].medium.highest_C();
   for (int i : considered) {
     const Target& t = s.targets[static_cast<std::size_t>(i)];
     const TargetResult& r = at_bound.assessment.targets[static_cast<std::size_t>(i)];
@@ -246,11 +240,7 @@ SolveResult chill_time(const Scenario& s, const Libraries& libs, const SolveOpti
     std::string why = "the " + point + " does not fall to " + temp_token(end_C, 4) + " within " +
                       num(o.max_hold_s / 3600.0) + " h of stage \"" + stg.name + "\" (it is at " +
                       temp_token(final_C, 4) + " then)";
-    const double medium_min = [&] {
-      double m = 1e300;
-      for (const auto& p : stg.medium.points) m = std::min(m, p.temp_C);
-      return m;
-    }();
+    const double medium_min = stg.medium.lowest_C();
     if (medium_min >= end_C)
       why += "; the medium (at least " + temp_token(medium_min, 4) + ") is not below the end temperature, so it never can";
     throw NoSolution(why);
@@ -395,7 +385,7 @@ SolveResult min_medium(const Scenario& s, const Libraries& libs, const SolveOpti
   r.stage = s.stages[k].name;
   r.quantity = "medium";
   r.unit = "C";
-  r.nominal = max_medium_C(s.stages[k]);
+  r.nominal = s.stages[k].medium.highest_C();
   if (s.stages[k].medium.points.size() > 1)
     r.assumptions.push_back("stage \"" + r.stage + "\" has a medium profile in the file; for this question it is "
                             "replaced by a constant medium (nominal shown is the profile's highest point)");

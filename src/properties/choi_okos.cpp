@@ -5,6 +5,7 @@
 #include <string>
 
 #include "coldcore/error.hpp"
+#include "coldcore/number_text.hpp"
 #include "coldcore/properties/composition.hpp"
 
 namespace coldcore {
@@ -51,12 +52,6 @@ const ComponentFit& fit_of(FoodComponent c) {
   return water_fit;  // unreachable: every enumerator is handled above
 }
 
-std::string fmt(double v) {
-  std::ostringstream s;
-  s << v;
-  return s.str();
-}
-
 }  // namespace
 
 std::string_view to_string(FoodComponent c) {
@@ -74,7 +69,7 @@ std::string_view to_string(FoodComponent c) {
 
 ThermalProperties choi_okos_component(FoodComponent c, double temp_C, std::string_view origin) {
   if (!(temp_C >= choi_okos_min_C && temp_C <= choi_okos_max_C))
-    throw InputError(std::string(origin) + ": temp_C = " + fmt(temp_C) +
+    throw InputError(std::string(origin) + ": temp_C = " + number_text(temp_C, 6) +
                      ": must be within -40 to 150 °C (Choi–Okos validity range)");
   const ComponentFit& f = fit_of(c);
   ThermalProperties p;

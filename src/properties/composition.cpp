@@ -4,21 +4,16 @@
 #include <string>
 
 #include "coldcore/error.hpp"
+#include "coldcore/number_text.hpp"
 #include "coldcore/properties/composition.hpp"
 #include "properties/detail/mixing.hpp"
 
 namespace coldcore {
 namespace {
 
-std::string fmt(double v) {
-  std::ostringstream s;
-  s << v;
-  return s.str();
-}
-
 void check_fraction(double x, const char* key, std::string_view origin) {
   if (!(std::isfinite(x) && x >= 0.0 && x <= 1.0))
-    throw InputError(std::string(origin) + ": composition." + key + " = " + fmt(x) +
+    throw InputError(std::string(origin) + ": composition." + key + " = " + number_text(x, 6) +
                      ": must be within 0 and 1");
 }
 
@@ -28,7 +23,7 @@ void check_mixture_temperature(double temp_C, std::string_view origin) {
                           ? ": must be within 0 to 150 °C (below 0 °C the food may be partly "
                             "frozen; no ice-fraction model is implemented)"
                           : ": must be within 0 to 150 °C (unfrozen food, Choi–Okos validity range)";
-    throw InputError(std::string(origin) + ": temp_C = " + fmt(temp_C) + why);
+    throw InputError(std::string(origin) + ": temp_C = " + number_text(temp_C, 6) + why);
   }
 }
 
@@ -43,7 +38,7 @@ void validate_composition(const Composition& c, std::string_view origin) {
   check_fraction(c.ash, "ash", origin);
   const double s = c.sum();
   if (!(std::fabs(s - 1.0) <= composition_sum_tolerance))
-    throw InputError(std::string(origin) + ": composition sum = " + fmt(s) +
+    throw InputError(std::string(origin) + ": composition sum = " + number_text(s, 6) +
                      ": must be 1 within 0.005");
 }
 
@@ -83,13 +78,13 @@ std::vector<PropertyRow> composition_table(const Composition& c, double from_C, 
   check_mixture_temperature(from_C, origin);
   check_mixture_temperature(to_C, origin);
   if (!(to_C >= from_C))
-    throw InputError(std::string(origin) + ": to_C = " + fmt(to_C) + ": must be >= from_C (" +
-                     fmt(from_C) + ")");
+    throw InputError(std::string(origin) + ": to_C = " + number_text(to_C, 6) + ": must be >= from_C (" +
+                     number_text(from_C, 6) + ")");
   if (!(std::isfinite(step_C) && step_C > 0.0))
-    throw InputError(std::string(origin) + ": step_C = " + fmt(step_C) + ": must be > 0");
+    throw InputError(std::string(origin) + ": step_C = " + number_text(step_C, 6) + ": must be > 0");
   const double n_steps = std::ceil((to_C - from_C) / step_C - 1e-9);
   if (n_steps > 10000)
-    throw InputError(std::string(origin) + ": step_C = " + fmt(step_C) +
+    throw InputError(std::string(origin) + ": step_C = " + number_text(step_C, 6) +
                      ": gives more than 10001 rows; use a larger step");
   std::vector<PropertyRow> rows;
   const int n = static_cast<int>(n_steps);

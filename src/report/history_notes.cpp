@@ -1,19 +1,9 @@
 #include "coldcore/report/history_notes.hpp"
 
-#include <sstream>
-
 #include "coldcore/model/temperature_token.hpp"
+#include "coldcore/number_text.hpp"
 
 namespace coldcore {
-
-namespace {
-std::string seconds_text(double s) {
-  std::ostringstream o;
-  o.precision(10);
-  o << s;
-  return o.str();
-}
-}  // namespace
 
 std::string stage_note_text(const StageNote& n) {
   const std::string watched = n.on_mean ? "mean" : "centre";
@@ -24,7 +14,7 @@ std::string stage_note_text(const StageNote& n) {
              " at the stage start; the stage ends at once";
     case StageNoteKind::cap_reached:
       return stage + watched + " did not reach " + temp_token(n.target_C) + " within the cap of " +
-             seconds_text(n.cap_s) + " s; stage ended at the cap with the " + watched + " at " + temp_token(n.value_C);
+             number_text(n.cap_s, 10) + " s; stage ended at the cap with the " + watched + " at " + temp_token(n.value_C);
   }
   return stage;
 }

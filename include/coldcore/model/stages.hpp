@@ -20,6 +20,8 @@ struct MediumProfile {
   std::vector<MediumPoint> points;
   std::string description;       ///< "constant", "points", or "log <file> (sha256 ...)"
   double at(double time_s) const;  ///< REQUIRES: !points.empty()
+  double lowest_C() const;         ///< lowest point; REQUIRES: !points.empty()
+  double highest_C() const;        ///< highest point; REQUIRES: !points.empty()
 };
 
 enum class StageEndKind {
@@ -46,5 +48,13 @@ struct Stage {
   bool h_infinite = false;     ///< true: surface held at the medium temperature (Bi = ∞)
   StageEnd end;
 };
+
+/// Stage direction, the one rule every verb uses: a stage HEATS when its highest medium point is
+/// not below the lowest medium point of the stage before it (the first stage: not below the
+/// product's initial temperature); otherwise it COOLS. A rule on the schedule alone, so it needs
+/// no simulation. `before_C`: that lowest point, or the initial temperature.
+bool stage_heats(const Stage& stage, double before_C);
+/// stage_heats of every stage in turn, the first against `initial_C`.
+std::vector<bool> heating_stages(const std::vector<Stage>& stages, double initial_C);
 
 }  // namespace coldcore

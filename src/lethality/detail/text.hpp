@@ -1,16 +1,12 @@
 #pragma once
 // Small text helpers shared by the lethality, cooling and assessment sources (private).
-#include <cstdio>
 #include <string>
-#include <string_view>
+
+#include "coldcore/number_text.hpp"
 
 namespace coldcore::detail {
 
-/// Shortest faithful-enough rendering for messages: %.10g.
-inline std::string num(double v) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, "%.10g", v);
-  return buf;
-}
+/// A number in a message: coldcore::number_text with 10 significant digits.
+inline std::string num(double v) { return number_text(v, 10); }
 
 }  // namespace coldcore::detail
