@@ -53,6 +53,8 @@ std::string scenario_heading(const ScenarioView& v);
 
 /// "Reading this report" in plain words, one paragraph per string.
 std::vector<std::string> reading_paragraphs(const RunReport& r, TempUnit u);
+/// A stage's Biot number for the tables and the reading paragraphs ("∞ (...)" at h = ∞).
+std::string biot_text(const StageRow& s);
 
 using TextTable = std::vector<std::vector<std::string>>;  // first row is the header
 TextTable stage_table(const RunReport& r, TempUnit u);
