@@ -66,7 +66,7 @@ bool same_bits(const HistorySample& a, const HistorySample& b) {
 
 }  // namespace
 
-TEST_CASE("lean and general step paths give the same bits (1 s logs, a projection, every shape)") {
+TEST_CASE("lean and general step paths give the same bits (1 s logs / a projection / every shape)") {
   // cook through a logged oven, then a logged chill at another h (projection between stages)
   const std::vector<Stage> stages = {logged_stage("cook", 60.0, wobbly_log(95.0, 4.0, 1200)),
                                      logged_stage("chill", 250.0, wobbly_log(2.0, 1.5, 900))};

@@ -250,7 +250,7 @@ TEST_CASE("projection onto the modes of a new h reproduces the profile") {
   }
 }
 
-TEST_CASE("until_centre ends at the crossing; a cap is reported, never silently accepted") {
+TEST_CASE("until_centre ends at the crossing - a cap is reported / never silently accepted") {
   auto p = body(Shape::sphere);
   std::vector<Stage> st = {stage({{0, 85.0}}, 500.0, 2400.0), stage({{0, 2.0}}, 20.0, 0)};
   st[0].name = "cook";
@@ -291,10 +291,10 @@ TEST_CASE("until_centre ends at the crossing; a cap is reported, never silently 
   REQUIRE(h3.notes.size() == 1);
   CHECK(h3.notes[0].kind == StageNoteKind::ended_at_start);
   CHECK(h3.notes[0].stage_number == 1);
-  CHECK(h3.notes[0].value_C == 2.0);
+  CHECK(h3.notes[0].value_C == 5.0);  // the centre at the start: the initial temperature
 }
 
-TEST_CASE("samples: boundaries on both sides, breakpoints, and linear interpolation within sample_tol") {
+TEST_CASE("samples: boundaries on both sides / breakpoints / and linear interpolation within sample_tol") {
   const auto p = body(Shape::sphere);
   const std::vector<Stage> st = {stage({{0, 20.0}, {600, 90.0}, {1000, 90.0}}, 200.0, 1800.0), stage({{0, 2.0}}, 200.0, 1800.0)};
   const HistoryOptions o;
@@ -332,7 +332,7 @@ TEST_CASE("samples: boundaries on both sides, breakpoints, and linear interpolat
   }
 }
 
-TEST_CASE("simulate rejects bad input with place, key, value and requirement") {
+TEST_CASE("simulate rejects bad input with place / key / value and requirement") {
   const auto p = body(Shape::sphere);
   CHECK_THROWS_WITH_AS(simulate(p, {stage({{0, 80.0}}, -5.0, 10.0)}), "simulate: stage[0].h_W_m2K = -5: must be > 0",
                        InputError);
@@ -381,7 +381,7 @@ TEST_CASE("a noisy 1 s log: samples and evaluate between them meet tol_K (sampli
   }
 }
 
-TEST_CASE("every shape through h = inf, a zero-length stage and a capped until_mean: continuous centre") {
+TEST_CASE("every shape through h = inf / a zero-length stage and a capped until_mean: continuous centre") {
   for (Shape sh : {Shape::sphere, Shape::cylinder, Shape::slab, Shape::finite_cylinder, Shape::brick}) {
     Product p = body(sh, 0.03);
     p.dims.length_m = 0.05;

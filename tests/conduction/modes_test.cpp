@@ -30,7 +30,7 @@ constexpr double kPi = 3.14159265358979323846;
 
 }  // namespace
 
-TEST_CASE("modes: zeta, C, M, N match the mpmath 30-digit table to 1e-10 relative") {
+TEST_CASE("modes: zeta / C / M / N match the mpmath 30-digit table to 1e-10 relative") {
   // Source: tests/reference/modes.csv from tests/reference/gen_modes.py (mpmath, 45-digit
   // working precision), Bi = 1e-6 … 1e6 and ∞, n = 1..50, all three geometries.
   const auto rows = read_csv("tests/reference/modes.csv");
@@ -127,7 +127,7 @@ TEST_CASE("modes: Bi = inf gives the zeros of J0 and the centre lag factors") {
   CHECK(std::abs(centre_coefficient(Geometry::sphere, 1.0, zs) - 4 / kPi) <= 1e-14);
 }
 
-TEST_CASE("modes: n up to 4000 strictly increasing, each inside its own bracket") {
+TEST_CASE("modes: n up to 4000 strictly increasing / each inside its own bracket") {
   // Property of the eigen-equations (each root is alone in its interval); no outside table.
   for (Geometry g : {Geometry::slab, Geometry::cylinder, Geometry::sphere}) {
     for (double bi : {0.0, 1e-6, 0.3, 1.0, 7.0, 1e6, kInfiniteBiot}) {
@@ -234,7 +234,7 @@ TEST_CASE("modes: eigenfunctions are normalised at the centre and vanish at Bi =
   CHECK(eigenfunction(Geometry::cylinder, 2.0, 0.5) == doctest::Approx(0.7651976865579666));  // J0(1), A&S Table 9.1
 }
 
-TEST_CASE("modes: bad input is refused with the place, value and requirement") {
+TEST_CASE("modes: bad input is refused with the place / value and requirement") {
   CHECK_THROWS_WITH_AS(eigenvalue(Geometry::slab, -1.0, 1), "eigenvalue: biot = -1: must be 0 or in [1e-06, inf]",
                        InputError);
   CHECK_THROWS_WITH_AS(eigenvalue(Geometry::sphere, 1e-7, 1),

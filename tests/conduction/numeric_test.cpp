@@ -314,7 +314,7 @@ TEST_CASE("numeric: heat through the surface equals the change of enthalpy") {
   }
 }
 
-TEST_CASE("numeric: output times in any order, repeated, and at t = 0") {
+TEST_CASE("numeric: output times in any order / repeated / and at t = 0") {
   const auto p = series_problem(Geometry::slab, 125, 600);
   const auto res = solve_numeric(p, {600, 0, 300, 600});
   REQUIRE(res.samples.size() == 4);
@@ -468,7 +468,7 @@ TEST_CASE("numeric: freezing front against Neumann's exact solution") {
                       << " K, " << ms << " ms");
 }
 
-TEST_CASE("numeric: segment boundaries: later medium reported, state continuous, h change used") {
+TEST_CASE("numeric: segment boundaries: later medium reported / state continuous / h change used") {
   // Two segments: 600 s in 90 °C water at h 500, then 600 s in 10 °C air at h 10.
   NumericProblem p = series_problem(Geometry::sphere, 500, 600);
   p.segments.push_back({600.0, 10.0, false, constant_medium(10.0)});

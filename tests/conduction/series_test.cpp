@@ -28,7 +28,7 @@ double centre(Geometry g, double bi, double fo) { return step_response(g, bi, fo
 
 }  // namespace
 
-TEST_CASE("series: centre, r/R = 0.5, surface and mean match the mpmath sums to 1e-8") {
+TEST_CASE("series: centre / r/R = 0.5 / surface and mean match the mpmath sums to 1e-8") {
   // Source: tests/reference/series.csv from tests/reference/gen_series.py (mpmath, 45 digits),
   // Fo = 1e-4 … 2, Bi = 0.1 … 200 and ∞, all three geometries.
   const auto rows = read_csv("tests/reference/series.csv");
@@ -116,7 +116,7 @@ TEST_CASE("series: finite cylinder product rule and lag factors (REFERENCES §7 
   CHECK(centre(Geometry::sphere, kInfiniteBiot, 2.0) / std::exp(-z * z * 2.0) == doctest::Approx(2.0).epsilon(1e-12));
 }
 
-TEST_CASE("series: one-term approximation within 2 % for Fo > 0.2, useless at sphere Bi = 10, Fo = 0.05") {
+TEST_CASE("series: one-term approximation within 2 % for Fo > 0.2 / useless at sphere Bi = 10 / Fo = 0.05") {
   // Handbook statement (Çengel, "within 2 percent" for Fo > 0.2; REFERENCES.md §3.2 and §7 item 7).
   double worst = 0;
   for (Geometry g : kAll)
@@ -133,7 +133,7 @@ TEST_CASE("series: one-term approximation within 2 % for Fo > 0.2, useless at sp
   CHECK(std::abs(one_term_theta(Geometry::sphere, 10, 0.05, 0) - exact) / exact > 0.25);
 }
 
-TEST_CASE("series: Bi -> 0 approaches exp(-m Bi Fo), m = 1, 2, 3") {
+TEST_CASE("series: Bi -> 0 approaches exp(-m Bi Fo) / m = 1 / 2 / 3") {
   // Lumped limit (Incropera §5.1/§5.6): ζ1² → (m)·Bi with m = 1, 2, 3 for slab, cylinder, sphere.
   const double m[] = {1, 2, 3};
   for (int i = 0; i < 3; ++i) {
@@ -153,7 +153,7 @@ TEST_CASE("series: Bi -> 0 approaches exp(-m Bi Fo), m = 1, 2, 3") {
   }
 }
 
-TEST_CASE("series: a long finite cylinder is the infinite cylinder; a brick with two long sides is the slab") {
+TEST_CASE("series: a long finite cylinder is the infinite cylinder - a brick with two long sides is the slab") {
   // Newman product rule consistency (Incropera §5.8).
   const double bi_r = 3.0, fo_r = 0.15;
   for (double ratio : {50.0, 200.0}) {  // half-length = ratio × R

@@ -55,7 +55,7 @@ Calibration calibration() {
 
 }  // namespace
 
-TEST_CASE("calibrated product file: written, read back, same values; the original kept as comments") {
+TEST_CASE("calibrated product file: written / read back / same values - the original kept as comments") {
   const std::string text = io::calibrated_product_toml(kOriginal, calibration(), 1000.0 * 4000.0);
   CHECK(text.find("# # a comment that carries a source") != std::string::npos);
   const io::ProductFile f = io::parse_product(text, "cal.toml");
@@ -73,7 +73,7 @@ TEST_CASE("calibrated product file: written, read back, same values; the origina
   CHECK(f.calibration->parameters() == 2);
 }
 
-TEST_CASE("calibrated product file: edited k or h, or a malformed covariance, is refused with the key") {
+TEST_CASE("calibrated product file: edited k or h / or a malformed covariance / is refused with the key") {
   std::string text = io::calibrated_product_toml(kOriginal, calibration(), 1000.0 * 4000.0);
   const auto with = [&](const std::string& from, const std::string& to) {
     std::string t = text;

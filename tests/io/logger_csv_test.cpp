@@ -19,7 +19,7 @@ TEST_CASE("log in seconds and C is read as written") {
   CHECK(ts.temp_column == "medium_C");
 }
 
-TEST_CASE("log in minutes and F: converted, rebased so the first row is t = 0") {
+TEST_CASE("log in minutes and F: converted / rebased so the first row is t = 0") {
   // 32 F = 0 C and 212 F = 100 C (definition of the scales).
   const auto ts = parse_log_csv("time_min,temp_F\n10,32\n11,212\n12.5,122\n", "chill.csv");
   REQUIRE(ts.time_s.size() == 3);
@@ -31,7 +31,7 @@ TEST_CASE("log in minutes and F: converted, rebased so the first row is t = 0") 
   CHECK(ts.temp_C[2] == doctest::Approx(50));
 }
 
-TEST_CASE("log with ISO-8601 timestamps, T or space, Z or none, fractions") {
+TEST_CASE("log with ISO-8601 timestamps / T or space / Z or none / fractions") {
   const auto ts = parse_log_csv(
       "timestamp,medium_C\n2026-03-01T08:00:00Z,20\n2026-03-01 08:00:30,25\n2026-03-01T08:01:00.5Z,30\n", "o.csv");
   REQUIRE(ts.time_s.size() == 3);
@@ -56,7 +56,7 @@ TEST_CASE("ISO-8601 timestamps against Unix time") {
   CHECK_FALSE(parse_iso8601_s("2026-03-01T08:00:00Zjunk"));
 }
 
-TEST_CASE("log tolerates comments, blank lines, CRLF, a byte-order mark and extra columns") {
+TEST_CASE("log tolerates comments / blank lines / CRLF / a byte-order mark and extra columns") {
   const auto ts = parse_log_csv("\xEF\xBB\xBF# oven 3, logger 17\r\ntime_s, channel, medium_C\r\n\r\n0, a, 20\r\n"
                                 "10, a, 21\r\n",
                                 "o.csv");
@@ -64,7 +64,7 @@ TEST_CASE("log tolerates comments, blank lines, CRLF, a byte-order mark and extr
   CHECK(ts.temp_C == std::vector<double>{20, 21});
 }
 
-TEST_CASE("several temperature columns: the option picks one, else refused") {
+TEST_CASE("several temperature columns: the option picks one / else refused") {
   const std::string text = "time_s,air_C,probe_C\n0,90,4\n10,91,5\n";
   LogOptions o;
   o.temp_column = "probe_C";
@@ -79,7 +79,7 @@ TEST_CASE("several temperature columns: the option picks one, else refused") {
                        InputError);
 }
 
-TEST_CASE("gaps longer than the limit are warnings with file:line, not errors") {
+TEST_CASE("gaps longer than the limit are warnings with file:line / not errors") {
   const auto ts = parse_log_csv("time_s,medium_C\n0,20\n30,21\n120,22\n150,23\n", "gap.csv");
   CHECK(ts.time_s.size() == 4);
   REQUIRE(ts.warnings.size() == 1);
@@ -90,7 +90,7 @@ TEST_CASE("gaps longer than the limit are warnings with file:line, not errors") 
   CHECK(parse_log_csv("time_s,medium_C\n0,20\n30,21\n120,22\n150,23\n", "gap.csv", o).warnings.empty());
 }
 
-TEST_CASE("logs refused with file:line, column, value and requirement") {
+TEST_CASE("logs refused with file:line / column / value and requirement") {
   CHECK_THROWS_WITH_AS(parse_log_csv("time_s,medium_C\n0,20\n60,21\n30,22\n", "oven.csv"),
                        "oven.csv:4: time_s = 30: must be after the previous row (60 at line 3)", InputError);
   CHECK_THROWS_WITH_AS(parse_log_csv("time_s,medium_C\n0,20\n0,21\n", "oven.csv"),
@@ -143,7 +143,7 @@ TEST_CASE("logs refused for their header or for being empty") {
                        InputError);
 }
 
-TEST_CASE("a log becomes a medium profile, linear between readings, named with its digest") {
+TEST_CASE("a log becomes a medium profile / linear between readings / named with its digest") {
   const std::string text = "time_s,medium_C\n100,20\n160,80\n";
   const auto prof = coldcore::io::medium_profile(parse_log_csv(text, "oven.csv"), "oven.csv", text);
   CHECK(prof.at(0) == 20);
@@ -186,7 +186,7 @@ TEST_CASE("issue 11: a local-time log across a spring-forward clock change is re
 
 // issue 16/18: logger exports state the unit in the column name in several ways. 212 F is
 // 100 C and 32 F is 0 C (the defining points of the scales).
-TEST_CASE("issue 18: units read from the header as loggers write them, Latin-1 degree included") {
+TEST_CASE("issue 18: units read from the header as loggers write them / Latin-1 degree included") {
   for (const char* header : {"time_s,temp (\xC2\xB0" "F)", "time_s,Temp [degF]", "time_s,probe \xC2\xB0" "F",
                              "time_s,probe \xB0" "F"}) {
     CAPTURE(header);

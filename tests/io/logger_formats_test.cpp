@@ -21,7 +21,7 @@ bool has_warning(const TimeSeries& t, const std::string& part) {
 }
 }  // namespace
 
-TEST_CASE("issue 16: a ';' export with decimal commas is read without options") {
+TEST_CASE("issue 16: a '-' export with decimal commas is read without options") {
   const TimeSeries t = parse_log_csv("time_s;medium_C\n0;20,5\n30;21,25\n60;-1,5\n", "semi.csv");
   REQUIRE(t.time_s.size() == 3);
   CHECK(t.temp_C[0] == 20.5);
@@ -35,7 +35,7 @@ TEST_CASE("issue 16: a ';' export with decimal commas is read without options") 
   CHECK(tab.temp_C[1] == 5.5);
 }
 
-TEST_CASE("issue 16: quoted headers with commas and units, a time column chosen by name") {
+TEST_CASE("issue 16: quoted headers with commas and units / a time column chosen by name") {
   const std::string text =
       "\"#\",\"Date Time, GMT+00:00\",\"Temp, °F\",\"Battery, V\"\n"
       "1,2026-11-30 06:00:00,41.0,3.6\n"
@@ -63,7 +63,7 @@ TEST_CASE("issue 16: quoted headers with commas and units, a time column chosen 
                        InputError);
 }
 
-TEST_CASE("issue 16: a doubled quote inside a quoted header is one quote; the first time-named column is the time") {
+TEST_CASE("issue 16: a doubled quote inside a quoted header is one quote - the first time-named column is the time") {
   const TimeSeries t = parse_log_csv("n,elapsed_min,\"probe \"\"A\"\" (°C)\"\n1,0,10\n2,1,11\n", "q.csv");
   CHECK(t.time_column == "elapsed_min");
   CHECK(t.temp_column == "probe \"A\" (°C)");
@@ -73,7 +73,7 @@ TEST_CASE("issue 16: a doubled quote inside a quoted header is one quote; the fi
         std::vector<std::string>{"probe \"A\" (°C)", "B, °C"});
 }
 
-TEST_CASE("issue 16: a blank cell skips its row with a warning; the gap rules then decide") {
+TEST_CASE("issue 16: a blank cell skips its row with a warning - the gap rules then decide") {
   const std::string text = "time_s,probe_C\n0,70\n30,70\n60,\n90,70\n,70\n120,70\n";
   LogOptions o;
   o.max_gap_s = 45;

@@ -66,7 +66,7 @@ F_min = 2
 )";
 }
 
-TEST_CASE("product file: medium_type keeps the medium's range for per-target ends and says why; h_range kept") {
+TEST_CASE("product file: medium_type keeps the medium's range for per-target ends and says why - h_range kept") {
   auto pf = io::parse_product(kBase, "p.toml");
   REQUIRE(pf.stage_h.size() == 2);
   REQUIRE(pf.stage_h[0].h_range_W_m2K);
@@ -93,7 +93,7 @@ TEST_CASE("product file: medium_type keeps the medium's range for per-target end
   CHECK(ch[0].h_W_m2K == 60);
 }
 
-TEST_CASE("product file: medium_type with h_W_m2K, and h outside its range, are refused") {
+TEST_CASE("product file: medium_type with h_W_m2K / and h outside its range / are refused") {
   std::string both = kBase;
   both.replace(both.find("medium_type = \"blast-chill\""), 27, "medium_type = \"blast-chill\"\nh_W_m2K = 30");
   CHECK_THROWS_WITH_AS(io::parse_product(both, "p.toml"),
@@ -122,7 +122,7 @@ TEST_CASE("product file: [product.ranges] parse in SI and must contain the nomin
   CHECK_THROWS_AS(io::parse_product(unused, "p.toml"), InputError);
 }
 
-TEST_CASE("medium_type per target, from the file: F as with the high h given, cooling rule as with the low h") {
+TEST_CASE("medium_type per target / from the file: F as with the high h given / cooling rule as with the low h") {
   // The invented tests/cli/media-split/chill-credited.toml, and the same text with the chill's
   // medium_type replaced by h_W_m2K = 60 (the high end) and = 20 (the low end) given explicitly.
   const std::string text = test::read_source_file("tests/cli/media-split/chill-credited.toml");

@@ -192,7 +192,7 @@ TEST_CASE("bad file: sizes and properties out of range") {
                        "t.toml: product.initial_F = -500: below absolute zero (-273.15 C, -459.67 F)", InputError);
 }
 
-TEST_CASE("bad file: h < 0 and h = 0 refused; inf is the only non-finite h") {
+TEST_CASE("bad file: h < 0 and h = 0 refused - inf is the only non-finite h") {
   const std::string need = ": must be > 0 W/(m2 K), or inf for a surface held at the medium temperature";
   CHECK_THROWS_WITH_AS(parse(with("h_W_m2K = 180", "h_W_m2K = -5")), ("t.toml: stage[1].h_W_m2K = -5" + need).c_str(),
                        InputError);
@@ -233,7 +233,7 @@ TEST_CASE("bad file: unknown keys get did-you-mean") {
                        InputError);
 }
 
-TEST_CASE("bad file: a quantity given twice, with two units") {
+TEST_CASE("bad file: a quantity given twice / with two units") {
   CHECK_THROWS_WITH_AS(parse(with("diameter_mm = 42", "diameter_mm = 42\ndiameter_m = 0.042")),
                        "t.toml: product.diameter_mm = 42: given together with diameter_m; give one", InputError);
 }
@@ -448,7 +448,7 @@ TEST_CASE("issue 18: values outside the plausible ranges are refused where they 
 
 // issue 18: counts are bounded and the bound is said; a megabyte-long unknown key is quoted back
 // cut to limits::max_message_chars, without a suggestion (no name is that long).
-TEST_CASE("issue 18: stage count, target count and message length are bounded") {
+TEST_CASE("issue 18: stage count / target count and message length are bounded") {
   std::string many;
   for (int i = 0; i < 201; ++i)
     many += "[[stage]]\nname = \"s" + std::to_string(i) + "\"\nmedium_C = 90\nh_W_m2K = 100\nduration_s = 10\n";

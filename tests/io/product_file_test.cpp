@@ -72,7 +72,7 @@ io::LogReader memory(std::map<std::string, std::string> files) {
 
 }  // namespace
 
-TEST_CASE("the DESIGN.md example loads, converted to SI") {
+TEST_CASE("the DESIGN.md example loads / converted to SI") {
   const auto pf = parse_product(kMeatballs, "meatballs.toml");
   CHECK(pf.origin == "meatballs.toml");
   CHECK(pf.sha256_hex == io::sha256_hex(kMeatballs));
@@ -128,7 +128,7 @@ TEST_CASE("the DESIGN.md example loads, converted to SI") {
   CHECK(pf.warnings.empty());
 }
 
-TEST_CASE("Fahrenheit, metres, hours; z in F is a difference; h = inf") {
+TEST_CASE("Fahrenheit / metres / hours - z in F is a difference - h = inf") {
   // 250 F = 121.11 C and z = 18 F = 10 C (REFERENCES.md conventions, C. botulinum rows).
   const auto pf = parse_product(R"(
 schema = 1
@@ -238,7 +238,7 @@ TEST_CASE("piecewise-linear medium points: key suffixes name both columns") {
   CHECK(f.medium.points[1].temp_C == doctest::Approx(100));
 }
 
-TEST_CASE("medium log: path relative to the file, first row = stage start, duration = log length") {
+TEST_CASE("medium log: path relative to the file / first row = stage start / duration = log length") {
   const std::string text =
       "schema = 1\n[product]\nname = \"p\"\nshape = \"slab\"\nthickness_mm = 20\ninitial_C = 5\n"
       "[product.properties]\nconductivity_W_mK = 0.5\ndensity_kg_m3 = 1050\nspecific_heat_J_kgK = 3500\n"

@@ -10,7 +10,7 @@
 using coldcore::io::Quantity;
 using coldcore::io::to_si;
 
-TEST_CASE("temperature suffixes: F converts with the 32 offset, C is unchanged") {
+TEST_CASE("temperature suffixes: F converts with the 32 offset / C is unchanged") {
   // REFERENCES.md conventions: C = (F - 32) / 1.8; 250 F = 121.11 C (F0 reference row).
   CHECK(*to_si(Quantity::temperature, 250, "F") == doctest::Approx(121.1111111111).epsilon(1e-12));
   CHECK(*to_si(Quantity::temperature, 32, "F") == 0.0);
@@ -43,7 +43,7 @@ TEST_CASE("length and time suffixes") {
   CHECK_FALSE(to_si(Quantity::time, 1, "C"));
 }
 
-TEST_CASE("edit distance counts insertions, deletions, substitutions and swaps") {
+TEST_CASE("edit distance counts insertions / deletions / substitutions and swaps") {
   using coldcore::io::edit_distance;
   CHECK(edit_distance("", "") == 0);
   CHECK(edit_distance("abc", "") == 3);
@@ -53,7 +53,7 @@ TEST_CASE("edit distance counts insertions, deletions, substitutions and swaps")
   CHECK(edit_distance("Sphere", "sphere") == 0);   // case-insensitive
 }
 
-TEST_CASE("did you mean: the nearest close candidate, or nothing") {
+TEST_CASE("did you mean: the nearest close candidate / or nothing") {
   using coldcore::io::did_you_mean;
   const std::vector<std::string> keys = {"diameter_mm", "diameter_m", "length_mm", "initial_C"};
   CHECK(did_you_mean("diamter_mm", keys) == "diameter_mm");
@@ -82,7 +82,7 @@ TEST_CASE("issue 16: US customary property units convert by the NIST SP 811 fact
 
 // issue 12 item 7: one suggestion rule everywhere (coldcore/suggest.hpp): the data-library
 // readers used a case-sensitive Levenshtein distance without swaps before.
-TEST_CASE("issue 12: one did-you-mean rule, case-insensitive with transpositions") {
+TEST_CASE("issue 12: one did-you-mean rule / case-insensitive with transpositions") {
   const std::vector<std::string> organisms{"listeria-monocytogenes", "salmonella-meat-poultry"};
   CHECK(coldcore::did_you_mean("lsiteria-monocytogenes", organisms) == "listeria-monocytogenes");
   CHECK(coldcore::did_you_mean("LISTERIA-MONOCYTOGENES", organisms) == "listeria-monocytogenes");

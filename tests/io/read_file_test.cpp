@@ -11,7 +11,7 @@
 using namespace coldcore;
 namespace fs = std::filesystem;
 
-TEST_CASE("issue 18: a directory, a FIFO or a missing file is refused with the reason") {
+TEST_CASE("issue 18: a directory / a FIFO or a missing file is refused with the reason") {
   const fs::path dir = fs::temp_directory_path() / "coldcore-read-file-test";
   fs::remove_all(dir);
   fs::create_directories(dir / "sub");

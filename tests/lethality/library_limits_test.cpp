@@ -9,7 +9,7 @@
 
 using namespace coldcore;
 
-TEST_CASE("issue 18: cooling-rule, cooking-table and media values outside the plausible ranges are refused") {
+TEST_CASE("issue 18: cooling-rule / cooking-table and media values outside the plausible ranges are refused") {
   const std::string rule = R"(
 [[rule]]
 key = "x"

@@ -49,7 +49,7 @@ Target listeria(double logs, std::vector<std::string> stages = {}) {
 
 }  // namespace
 
-TEST_CASE("log-reduction target: per-stage F, credited stages, margin and range flag") {
+TEST_CASE("log-reduction target: per-stage F / credited stages / margin and range flag") {
   const History h = make();
   const double z = 7.5, ref = 70, D = 20;  // organisms.toml Listeria (D70 = 2 min / 6)
   const double F_cook = f_linear(1200, 20, 72, ref, z) + 600 * std::pow(10, 2 / 7.5);
@@ -95,7 +95,7 @@ TEST_CASE("log-reduction target: per-stage F, credited stages, margin and range 
   CHECK(cum_cook[3] == doctest::Approx(F_cook).epsilon(1e-6));
 }
 
-TEST_CASE("F-value target with own kinetics; verdict only on a positive margin") {
+TEST_CASE("F-value target with own kinetics - verdict only on a positive margin") {
   // 80 C for 1 min with z 7.5 -> F70 = 21.54 min (brief; Bigelow definition).
   auto T = [](double) { return 80.0; };
   const History h = test::analytic_history(T, {{"hold", 60}}, 5.0);
@@ -183,7 +183,7 @@ TEST_CASE("assessment errors name the target") {
                        InputError);
 }
 
-TEST_CASE("probe log: three rules, verdict on the smallest, rule check on the same log") {
+TEST_CASE("probe log: three rules / verdict on the smallest / rule check on the same log") {
   std::vector<double> ts, Ts;
   for (double t = 0; t <= 5400; t += 10) {
     ts.push_back(t);
@@ -251,7 +251,7 @@ TEST_CASE("a tie is not shown as met") {
   CHECK(p.targets[0].margin_shown == "exactly at the required value");
 }
 
-TEST_CASE("history without exact evaluation is interpolated, with a warning") {
+TEST_CASE("history without exact evaluation is interpolated / with a warning") {
   History h = make();
   h.evaluate = nullptr;
   const Assessment a = assess(h, {listeria(6)}, orgs(), rules());

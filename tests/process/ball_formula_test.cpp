@@ -23,7 +23,7 @@ TEST_CASE("ball_log10_g: every table node is reproduced exactly (REFERENCES.md �
   }
 }
 
-TEST_CASE("ball_log10_g: between nodes, linear in log10(f_h/U) with a small non-zero error estimate") {
+TEST_CASE("ball_log10_g: between nodes / linear in log10(f_h/U) with a small non-zero error estimate") {
   // derived: f_h/U = √(10·20) lies half way between the nodes 10 and 20 in log10, so the linear
   // value is (0.955 + 1.112)/2 = 1.0335. The nodes 5, 10, 20 are equally spaced in log10 (step
   // log10 2), so the quadratic through them exceeds the chord at the midpoint by −Δ²/8 with
@@ -47,7 +47,7 @@ TEST_CASE("ball_log10_g: between nodes, linear in log10(f_h/U) with a small non-
   }
 }
 
-TEST_CASE("ball_log10_g: no value outside [0.5, 200] (no extrapolation)") {
+TEST_CASE("ball_log10_g: no value outside [0.5 / 200] (no extrapolation)") {
   CHECK_FALSE(ball_log10_g(0.49).has_value());
   CHECK_FALSE(ball_log10_g(200.5).has_value());
   CHECK_FALSE(ball_log10_g(std::nan("")).has_value());
@@ -72,7 +72,7 @@ TEST_CASE("ball_process_time: worked example (derived by hand)") {
   CHECK(r.B_s == doctest::Approx(1800 * (std::log10(1.4 * 100) - std::log10(r.g_K))).epsilon(1e-12));
 }
 
-TEST_CASE("ball_process_time: U at a retort below the reference, z off the table, out of table") {
+TEST_CASE("ball_process_time: U at a retort below the reference / z off the table / out of table") {
   // derived: U = 180·10^((121.1 − 115)/10) = 180·10^0.61 = 180·4.073803 = 733.28 s.
   const BallResult r = ball_process_time(3000, 1.4, 115, 21.1, 180, 121.1, 10, 0);
   CHECK(r.U_s == doctest::Approx(733.28).epsilon(1e-5));

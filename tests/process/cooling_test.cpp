@@ -67,7 +67,7 @@ TEST_CASE("rule library holds the published limits") {
                        InputError);
 }
 
-TEST_CASE("Food Code checker, REFERENCES 7 item 18") {
+TEST_CASE("Food Code checker / REFERENCES 7 item 18") {
   // PASS: 135 F at 0, 70 F at 1 h 50 min, 41 F at 5 h 40 min.
   Log pass;
   pass.at(0, from_F(135)).at(110, from_F(70)).at(340, from_F(41)).at(400, from_F(35));
@@ -129,7 +129,7 @@ TEST_CASE("logs that pass by one minute and fail by one minute are classified ri
   }
 }
 
-TEST_CASE("FSIS Appendix B checker, REFERENCES 7 item 19") {
+TEST_CASE("FSIS Appendix B checker / REFERENCES 7 item 19") {
   // Option 1 PASS: 130 -> 80 F in 1 h 20 min, 80 -> 40 F in 4 h 50 min.
   Log p1;
   p1.at(0, from_F(150)).at(10, from_F(130)).at(90, from_F(80)).at(380, from_F(40)).at(420, from_F(36));
@@ -165,7 +165,7 @@ TEST_CASE("FSIS Appendix B checker, REFERENCES 7 item 19") {
   CHECK(unknown.notes.back().find("not known") != std::string::npos);
 }
 
-TEST_CASE("clock edge cases: record starting below, never reaching, reheating") {
+TEST_CASE("clock edge cases: record starting below / never reaching / reheating") {
   Log below;
   below.at(0, 50).at(60, 20).at(300, 4);
   CoolingCheck c = run(below, "two-stage-6h");

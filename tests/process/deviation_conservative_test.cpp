@@ -39,7 +39,7 @@ process::DeviationInput dip_input(std::vector<MediumPoint> log) {
 
 }  // namespace
 
-TEST_CASE("deviation --conservative: worst-case delivered F below the nominal, extra hold at least as long") {
+TEST_CASE("deviation --conservative: worst-case delivered F below the nominal / extra hold at least as long") {
   const test::Libs libs;
   const auto in = dip_input(kDip);
   const auto nominal = process::evaluate_deviation(in, libs.get());
@@ -99,7 +99,7 @@ TEST_CASE("deviation --conservative: a deviated cooling stage with a cooling rul
   CHECK(why.find("cools and a cooling rule") != std::string::npos);
 }
 
-TEST_CASE("deviation --conservative: refused without a range that applies, or with a probe log only") {
+TEST_CASE("deviation --conservative: refused without a range that applies / or with a probe log only") {
   const test::Libs libs;
   CHECK_THROWS_WITH_AS(process::evaluate_deviation_conservative(dip_input(kDip), process::Ranges{}, libs.get()),
                        doctest::Contains("--conservative: the file gives no range that applies to the deviation"),

@@ -49,7 +49,7 @@ TEST_CASE("deviation: a logged medium identical to the schedule reproduces the s
   CHECK(*r.extra_hold_s == 0.0);
 }
 
-TEST_CASE("deviation: invented 8 C dip for 6 min mid-cook, F within 0.5 % of the finite-volume reference") {
+TEST_CASE("deviation: invented 8 C dip for 6 min mid-cook / F within 0.5 % of the finite-volume reference") {
   // tests/reference/fd_dip.csv from gen_fd_dip.py (independent finite volumes, Richardson-extrapolated)
   const auto rows = test::read_csv("tests/reference/fd_dip.csv");
   const auto find = [&](const std::string& c) {
@@ -77,7 +77,7 @@ TEST_CASE("deviation: invented 8 C dip for 6 min mid-cook, F within 0.5 % of the
   CHECK(r.events[0].extreme_C == 88.0);
 }
 
-TEST_CASE("deviation: extra hold at the scheduled medium restores the target; one unit less does not") {
+TEST_CASE("deviation: extra hold at the scheduled medium restores the target - one unit less does not") {
   const test::Libs libs;
   // 15 min of F70 in the cook: the schedule (about 22.9 min, fd_dip.csv) meets it, the dip (8.2 min) does not.
   process::DeviationInput in;
@@ -138,7 +138,7 @@ TEST_CASE("issue 11: a chiller that ran warm is a deviation") {
   CHECK(process::evaluate_deviation(in, libs.get()).events.empty());
 }
 
-TEST_CASE("issue 11: a cook with a colder stretch, a gap in the log and a shortened end names each") {
+TEST_CASE("issue 11: a cook with a colder stretch / a gap in the log and a shortened end names each") {
   const test::Libs libs;
   process::DeviationInput in;
   in.scheduled = test::dip_sphere({test::f_target("all", 60.0)});
@@ -165,7 +165,7 @@ TEST_CASE("issue 11: a cook with a colder stretch, a gap in the log and a shorte
   CHECK(r.scheduled_stage_s == 960.0);
 }
 
-TEST_CASE("issue 11: a gap in the medium log credits no lethality; the interpolated log would have said met") {
+TEST_CASE("issue 11: a gap in the medium log credits no lethality - the interpolated log would have said met") {
   // Required F: 90 % of the scheduled F_cook of the independent finite-volume reference (fd_dip.csv);
   // a flat 96 C log without a gap reproduces the schedule, so it meets it.
   const auto rows = test::read_csv("tests/reference/fd_dip.csv");
@@ -195,7 +195,7 @@ TEST_CASE("issue 11: a gap in the medium log credits no lethality; the interpola
   CHECK(named);
 }
 
-TEST_CASE("issue 11: a hold extension already given is credited, and the record says how much was needed") {
+TEST_CASE("issue 11: a hold extension already given is credited / and the record says how much was needed") {
   const test::Libs libs;
   process::DeviationInput in;
   in.scheduled = test::dip_sphere({test::f_target("P70-15", 900.0, {"cook"})});

@@ -33,8 +33,8 @@ double rel_error(double a, double b) { return std::abs(a / b - 1.0); }
 
 }  // namespace
 
-TEST_CASE("first term at Bi = ∞: f·α/L² and j (ASHRAE Refrigeration Handbook, cooling and freezing "
-          "times chapter, after Lacroix & Castaigne 1987; REFERENCES.md §4)") {
+TEST_CASE("first term at Bi = ∞: f·α/L² and j (ASHRAE Refrigeration Handbook / cooling and freezing "
+          "times chapter / after Lacroix & Castaigne 1987 - REFERENCES.md §4)") {
   // Values printed to 4 decimals: half a unit of the last digit is allowed.
   CHECK(std::abs(first_term_f_alpha_over_L2(Geometry::sphere, kInf) - 0.2333) <= 5e-5);
   CHECK(std::abs(first_term_j(Geometry::sphere, kInf) - 2.0) <= 5e-5);
@@ -48,19 +48,19 @@ TEST_CASE("first term at Bi = ∞: f·α/L² and j (ASHRAE Refrigeration Handboo
   CHECK(std::abs(first_term_j(Geometry::slab, kInf) - 1.273) <= 5e-4);  // printed to 3 decimals
 }
 
-TEST_CASE("first term at Bi = 1, sphere: ζ1 = π/2, C1 = 4/π (REFERENCES.md §7 item 1)") {
+TEST_CASE("first term at Bi = 1 / sphere: ζ1 = π/2 / C1 = 4/π (REFERENCES.md §7 item 1)") {
   // derived: f·α/L² = ln10/(π/2)² = 2.3025851/2.4674011 = 0.9332026; j = 4/π = 1.2732395.
   CHECK(std::abs(first_term_f_alpha_over_L2(Geometry::sphere, 1.0) - 0.9332026) <= 1e-7);
   CHECK(std::abs(first_term_j(Geometry::sphere, 1.0) - 1.2732395) <= 1e-7);
 }
 
-TEST_CASE("first_term_heating: sphere R = 0.05 m, α = 1.4e-7 m²/s, Bi = ∞: f_h = 4167 s (REFERENCES.md §7 item 10)") {
+TEST_CASE("first_term_heating: sphere R = 0.05 m / α = 1.4e-7 m²/s / Bi = ∞: f_h = 4167 s (REFERENCES.md §7 item 10)") {
   const FirstTermHeating s = first_term_heating(sphere(0.1), 1.4e-7, kInf);
   CHECK(rel_error(s.f_s, 4167) <= 1e-3);
   CHECK(std::abs(s.j - 2.0) <= 1e-5);
 }
 
-TEST_CASE("first_term_heating: finite cylinder R = 0.0375 m, H = 0.05 m, α = 1.4e-7 m²/s, Bi = ∞ (REFERENCES.md §7 items 9, 10)") {
+TEST_CASE("first_term_heating: finite cylinder R = 0.0375 m / H = 0.05 m / α = 1.4e-7 m²/s / Bi = ∞ (REFERENCES.md §7 items 9 / 10)") {
   const double R = 0.0375, H = 0.05, alpha = 1.4e-7;
   const FirstTermHeating c = first_term_heating(finite_cylinder(2 * R, 2 * H), alpha, kInf);
   CHECK(rel_error(c.f_s, 3226) <= 1e-3);  // item 10 states 0.1 %
@@ -105,7 +105,7 @@ TEST_CASE("first_term_estimate: round trip from a known α and h") {
   CHECK(rel_error(eb.alpha_m2_s, alpha) <= 1e-6);
 }
 
-TEST_CASE("first_term_estimate: j at or above its Bi = ∞ value, and j below one") {
+TEST_CASE("first_term_estimate: j at or above its Bi = ∞ value / and j below one") {
   // sphere R = 0.05 m: j = 2.1 > 2 → Bi = ∞, α = 0.2333·R²/f (REFERENCES.md §4 table).
   const FirstTermEstimate hot = first_term_estimate(sphere(0.1), 4167, 2.1, 3.6e6);
   CHECK(hot.status == FirstTermStatus::j_at_or_above_infinite_biot);

@@ -84,7 +84,7 @@ ProbeCurve noisy_curve(const std::string& file, double spacing_s, unsigned seed,
 
 }  // namespace
 
-TEST_CASE("fit: sphere study by an independent finite-volume model: alpha within 2 %, h inside its interval") {
+TEST_CASE("fit: sphere study by an independent finite-volume model: alpha within 2 % / h inside its interval") {
   // Source of the truth: tests/reference/heat_penetration/sphere_clean.csv (finite volume, 800
   // intervals; its header states the convergence) with k 0.45, rho 1050, cp 3500, h 150.
   const Truth t = truth_of("sphere_clean.csv");
@@ -172,7 +172,7 @@ TEST_CASE("fit: too few readings are refused with the count") {
   CHECK_THROWS_WITH_AS(fit_study(in), doctest::Contains("2 readings: at least 3"), InputError);
 }
 
-TEST_CASE("study: the broken-heating reference is reported broken; the too-short probe gets no f_h") {
+TEST_CASE("study: the broken-heating reference is reported broken - the too-short probe gets no f_h") {
   // broken_heating.csv: a sphere whose conductivity halves above 90 °C (finite volume; its header
   // gives the two slopes, −0.0291 and −0.0182 per min of log10(100 − T)). too_short.csv: the
   // sphere of sphere_clean.csv logged only through its come-up and lag (6 min).
@@ -203,7 +203,7 @@ TEST_CASE("study: the broken-heating reference is reported broken; the too-short
   CHECK(s.status != CurveStatus::described);
 }
 
-TEST_CASE("fit bound: the least favourable shift of a linear quantity is t(0.95, dof) standard deviations") {
+TEST_CASE("fit bound: the least favourable shift of a linear quantity is t(0.95 / dof) standard deviations") {
   // For q = gᵀd the delta method is exact: q(d*) = −t·√(gᵀCg). t(0.95, 10) = 1.812 (Student t
   // tables, e.g. NIST/SEMATECH e-Handbook of Statistical Methods, table 1.3.6.7.2).
   Calibration c;
@@ -228,7 +228,7 @@ TEST_CASE("fit bound: the least favourable shift of a linear quantity is t(0.95,
   CHECK(moved.stages[1].h_W_m2K == 50);
 }
 
-TEST_CASE("study stages: the logged medium replaces each stage's over its span; a temperature-ended stage must be last") {
+TEST_CASE("study stages: the logged medium replaces each stage's over its span - a temperature-ended stage must be last") {
   std::vector<Stage> sched = sphere_schedule(100, 100);
   MediumTrace m{{0, 100, 300, 3600, 3700, 7200}, {5, 35, 95, 95, 2, 2}};
   const std::vector<Stage> st = study_stages(sched, m, 5000, "t.toml");

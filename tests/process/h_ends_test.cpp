@@ -81,7 +81,7 @@ TEST_CASE("h ends: a credited cooling stage splits lethality (high h) from the c
   CHECK(notes.front().find("evaluated on 2 scenarios") != std::string::npos);
 }
 
-TEST_CASE("h ends: when the lethality target credits the cook only, one scenario at the low end serves all") {
+TEST_CASE("h ends: when the lethality target credits the cook only / one scenario at the low end serves all") {
   const test::Libs libs;
   auto s = split_sphere();
   s.targets[0].stages = {"cook"};  // the chill's h cannot change what this target credits

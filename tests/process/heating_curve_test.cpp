@@ -50,7 +50,7 @@ double rel_error(double a, double b) { return std::abs(a / b - 1.0); }
 
 }  // namespace
 
-TEST_CASE("describe_curve: exact conduction series gives the first-term f and j, and is not broken") {
+TEST_CASE("describe_curve: exact conduction series gives the first-term f and j / and is not broken") {
   // derived: the series tends to C1·exp(−ζ1²·Fo), i.e. log10 θ = log10 C1 − t/f with the f above.
   // The phase starts at t = 300 s on the absolute axis, with the corrected zero there too.
   const Log log = sphere_log(300, 4300, 30, true);
@@ -101,7 +101,7 @@ TEST_CASE("describe_curve: seeded noise (σ = 0.1 K) and 0.1 °C rounding keep f
   CHECK(rel_error(c.f_s, first_term_f_s()) <= 0.02);
 }
 
-TEST_CASE("describe_curve: a two-slope curve is broken, both f within 3 %") {
+TEST_CASE("describe_curve: a two-slope curve is broken / both f within 3 %") {
   // derived: T_m − T = 100·10^(−t/500) up to d = 25 K (t_b = 500·log10 4 = 301.03 s), then
   // 25·10^(−(t − t_b)/900): f1 = 500 s, f2 = 900 s (ratio 1.8), no lag, so j = 1 at t = 0.
   const double tb = 500 * std::log10(4.0);
@@ -142,7 +142,7 @@ TEST_CASE("describe_curve: a curve that stays curved gives never_straight") {
   CHECK(c.status == CurveStatus::never_straight);
 }
 
-TEST_CASE("describe_curve: no driving difference, and bad input") {
+TEST_CASE("describe_curve: no driving difference / and bad input") {
   const std::vector<double> t = {0, 60, 120, 180, 240, 300, 360};
   const std::vector<double> T = {120, 120.2, 120.4, 120.6, 120.8, 120.9, 121};
   CHECK(describe_curve(t, T, 121, 0, 360, 0, true).status == CurveStatus::no_driving_difference);
@@ -155,7 +155,7 @@ TEST_CASE("describe_curve: no driving difference, and bad input") {
   CHECK_THROWS_AS(describe_curve(t, T, 130, 400, 360, 0, true), InputError);
 }
 
-TEST_CASE("corrected_zero_s: 58 % of come-up (Ball's 42 % credit, REFERENCES.md §4)") {
+TEST_CASE("corrected_zero_s: 58 % of come-up (Ball's 42 % credit / REFERENCES.md §4)") {
   CHECK(corrected_zero_s(600) == doctest::Approx(348));
   CHECK(corrected_zero_s(0) == 0);
   CHECK_THROWS_WITH_AS(corrected_zero_s(-1), "corrected_zero_s: come_up_s = -1: must be finite and >= 0",

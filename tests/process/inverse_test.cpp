@@ -13,7 +13,7 @@
 using namespace coldcore;
 using coldcore::process::Question;
 
-TEST_CASE("solve hold-time: the rounded answer re-run meets the target, one unit less does not") {
+TEST_CASE("solve hold-time: the rounded answer re-run meets the target / one unit less does not") {
   const test::Libs libs;
   // F70 (z 7.5) of 2 min credited in the cook only (P70 benchmark, REFERENCES 1.3, common practice)
   auto s = test::dip_sphere({test::f_target("P70", 120.0, {"cook"})});
@@ -46,7 +46,7 @@ TEST_CASE("solve hold-time: stage credit changes the answer (chill lethality not
   CHECK(b.answer < a.answer);
 }
 
-TEST_CASE("solve chill-time: centre time scales with size squared at fixed Bi (conduction scaling, common practice)") {
+TEST_CASE("solve chill-time: centre time scales with size squared at fixed Bi (conduction scaling / common practice)") {
   const test::Libs libs;
   // Constant medium, one chill stage from a uniform 60 C; Bi = hR/k held fixed by halving h when R doubles.
   auto s = test::dip_sphere({test::f_target("P70", 1.0)});
@@ -82,7 +82,7 @@ TEST_CASE("solve max-size and min-medium: re-runs bracket the answer") {
   CHECK(t.answer < 96.0);  // the schedule at 96 C meets it with margin
 }
 
-TEST_CASE("solve: a medium too cold to reach the target is no solution, with the reason") {
+TEST_CASE("solve: a medium too cold to reach the target is no solution / with the reason") {
   const test::Libs libs;
   Target hot;
   hot.kind = TargetKind::centre_min_temperature;

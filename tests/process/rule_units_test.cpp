@@ -13,7 +13,7 @@
 
 using namespace coldcore;
 
-TEST_CASE("issue 16: the Food Code rule shows its limits as written, in either unit") {
+TEST_CASE("issue 16: the Food Code rule shows its limits as written / in either unit") {
   const RuleLibrary lib = parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "r.toml");
   const CoolingRule& rule = lib.at("two-stage-6h", "test");
   REQUIRE(rule.steps.size() == 2);

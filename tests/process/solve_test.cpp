@@ -11,7 +11,7 @@ using coldcore::process::RootOptions;
 using coldcore::process::round_to_unit;
 using coldcore::process::solve_margin;
 
-TEST_CASE("solve_margin: increasing margin, root of log(x/3) is 3 (analytic)") {
+TEST_CASE("solve_margin: increasing margin / root of log(x/3) is 3 (analytic)") {
   RootOptions o;
   o.rel_tol = 1e-10;
   const auto r = solve_margin([](double x) { return std::log(x / 3.0); }, 1.0, 10.0, FeasibleSide::above, o, "none");
@@ -22,7 +22,7 @@ TEST_CASE("solve_margin: increasing margin, root of log(x/3) is 3 (analytic)") {
   CHECK_FALSE(r.met_at_bound);
 }
 
-TEST_CASE("solve_margin: decreasing margin (largest size), root of 1 - x^2/4 is 2 (analytic)") {
+TEST_CASE("solve_margin: decreasing margin (largest size) / root of 1 - x^2/4 is 2 (analytic)") {
   RootOptions o;
   const auto r = solve_margin([](double x) { return 1 - x * x / 4; }, 0.1, 5.0, FeasibleSide::below, o, "none");
   CHECK(r.x == doctest::Approx(2.0).epsilon(1e-6));
@@ -42,7 +42,7 @@ TEST_CASE("solve_margin: bracket expansion finds a root far beyond the first gue
   CHECK(r.trials.size() > 10);
 }
 
-TEST_CASE("solve_margin: met at the lower bound returns the bound, flagged") {
+TEST_CASE("solve_margin: met at the lower bound returns the bound / flagged") {
   const auto r = solve_margin([](double x) { return x + 1; }, 0.0, 10.0, FeasibleSide::above, {}, "none");
   CHECK(r.met_at_bound);
   CHECK(r.x == 0.0);
@@ -80,7 +80,7 @@ TEST_CASE("solve_margin: a kinked margin (min of two targets) still brackets its
   CHECK(m(r.x) >= 0);
 }
 
-TEST_CASE("round_to_unit: up for above, down for below, exact multiples kept") {
+TEST_CASE("round_to_unit: up for above / down for below / exact multiples kept") {
   CHECK(round_to_unit(61.0, 60, FeasibleSide::above) == 120);
   CHECK(round_to_unit(120.0, 60, FeasibleSide::above) == 120);
   CHECK(round_to_unit(120.0 + 1e-10, 60, FeasibleSide::above) == 120);  // binary noise

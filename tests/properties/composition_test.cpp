@@ -165,7 +165,7 @@ TEST_CASE("composition: bad input names the value and the requirement") {
                        InputError);
 }
 
-TEST_CASE("composition table: rows, last row exact, alpha consistent") {
+TEST_CASE("composition table: rows / last row exact / alpha consistent") {
   const auto rows = coldcore::composition_table(lean_beef(), 0.0, 95.0, 10.0);
   REQUIRE(rows.size() == 11);
   CHECK(rows.front().temp_C == 0.0);

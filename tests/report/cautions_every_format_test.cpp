@@ -13,7 +13,7 @@
 
 using namespace coldcore;
 
-TEST_CASE("text, json, csv, markdown and html all carry every caution") {
+TEST_CASE("text / json / csv / markdown and html all carry every caution") {
   const RunReport r = testing::sample_report();
   for (TempUnit u : {TempUnit::C, TempUnit::F}) {
     std::ostringstream text, json, csv, html;

@@ -42,7 +42,7 @@ Target table_target() {
 
 }  // namespace
 
-TEST_CASE("cooking-table target: 12.5 min at 140 F meets the 12 min row, 11.5 min does not") {
+TEST_CASE("cooking-table target: 12.5 min at 140 F meets the 12 min row / 11.5 min does not") {
   AssessOptions opts;
   opts.cooking_tables = &libs().tables;
   const Assessment ok = assess(hold_140F(12.5 * 60), {table_target()}, libs().organisms, libs().rules, opts);

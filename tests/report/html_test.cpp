@@ -26,7 +26,7 @@ std::string after_doctype(const std::string& h) {
 }
 }  // namespace
 
-TEST_CASE("html report is well-formed XML after its doctype, in both units") {
+TEST_CASE("html report is well-formed XML after its doctype / in both units") {
   const RunReport r = sample_report();
   for (TempUnit u : {TempUnit::C, TempUnit::F}) {
     const std::string h = html(r, u);
@@ -35,7 +35,7 @@ TEST_CASE("html report is well-formed XML after its doctype, in both units") {
   }
 }
 
-TEST_CASE("html report fetches nothing: no URL but the SVG namespace, no src/href/import") {
+TEST_CASE("html report fetches nothing: no URL but the SVG namespace / no src/href/import") {
   const std::string h = html(sample_report());
   CHECK(external_urls(h).empty());
   CHECK(h.find("src=") == std::string::npos);
@@ -47,7 +47,7 @@ TEST_CASE("html report fetches nothing: no URL but the SVG namespace, no src/hre
   CHECK(external_urls("<a href=\"https://x.example\">") .size() == 1);
 }
 
-TEST_CASE("html report carries every caution, even when the model left them empty") {
+TEST_CASE("html report carries every caution / even when the model left them empty") {
   RunReport r = sample_report();
   for (const auto& c : cautions()) CHECK(html(r).find(svg::xml_escape(c)) != std::string::npos);
   r.cautions.clear();
@@ -56,7 +56,7 @@ TEST_CASE("html report carries every caution, even when the model left them empt
   CHECK(h.find("id=\"cautions\"") != std::string::npos);
 }
 
-TEST_CASE("html report: same input, same bytes") {
+TEST_CASE("html report: same input / same bytes") {
   CHECK(html(sample_report()) == html(sample_report()));
   CHECK(html(sample_report(), TempUnit::F) == html(sample_report(), TempUnit::F));
 }
@@ -77,7 +77,7 @@ TEST_CASE("html report has every section the issue lists") {
   CHECK(h.find("required F (F70) = 2.00 min") != std::string::npos);
 }
 
-TEST_CASE("--units F converts every temperature the writer formats; F-values stay in minutes") {
+TEST_CASE("--units F converts every temperature the writer formats - F-values stay in minutes") {
   const RunReport r = sample_report();
   const std::string c = html(r, TempUnit::C), f = html(r, TempUnit::F);
   // °F = °C × 1.8 + 32 (definition of the Fahrenheit scale).
@@ -92,7 +92,7 @@ TEST_CASE("--units F converts every temperature the writer formats; F-values sta
   CHECK(f.find("required F (F70) = 2.00 min") != std::string::npos);
 }
 
-TEST_CASE("Reading this report: Biot words, the lag, and the lumped curve only when provided") {
+TEST_CASE("Reading this report: Biot words / the lag / and the lumped curve only when provided") {
   const std::string with = html(sample_report());
   CHECK(with.find("The Biot number compares") != std::string::npos);
   CHECK(with.find("steam cook Bi = 0.900") != std::string::npos);
@@ -109,7 +109,7 @@ TEST_CASE("Reading this report: Biot words, the lag, and the lumped curve only w
   CHECK(low.find("nearly the same centre temperature") != std::string::npos);
 }
 
-TEST_CASE("html report without history still writes tables, reading notes and cautions") {
+TEST_CASE("html report without history still writes tables / reading notes and cautions") {
   RunReport r = sample_report();
   r.history = {};
   r.rule_boxes.clear();
@@ -120,7 +120,7 @@ TEST_CASE("html report without history still writes tables, reading notes and ca
   CHECK(h.find(svg::xml_escape(cautions().front())) != std::string::npos);
 }
 
-TEST_CASE("time axis in minutes up to 3 h, in hours beyond") {
+TEST_CASE("time axis in minutes up to 3 h / in hours beyond") {
   RunReport r = sample_report();
   CHECK(html(r).find("time since process start (h)") != std::string::npos);  // the sample chills ~3.8 h
   // Keep only the cook: the run then ends at 25 min.

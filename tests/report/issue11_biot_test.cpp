@@ -53,7 +53,7 @@ RunReport report_of(const io::ProductFile& f) {
 
 }  // namespace
 
-TEST_CASE("issue 11: the Biot note names the right regime below 0.1, from 0.1 to 1 and above 1") {
+TEST_CASE("issue 11: the Biot note names the right regime below 0.1 / from 0.1 to 1 and above 1") {
   const io::ProductFile f = sphere(120, 30);
   // h 30: Bi(V/A) = 30 · 0.0063333 / 0.48 = 0.3958 — the case the issue found described as
   // "surface resistance small next to the inside's".
@@ -78,7 +78,7 @@ TEST_CASE("issue 11: the Biot note names the right regime below 0.1, from 0.1 to
   CHECK(biot_note(f.product, s).find("surface resistance small") == std::string::npos);
 }
 
-TEST_CASE("issue 11: one Biot number, on V/A, in the table, the notes and Reading this report") {
+TEST_CASE("issue 11: one Biot number / on V/A / in the table / the notes and Reading this report") {
   const RunReport r = report_of(sphere(120, 30));
   REQUIRE(r.stages.size() == 2);
   CHECK(r.biot_length == "V/A");

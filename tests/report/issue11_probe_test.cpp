@@ -86,7 +86,7 @@ bool has(const std::string& s, const std::string& what) { return s.find(what) !=
 
 }  // namespace
 
-TEST_CASE("issue 11: a timestamped log gives its first row's clock time; a log in seconds has none") {
+TEST_CASE("issue 11: a timestamped log gives its first row's clock time - a log in seconds has none") {
   const io::TimeSeries log = constant_log();
   REQUIRE(log.start_unix_s.has_value());
   CHECK(*log.start_unix_s == 1796018400.0);
@@ -98,7 +98,7 @@ TEST_CASE("issue 11: a timestamped log gives its first row's clock time; a log i
   CHECK_FALSE(secs.start_unix_s.has_value());
 }
 
-TEST_CASE("issue 11: probe without a target shows what was delivered and claims no verdict, in every format") {
+TEST_CASE("issue 11: probe without a target shows what was delivered and claims no verdict / in every format") {
   const RunReport r = probe_report(false, "");
   CHECK(r.verdicts.empty());
   CHECK(r.target_lines.empty());  // no required line is drawn
@@ -134,7 +134,7 @@ TEST_CASE("issue 11: probe without a target shows what was delivered and claims 
   CHECK(has(md_of(r), "no target was given, so no required value is drawn"));
 }
 
-TEST_CASE("issue 11: the probe report says measured, names the log, its lot and its clock time") {
+TEST_CASE("issue 11: the probe report says measured / names the log / its lot and its clock time") {
   const RunReport r = probe_report(true, "L-2026-11-30-A");
   REQUIRE(r.verdicts.size() == 1);
   CHECK(r.title == "coldcore probe: measured cold-spot log constant-70C.csv, lot L-2026-11-30-A");

@@ -79,7 +79,7 @@ bool has(const std::string& s, const std::string& what) { return s.find(what) !=
 
 }  // namespace
 
-TEST_CASE("issue 11: with h split per target each verdict names its scenario, and its history is shown") {
+TEST_CASE("issue 11: with h split per target each verdict names its scenario / and its history is shown") {
   const Built b = build(1.0);  // 1 s rows: the interpolated crossing is good to well under a second
   const RunReport& r = b.report;
   REQUIRE(r.scenarios.size() == 2);

@@ -108,7 +108,7 @@ TEST_CASE("issue 11: a step never reached after its limit ran out shows the shor
   CHECK(r.margin_shown == "shortfall at least 120 min: not reached by the end of the process");
 }
 
-TEST_CASE("issue 11: every step passed shows the tightest step, met") {
+TEST_CASE("issue 11: every step passed shows the tightest step / met") {
   // 57 °C at 600 s, 21 °C at 4200 s (1 h of 2 h), 5 °C at 600 + 5 h (5 h of 6 h): step 2 binds
   // with 60 min to spare, step 1 also has 60 min; margins equal, either is the tightest.
   const std::vector<double> ts{0, 600, 4200, 600 + 5.5 * 3600.0}, Ts{60, 57, 21, 5};
@@ -145,7 +145,7 @@ TEST_CASE("issue 11: chill-time one unit less applies the answer's end condition
 
 // ---- Defect 7 and ties ----
 
-TEST_CASE("issue 11: 70 C for exactly 123 s against F 2.05 min is a tie, not met") {
+TEST_CASE("issue 11: 70 C for exactly 123 s against F 2.05 min is a tie / not met") {
   // F = 123 s exactly (lethal rate 1 at the reference); 2.05 min × 60 rounds to 1 ulp of 123.
   const TargetResult r = on_constant_log(70, 123, own_f(2.05 * 60));
   CHECK(r.verdict == Verdict::not_demonstrated);
@@ -155,7 +155,7 @@ TEST_CASE("issue 11: 70 C for exactly 123 s against F 2.05 min is a tie, not met
   CHECK(std::abs(r.margin) <= r.margin_uncertainty);
 }
 
-TEST_CASE("issue 11: exact published equivalents are ties, named as such") {
+TEST_CASE("issue 11: exact published equivalents are ties / named as such") {
   // 70 °C for 2 min = 6 log10 of L. monocytogenes (UK benchmark; organisms.toml, REFERENCES 1.3).
   const TargetResult l = on_constant_log(70, 120, logs("listeria-monocytogenes", 6));
   CHECK(l.verdict == Verdict::not_demonstrated);
@@ -193,7 +193,7 @@ TEST_CASE("issue 11: required log reduction a few ulp around the achieved one on
   }
 }
 
-TEST_CASE("issue 11: a series F within its error bound is not met, and says so") {
+TEST_CASE("issue 11: a series F within its error bound is not met / and says so") {
   // The engine's history of gen_fd_dip.py's sphere; F computed to rel_tol 1e-4. A required F 3e-12
   // above or below the computed one lies inside the quadrature bound.
   test::Libs libs;

@@ -9,7 +9,7 @@
 
 using coldcore::JsonWriter;
 
-TEST_CASE("json strings escape quotes, backslashes and control characters (RFC 8259 section 7)") {
+TEST_CASE("json strings escape quotes / backslashes and control characters (RFC 8259 section 7)") {
   CHECK(JsonWriter::escape("a\"b\\c\n\t\x01") == "\"a\\\"b\\\\c\\n\\t\\u0001\"");
   CHECK(JsonWriter::escape("°C") == "\"°C\"");
 }

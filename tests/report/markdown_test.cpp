@@ -12,7 +12,7 @@
 using namespace coldcore;
 using namespace coldcore::testing;
 
-TEST_CASE("markdown returns the text and one SVG file per plot, referenced by name") {
+TEST_CASE("markdown returns the text and one SVG file per plot / referenced by name") {
   const MarkdownReport m = write_run_markdown(sample_report(), TempUnit::C, "run-1");
   REQUIRE(m.svg_files.size() == 3);
   CHECK(m.svg_files[0].first == "run-1-temperature.svg");
@@ -29,14 +29,14 @@ TEST_CASE("markdown returns the text and one SVG file per plot, referenced by na
   CHECK(external_urls(m.markdown).empty());
 }
 
-TEST_CASE("markdown carries every caution, even when the model left them empty") {
+TEST_CASE("markdown carries every caution / even when the model left them empty") {
   RunReport r = sample_report();
   r.cautions.clear();
   const MarkdownReport m = write_run_markdown(r, TempUnit::C, "x");
   for (const auto& c : cautions()) CHECK(m.markdown.find("> - " + c) != std::string::npos);
 }
 
-TEST_CASE("markdown has the same sections as html, and escapes table cells") {
+TEST_CASE("markdown has the same sections as html / and escapes table cells") {
   const std::string md = write_run_markdown(sample_report(), TempUnit::C, "x").markdown;
   for (const char* s : {"# Synthetic sample", "## Product and properties", "## Process stages", "## Plots",
                         "## Reading this report", "## Verdicts", "## Warnings", "## Assumptions", "## Provenance",
@@ -47,7 +47,7 @@ TEST_CASE("markdown has the same sections as html, and escapes table cells") {
   CHECK(md.find("\\<meatballs>") != std::string::npos);
 }
 
-TEST_CASE("markdown: same input, same bytes; --units F in text and plots") {
+TEST_CASE("markdown: same input / same bytes - --units F in text and plots") {
   const MarkdownReport a = write_run_markdown(sample_report(), TempUnit::F, "x");
   const MarkdownReport b = write_run_markdown(sample_report(), TempUnit::F, "x");
   CHECK(a.markdown == b.markdown);

@@ -150,7 +150,7 @@ void check_self_contained(const std::string& h) {
 
 }  // namespace
 
-TEST_CASE("solve html: well-formed, self-contained, every section, verdict rows") {
+TEST_CASE("solve html: well-formed / self-contained / every section / verdict rows") {
   const RunReport plot = sample_report();
   for (TempUnit u : {TempUnit::C, TempUnit::F}) {
     const std::string h = solve_html(&plot, u);
@@ -176,7 +176,7 @@ TEST_CASE("solve html: well-formed, self-contained, every section, verdict rows"
   CHECK(xml_problem(after_doctype(bare)) == "");
 }
 
-TEST_CASE("solve html and md: --units F converts the answer and the plots; same input, same bytes") {
+TEST_CASE("solve html and md: --units F converts the answer and the plots - same input / same bytes") {
   const RunReport plot = sample_report();
   const std::string f = solve_html(&plot, TempUnit::F);
   // °F = °C × 1.8 + 32 (definition of the Fahrenheit scale); a 0.5 K step is 0.9 °F.
@@ -196,7 +196,7 @@ TEST_CASE("solve html and md: --units F converts the answer and the plots; same 
   CHECK(m1.markdown.find("°C") == std::string::npos);
 }
 
-TEST_CASE("solve md: tables, escaped text, plots as well-formed standalone SVG files beside it") {
+TEST_CASE("solve md: tables / escaped text / plots as well-formed standalone SVG files beside it") {
   const RunReport plot = sample_report();
   const auto m = write_solve_markdown(solve_result(), solve_context(&plot), TempUnit::C, "kofta-solve");
   CHECK(m.markdown.rfind("# coldcore solve --for min-medium", 0) == 0);
@@ -216,7 +216,7 @@ TEST_CASE("solve md: tables, escaped text, plots as well-formed standalone SVG f
   CHECK(m.markdown.find("## Cautions") != std::string::npos);
 }
 
-TEST_CASE("solve html: the conservative section lists choices, the worst case, each choice alone, the driver") {
+TEST_CASE("solve html: the conservative section lists choices / the worst case / each choice alone / the driver") {
   const RunReport plot = sample_report();
   process::ConservativeSolve cs;
   cs.choices = {"diameter 44 mm (largest)", "h 80 W/m2K (lowest)"};
@@ -237,7 +237,7 @@ TEST_CASE("solve html: the conservative section lists choices, the worst case, e
   CHECK(solve_html(&plot).find("id=\"conservative\"") == std::string::npos);
 }
 
-TEST_CASE("deviation html: well-formed, self-contained, record, verdicts, extra hold, disposition, sign-off") {
+TEST_CASE("deviation html: well-formed / self-contained / record / verdicts / extra hold / disposition / sign-off") {
   RunReport sched = sample_report(), deliv = sample_report();
   for (auto& row : deliv.history.rows) row[2] -= 1.0;  // a different delivered centre curve
   for (TempUnit u : {TempUnit::C, TempUnit::F}) {
@@ -275,7 +275,7 @@ TEST_CASE("deviation html: well-formed, self-contained, record, verdicts, extra 
   CHECK(bare.find(svg::xml_escape(disposition_statement())) != std::string::npos);
 }
 
-TEST_CASE("deviation html and md: --units F for every temperature; same input, same bytes") {
+TEST_CASE("deviation html and md: --units F for every temperature - same input / same bytes") {
   RunReport sched = sample_report();
   const std::string f = deviation_html(&sched, &sched, TempUnit::F);
   // °F = °C × 1.8 + 32; differences × 1.8 (definition of the Fahrenheit scale).
@@ -292,7 +292,7 @@ TEST_CASE("deviation html and md: --units F for every temperature; same input, s
   CHECK(m.markdown == write_deviation_markdown(deviation_result(), deviation_info(&sched, &sched), TempUnit::F, "dev").markdown);
 }
 
-TEST_CASE("deviation md: disposition statement, blank reviewer lines, plots as files") {
+TEST_CASE("deviation md: disposition statement / blank reviewer lines / plots as files") {
   RunReport sched = sample_report();
   const auto m = write_deviation_markdown(deviation_result(), deviation_info(&sched, nullptr), TempUnit::C, "cb");
   CHECK(m.markdown.find("**" + disposition_statement() + "**") != std::string::npos);

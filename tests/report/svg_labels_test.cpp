@@ -92,7 +92,7 @@ TEST_CASE("issue 16: no plot label of the example reports meets another or leave
   CHECK(labels >= 20);
 }
 
-TEST_CASE("issue 16: a requirement under 5 % of the lethality axis gets a log axis; otherwise it stays linear") {
+TEST_CASE("issue 16: a requirement under 5 % of the lethality axis gets a log axis - otherwise it stays linear") {
   using namespace coldcore;
   using coldcore::detail::RunFigure;
   using coldcore::detail::run_figures;

@@ -19,7 +19,7 @@ size_t count(const std::string& s, const std::string& what) {
 }
 }  // namespace
 
-TEST_CASE("nice numbers are 1, 2, 5 or 10 times a power of ten (Heckbert 1990, Graphics Gems)") {
+TEST_CASE("nice numbers are 1 / 2 / 5 or 10 times a power of ten (Heckbert 1990 / Graphics Gems)") {
   CHECK(nice_number(438, false) == doctest::Approx(500));
   CHECK(nice_number(125, true) == doctest::Approx(100));
   CHECK(nice_number(0.025, true) == doctest::Approx(0.02));
@@ -82,7 +82,7 @@ TEST_CASE("data map onto the plot area corners") {
   CHECK(xml_problem(out) == "");
 }
 
-TEST_CASE("every dash pattern differs, and NaN breaks a line") {
+TEST_CASE("every dash pattern differs / and NaN breaks a line") {
   std::set<std::string> seen;
   for (Dash d : {Dash::solid, Dash::dashed, Dash::dotted, Dash::dash_dot, Dash::long_dash, Dash::short_dash})
     seen.insert(std::string(dash_array(d)));
@@ -102,7 +102,7 @@ TEST_CASE("every dash pattern differs, and NaN breaks a line") {
   CHECK(out.find("stroke-dasharray=\"8 3 2 3\"") != std::string::npos);
 }
 
-TEST_CASE("labels are escaped, ids are prefixed, standalone files carry the XML declaration") {
+TEST_CASE("labels are escaped / ids are prefixed / standalone files carry the XML declaration") {
   LinePlot p;
   p.id = "plot-a";
   p.title = "T < 5 & \"cold\"";

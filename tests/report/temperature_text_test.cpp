@@ -28,7 +28,7 @@ TEST_CASE("temperature tokens render in °C as written and in °F by the scale's
   CHECK(render_temperatures("z " + temp_difference_token_fixed(7.5, 2), TempUnit::C) == "z 7.50 °C");
 }
 
-TEST_CASE("text without tokens, or with a broken token, passes unchanged") {
+TEST_CASE("text without tokens / or with a broken token / passes unchanged") {
   CHECK(render_temperatures("plain 57 C text", TempUnit::F) == "plain 57 C text");
   const std::string broken = "\xEE\x80\x80T57 and no end";
   CHECK(render_temperatures(broken, TempUnit::F) == broken);
@@ -38,7 +38,7 @@ TEST_CASE("text without tokens, or with a broken token, passes unchanged") {
   CHECK(render_temperatures(two, TempUnit::F) == "[145.4 °F,165.2 °F]");
 }
 
-TEST_CASE("°F comes from the exact value, not from the rounded °C text") {
+TEST_CASE("°F comes from the exact value / not from the rounded °C text") {
   // FSIS Appendix B limits are set in °F: 130 °F = 54.444 °C, shown as 54.4 °C; in °F it is 130.
   const double c130 = (130.0 - 32.0) / 1.8;
   CHECK(render_temperatures(temp_token_text("54.4", c130), TempUnit::C) == "54.4 °C");

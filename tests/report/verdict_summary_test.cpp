@@ -106,7 +106,7 @@ TEST_CASE("issue 11: a report without a target says there is no verdict") {
         std::string::npos);
 }
 
-TEST_CASE("issue 11: solve and deviation summaries name what their verdicts are of, and the worst case") {
+TEST_CASE("issue 11: solve and deviation summaries name what their verdicts are of / and the worst case") {
   VerdictCount nominal = count_verdicts({{"F0", true, "13.9 min"}, {"c-botulinum", true, "68.5 log10"}}, "as delivered");
   CHECK(summarize_verdicts({nominal}).sentence == "As delivered: all 2 targets met");
   VerdictCount worst = count_verdicts({{"F0", false, "shortfall 0.4 min"}, {"c-botulinum", true, "1 log10"}},
