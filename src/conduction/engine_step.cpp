@@ -128,22 +128,7 @@ void Engine::advance(const Basis& B, ModalState& st, double dt, double slope, St
 
 ModalSums Engine::advance_and_sum(const Basis& B, ModalState& st, double dt, double slope, StepCache& c) const {
   advance(B, st, dt, slope, c);  // fills the cache when dt changes
-  const std::size_t K = B.lambda.size();
-  double* a = st.a.data();
-  const double* vs = B.surface.data();
-  const double* vm = B.mean.data();
-  const double* wp = st.w_prev.data();
-  const double* wc = st.w_cur.data();
-  double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0;
-#pragma omp simd reduction(+ : s0, s1, s2, s3, s4)
-  for (std::size_t k = 0; k < K; ++k) {
-    s0 += a[k];
-    s1 += a[k] * vs[k];
-    s2 += a[k] * vm[k];
-    s3 += wp[k];
-    s4 += wc[k];
-  }
-  return ModalSums{s0, s1, s2, s3, s4};
+  return sums(B, st);
 }
 
 void roll_epoch(ModalState& st, long e) {
@@ -178,7 +163,6 @@ ModalSums Engine::sums(const Basis& B, const ModalState& st) const {
   }
   return ModalSums{s0, s1, s2, s3, s4};
 }
-
 
 void Engine::add_event(const Basis& B, ModalState& st, double origin, double t, double ds, double jump) const {
   roll_epoch(st, epoch_of(origin, t));
