@@ -78,6 +78,10 @@ class StageRun {
  public:
   StageRun(const Engine& eng, StageModel& model, const Stage& stage, const HistoryOptions& options, ModalState& state,
            SampleVector& samples, double start_s, double start_slope, bool force_general_steps);
+  // c_ points into this object (cache_, piece_slope_): a copy or a move would leave it pointing
+  // into the original.
+  StageRun(const StageRun&) = delete;
+  StageRun& operator=(const StageRun&) = delete;
 
   /// True when an end condition already holds at the stage start (the stage then ends at once).
   bool ended_at_start() const { return ended_at_start_; }
