@@ -35,7 +35,7 @@ struct DeviationArgs {
   OutputArgs output;
 };
 
-int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
+int deviation_report(const DeviationArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
   const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
   if (a.medium_log.empty() && a.probe_log.empty())
@@ -135,6 +135,12 @@ int run_deviation(const DeviationArgs& a, std::ostream& out, SideFiles& side, Ve
   return r.all_met_delivered && (!cons || cons->result.all_met_delivered) ? kAllMet : kNotDemonstrated;
 }
 
+int run_deviation(const DeviationArgs& a, std::ostream& out, std::ostream& err) {
+  return with_report_output(a.output, "deviation", out, err, [&](std::ostream& report, SideFiles& side, VerdictSummary& s) {
+    return deviation_report(a, report, side, s);
+  });
+}
+
 }  // namespace
 
 void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
@@ -165,11 +171,7 @@ void add_deviation_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--date", args->date, "record date, YYYY-MM-DD (default: today in local time)");
   add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);
   sub->callback([&ctx, args] {
-    ctx.run = [args] {
-      return with_report_output(args->output, "deviation", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {
-        return run_deviation(*args, out, side, s);
-      });
-    };
+    ctx.run = [args](std::ostream& out, std::ostream& err) { return run_deviation(*args, out, err); };
   });
 }
 

@@ -2,7 +2,7 @@
 // a heat-penetration study described the trade's way and the exact model calibrated to it.
 #include <algorithm>
 #include <filesystem>
-#include <iostream>
+#include <ostream>
 #include <memory>
 
 #include "cli/log_options.hpp"
@@ -113,7 +113,7 @@ std::vector<process::ProbeCurve> probe_curves(const FitArgs& a, const std::optio
   return curves;
 }
 
-int run_fit(const FitArgs& a, std::ostream& out, SideFiles& side) {
+int fit_report(const FitArgs& a, std::ostream& out, SideFiles& side) {
   const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
   if (a.probe_logs.empty()) throw InputError("fit: give at least one --probe-log LOG.csv");
@@ -185,6 +185,11 @@ int run_fit(const FitArgs& a, std::ostream& out, SideFiles& side) {
   return kAllMet;
 }
 
+// fit has no verdict and no terminal note: nothing goes to `err`.
+int run_fit(const FitArgs& a, std::ostream& out, std::ostream& /*err*/) {
+  return with_output(a.output, out, [&](std::ostream& report, SideFiles& side) { return fit_report(a, report, side); });
+}
+
 }  // namespace
 
 void add_fit_verb(CLI::App& app, VerbContext& ctx) {
@@ -203,9 +208,7 @@ void add_fit_verb(CLI::App& app, VerbContext& ctx) {
   add_output_options(*sub, a->output, {Format::text, Format::md, Format::html, Format::json, Format::csv});
   add_library_option(*sub, a->library);
   sub->callback([&ctx, a] {
-    ctx.run = [a] {
-      return with_output(a->output, [&](std::ostream& out, SideFiles& side) { return run_fit(*a, out, side); });
-    };
+    ctx.run = [a](std::ostream& out, std::ostream& err) { return run_fit(*a, out, err); };
   });
 }
 

@@ -1,5 +1,5 @@
 // coldcore help [VERB], and the nearest option when a verb is given one it does not have.
-#include <iostream>
+#include <ostream>
 #include <memory>
 #include <string>
 #include <vector>
@@ -25,9 +25,9 @@ void add_help_verb(CLI::App& app, VerbContext& ctx) {
   auto* sub = app.add_subcommand("help", "the options of a verb: coldcore help VERB (no VERB: every verb)");
   sub->add_option("VERB", *topic, "the verb to explain");
   sub->callback([&app, &ctx, topic] {
-    ctx.run = [&app, topic] {
+    ctx.run = [&app, topic](std::ostream& out, std::ostream& /*err*/) {
       if (topic->empty()) {
-        std::cout << app.help();
+        out << app.help();
         return 0;
       }
       CLI::App* verb = nullptr;
@@ -38,7 +38,7 @@ void add_help_verb(CLI::App& app, VerbContext& ctx) {
         if (auto near = io::did_you_mean(*topic, verb_names(app))) msg += "; did you mean '" + *near + "'?";
         throw InputError(msg + " (coldcore help lists every verb)");
       }
-      std::cout << verb->help();
+      out << verb->help();
       return 0;
     };
   });

@@ -1,5 +1,5 @@
 // coldcore organisms | rules: the data libraries with their sources.
-#include <iostream>
+#include <ostream>
 
 #include "cli/library_files.hpp"
 #include "cli/output.hpp"
@@ -15,7 +15,7 @@ struct LibraryListArgs {
   std::string library;  ///< --library DIR; empty: the search order of cli/library_files.hpp
 };
 
-int list_organisms(const LibraryListArgs& args, std::ostream& out) {
+int organisms_table(const LibraryListArgs& args, std::ostream& out) {
   const OutputArgs& a = args.output;
   const Format f = output_format(a);
   const TempUnit u = parse_temp_unit(a.units);
@@ -24,13 +24,22 @@ int list_organisms(const LibraryListArgs& args, std::ostream& out) {
   return kAllMet;
 }
 
-int list_rules(const LibraryListArgs& args, std::ostream& out) {
+int rules_table(const LibraryListArgs& args, std::ostream& out) {
   const OutputArgs& a = args.output;
   const Format f = output_format(a);
   const TempUnit u = parse_temp_unit(a.units);
   const auto lib = load_libraries(args.library, "");
   write_rule_library(lib.rules, f, u, out);
   return kAllMet;
+}
+
+// Reference tables: no terminal note, nothing goes to `err`.
+int run_organisms(const LibraryListArgs& a, std::ostream& out, std::ostream& /*err*/) {
+  return with_output(a.output, out, [&](std::ostream& table) { return organisms_table(a, table); });
+}
+
+int run_rules(const LibraryListArgs& a, std::ostream& out, std::ostream& /*err*/) {
+  return with_output(a.output, out, [&](std::ostream& table) { return rules_table(a, table); });
 }
 
 }  // namespace
@@ -41,14 +50,14 @@ void add_library_verbs(CLI::App& app, VerbContext& ctx) {
   add_output_options(*o, org->output, {Format::text, Format::json, Format::csv});
   add_library_option(*o, org->library);
   o->callback([&ctx, org] {
-    ctx.run = [org] { return with_output(org->output, [&](std::ostream& out) { return list_organisms(*org, out); }); };
+    ctx.run = [org](std::ostream& out, std::ostream& err) { return run_organisms(*org, out, err); };
   });
   auto rul = std::make_shared<LibraryListArgs>();
   auto* r = app.add_subcommand("rules", "the cooling-rule library with its sources");
   add_output_options(*r, rul->output, {Format::text, Format::json, Format::csv});
   add_library_option(*r, rul->library);
   r->callback([&ctx, rul] {
-    ctx.run = [rul] { return with_output(rul->output, [&](std::ostream& out) { return list_rules(*rul, out); }); };
+    ctx.run = [rul](std::ostream& out, std::ostream& err) { return run_rules(*rul, out, err); };
   });
 }
 

@@ -46,7 +46,7 @@ int real_main(int argc, char** argv) {
     return code == 0 ? 0 : kBadInput;
   }
   if (!ctx.run) return kBadInput;
-  return ctx.run();
+  return ctx.run(std::cout, std::cerr);
 }
 
 }  // namespace

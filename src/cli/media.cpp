@@ -18,12 +18,17 @@ struct MediaArgs {
 };
 
 
-int run_media(const MediaArgs& a, std::ostream& out) {
+int media_table(const MediaArgs& a, std::ostream& out) {
   const Format f = output_format(a.output);
   const auto path = library_path("media.toml", a.library, "");
   const io::MediaLibrary lib = io::parse_media(io::read_text_file(path), path.generic_string());
   write_media_library(lib, f, parse_temp_unit(a.output.units), out);
   return kAllMet;
+}
+
+// A reference table: no terminal note, nothing goes to `err`.
+int run_media(const MediaArgs& a, std::ostream& out, std::ostream& /*err*/) {
+  return with_output(a.output, out, [&](std::ostream& table) { return media_table(a, table); });
 }
 
 }  // namespace
@@ -34,7 +39,7 @@ void add_media_verb(CLI::App& app, VerbContext& ctx) {
   add_library_option(*sub, args->library);
   add_output_options(*sub, args->output, {Format::text, Format::json, Format::csv});
   sub->callback([&ctx, args] {
-    ctx.run = [args] { return with_output(args->output, [&](std::ostream& out) { return run_media(*args, out); }); };
+    ctx.run = [args](std::ostream& out, std::ostream& err) { return run_media(*args, out, err); };
   });
 }
 

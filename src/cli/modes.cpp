@@ -1,6 +1,6 @@
 // coldcore modes: eigenvalues ζn and coefficients Cn of the series, for teaching and checking.
 #include <cmath>
-#include <iostream>
+#include <ostream>
 #include <limits>
 
 #include "cli/output.hpp"
@@ -42,7 +42,7 @@ double parse_biot(const std::string& s) {
   return b;
 }
 
-int run_modes(const ModesArgs& a, std::ostream& out) {
+int modes_table(const ModesArgs& a, std::ostream& out) {
   const Geometry g = parse_geometry(a.shape);
   const double biot = parse_biot(a.biot);
   if (a.count < 1 || a.count > 2000)
@@ -55,6 +55,11 @@ int run_modes(const ModesArgs& a, std::ostream& out) {
   return kAllMet;
 }
 
+// A reference table: no terminal note, nothing goes to `err`.
+int run_modes(const ModesArgs& a, std::ostream& out, std::ostream& /*err*/) {
+  return with_output(a.output, out, [&](std::ostream& table) { return modes_table(a, table); });
+}
+
 }  // namespace
 
 void add_modes_verb(CLI::App& app, VerbContext& ctx) {
@@ -65,7 +70,7 @@ void add_modes_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--count", args->count, "how many modes, 1 to 2000")->capture_default_str();
   add_output_options(*sub, args->output, {Format::text, Format::json, Format::csv});
   sub->callback([&ctx, args] {
-    ctx.run = [args] { return with_output(args->output, [&](std::ostream& out) { return run_modes(*args, out); }); };
+    ctx.run = [args](std::ostream& out, std::ostream& err) { return run_modes(*args, out, err); };
   });
 }
 

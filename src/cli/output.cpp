@@ -10,7 +10,7 @@
 #include <ctime>
 #include <filesystem>
 #include <fstream>
-#include <iostream>
+#include <ostream>
 #include <sstream>
 
 #include "coldcore/error.hpp"
@@ -188,11 +188,11 @@ void write_whole_file(const std::string& path, const std::string& text, const st
   write_all_or_nothing({{fs::path(path), text}}, {shown});
 }
 
-int with_output(const OutputArgs& a, const std::function<int(std::ostream&)>& body) {
-  return with_output(a, [&](std::ostream& out, SideFiles&) { return body(out); });
+int with_output(const OutputArgs& a, std::ostream& out, const std::function<int(std::ostream&)>& body) {
+  return with_output(a, out, [&](std::ostream& o, SideFiles&) { return body(o); });
 }
 
-int with_output(const OutputArgs& a, const std::function<int(std::ostream&, SideFiles&)>& body) {
+int with_output(const OutputArgs& a, std::ostream& out, const std::function<int(std::ostream&, SideFiles&)>& body) {
   std::ostringstream buf;
   SideFiles side;
   const int code = body(buf, side);
@@ -202,7 +202,7 @@ int with_output(const OutputArgs& a, const std::function<int(std::ostream&, Side
   std::string text = render_temperatures(buf.str(), u);
   if (!a.csv_comments && output_format(a) == Format::csv) text = header_first_csv(text);
   if (to_stdout(a)) {
-    std::cout << text;
+    out << text;
     return code;
   }
   const fs::path target(a.out);
@@ -228,16 +228,16 @@ void add_csv_sidecar(const OutputArgs& a, SideFiles& side, const std::function<v
   side.emplace_back(name.string() + ".meta.json", json.str());
 }
 
-int with_report_output(const OutputArgs& a, std::string_view verb,
+int with_report_output(const OutputArgs& a, std::string_view verb, std::ostream& out, std::ostream& err,
                        const std::function<int(std::ostream&, SideFiles&, VerdictSummary&)>& body) {
   VerdictSummary summary;
-  const int code = with_output(a, [&](std::ostream& out, SideFiles& side) {
+  const int code = with_output(a, out, [&](std::ostream& report, SideFiles& side) {
     const ProgressLine progress{std::string(verb)};  // erased before the report is written
-    return body(out, side, summary);
+    return body(report, side, summary);
   });
   // Said only after the file was written (with_output throws before that on any failure).
   if (!to_stdout(a))
-    std::cerr << render_temperatures(summary_stderr_line(verb, summary, a.out), parse_temp_unit(a.units)) << "\n";
+    err << render_temperatures(summary_stderr_line(verb, summary, a.out), parse_temp_unit(a.units)) << "\n";
   return code;
 }
 

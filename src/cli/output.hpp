@@ -53,10 +53,10 @@ std::string today_local();
 /// `--date = 2026-13-45: must be a calendar date YYYY-MM-DD, e.g. 2026-12-01`.
 std::string report_date(const std::string& given);
 
-/// Runs `body` writing into a buffer; on success writes the buffer to --out (or stdout) and
+/// Runs `body` writing into a buffer; on success writes the buffer to --out (or to `out`) and
 /// returns body's exit code. On an exception nothing is written. A csv report is turned into the
 /// header-first layout (report/csv_layout.hpp) unless --csv-comments.
-int with_output(const OutputArgs& a, const std::function<int(std::ostream&)>& body);
+int with_output(const OutputArgs& a, std::ostream& out, const std::function<int(std::ostream&)>& body);
 
 /// Writes `text` to `path` whole or not at all (a temporary renamed into place), refusing an
 /// input file, a directory or a device; messages start with `<option> = <path>`.
@@ -69,7 +69,7 @@ using SideFiles = std::vector<std::pair<std::string, std::string>>;
 
 /// As above, and the body may add side files; they are written only when --out is given and
 /// the body succeeded (a body that adds side files without --out is refused by the verb).
-int with_output(const OutputArgs& a, const std::function<int(std::ostream&, SideFiles&)>& body);
+int with_output(const OutputArgs& a, std::ostream& out, const std::function<int(std::ostream&, SideFiles&)>& body);
 
 /// A csv report written to --out gets its metadata beside it: "x.meta.json" for x.csv, holding
 /// the verb's json report (cautions, provenance, verdicts, notes), written by `write_json`.
@@ -78,9 +78,9 @@ void add_csv_sidecar(const OutputArgs& a, SideFiles& side, const std::function<v
 
 /// As above, for a verb whose report opens with a verdict summary (run, probe, solve,
 /// deviation): the body sets `summary` to the one its report shows; once the report is written
-/// to --out, one line goes to stderr: "coldcore <verb>: <sentence>; report written to <out>".
+/// to --out, one line goes to `err`: "coldcore <verb>: <sentence>; report written to <out>".
 /// Nothing is added on stdout output (the report opens with the same sentence).
-int with_report_output(const OutputArgs& a, std::string_view verb,
+int with_report_output(const OutputArgs& a, std::string_view verb, std::ostream& out, std::ostream& err,
                        const std::function<int(std::ostream&, SideFiles&, VerdictSummary&)>& body);
 
 }  // namespace coldcore::cli

@@ -1,6 +1,6 @@
 // coldcore probe LOG.csv: lethality and cooling compliance from a measured cold-spot log.
 #include <filesystem>
-#include <iostream>
+#include <ostream>
 #include <optional>
 
 #include "cli/log_options.hpp"
@@ -98,7 +98,7 @@ std::vector<Target> probe_targets(const ProbeArgs& a, bool& lethality_has_requir
   return targets;
 }
 
-int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
+int probe_report(const ProbeArgs& a, std::ostream& out, std::ostream& err, SideFiles& side, VerdictSummary& summary) {
   const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
   bool has_requirement = true;
@@ -144,7 +144,7 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side, VerdictSum
     default: write_run_text(r, out, u); break;
   }
   if (!has_requirement)
-    std::cerr << "coldcore: probe: no target given (--target-log, or --F-min with own kinetics): the delivered "
+    err << "coldcore: probe: no target given (--target-log, or --F-min with own kinetics): the delivered "
                  "lethality is reported, no verdict is claimed\n";
   if (!has_requirement && a.rule.empty()) return kAllMet;  // nothing was asked to be met
   for (size_t i = 0; i < pa.targets.size(); ++i) {
@@ -153,6 +153,12 @@ int run_probe(const ProbeArgs& a, std::ostream& out, SideFiles& side, VerdictSum
     if (pa.targets[i].verdict != Verdict::met) return kNotDemonstrated;
   }
   return kAllMet;
+}
+
+int run_probe(const ProbeArgs& a, std::ostream& out, std::ostream& err) {
+  return with_report_output(a.output, "probe", out, err, [&](std::ostream& report, SideFiles& side, VerdictSummary& s) {
+    return probe_report(a, report, err, side, s);
+  });
 }
 
 }  // namespace
@@ -178,11 +184,7 @@ void add_probe_verb(CLI::App& app, VerbContext& ctx) {
   add_output_options(*sub, a->output, {Format::text, Format::md, Format::html, Format::json, Format::csv});
   add_library_option(*sub, a->library);
   sub->callback([&ctx, a] {
-    ctx.run = [a] {
-      return with_report_output(a->output, "probe", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {
-        return run_probe(*a, out, side, s);
-      });
-    };
+    ctx.run = [a](std::ostream& out, std::ostream& err) { return run_probe(*a, out, err); };
   });
 }
 

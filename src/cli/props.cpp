@@ -1,5 +1,5 @@
 // coldcore props --composition water=0.68,protein=0.2,...: properties versus temperature.
-#include <iostream>
+#include <ostream>
 #include <sstream>
 
 #include "cli/output.hpp"
@@ -56,13 +56,18 @@ Composition parse_composition(const std::string& s) {
   return c;
 }
 
-int run_props(const PropsArgs& a, std::ostream& out) {
+int props_table(const PropsArgs& a, std::ostream& out) {
   const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
   const Composition c = parse_composition(a.composition);
   const auto rows = composition_table(c, a.from_C, a.to_C, a.step_C, "props");
   write_properties_table({c, rows}, f, u, out);
   return kAllMet;
+}
+
+// A reference table: no terminal note, nothing goes to `err`.
+int run_props(const PropsArgs& a, std::ostream& out, std::ostream& /*err*/) {
+  return with_output(a.output, out, [&](std::ostream& table) { return props_table(a, table); });
 }
 
 }  // namespace
@@ -77,7 +82,7 @@ void add_props_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--step-C", args->step_C, "temperature step, °C")->capture_default_str()->check(within(0, 600, "C", true));
   add_output_options(*sub, args->output, {Format::text, Format::json, Format::csv});
   sub->callback([&ctx, args] {
-    ctx.run = [args] { return with_output(args->output, [&](std::ostream& out) { return run_props(*args, out); }); };
+    ctx.run = [args](std::ostream& out, std::ostream& err) { return run_props(*args, out, err); };
   });
 }
 

@@ -1,6 +1,6 @@
 // coldcore run FILE: forward simulation of the scheduled process, with assessment.
 #include <filesystem>
-#include <iostream>
+#include <ostream>
 
 #include "cli/library_files.hpp"
 #include "cli/output.hpp"
@@ -28,7 +28,7 @@ struct RunArgs {
   std::string library;  ///< --library DIR; empty: the search order of cli/library_files.hpp
 };
 
-int run_run(const RunArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
+int run_report(const RunArgs& a, std::ostream& out, std::ostream& err, SideFiles& side, VerdictSummary& summary) {
   const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
   const io::ProductFile file = io::load_product(a.file);
@@ -83,12 +83,18 @@ int run_run(const RunArgs& a, std::ostream& out, SideFiles& side, VerdictSummary
     for (const auto& st : h->stages)
       if (st.ended_by == StageEndedBy::cap) {
         capped = true;
-        std::cerr << "coldcore: " << file.origin << ": stage '" << st.name << "' reached its cap at "
+        err << "coldcore: " << file.origin << ": stage '" << st.name << "' reached its cap at "
                   << duration_text(st.end_s - st.start_s) << " before its end condition was met"
                   << (runs.size() > 1 ? " (in one of the h scenarios)" : "") << "\n";
       }
   if (capped) return kNotDemonstrated;
   return assessment.targets.empty() || assessment.all_met() ? kAllMet : kNotDemonstrated;
+}
+
+int run_run(const RunArgs& a, std::ostream& out, std::ostream& err) {
+  return with_report_output(a.output, "run", out, err, [&](std::ostream& report, SideFiles& side, VerdictSummary& s) {
+    return run_report(a, report, err, side, s);
+  });
 }
 
 }  // namespace
@@ -101,11 +107,7 @@ void add_run_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today in local time)");
   add_library_option(*sub, args->library);
   sub->callback([&ctx, args] {
-    ctx.run = [args] {
-      return with_report_output(args->output, "run", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {
-        return run_run(*args, out, side, s);
-      });
-    };
+    ctx.run = [args](std::ostream& out, std::ostream& err) { return run_run(*args, out, err); };
   });
 }
 

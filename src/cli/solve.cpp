@@ -44,7 +44,7 @@ process::Question parse_question(const std::string& s) {
   throw InputError("--for = " + s + ": must be hold-time, chill-time, max-size or min-medium");
 }
 
-int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
+int solve_report(const SolveArgs& a, std::ostream& out, SideFiles& side, VerdictSummary& summary) {
   const Format f = output_format(a.output);
   const TempUnit u = parse_temp_unit(a.output.units);
   const process::Question q = parse_question(a.question);
@@ -115,6 +115,12 @@ int run_solve(const SolveArgs& a, std::ostream& out, SideFiles& side, VerdictSum
   return ok && cons_ok ? kAllMet : kNotDemonstrated;
 }
 
+int run_solve(const SolveArgs& a, std::ostream& out, std::ostream& err) {
+  return with_report_output(a.output, "solve", out, err, [&](std::ostream& report, SideFiles& side, VerdictSummary& s) {
+    return solve_report(a, report, side, s);
+  });
+}
+
 }  // namespace
 
 void add_solve_verb(CLI::App& app, VerbContext& ctx) {
@@ -136,11 +142,7 @@ void add_solve_verb(CLI::App& app, VerbContext& ctx) {
   sub->add_option("--date", args->date, "report date for provenance, YYYY-MM-DD (default: today in local time)");
   add_output_options(*sub, args->output, {Format::text, Format::md, Format::html, Format::json, Format::csv}, /*with_step=*/true);
   sub->callback([&ctx, args] {
-    ctx.run = [args] {
-      return with_report_output(args->output, "solve", [&](std::ostream& out, SideFiles& side, VerdictSummary& s) {
-        return run_solve(*args, out, side, s);
-      });
-    };
+    ctx.run = [args](std::ostream& out, std::ostream& err) { return run_solve(*args, out, err); };
   });
 }
 

@@ -1,6 +1,6 @@
 #pragma once
-// The verb table: each verb file adds its subcommand to the app and sets `run`, which returns
-// the exit code. main() only parses, dispatches and turns coldcore::Error into one stderr line.
+// The verb table: each verb file adds its subcommand to the app and sets `run`, which writes the
+// report to `out`, notes to `err` and returns the exit code. main() only parses, dispatches and turns coldcore::Error into one stderr line.
 #include <functional>
 #include <iosfwd>
 #include <string>
@@ -16,8 +16,12 @@ enum ExitCode : int {
   kBadInput = 2,        ///< bad input or usage
 };
 
+/// Every verb runs as `run_<verb>(args, out, err)`: the report goes to `out` (or to --out), the
+/// one-line notes for the person at the terminal to `err`; the return value is the exit code.
+using VerbRun = std::function<int(std::ostream& out, std::ostream& err)>;
+
 struct VerbContext {
-  std::function<int()> run;  ///< set by the chosen verb's callback
+  VerbRun run;  ///< set by the chosen verb's callback
 };
 
 void add_modes_verb(CLI::App& app, VerbContext& ctx);
