@@ -196,10 +196,8 @@ int with_output(const OutputArgs& a, std::ostream& out, const std::function<int(
   std::ostringstream buf;
   SideFiles side;
   const int code = body(buf, side);
-  // Temperatures inside free text reach here as tokens (report/temperature_text.hpp): shown in
-  // the display unit now, for every verb and format (the body has validated --units).
-  const TempUnit u = parse_temp_unit(a.units);
-  std::string text = render_temperatures(buf.str(), u);
+  // The report writers hand out final text (temperatures in the display unit).
+  std::string text = buf.str();
   if (!a.csv_comments && output_format(a) == Format::csv) text = header_first_csv(text);
   if (to_stdout(a)) {
     out << text;
@@ -209,7 +207,7 @@ int with_output(const OutputArgs& a, std::ostream& out, const std::function<int(
   std::vector<std::pair<fs::path, std::string>> files;
   std::vector<std::string> shown;
   for (const auto& [name, content] : side) {
-    files.emplace_back(target.parent_path() / name, render_temperatures(content, u));
+    files.emplace_back(target.parent_path() / name, content);
     shown.push_back("--out = " + a.out + ": side file " + (target.parent_path() / name).generic_string());
   }
   files.emplace_back(target, text);

@@ -8,6 +8,7 @@
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/deviation_report.hpp"
 #include "coldcore/report/history_notes.hpp"
+#include "coldcore/report/temperature_text.hpp"
 #include "deviation_figures.hpp"
 #include "rich_page.hpp"
 
@@ -225,12 +226,24 @@ void write_deviation_doc(RichDoc& d, const DeviationResult& r, const DeviationRe
 
 }  // namespace
 
+static void write_deviation_html_unrendered(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
+
 void write_deviation_html(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_deviation_html_unrendered(r, i, o, u); });
+}
+
+static void write_deviation_html_unrendered(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u) {
   const auto d = detail::html_doc(out);
   write_deviation_doc(*d, r, i, u);
 }
 
-MarkdownReport write_deviation_markdown(const DeviationResult& r, const DeviationRecordInfo& i, TempUnit u,
+static MarkdownReport write_deviation_markdown_unrendered(const DeviationResult& r, const DeviationRecordInfo& i, TempUnit u, std::string_view svg_basename);
+
+MarkdownReport write_deviation_markdown(const DeviationResult& r, const DeviationRecordInfo& i, TempUnit u, std::string_view svg_basename) {
+  return rendered(write_deviation_markdown_unrendered(r, i, u, svg_basename), u);
+}
+
+static MarkdownReport write_deviation_markdown_unrendered(const DeviationResult& r, const DeviationRecordInfo& i, TempUnit u,
                                         std::string_view svg_basename) {
   MarkdownReport rep;
   std::ostringstream o;

@@ -10,6 +10,7 @@
 #include "coldcore/report/solve_report.hpp"
 #include "coldcore/report/verdict_summary.hpp"
 #include "coldcore/report/history_notes.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 namespace coldcore {
 
@@ -145,7 +146,13 @@ const std::string& disposition_statement() {
   return s;
 }
 
+static void write_deviation_text_unrendered(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
+
 void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_deviation_text_unrendered(r, i, o, u); });
+}
+
+static void write_deviation_text_unrendered(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u) {
   out << "coldcore deviation: " << i.product_name << "\n\n";
   write_summary_text(out, verdict_summary(r, i.conservative));
   out << "DEVIATION RECORD\n";
@@ -237,7 +244,13 @@ void write_deviation_text(const DeviationResult& r, const DeviationRecordInfo& i
   for (const auto& cau : cautions()) out << "  * " << cau << "\n";
 }
 
+static void write_deviation_json_unrendered(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
+
 void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_deviation_json_unrendered(r, i, o, u); });
+}
+
+static void write_deviation_json_unrendered(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u) {
   JsonWriter w(out);
   w.begin_object();
   write_json_envelope(w, "deviation", u);
@@ -314,7 +327,13 @@ void write_deviation_json(const DeviationResult& r, const DeviationRecordInfo& i
   out << "\n";
 }
 
-void write_deviation_csv(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit) {
+static void write_deviation_csv_unrendered(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u);
+
+void write_deviation_csv(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_deviation_csv_unrendered(r, i, o, u); });
+}
+
+static void write_deviation_csv_unrendered(const DeviationResult& r, const DeviationRecordInfo& i, std::ostream& out, TempUnit) {
   write_summary_csv(out, verdict_summary(r, i.conservative));
   for (const auto& cau : cautions()) out << "# caution: " << cau << "\n";
   out << "# disposition: " << disposition_statement() << "\n";

@@ -5,6 +5,7 @@
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
 #include "coldcore/report/json_contract.hpp"
+#include "coldcore/report/temperature_text.hpp"
 #include "fit_content.hpp"
 
 namespace coldcore {
@@ -104,7 +105,13 @@ void curve_json(JsonWriter& w, const CurveDescription* c, const char* f_key, con
 
 }  // namespace
 
+static void write_fit_json_unrendered(const StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u);
+
 void write_fit_json(const StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_fit_json_unrendered(a, c, o, u); });
+}
+
+static void write_fit_json_unrendered(const StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u) {
   JsonWriter w(out);
   w.begin_object();
   write_json_envelope(w, "fit", u);
@@ -206,7 +213,13 @@ void write_fit_json(const StudyAnalysis& a, const FitReportContext& c, std::ostr
   out << "\n";
 }
 
+static void write_fit_csv_unrendered(const StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u);
+
 void write_fit_csv(const StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_fit_csv_unrendered(a, c, o, u); });
+}
+
+static void write_fit_csv_unrendered(const StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u) {
   for (const auto& cau : cautions()) out << "# caution: " << cau << "\n";
   out << "# heat-penetration study of " << c.product_name << "; design probe " << a.curves[static_cast<std::size_t>(a.slowest)].name
       << "; model columns from the fit to the design probe (model_design) and to all probes (model_pool)\n";

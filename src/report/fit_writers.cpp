@@ -4,6 +4,7 @@
 #include <sstream>
 
 #include "coldcore/report/cautions.hpp"
+#include "coldcore/report/temperature_text.hpp"
 #include "fit_content.hpp"
 #include "rich_page.hpp"
 
@@ -55,7 +56,13 @@ void rich(const FitContent& fc, const std::vector<RunFigure>& figures, detail::R
 
 }  // namespace
 
+static void write_fit_text_unrendered(const process::StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u);
+
 void write_fit_text(const process::StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_fit_text_unrendered(a, c, o, u); });
+}
+
+static void write_fit_text_unrendered(const process::StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u) {
   const FitContent fc = detail::fit_content(a, c, u);
   out << fc.title << "\n" << std::string(std::min<std::size_t>(cells(fc.title), 60), '=') << "\n" << fc.lead << "\n";
   for (const FitSection& s : fc.sections) {
@@ -74,12 +81,24 @@ void write_fit_text(const process::StudyAnalysis& a, const FitReportContext& c, 
   for (const auto& cau : cautions()) out << "  * " << cau << "\n";
 }
 
+static void write_fit_html_unrendered(const process::StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u);
+
 void write_fit_html(const process::StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_fit_html_unrendered(a, c, o, u); });
+}
+
+static void write_fit_html_unrendered(const process::StudyAnalysis& a, const FitReportContext& c, std::ostream& out, TempUnit u) {
   auto d = detail::html_doc(out);
   rich(detail::fit_content(a, c, u), detail::fit_figures(a, u), *d);
 }
 
-MarkdownReport write_fit_markdown(const process::StudyAnalysis& a, const FitReportContext& c, TempUnit u,
+static MarkdownReport write_fit_markdown_unrendered(const process::StudyAnalysis& a, const FitReportContext& c, TempUnit u, std::string_view svg_basename);
+
+MarkdownReport write_fit_markdown(const process::StudyAnalysis& a, const FitReportContext& c, TempUnit u, std::string_view svg_basename) {
+  return rendered(write_fit_markdown_unrendered(a, c, u, svg_basename), u);
+}
+
+static MarkdownReport write_fit_markdown_unrendered(const process::StudyAnalysis& a, const FitReportContext& c, TempUnit u,
                                   std::string_view svg_basename) {
   MarkdownReport r;
   std::ostringstream o;

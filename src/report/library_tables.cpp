@@ -21,7 +21,13 @@ void write_cautions_text(std::ostream& out) {
 
 }  // namespace
 
+static void write_organism_library_unrendered(const OrganismLibrary& lib, Format f, TempUnit u, std::ostream& out);
+
 void write_organism_library(const OrganismLibrary& lib, Format f, TempUnit u, std::ostream& out) {
+  write_rendered(out, u, [&](std::ostream& o) { write_organism_library_unrendered(lib, f, u, o); });
+}
+
+static void write_organism_library_unrendered(const OrganismLibrary& lib, Format f, TempUnit u, std::ostream& out) {
   if (f == Format::json) {
     JsonWriter w(out);
     w.begin_object();
@@ -73,7 +79,13 @@ void write_organism_library(const OrganismLibrary& lib, Format f, TempUnit u, st
   write_cautions_text(out);
 }
 
+static void write_rule_library_unrendered(const RuleLibrary& lib, Format f, TempUnit u, std::ostream& out);
+
 void write_rule_library(const RuleLibrary& lib, Format f, TempUnit u, std::ostream& out) {
+  write_rendered(out, u, [&](std::ostream& o) { write_rule_library_unrendered(lib, f, u, o); });
+}
+
+static void write_rule_library_unrendered(const RuleLibrary& lib, Format f, TempUnit u, std::ostream& out) {
   if (f == Format::json) {
     JsonWriter w(out);
     w.begin_object();

@@ -8,6 +8,7 @@
 #include "coldcore/report/json.hpp"
 #include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/reference_tables.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 namespace coldcore {
 
@@ -15,7 +16,13 @@ namespace {
 std::string biot_text(double biot) { return std::isinf(biot) ? "inf" : JsonWriter::number(biot); }
 }  // namespace
 
+static void write_modes_table_unrendered(const ModesTable& t, Format f, TempUnit u, std::ostream& out);
+
 void write_modes_table(const ModesTable& t, Format f, TempUnit u, std::ostream& out) {
+  write_rendered(out, u, [&](std::ostream& o) { write_modes_table_unrendered(t, f, u, o); });
+}
+
+static void write_modes_table_unrendered(const ModesTable& t, Format f, TempUnit u, std::ostream& out) {
   std::ostringstream note;
   note << "At the centre the second term is below 1 % of the first once Fo > "
        << fixed(t.one_term_fourier, 3) << "; the handbook rule is that one term serves for Fo > 0.2 (within about 2 %).";

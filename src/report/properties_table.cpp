@@ -6,10 +6,17 @@
 #include "coldcore/report/json.hpp"
 #include "coldcore/report/json_contract.hpp"
 #include "coldcore/report/reference_tables.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 namespace coldcore {
 
+static void write_properties_table_unrendered(const PropertiesTable& t, Format f, TempUnit u, std::ostream& out);
+
 void write_properties_table(const PropertiesTable& t, Format f, TempUnit u, std::ostream& out) {
+  write_rendered(out, u, [&](std::ostream& o) { write_properties_table_unrendered(t, f, u, o); });
+}
+
+static void write_properties_table_unrendered(const PropertiesTable& t, Format f, TempUnit u, std::ostream& out) {
   const Composition& c = t.composition;
   const std::string source =
       "Choi & Okos (1986) component polynomials with the ASHRAE mixing rules (ASHRAE Handbook—Refrigeration, "

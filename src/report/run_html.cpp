@@ -3,12 +3,19 @@
 #include <ostream>
 
 #include "coldcore/report/html.hpp"
+#include "coldcore/report/temperature_text.hpp"
 #include "rich_page.hpp"
 #include "run_figures.hpp"
 
 namespace coldcore {
 
+static void write_run_html_unrendered(const RunReport& r, std::ostream& o, TempUnit u);
+
 void write_run_html(const RunReport& r, std::ostream& o, TempUnit u) {
+  write_rendered(o, u, [&](std::ostream& o) { write_run_html_unrendered(r, o, u); });
+}
+
+static void write_run_html_unrendered(const RunReport& r, std::ostream& o, TempUnit u) {
   using namespace detail;
   html_page_begin(o, r.title, lead_sentence(r), running_text(r.measured ? r.measured->lot : "", r.provenance));
   html_verdict_summary(o, verdict_summary(r));

@@ -8,6 +8,7 @@
 #include "coldcore/report/run_report.hpp"
 #include "coldcore/report/solve_report.hpp"
 #include "coldcore/report/verdict_summary.hpp"
+#include "coldcore/report/temperature_text.hpp"
 
 namespace coldcore {
 
@@ -58,7 +59,13 @@ std::string display_column(const Column& c, TempUnit u) {
 
 }  // namespace
 
+static void write_run_json_unrendered(const RunReport& r, std::ostream& out, TempUnit u);
+
 void write_run_json(const RunReport& r, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_run_json_unrendered(r, o, u); });
+}
+
+static void write_run_json_unrendered(const RunReport& r, std::ostream& out, TempUnit u) {
   JsonWriter w(out);
   w.begin_object();
   write_json_envelope(w, r.verb, u);
@@ -212,7 +219,13 @@ void write_scenario_rows(const RunReport& r, std::ostream& out, TempUnit u) {
 
 }  // namespace
 
+static void write_run_csv_unrendered(const RunReport& r, std::ostream& out, TempUnit u);
+
 void write_run_csv(const RunReport& r, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_run_csv_unrendered(r, o, u); });
+}
+
+static void write_run_csv_unrendered(const RunReport& r, std::ostream& out, TempUnit u) {
   write_summary_csv(out, verdict_summary(r));
   for (const auto& c : r.cautions) out << "# caution: " << c << "\n";
   for (const auto& kv : r.provenance) out << "# " << kv.key << ": " << kv.value << "\n";

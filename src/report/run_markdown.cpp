@@ -2,12 +2,25 @@
 #include <sstream>
 
 #include "coldcore/report/markdown.hpp"
+#include "coldcore/report/temperature_text.hpp"
 #include "rich_page.hpp"
 #include "run_figures.hpp"
 
 namespace coldcore {
 
+MarkdownReport rendered(MarkdownReport md, TempUnit u) {
+  md.markdown = render_temperatures(md.markdown, u);
+  for (auto& [name, svg] : md.svg_files) svg = render_temperatures(svg, u);
+  return md;
+}
+
+static MarkdownReport write_run_markdown_unrendered(const RunReport& r, TempUnit u, std::string_view svg_basename);
+
 MarkdownReport write_run_markdown(const RunReport& r, TempUnit u, std::string_view svg_basename) {
+  return rendered(write_run_markdown_unrendered(r, u, svg_basename), u);
+}
+
+static MarkdownReport write_run_markdown_unrendered(const RunReport& r, TempUnit u, std::string_view svg_basename) {
   using namespace detail;
   MarkdownReport rep;
   std::ostringstream o;

@@ -64,7 +64,13 @@ void print_stage_table(std::ostream& out, const RunReport& r, const std::vector<
 
 }  // namespace
 
+static void write_run_text_unrendered(const RunReport& r, std::ostream& out, TempUnit u);
+
 void write_run_text(const RunReport& r, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_run_text_unrendered(r, o, u); });
+}
+
+static void write_run_text_unrendered(const RunReport& r, std::ostream& out, TempUnit u) {
   const std::string us(unit_symbol(u));
   out << r.title << "\n\n";
   write_summary_text(out, verdict_summary(r));

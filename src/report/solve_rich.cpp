@@ -7,6 +7,7 @@
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/solve_report.hpp"
 #include "coldcore/report/history_notes.hpp"
+#include "coldcore/report/temperature_text.hpp"
 #include "rich_page.hpp"
 #include "run_figures.hpp"
 #include "solve_text.hpp"
@@ -189,12 +190,24 @@ void write_solve_doc(RichDoc& d, const SolveResult& r, const SolveReportContext&
 
 }  // namespace
 
+static void write_solve_html_unrendered(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
+
 void write_solve_html(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_solve_html_unrendered(r, c, o, u); });
+}
+
+static void write_solve_html_unrendered(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u) {
   const auto d = detail::html_doc(out);
   write_solve_doc(*d, r, c, u);
 }
 
-MarkdownReport write_solve_markdown(const SolveResult& r, const SolveReportContext& c, TempUnit u,
+static MarkdownReport write_solve_markdown_unrendered(const SolveResult& r, const SolveReportContext& c, TempUnit u, std::string_view svg_basename);
+
+MarkdownReport write_solve_markdown(const SolveResult& r, const SolveReportContext& c, TempUnit u, std::string_view svg_basename) {
+  return rendered(write_solve_markdown_unrendered(r, c, u, svg_basename), u);
+}
+
+static MarkdownReport write_solve_markdown_unrendered(const SolveResult& r, const SolveReportContext& c, TempUnit u,
                                     std::string_view svg_basename) {
   MarkdownReport rep;
   std::ostringstream o;

@@ -8,6 +8,7 @@
 #include "coldcore/report/solve_report.hpp"
 #include "coldcore/report/verdict_summary.hpp"
 #include "coldcore/report/history_notes.hpp"
+#include "coldcore/report/temperature_text.hpp"
 #include "solve_text.hpp"
 
 namespace coldcore {
@@ -91,7 +92,13 @@ void write_cooling_steps_json(JsonWriter& w, const CoolingCheck& c) {
   w.end_array();
 }
 
+static void write_solve_text_unrendered(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
+
 void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_solve_text_unrendered(r, c, o, u); });
+}
+
+static void write_solve_text_unrendered(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u) {
   out << "coldcore solve --for " << to_string(r.question) << ": " << c.product_name << "\n\n";
   write_summary_text(out, verdict_summary(r, c.conservative));
   if (!r.stage.empty()) out << "  stage:            " << r.stage << "\n";
@@ -154,7 +161,13 @@ void write_solve_text(const SolveResult& r, const SolveReportContext& c, std::os
   for (const auto& cau : cautions()) out << "  * " << cau << "\n";
 }
 
+static void write_solve_json_unrendered(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
+
 void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_solve_json_unrendered(r, c, o, u); });
+}
+
+static void write_solve_json_unrendered(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u) {
   JsonWriter w(out);
   w.begin_object();
   write_json_envelope(w, "solve", u);
@@ -234,7 +247,13 @@ void write_solve_json(const SolveResult& r, const SolveReportContext& c, std::os
   out << "\n";
 }
 
-void write_solve_csv(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit) {
+static void write_solve_csv_unrendered(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u);
+
+void write_solve_csv(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit u) {
+  write_rendered(out, u, [&](std::ostream& o) { write_solve_csv_unrendered(r, c, o, u); });
+}
+
+static void write_solve_csv_unrendered(const SolveResult& r, const SolveReportContext& c, std::ostream& out, TempUnit) {
   write_summary_csv(out, verdict_summary(r, c.conservative));
   for (const auto& cau : cautions()) out << "# caution: " << cau << "\n";
   for (const auto& kv : c.provenance) out << "# " << kv.key << ": " << kv.value << "\n";

@@ -3,6 +3,8 @@
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
+#include <ostream>
+#include <sstream>
 
 namespace coldcore {
 
@@ -78,6 +80,12 @@ std::string render_temperatures(std::string_view text, TempUnit u) {
   }
   out.append(text.substr(pos));
   return out;
+}
+
+void write_rendered(std::ostream& out, TempUnit u, const std::function<void(std::ostream&)>& write) {
+  std::ostringstream buffer;
+  write(buffer);
+  out << render_temperatures(buffer.str(), u);
 }
 
 }  // namespace coldcore

@@ -8,6 +8,7 @@
 #include "coldcore/report/html.hpp"
 #include "coldcore/report/json.hpp"
 #include "coldcore/report/markdown.hpp"
+#include "coldcore/model/temperature_token.hpp"
 #include "coldcore/report/svg_plot.hpp"
 #include "support/sample_report.hpp"
 
@@ -30,5 +31,28 @@ TEST_CASE("text / json / csv / markdown and html all carry every caution") {
       CHECK(md.find(c) != std::string::npos);
       CHECK(html.str().find(svg::xml_escape(c)) != std::string::npos);
     }
+  }
+}
+
+// The report API hands out final text: a temperature that a lower layer wrote into a note as a
+// token (model/temperature_token.hpp) leaves every writer in the display unit, with no token
+// bytes left for the caller to render (issue 12 item 3; 57 °C = 134.6 °F by the scale's definition).
+TEST_CASE("every run writer renders temperature tokens itself - library output is final text") {
+  RunReport r = testing::sample_report();
+  r.warnings.push_back("the centre stayed above " + temp_token(57) + " for a while");
+  for (TempUnit u : {TempUnit::C, TempUnit::F}) {
+    CAPTURE(static_cast<int>(u));
+    std::ostringstream text, json, csv, html;
+    write_run_text(r, text, u);
+    write_run_json(r, json, u);
+    write_run_csv(r, csv, u);
+    write_run_html(r, html, u);
+    const MarkdownReport md = write_run_markdown(r, u, "x");
+    const std::string shown = u == TempUnit::C ? "above 57 °C" : "above 134.6 °F";
+    for (const std::string& out : {text.str(), json.str(), csv.str(), html.str(), md.markdown}) {
+      CHECK(out.find(temperature_token::open) == std::string::npos);
+      CHECK(out.find(shown) != std::string::npos);
+    }
+    for (const auto& [name, svg] : md.svg_files) CHECK(svg.find(temperature_token::open) == std::string::npos);
   }
 }

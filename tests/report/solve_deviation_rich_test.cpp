@@ -7,6 +7,7 @@
 #include <fstream>
 #include <sstream>
 
+#include "coldcore/model/temperature_token.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/deviation_report.hpp"
 #include "coldcore/report/solve_report.hpp"
@@ -338,6 +339,36 @@ TEST_CASE("the committed example solve and deviation reports are well-formed and
       std::stringstream st;
       st << s.rdbuf();
       CHECK_MESSAGE(xml_problem(st.str()) == "", file);
+    }
+  }
+}
+
+// Library output is final text (issue 12 item 3): a token in a note leaves every solve and
+// deviation writer in the display unit (63 °C = 145.4 °F by the scale's definition).
+TEST_CASE("solve and deviation writers render temperature tokens themselves - no token bytes leave the API") {
+  process::SolveResult s = solve_result();
+  s.notes.push_back("held above " + temp_token(63));
+  process::DeviationResult d = deviation_result();
+  d.notes.push_back("held above " + temp_token(63));
+  const RunReport plot = sample_report();
+  for (TempUnit u : {TempUnit::C, TempUnit::F}) {
+    CAPTURE(static_cast<int>(u));
+    std::ostringstream st, sj, sc, sh, dt, dj, dc, dh;
+    write_solve_text(s, solve_context(&plot), st, u);
+    write_solve_json(s, solve_context(&plot), sj, u);
+    write_solve_csv(s, solve_context(&plot), sc, u);
+    write_solve_html(s, solve_context(&plot), sh, u);
+    write_deviation_text(d, deviation_info(&plot, &plot), dt, u);
+    write_deviation_json(d, deviation_info(&plot, &plot), dj, u);
+    write_deviation_csv(d, deviation_info(&plot, &plot), dc, u);
+    write_deviation_html(d, deviation_info(&plot, &plot), dh, u);
+    const MarkdownReport sm = write_solve_markdown(s, solve_context(&plot), u, "s");
+    const MarkdownReport dm = write_deviation_markdown(d, deviation_info(&plot, &plot), u, "d");
+    const std::string shown = u == TempUnit::C ? "above 63 °C" : "above 145.4 °F";
+    for (const std::string& out : {st.str(), sj.str(), sc.str(), sh.str(), dt.str(), dj.str(), dc.str(), dh.str(),
+                                   sm.markdown, dm.markdown}) {
+      CHECK(out.find(temperature_token::open) == std::string::npos);
+      CHECK(out.find(shown) != std::string::npos);
     }
   }
 }

@@ -17,6 +17,9 @@ struct MarkdownReport {
   std::vector<std::pair<std::string, std::string>> svg_files;
 };
 
+/// `md` with every temperature token in its text and its SVG files rendered in u.
+MarkdownReport rendered(MarkdownReport md, TempUnit u);
+
 /// The same content as write_run_html. REQUIRES: svg_basename non-empty, a plain file name
 /// (no directory part is added or removed). Temperatures in `u`, F-values in minutes.
 MarkdownReport write_run_markdown(const RunReport& r, TempUnit u, std::string_view svg_basename);
