@@ -19,7 +19,6 @@
 
 #include "coldcore/conduction/modes.hpp"
 #include "coldcore/error.hpp"
-#include "coldcore/model/temperature_token.hpp"
 #include "coldcore/number_text.hpp"
 #include "conduction/detail/history_engine.hpp"
 #include "conduction/detail/medium_scan.hpp"

@@ -1,5 +1,4 @@
 #include "coldcore/lethality/integrate.hpp"
-#include "coldcore/model/temperature_token.hpp"
 
 #include <algorithm>
 #include <boost/math/quadrature/gauss_kronrod.hpp>
@@ -146,7 +145,7 @@ LogIntegral f_trapezoid_s(std::span<const double> times_s, std::span<const doubl
     prev = cur;
   }
   out.F_s = s;
-  out.warnings = check_log_sampling(times_s, temps_C, k);
+  out.notes = check_log_sampling(times_s, temps_C, k);
   return out;
 }
 
@@ -195,7 +194,7 @@ LogIntegral f_simpson_s(std::span<const double> times_s, std::span<const double>
          f[j - 2] * h1 * h1 * h1 / (6 * h0 * (h0 + h1));
   }
   out.F_s = s;
-  out.warnings = check_log_sampling(times_s, temps_C, k);
+  out.notes = check_log_sampling(times_s, temps_C, k);
   return out;
 }
 
@@ -227,16 +226,16 @@ LogIntegral f_piecewise_linear_s(std::span<const double> times_s, std::span<cons
     }
   }
   out.F_s = s;
-  out.warnings = check_log_sampling(times_s, temps_C, k);
+  out.notes = check_log_sampling(times_s, temps_C, k);
   return out;
 }
 
-std::vector<std::string> check_log_sampling(std::span<const double> times_s,
-                                            std::span<const double> temps_C, const Kinetics& k) {
-  std::vector<std::string> w;
+std::vector<SamplingNote> check_log_sampling(std::span<const double> times_s,
+                                             std::span<const double> temps_C, const Kinetics& k) {
+  std::vector<SamplingNote> w;
   const std::size_t n = times_s.size();
   if (n < 3) {
-    w.push_back("only " + std::to_string(n) + " log rows: lethality between them is unknown");
+    w.push_back({.kind = SamplingNoteKind::too_few_rows, .count = n});
     return w;
   }
   std::vector<double> dts(n - 1);
@@ -250,25 +249,24 @@ std::vector<std::string> check_log_sampling(std::span<const double> times_s,
     contrib[i - 1] = 0.5 * (lethal_rate(temps_C[i - 1], k) + lethal_rate(temps_C[i], k)) * dts[i - 1];
     total += contrib[i - 1];
   }
-  int gaps = 0, coarse = 0;
+  std::size_t gaps = 0, coarse = 0;
   for (std::size_t i = 0; i + 1 < n; ++i) {
     if (dts[i] > 5 * median && dts[i] >= 60) {
       if (++gaps <= 3)
-        w.push_back("log gap of " + detail::num(dts[i]) + " s after t = " + detail::num(times_s[i]) +
-                    " s (median interval " + detail::num(median) + " s)");
+        w.push_back({.kind = SamplingNoteKind::gap, .from_s = times_s[i], .to_s = times_s[i + 1],
+                     .median_interval_s = median});
     }
     const double z_here = (k.split_C && k.z_below_C && std::max(temps_C[i], temps_C[i + 1]) < *k.split_C)
                               ? *k.z_below_C : k.z_C;
     if (std::abs(temps_C[i + 1] - temps_C[i]) > 0.1 * z_here && total > 0 &&
         contrib[i] >= 0.01 * total) {
       if (++coarse <= 3)
-        w.push_back("coarse sampling: " + temp_token(temps_C[i], 10) + " -> " +
-                    temp_token(temps_C[i + 1], 10) + " between t = " + detail::num(times_s[i]) +
-                    " and " + detail::num(times_s[i + 1]) + " s (more than z/10 in one interval)");
+        w.push_back({.kind = SamplingNoteKind::coarse, .from_s = times_s[i], .to_s = times_s[i + 1],
+                     .from_C = temps_C[i], .to_C = temps_C[i + 1]});
     }
   }
-  if (gaps > 3) w.push_back(std::to_string(gaps - 3) + " more log gaps");
-  if (coarse > 3) w.push_back(std::to_string(coarse - 3) + " more coarsely sampled intervals");
+  if (gaps > 3) w.push_back({.kind = SamplingNoteKind::more_gaps, .count = gaps - 3});
+  if (coarse > 3) w.push_back({.kind = SamplingNoteKind::more_coarse, .count = coarse - 3});
   return w;
 }
 

@@ -199,7 +199,7 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
           out.warnings.push_back(r.name + ": trapezoid, Simpson and linear-interpolation F differ by " +
                                  shown_up(100 * (hi - r.F_s) / r.F_s, 2) +
                                  " %; the smallest is used (the log may be too coarse)");
-        for (const auto& w : tr.warnings) out.warnings.push_back(r.name + ": " + w);
+        for (const auto& n : tr.notes) out.warnings.push_back(r.name + ": " + sampling_note_text(n));
         if (!t.stages.empty())
           r.notes.push_back("stages cannot be selected on a probe log: the whole log is credited");
         // Out-of-range share on the linear interpolant.

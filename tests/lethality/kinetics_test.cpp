@@ -165,8 +165,11 @@ TEST_CASE("log integrators reject bad logs and warn on gaps") {
     T2.push_back(70);
   }
   const auto r = f_trapezoid_s(t2, T2, k);
-  REQUIRE(!r.warnings.empty());
-  CHECK(r.warnings[0].find("log gap of 610 s") != std::string::npos);
+  REQUIRE(!r.notes.empty());
+  CHECK(r.notes[0].kind == SamplingNoteKind::gap);
+  CHECK(r.notes[0].from_s == 90);
+  CHECK(r.notes[0].to_s == 700);  // a 610 s interval, against a median of 10 s
+  CHECK(r.notes[0].median_interval_s == 10);
 }
 
 TEST_CASE("Weibull: isothermal definition and the non-isothermal reduction") {

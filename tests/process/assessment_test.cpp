@@ -272,3 +272,23 @@ TEST_CASE("cooking table on a history") {
   const CookingCheck p = check_cooking_table(h, tabs.at("food-code-poultry", "t"));
   CHECK_FALSE(p.met);  // never reaches 74 C
 }
+
+// The log-sampling check returns numbers (lethality/integrate.hpp); the assessment words them.
+// Rules of the check as documented there: a gap is > 5 × the median interval and >= 60 s; a
+// coarse interval changes by more than z/10 and carries >= 1 % of F.
+TEST_CASE("probe log: a gap and a coarse interval are worded with their times and temperatures") {
+  std::vector<double> ts, Ts;
+  for (int i = 0; i < 40; ++i) {
+    ts.push_back(i * 10.0 + (i >= 20 ? 600 : 0));  // 610 s from t = 190 s to 800 s
+    Ts.push_back(i == 30 ? 75.0 : 70.0);           // 70 -> 75 °C in one 10 s step: > z/10 = 0.75 K
+  }
+  const ProbeAssessment p = assess_probe_log(ts, Ts, {listeria(1)}, orgs(), rules());
+  const auto has = [&](const std::string& text) {
+    for (const auto& w : p.warnings)
+      if (w.find(text) != std::string::npos) return true;
+    return false;
+  };
+  CHECK(has("log gap of 610 s after t = 190 s (median interval 10 s)"));
+  CHECK(has("coarse sampling: "));
+  CHECK(has(" between t = 890 and 900 s (more than z/10 in one interval)"));
+}

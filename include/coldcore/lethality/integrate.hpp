@@ -41,10 +41,27 @@ LethalityResult f_value(const std::function<double(double)>& temp_C_at,
 LethalityResult f_value(const std::function<double(double)>& temp_C_at,
                         std::span<const double> breakpoints_s, const Kinetics& k, double rel_tol);
 
+/// What check_log_sampling found; the assessment words it (numbers only here).
+enum class SamplingNoteKind {
+  too_few_rows,  ///< fewer than 3 rows: `count` rows
+  gap,           ///< an interval from `from_s` to `to_s`, against the log's `median_interval_s`
+  coarse,        ///< from `from_C` at `from_s` to `to_C` at `to_s`: more than z/10 in one interval
+  more_gaps,     ///< `count` further gaps (only the first three are listed one by one)
+  more_coarse,   ///< `count` further coarse intervals
+};
+
+struct SamplingNote {
+  SamplingNoteKind kind = SamplingNoteKind::gap;
+  double from_s = 0, to_s = 0;     ///< the interval (gap, coarse)
+  double from_C = 0, to_C = 0;     ///< its end temperatures (coarse)
+  double median_interval_s = 0;    ///< the log's median interval (gap)
+  std::size_t count = 0;           ///< rows (too_few_rows) or further intervals (more_*)
+};
+
 /// Result of integrating a measured log.
 struct LogIntegral {
   double F_s = 0;
-  std::vector<std::string> warnings;  ///< gaps, coarse sampling (see check_log_sampling)
+  std::vector<SamplingNote> notes;  ///< gaps, coarse sampling (see check_log_sampling)
 };
 
 /// Trapezoid rule on the lethal rates at the logged times (non-uniform spacing allowed).
@@ -73,8 +90,8 @@ LogIntegral f_piecewise_linear_s(std::span<const double> times_s, std::span<cons
 /// Sampling warnings for a log used for lethality: a gap (an interval longer than 5 × the median
 /// interval and at least 60 s), or coarse sampling (an interval whose temperature change exceeds
 /// z/10, i.e. the lethal rate changes by more than 26 % across it, and which carries >= 1 % of F).
-std::vector<std::string> check_log_sampling(std::span<const double> times_s,
-                                            std::span<const double> temps_C, const Kinetics& k);
+std::vector<SamplingNote> check_log_sampling(std::span<const double> times_s,
+                                             std::span<const double> temps_C, const Kinetics& k);
 
 /// Across a gap (an interval longer than max_gap_s) the temperature was not recorded: no
 /// lethality is credited for it. Same rules as above, applied to each gap-free run of rows and

@@ -1,6 +1,6 @@
 #pragma once
 // The pieces the assessment is built from, shared by its source files (process/assessment.cpp,
-// target_verdict.cpp, assessment_curves.cpp, target_results.cpp). Private to src/process/.
+// target_verdict.cpp, assessment_curves.cpp, target_results.cpp, sampling_notes.cpp). Private to src/process/.
 #include <array>
 #include <functional>
 #include <limits>
@@ -9,6 +9,7 @@
 #include <utility>
 #include <vector>
 
+#include "coldcore/lethality/integrate.hpp"
 #include "coldcore/process/assessment.hpp"
 #include "lethality/detail/crossing.hpp"
 
@@ -28,6 +29,8 @@ inline const ShownUnit kMin{1.0 / 60.0, " min"};
 
 std::string shown(double value, int significant, bool up);
 std::string minutes_down(double s);
+/// The warning sentence for one finding of the log-sampling check (sampling_notes.cpp).
+std::string sampling_note_text(const SamplingNote& n);
 std::string minutes_up(double s);
 /// Rounding of the unit conversions behind a margin and of the subtraction: a tie inside it.
 double rounding_bound(double a, double b);
