@@ -59,7 +59,7 @@ int deviation_report(const DeviationArgs& a, std::ostream& out, SideFiles& side,
     apply_log_format(a.log_format, lo);
     lo.max_gap_s = a.max_gap_s;
     if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
-    const io::TimeSeries log = io::parse_log_csv(text, a.medium_log, lo);
+    const TimeSeries log = io::parse_log_csv(text, a.medium_log, lo);
     for (const auto& w : log.warnings) info.warnings.push_back(w);
     in.medium_log = io::medium_profile(log, a.medium_log, text);
     in.stage = a.stage.empty() ? process::default_stage(in.scheduled, true)
@@ -77,7 +77,7 @@ int deviation_report(const DeviationArgs& a, std::ostream& out, SideFiles& side,
     lo.time_column = a.probe_time_column;
     lo.max_gap_s = a.max_gap_s;
     if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
-    const io::TimeSeries log = io::parse_log_csv(text, a.probe_log, lo);
+    const TimeSeries log = io::parse_log_csv(text, a.probe_log, lo);
     for (const auto& w : log.warnings) info.warnings.push_back(w);
     in.probe_time_s = log.time_s;
     in.probe_temp_C = log.temp_C;

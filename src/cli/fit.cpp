@@ -40,7 +40,7 @@ struct FitArgs {
 };
 
 struct ReadLog {
-  io::TimeSeries series;
+  TimeSeries series;
   std::string bytes;
 };
 

@@ -21,7 +21,7 @@ struct MediaArgs {
 int media_table(const MediaArgs& a, std::ostream& out) {
   const Format f = output_format(a.output);
   const auto path = library_path("media.toml", a.library, "");
-  const io::MediaLibrary lib = io::parse_media(io::read_text_file(path), path.generic_string());
+  const MediaLibrary lib = io::parse_media(io::read_text_file(path), path.generic_string());
   write_media_library(lib, f, parse_temp_unit(a.output.units), out);
   return kAllMet;
 }

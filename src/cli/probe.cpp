@@ -109,7 +109,7 @@ int probe_report(const ProbeArgs& a, std::ostream& out, std::ostream& err, SideF
   lo.temp_column = a.temp_column;
   apply_log_format(a.log_format, lo);
   if (!a.timezone.empty()) lo.utc_offset_s = io::parse_utc_offset_s(a.timezone);
-  const io::TimeSeries log = io::parse_log_csv(bytes, a.log, lo);
+  const TimeSeries log = io::parse_log_csv(bytes, a.log, lo);
   const LibraryFiles lib = load_libraries(a.library, a.log);
   AssessOptions opts;
   opts.max_gap_s = a.max_gap_s;  // issue 11: no lethality across a gap

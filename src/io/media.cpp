@@ -11,21 +11,15 @@
 
 namespace coldcore::io {
 
-const MediumType* MediaLibrary::find(std::string_view key) const {
-  for (const auto& m : media)
-    if (m.key == key) return &m;
-  return nullptr;
-}
-
-const MediumType& MediaLibrary::at(std::string_view key, std::string_view place) const {
-  if (const MediumType* m = find(key)) return *m;
+const MediumType& medium_at(const MediaLibrary& library, std::string_view key, std::string_view place) {
+  if (const MediumType* m = library.find(key)) return *m;
   std::vector<std::string> keys;
   std::string accepted;
-  for (const auto& m : media) {
+  for (const auto& m : library.media) {
     keys.push_back(m.key);
     accepted += (accepted.empty() ? "" : ", ") + m.key;
   }
-  std::string msg = std::string(place) + " = " + detail::quote(key) + ": not in " + origin;
+  std::string msg = std::string(place) + " = " + detail::quote(key) + ": not in " + library.origin;
   if (auto near = did_you_mean(key, keys)) msg += "; did you mean " + detail::quote(*near) + "?";
   throw InputError(msg + "; accepted: " + accepted);
 }

@@ -18,7 +18,7 @@ void apply_media(ProductFile& file, const MediaLibrary& media) {
     if (sh.medium_type.empty()) continue;
     Stage& st = file.stages[i];
     const std::string place = file.origin + ": stage[" + std::to_string(i + 1) + "].medium_type";
-    const MediumType& m = media.at(sh.medium_type, place);
+    const MediumType& m = medium_at(media, sh.medium_type, place);
     // The stage's own h is the low end; evaluate() takes each target's conservative end
     // (process/h_ends.hpp) from the range kept in stage_h and given to the Scenario by scenario_of().
     st.h_W_m2K = m.h_min_W_m2K;

@@ -10,13 +10,13 @@
 
 namespace coldcore {
 
-static void write_media_library_unrendered(const io::MediaLibrary& lib, Format f, TempUnit u, std::ostream& out);
+static void write_media_library_unrendered(const MediaLibrary& lib, Format f, TempUnit u, std::ostream& out);
 
-void write_media_library(const io::MediaLibrary& lib, Format f, TempUnit u, std::ostream& out) {
+void write_media_library(const MediaLibrary& lib, Format f, TempUnit u, std::ostream& out) {
   write_rendered(out, u, [&](std::ostream& o) { write_media_library_unrendered(lib, f, u, o); });
 }
 
-static void write_media_library_unrendered(const io::MediaLibrary& lib, Format f, TempUnit u, std::ostream& out) {
+static void write_media_library_unrendered(const MediaLibrary& lib, Format f, TempUnit u, std::ostream& out) {
   const std::string use =
       "a stage naming medium_type uses, for each target, the end of the range conservative for it: the LOW end in "
       "a heating stage (slower heating, conservative for lethality and minimum temperatures) and for a cooling "

@@ -37,7 +37,7 @@ DeliveredRow delivered_row(const TargetResult& t, const VerdictRow& v) {
 
 }  // namespace
 
-RunReport build_probe_report(const io::TimeSeries& log, const ProbeAssessment& pa, const ProbeReportOptions& opts) {
+RunReport build_probe_report(const TimeSeries& log, const ProbeAssessment& pa, const ProbeReportOptions& opts) {
   RunReport r;
   r.verb = "probe";
   r.title = "coldcore probe: measured cold-spot log " + opts.log_path + (opts.lot.empty() ? "" : ", lot " + opts.lot);

@@ -11,8 +11,8 @@
 namespace {
 
 /// The project's own media library (the one the demo products use).
-const coldcore::io::MediaLibrary& project_media() {
-  static const coldcore::io::MediaLibrary media = [] {
+const coldcore::MediaLibrary& project_media() {
+  static const coldcore::MediaLibrary media = [] {
     std::ifstream in(COLDCORE_SOURCE_DIR "/products/media.toml", std::ios::binary);
     std::stringstream text;
     text << in.rdbuf();
@@ -29,7 +29,7 @@ std::optional<std::string> fixed_log(const std::filesystem::path& path) {
 }  // namespace
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
-  const coldcore::io::MediaLibrary& media = project_media();
+  const coldcore::MediaLibrary& media = project_media();
   coldcore::fuzz::expect_parsed_or_refused([&] {
     coldcore::io::ProductFile file =
         coldcore::io::parse_product(coldcore::fuzz::as_text(data, size), "fuzz/product.toml", "fuzz", fixed_log);

@@ -13,14 +13,14 @@ using namespace coldcore;
 TEST_CASE("media.toml: every medium parses with a source and status") {
   const auto lib = io::parse_media(test::read_source_file("products/media.toml"), "media.toml");
   CHECK(lib.media.size() == 7);
-  const auto& steam = lib.at("condensing-steam", "t");
+  const auto& steam = io::medium_at(lib, "condensing-steam", "t");
   // boiling and condensation 2 500–100 000 W/m2K (Çengel, as cited in media.toml)
   CHECK(steam.h_max_W_m2K == 100000);
   for (const auto& m : lib.media) {
     CHECK_FALSE(m.source.empty());
     CHECK(m.h_min_W_m2K <= m.h_max_W_m2K);
   }
-  CHECK_THROWS_WITH_AS(lib.at("blast-chil", "p.toml: stage[2].medium_type"),
+  CHECK_THROWS_WITH_AS(io::medium_at(lib, "blast-chil", "p.toml: stage[2].medium_type"),
                        doctest::Contains("p.toml: stage[2].medium_type = \"blast-chil\": not in media.toml; did you mean \"blast-chill\"?"),
                        InputError);
 }

@@ -63,6 +63,8 @@ foreach(f IN LISTS files)
       set(ok FALSE)
     elseif(rank_${b} EQUAL rank_${a} AND NOT rank_${a} EQUAL 1)
       set(ok FALSE)  # siblings (conduction/lethality, process/io) stay apart
+    elseif(a STREQUAL "report" AND b STREQUAL "io")
+      set(ok FALSE)  # report builds from model and process records, never from what io read
     endif()
     if(NOT ok)
       set(entry "${f} -> ${inc}")

@@ -118,7 +118,7 @@ TEST_CASE("issue 11: deviation counts a log gap against a cooling rule in a cond
   process::DeviationInput in;
   in.scheduled = s;
   in.stage = 2;
-  const io::TimeSeries log =
+  const TimeSeries log =
       io::parse_log_csv(test::read_source_file("tests/cli/issue11-gaps/chill-gap.csv"), "chill-gap.csv");
   in.medium_log = io::medium_profile(log, "chill-gap.csv", "");
   const process::DeviationResult r = process::evaluate_deviation(in, {&orgs(), &rules(), &cooking()});

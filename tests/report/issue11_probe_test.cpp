@@ -26,7 +26,7 @@ namespace {
 const OrganismLibrary& orgs() { return test::project_organisms(); }
 const RuleLibrary& rules() { return test::project_rules(); }
 
-io::TimeSeries constant_log() {
+TimeSeries constant_log() {
   return io::parse_log_csv(test::read_source_file("tests/cli/probe/constant-70C.csv"), "constant-70C.csv");
 }
 
@@ -46,7 +46,7 @@ Target own_without_requirement() {
 }
 
 RunReport probe_report(bool requirement, const std::string& lot) {
-  const io::TimeSeries log = constant_log();
+  const TimeSeries log = constant_log();
   const ProbeAssessment pa = assess_probe_log(log.time_s, log.temp_C, {own_without_requirement()}, orgs(), rules());
   ProbeReportOptions o;
   o.log_path = "constant-70C.csv";
@@ -87,14 +87,14 @@ bool has(const std::string& s, const std::string& what) { return s.find(what) !=
 }  // namespace
 
 TEST_CASE("issue 11: a timestamped log gives its first row's clock time - a log in seconds has none") {
-  const io::TimeSeries log = constant_log();
+  const TimeSeries log = constant_log();
   REQUIRE(log.start_unix_s.has_value());
   CHECK(*log.start_unix_s == 1796018400.0);
   CHECK(log.time_s.front() == 0.0);
   CHECK(utc_text(*log.start_unix_s) == "2026-11-30 06:00:00 UTC");
   CHECK(utc_text(*log.start_unix_s + 240.9) == "2026-11-30 06:04:00 UTC");  // whole seconds, rounded down
   CHECK(utc_text(0) == "1970-01-01 00:00:00 UTC");
-  const io::TimeSeries secs = io::parse_log_csv("time_s,probe_C\n0,5\n30,6\n", "s.csv");
+  const TimeSeries secs = io::parse_log_csv("time_s,probe_C\n0,5\n30,6\n", "s.csv");
   CHECK_FALSE(secs.start_unix_s.has_value());
 }
 

@@ -23,21 +23,13 @@
 #include <string_view>
 #include <vector>
 
+#include "coldcore/model/media_library.hpp"
+
 namespace coldcore::io {
 
-struct MediumType {
-  std::string key, description;
-  double h_min_W_m2K = 0, h_max_W_m2K = 0;
-  std::string source, status;
-};
-
-struct MediaLibrary {
-  std::vector<MediumType> media;
-  std::string origin;
-  const MediumType* find(std::string_view key) const;
-  /// Else InputError "<place> = "<key>": not in <origin>; did you mean '<nearest>'? accepted: ...".
-  const MediumType& at(std::string_view key, std::string_view place) const;
-};
+/// The medium type `key` of `media`; else InputError "<place> = "<key>": not in <origin>; did
+/// you mean '<nearest>'? accepted: ...".
+const MediumType& medium_at(const MediaLibrary& media, std::string_view key, std::string_view place);
 
 /// Parses media.toml text. Throws InputError `<origin>: media.<key>.<field> = <value>: <why>`.
 MediaLibrary parse_media(std::string_view toml_text, std::string_view origin);

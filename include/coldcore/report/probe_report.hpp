@@ -8,7 +8,7 @@
 #include <string>
 #include <vector>
 
-#include "coldcore/io/logger_csv.hpp"
+#include "coldcore/model/time_series.hpp"
 #include "coldcore/process/assessment.hpp"
 #include "coldcore/report/run_report.hpp"
 
@@ -29,6 +29,6 @@ struct ProbeReportOptions {
 
 /// REQUIRES: pa from assess_probe_log on log.time_s / log.temp_C; log non-empty (parse_log_csv
 /// guarantees it).
-RunReport build_probe_report(const io::TimeSeries& log, const ProbeAssessment& pa, const ProbeReportOptions& opts);
+RunReport build_probe_report(const TimeSeries& log, const ProbeAssessment& pa, const ProbeReportOptions& opts);
 
 }  // namespace coldcore

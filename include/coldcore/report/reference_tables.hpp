@@ -7,7 +7,7 @@
 #include <vector>
 
 #include "coldcore/conduction/modes.hpp"
-#include "coldcore/io/media.hpp"
+#include "coldcore/model/media_library.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
 #include "coldcore/properties/composition.hpp"
@@ -31,6 +31,6 @@ void write_properties_table(const PropertiesTable& t, Format f, TempUnit u, std:
 
 void write_organism_library(const OrganismLibrary& lib, Format f, TempUnit u, std::ostream& out);
 void write_rule_library(const RuleLibrary& lib, Format f, TempUnit u, std::ostream& out);
-void write_media_library(const io::MediaLibrary& lib, Format f, TempUnit u, std::ostream& out);
+void write_media_library(const MediaLibrary& lib, Format f, TempUnit u, std::ostream& out);
 
 }  // namespace coldcore
