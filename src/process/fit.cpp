@@ -12,6 +12,7 @@
 #include "coldcore/error.hpp"
 #include "coldcore/model/limits.hpp"
 #include "detail/parallel.hpp"
+#include "process/detail/fit_parts.hpp"
 
 namespace coldcore::process {
 
@@ -27,44 +28,6 @@ struct Layout {
   bool alpha_free = true;
   double alpha = 0;              ///< when not free
 };
-
-std::vector<FittedH> stage_groups(const std::vector<Stage>& stages, const std::vector<bool>& heats) {
-  std::vector<FittedH> groups;
-  std::map<std::pair<double, bool>, int> by_h;
-  for (int i = 0; i < static_cast<int>(stages.size()); ++i) {
-    const Stage& s = stages[static_cast<std::size_t>(i)];
-    if (s.h_infinite) {
-      if (groups.empty() || groups.back().status != HStatus::fixed_infinite || groups.back().stages.back() != i - 1) {
-        FittedH g;
-        g.status = HStatus::fixed_infinite;
-        g.h_W_m2K = g.h_start_W_m2K = s.h_W_m2K;
-        groups.push_back(g);
-      }
-      groups.back().stages.push_back(i);
-      continue;
-    }
-    const std::pair<double, bool> key{s.h_W_m2K, heats[static_cast<std::size_t>(i)]};
-    auto it = by_h.find(key);
-    if (it == by_h.end()) {
-      FittedH g;
-      g.h_W_m2K = g.h_start_W_m2K = s.h_W_m2K;
-      groups.push_back(g);
-      it = by_h.emplace(key, static_cast<int>(groups.size()) - 1).first;
-    }
-    groups[static_cast<std::size_t>(it->second)].stages.push_back(i);
-  }
-  return groups;
-}
-
-/// A probe's initial temperature: the mean of its readings while the centre cannot yet have
-/// moved (Fo <= 0.02 at the file's α: the centre is then within 1e-6 of its start), so one
-/// noisy first reading does not bias the whole fit.
-double initial_of(const ProbeCurve& c, double window_s) {
-  double sum = 0;
-  int n = 0;
-  for (std::size_t i = 0; i < c.time_s.size() && (i == 0 || c.time_s[i] <= window_s); ++i, ++n) sum += c.temp_C[i];
-  return sum / n;
-}
 
 struct Model {
   const FitInput& in;
@@ -265,11 +228,11 @@ FitResult fit_study(const FitInput& in) {
   }
   const ThermalProperties& tp = in.product.properties;
   const double window_s = 0.02 * std::pow(smallest_half_dimension_m(in.product), 2) / tp.diffusivity_m2_s();
-  for (const ProbeCurve& c : in.probes) m.initial_C.push_back(initial_of(c, window_s));
+  for (const ProbeCurve& c : in.probes) m.initial_C.push_back(detail::initial_of(c, window_s));
   const double rho_cp = tp.density_kg_m3 * tp.specific_heat_J_kgK;
   FitResult res;
   res.alpha_start_m2_s = tp.diffusivity_m2_s();
-  m.layout.groups = stage_groups(
+  m.layout.groups = detail::stage_groups(
       in.stages, in.heating.size() == in.stages.size() ? in.heating : heating_stages(in.stages, in.product.initial_C));
   m.layout.alpha = res.alpha_start_m2_s;
   for (int g = 0; g < static_cast<int>(m.layout.groups.size()); ++g)

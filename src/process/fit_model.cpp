@@ -1,12 +1,58 @@
-// What the fit rests on besides the minimisation (fit.cpp): the engine's accuracy for finite
-// differences, the model curve at the readings' times, and the calibration a fit writes.
+// What the fit rests on besides the minimisation (fit.cpp): the h groups and the probes' initial
+// temperatures it starts from, the engine's accuracy for finite differences, the model curve at
+// the readings' times, and the calibration a fit writes.
 #include <algorithm>
+#include <map>
+#include <utility>
 #include <string>
 #include <vector>
 
 #include "coldcore/process/fit.hpp"
+#include "process/detail/fit_parts.hpp"
 
 namespace coldcore::process {
+
+namespace detail {
+
+std::vector<FittedH> stage_groups(const std::vector<Stage>& stages, const std::vector<bool>& heats) {
+  std::vector<FittedH> groups;
+  std::map<std::pair<double, bool>, int> by_h;
+  for (int i = 0; i < static_cast<int>(stages.size()); ++i) {
+    const Stage& s = stages[static_cast<std::size_t>(i)];
+    if (s.h_infinite) {
+      if (groups.empty() || groups.back().status != HStatus::fixed_infinite || groups.back().stages.back() != i - 1) {
+        FittedH g;
+        g.status = HStatus::fixed_infinite;
+        g.h_W_m2K = g.h_start_W_m2K = s.h_W_m2K;
+        groups.push_back(g);
+      }
+      groups.back().stages.push_back(i);
+      continue;
+    }
+    const std::pair<double, bool> key{s.h_W_m2K, heats[static_cast<std::size_t>(i)]};
+    auto it = by_h.find(key);
+    if (it == by_h.end()) {
+      FittedH g;
+      g.h_W_m2K = g.h_start_W_m2K = s.h_W_m2K;
+      groups.push_back(g);
+      it = by_h.emplace(key, static_cast<int>(groups.size()) - 1).first;
+    }
+    groups[static_cast<std::size_t>(it->second)].stages.push_back(i);
+  }
+  return groups;
+}
+
+/// A probe's initial temperature: the mean of its readings while the centre cannot yet have
+/// moved (Fo <= 0.02 at the file's α: the centre is then within 1e-6 of its start), so one
+/// noisy first reading does not bias the whole fit.
+double initial_of(const ProbeCurve& c, double window_s) {
+  double sum = 0;
+  int n = 0;
+  for (std::size_t i = 0; i < c.time_s.size() && (i == 0 || c.time_s[i] <= window_s); ++i, ++n) sum += c.temp_C[i];
+  return sum / n;
+}
+
+}  // namespace detail
 
 HistoryOptions FitInput::fit_engine_options() {
   // Finite differences of the model need it far smoother than the readings' noise (0.1 K):

@@ -1,4 +1,5 @@
-// The four inverse questions: set up the parameter, bracket, solve, round, verify.
+// The inverse questions: set up the parameter, bracket, solve, round, verify. The time questions
+// are here; the size and medium questions in solve_size_medium.cpp.
 #include <algorithm>
 #include <cmath>
 #include <functional>
@@ -10,6 +11,7 @@
 #include "coldcore/process/inverse.hpp"
 
 #include "process/detail/inverse_text.hpp"
+#include "process/detail/question_setup.hpp"
 
 namespace coldcore::process {
 
@@ -17,6 +19,7 @@ namespace {
 
 using detail::num;
 using detail::is_lethality;
+using detail::Setup;
 
 /// Which targets' verdicts at a bound explain a NoSolution, in words.
 std::string shortfalls(const Evaluation& e, const std::vector<int>& considered) {
@@ -50,18 +53,6 @@ std::string physical_reason(const Scenario& s, const Evaluation& at_bound, int s
   }
   return why;
 }
-
-struct Setup {
-  std::function<Scenario(double)> apply;   ///< scenario with the parameter set to x
-  FeasibleSide side = FeasibleSide::above;
-  double lo = 0, hi = 0;
-  RootOptions ro;
-  double unit = 0;
-  double domain_lo = -1e300, domain_hi = 1e300;  ///< one-unit-less must stay inside
-  std::vector<int> considered;
-  std::string why_none;
-  int stage = -1;
-};
 
 Check check_at(const Setup& st, const Libraries& libs, double x) {
   Check c;
@@ -98,7 +89,11 @@ void round_and_verify(SolveResult& res, const Setup& st, const Libraries& libs) 
   }
 }
 
-SolveResult run(Question q, const Setup& st, const Scenario& s, const Libraries& libs) {
+}  // namespace
+
+namespace detail {
+
+SolveResult run_question(Question q, const Setup& st, const Scenario& s, const Libraries& libs) {
   SolveResult res;
   res.question = q;
   for (int i : st.considered) res.considered.push_back(s.targets[static_cast<std::size_t>(i)].name);
@@ -129,6 +124,13 @@ std::vector<int> all_targets(const Scenario& s) {
   if (v.empty()) throw InputError(s.origin + ": target: missing: the question needs at least one [[target]]");
   return v;
 }
+
+}  // namespace detail
+
+namespace {
+
+using detail::all_targets;
+using detail::run_question;
 
 double stage_duration_s(const Scenario& s, int idx) {
   const Stage& st = s.stages[static_cast<std::size_t>(idx)];
@@ -169,7 +171,7 @@ SolveResult hold_time(const Scenario& s, const Libraries& libs, const SolveOptio
   st.domain_lo = 0;
   st.why_none = "no hold time of stage \"" + s.stages[k].name + "\" up to " + num(o.max_hold_s / 3600.0) +
                 " h meets every lethality target";
-  SolveResult r = run(Question::hold_time, st, s, libs);
+  SolveResult r = run_question(Question::hold_time, st, s, libs);
   r.stage = s.stages[k].name;
   r.quantity = "duration";
   r.unit = "s";
@@ -286,113 +288,6 @@ SolveResult chill_time(const Scenario& s, const Libraries& libs, const SolveOpti
   return res;
 }
 
-SolveResult max_size(const Scenario& s, const Libraries& libs, const SolveOptions& o) {
-  std::string name;
-  double nominal = 0;
-  std::function<void(Product&, double)> set;
-  const Dimensions& d = s.product.dims;
-  switch (s.product.shape) {
-    case Shape::sphere:
-    case Shape::cylinder:
-    case Shape::finite_cylinder:
-      name = "diameter";
-      nominal = d.diameter_m;
-      set = [](Product& p, double x) { p.dims.diameter_m = x; };
-      break;
-    case Shape::slab:
-      name = "thickness";
-      nominal = d.thickness_m;
-      set = [](Product& p, double x) { p.dims.thickness_m = x; };
-      break;
-    case Shape::brick: {
-      name = "smallest edge";
-      const int j = static_cast<int>(std::min_element(d.size_m, d.size_m + 3) - d.size_m);
-      nominal = d.size_m[j];
-      set = [j](Product& p, double x) { p.dims.size_m[j] = x; };
-      break;
-    }
-  }
-  Setup st;
-  st.apply = [s, set](double x) {
-    Scenario c = s;
-    set(c.product, x);
-    return c;
-  };
-  st.considered = all_targets(s);
-  st.side = FeasibleSide::below;
-  st.lo = nominal * o.min_size_factor;
-  st.hi = nominal * o.max_size_factor;
-  st.ro.rel_tol = o.rel_tol;
-  st.ro.abs_tol = 1e-9;
-  st.unit = o.unit_m;
-  st.domain_lo = 1e-9;
-  st.why_none = "no " + name + " from " + num(st.lo * 1000) + " to " + num(st.hi * 1000) +
-                " mm meets every target with the scheduled process";
-  // Met even at the largest size tried: no largest size within the bounds.
-  {
-    const Evaluation e = evaluate(st.apply(st.hi), libs, st.considered, search_history_options());
-    if (e.considered_met)
-      throw NoSolution("every target is still met at " + num(o.max_size_factor) + " x the nominal " + name + " (" +
-                       num(st.hi * 1000) + " mm), the search bound; the largest size lies beyond it");
-  }
-  // Bracket from the nominal size when it meets the targets: below it the margin need not be
-  // monotone (an until_* stage ends earlier for a small product, which may then lose a hold).
-  const bool nominal_met = evaluate(st.apply(nominal), libs, st.considered, search_history_options()).considered_met;
-  if (nominal_met) {
-    st.lo = nominal;
-  } else {
-    st.hi = nominal;
-    st.why_none = "the nominal " + name + " (" + num(nominal * 1000) + " mm) does not meet every target, nor does any " +
-                  name + " down to " + num(st.lo * 1000) + " mm";
-  }
-  SolveResult r = run(Question::max_size, st, s, libs);
-  r.assumptions.push_back(nominal_met ? "searched from the nominal " + name + " upward; smaller sizes are not examined"
-                                      : "the nominal " + name + " does not meet every target; searched below it");
-  r.quantity = name;
-  r.unit = "m";
-  r.nominal = nominal;
-  if (s.product.shape == Shape::finite_cylinder)
-    r.assumptions.push_back("finite cylinder: the diameter is varied, the length kept as in the file");
-  if (s.product.shape == Shape::brick)
-    r.assumptions.push_back("brick: the smallest edge is varied, the other edges kept as in the file");
-  r.assumptions.push_back("the stages as scheduled (durations, or their temperature conditions and caps) are kept");
-  return r;
-}
-
-SolveResult min_medium(const Scenario& s, const Libraries& libs, const SolveOptions& o) {
-  Setup st;
-  st.stage = o.stage.empty() ? default_stage(s, true) : stage_index(s, o.stage, "--stage");
-  const std::size_t k = static_cast<std::size_t>(st.stage);
-  st.apply = [s, k](double x) {
-    Scenario c = s;
-    c.stages[k].medium.points = {{0.0, x}};
-    c.stages[k].medium.description = "constant (solved)";
-    c.stages[k].medium_gaps_s.clear();
-    return c;
-  };
-  st.considered = all_targets(s);
-  st.side = FeasibleSide::above;
-  st.lo = s.product.initial_C;
-  st.hi = o.max_medium_C;
-  if (!(st.hi > st.lo))
-    throw InputError("--max-medium-C = " + num(st.hi) + ": must be above the initial temperature " + num(st.lo));
-  st.ro.rel_tol = o.rel_tol;
-  st.ro.abs_tol = 1e-6;
-  st.unit = o.unit_C;
-  st.why_none = "no constant medium temperature of stage \"" + s.stages[k].name + "\" up to " + temp_token(o.max_medium_C) +
-                " meets every target";
-  SolveResult r = run(Question::min_medium, st, s, libs);
-  r.stage = s.stages[k].name;
-  r.quantity = "medium";
-  r.unit = "C";
-  r.nominal = s.stages[k].medium.highest_C();
-  if (s.stages[k].medium.points.size() > 1)
-    r.assumptions.push_back("stage \"" + r.stage + "\" has a medium profile in the file; for this question it is "
-                            "replaced by a constant medium (nominal shown is the profile's highest point)");
-  r.assumptions.push_back("the search starts at the initial product temperature (" + temp_token(st.lo, 4) + ")");
-  return r;
-}
-
 }  // namespace
 
 SolveResult solve(Question q, const Scenario& s, const Libraries& libs, const SolveOptions& o) {
@@ -402,8 +297,8 @@ SolveResult solve(Question q, const Scenario& s, const Libraries& libs, const So
   switch (q) {
     case Question::hold_time: r = hold_time(s, libs, o); break;
     case Question::chill_time: r = chill_time(s, libs, o); break;
-    case Question::max_size: r = max_size(s, libs, o); break;
-    case Question::min_medium: r = min_medium(s, libs, o); break;
+    case Question::max_size: r = detail::max_size(s, libs, o); break;
+    case Question::min_medium: r = detail::min_medium(s, libs, o); break;
     default: throw InputError("--for: unknown question");
   }
   add_h_notes(r.verification.eval, r.notes);
