@@ -1,3 +1,4 @@
+#include "coldcore/io/libraries.hpp"
 #include "cli/library_files.hpp"
 
 #include <cstdlib>
@@ -57,11 +58,11 @@ LibraryFiles load_libraries(const std::string& library_dir, const std::string& p
   const auto op = library_path("organisms.toml", library_dir, product_file);
   const auto rp = library_path("cooling-rules.toml", library_dir, product_file);
   const std::string ot = io::read_text_file(op), rt = io::read_text_file(rp);
-  d.organisms = parse_organisms(ot, op.generic_string());
-  d.rules = parse_cooling_rules(rt, rp.generic_string());
+  d.organisms = io::parse_organisms(ot, op.generic_string());
+  d.rules = io::parse_cooling_rules(rt, rp.generic_string());
   const auto cp = library_path("cooking-tables.toml", library_dir, product_file);
   const std::string ct = io::read_text_file(cp);
-  d.cooking = parse_cooking_tables(ct, cp.generic_string());
+  d.cooking = io::parse_cooking_tables(ct, cp.generic_string());
   d.cooking_sha256 = io::sha256_hex(ct);
   d.organisms_sha256 = io::sha256_hex(ot);
   d.rules_sha256 = io::sha256_hex(rt);

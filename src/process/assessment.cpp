@@ -9,7 +9,7 @@
 #include "coldcore/lethality/integrate.hpp"
 #include "lethality/detail/crossing.hpp"
 #include "lethality/detail/text.hpp"
-#include "lethality/detail/toml_read.hpp"
+#include "coldcore/suggest.hpp"
 #include "process/detail/assessing.hpp"
 
 

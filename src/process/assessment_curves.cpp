@@ -10,7 +10,7 @@
 #include "coldcore/model/temperature_token.hpp"
 #include "lethality/detail/crossing.hpp"
 #include "lethality/detail/text.hpp"
-#include "lethality/detail/toml_read.hpp"
+#include "coldcore/suggest.hpp"
 
 namespace coldcore {
 
@@ -173,7 +173,7 @@ std::vector<int> credited(const Target& t, const History& h, const std::string& 
       }
     if (!found) {
       std::string msg = place + ".stages: \"" + want + "\": no stage of that name";
-      const std::string near = detail::nearest(want, names);
+      const std::string near = did_you_mean(want, names).value_or("");
       if (!near.empty()) msg += "; did you mean '" + near + "'?";
       throw InputError(msg);
     }

@@ -10,7 +10,7 @@
 #include "coldcore/model/temperature_token.hpp"
 #include "lethality/detail/crossing.hpp"
 #include "lethality/detail/text.hpp"
-#include "lethality/detail/toml_read.hpp"
+#include "coldcore/suggest.hpp"
 
 namespace coldcore {
 

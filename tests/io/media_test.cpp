@@ -1,6 +1,7 @@
 // media.toml: the library as committed, bad entries refused, and stages that name medium_type.
 #include <doctest/doctest.h>
 
+#include "coldcore/io/libraries.hpp"
 #include "../lethality/lethality_support.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/io/media.hpp"
@@ -135,8 +136,8 @@ TEST_CASE("medium_type per target / from the file: F as with the high h given / 
   };
   auto pf = io::parse_product(text, "chill-credited.toml");
   io::apply_media(pf, lib);
-  const OrganismLibrary organisms = parse_organisms(test::read_source_file("products/organisms.toml"), "o.toml");
-  const RuleLibrary rules = parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "r.toml");
+  const OrganismLibrary organisms = io::parse_organisms(test::read_source_file("products/organisms.toml"), "o.toml");
+  const RuleLibrary rules = io::parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "r.toml");
   const process::Libraries libs{&organisms, &rules, nullptr};
   const auto e = process::evaluate(io::scenario_of(pf), libs);
   const auto hi = process::evaluate(with_h("60"), libs);

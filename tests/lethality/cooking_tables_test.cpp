@@ -4,6 +4,7 @@
 #include <cmath>
 #include <vector>
 
+#include "coldcore/io/libraries.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/cooking_tables.hpp"
 #include "lethality/lethality_support.hpp"
@@ -14,7 +15,7 @@ namespace {
 
 const CookingTables& tables() {
   static const CookingTables t =
-      parse_cooking_tables(test::read_source_file("products/cooking-tables.toml"), "cooking-tables.toml");
+      io::parse_cooking_tables(test::read_source_file("products/cooking-tables.toml"), "cooking-tables.toml");
   return t;
 }
 
@@ -132,7 +133,7 @@ source = "s"
 status = "confirmed"
 rows = [ { temp_F = 140, temp_C = 65, hold_s = 3 } ]
 )";
-  CHECK_THROWS_WITH_AS(parse_cooking_tables(bad, "c.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_cooking_tables(bad, "c.toml"),
                        "c.toml: table[1].rows[1].temp_C = 65: must agree with temp_F = 140 (60 C) within 0.5 C",
                        InputError);
 }

@@ -4,6 +4,7 @@
 #include <cmath>
 #include <vector>
 
+#include "coldcore/io/libraries.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/integrate.hpp"
 #include "coldcore/lethality/kinetics.hpp"
@@ -29,7 +30,7 @@ double f_hold_s(double temp_C, double hold_s, const Kinetics& k) {
 
 const OrganismLibrary& library() {
   static const OrganismLibrary lib =
-      parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
+      io::parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
   return lib;
 }
 
@@ -213,7 +214,7 @@ z_C = { value = -5, source = "s", status = "confirmed" }
 valid_min_C = { value = 90, source = "s", status = "confirmed" }
 valid_max_C = { value = 110, source = "s", status = "confirmed" }
 )";
-  CHECK_THROWS_WITH_AS(parse_organisms(bad, "o.toml"), "o.toml: organism[1].z_C = -5: must be > 0",
+  CHECK_THROWS_WITH_AS(io::parse_organisms(bad, "o.toml"), "o.toml: organism[1].z_C = -5: must be > 0",
                        InputError);
   const char* typo = R"(
 [[organism]]
@@ -222,7 +223,7 @@ name = "x"
 kind = "spore"
 refrence_C = 3
 )";
-  CHECK_THROWS_WITH_AS(parse_organisms(typo, "o.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_organisms(typo, "o.toml"),
                        "o.toml: unknown key 'refrence_C' in [organism[1]]; did you mean 'reference_C'?",
                        InputError);
   const char* unsourced = R"(
@@ -232,7 +233,7 @@ name = "x"
 kind = "spore"
 reference_C = 100
 )";
-  CHECK_THROWS_WITH_AS(parse_organisms(unsourced, "o.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_organisms(unsourced, "o.toml"),
                        "o.toml: organism[1].reference_C: must be { value = <number>, source = \"...\", status = \"...\" }",
                        InputError);
 }
@@ -252,19 +253,19 @@ D_ref_min = { value = 1, source = "s", status = "confirmed" }
 valid_min_C = { value = 90, source = "s", status = "confirmed" }
 valid_max_C = { value = 110, source = "s", status = "confirmed" }
 )";
-  CHECK_NOTHROW(parse_organisms(base, "o.toml"));
+  CHECK_NOTHROW(io::parse_organisms(base, "o.toml"));
   const auto with = [&](const std::string& from, const std::string& to) {
     std::string s = base;
     const auto at = s.find(from);
     REQUIRE(at != std::string::npos);
     return s.replace(at, from.size(), to);
   };
-  CHECK_THROWS_WITH_AS(parse_organisms(with("D_ref_min = { value = 1,", "D_ref_min = { value = 1e300,"), "o.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_organisms(with("D_ref_min = { value = 1,", "D_ref_min = { value = 1e300,"), "o.toml"),
                        "o.toml: organism[1].D_ref = 6e+301: must be from 0 to 31622400 s", InputError);
-  CHECK_THROWS_WITH_AS(parse_organisms(with("z_C = { value = 10,", "z_C = { value = 1e-300,"), "o.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_organisms(with("z_C = { value = 10,", "z_C = { value = 1e-300,"), "o.toml"),
                        "o.toml: organism[1].z_C = 1e-300: must be from 1 to 100 C", InputError);
   CHECK_THROWS_WITH_AS(
-      parse_organisms(base + "equivalence = { source = \"s\", status = \"confirmed\", F_ref_min = 1, rows_min = [[nan, 2]] }\n",
+      io::parse_organisms(base + "equivalence = { source = \"s\", status = \"confirmed\", F_ref_min = 1, rows_min = [[nan, 2]] }\n",
                       "o.toml"),
       "o.toml: organism[1].equivalence.rows_min[1]: must be [temp_C, time_min] with temp_C from -200 to 400 and "
       "time_min > 0, at most a year",

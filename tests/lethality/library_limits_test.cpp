@@ -2,6 +2,7 @@
 // plausibility ranges of model/limits.hpp are refused where they are read, naming the entry.
 #include <doctest/doctest.h>
 
+#include "coldcore/io/libraries.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/io/media.hpp"
 #include "coldcore/lethality/cooking_tables.hpp"
@@ -23,14 +24,14 @@ within_h = 2
 source = "s"
 status = "confirmed"
 )";
-  CHECK_NOTHROW(parse_cooling_rules(rule, "r.toml"));
+  CHECK_NOTHROW(io::parse_cooling_rules(rule, "r.toml"));
   std::string hot = rule;
   hot.replace(hot.find("from_C = 57"), 11, "from_C = 5e3");
-  CHECK_THROWS_WITH_AS(parse_cooling_rules(hot, "r.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_cooling_rules(hot, "r.toml"),
                        "r.toml: rule[1].step[1].from (in C) = 5000: must be from -200 to 400 C", InputError);
   std::string long_step = rule;
   long_step.replace(long_step.find("within_h = 2"), 12, "within_h = 1e300");
-  CHECK_THROWS_WITH_AS(parse_cooling_rules(long_step, "r.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_cooling_rules(long_step, "r.toml"),
                        "r.toml: rule[1].step[1].within (in s) = 3.6e+303: must be from 0 to 31622400 s", InputError);
 
   const std::string table = R"(
@@ -41,13 +42,13 @@ source = "s"
 status = "confirmed"
 rows = [ { temp_C = 65, hold_s = 3 } ]
 )";
-  CHECK_NOTHROW(parse_cooking_tables(table, "c.toml"));
+  CHECK_NOTHROW(io::parse_cooking_tables(table, "c.toml"));
   std::string nan_row = table;
   nan_row.replace(nan_row.find("temp_C = 65"), 11, "temp_C = nan");
-  CHECK_THROWS_AS(parse_cooking_tables(nan_row, "c.toml"), InputError);
+  CHECK_THROWS_AS(io::parse_cooking_tables(nan_row, "c.toml"), InputError);
   std::string long_hold = table;
   long_hold.replace(long_hold.find("hold_s = 3 "), 11, "hold_s = 1e9 ");
-  CHECK_THROWS_WITH_AS(parse_cooking_tables(long_hold, "c.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_cooking_tables(long_hold, "c.toml"),
                        "c.toml: table[1].rows[1].hold (in s) = 1000000000: must be from 0 to 31622400 s", InputError);
 
   CHECK_THROWS_WITH_AS(

@@ -7,6 +7,7 @@
 #include <sstream>
 #include <vector>
 
+#include "coldcore/io/libraries.hpp"
 #include "coldcore/lethality/integrate.hpp"
 #include "coldcore/process/assessment.hpp"
 #include "lethality/lethality_support.hpp"
@@ -60,8 +61,8 @@ TEST_CASE("adaptive F matches mpmath on exponential heating to 1e-7") {
 TEST_CASE("assessment per-stage F on a cook-chill history matches mpmath to 1e-6") {
   const auto ref = reference();
   const OrganismLibrary orgs =
-      parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
-  const RuleLibrary rules = parse_cooling_rules(
+      io::parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
+  const RuleLibrary rules = io::parse_cooling_rules(
       test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
   const History h = test::analytic_history(cook_chill, {{"cook", 2400}, {"chill", 7200}}, 30.0);
   Target t;

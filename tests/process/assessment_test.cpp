@@ -6,6 +6,7 @@
 #include <cmath>
 #include <vector>
 
+#include "coldcore/io/libraries.hpp"
 #include "coldcore/report/temperature_text.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/integrate.hpp"
@@ -219,7 +220,7 @@ valid_min_C = { value = 60, source = "test", status = "derived" }
 valid_max_C = { value = 80, source = "test", status = "derived" }
 weibull = { delta_ref_min = { value = 1, source = "test", status = "derived" }, p = { value = 0.5, source = "test", status = "derived" } }
 )";
-  const OrganismLibrary lib = parse_organisms(text, "w.toml");
+  const OrganismLibrary lib = io::parse_organisms(text, "w.toml");
   REQUIRE(lib.organisms[0].kinetics.weibull);
   CHECK(lib.organisms[0].kinetics.weibull->delta_ref_s == 60);
   // 70 C for 4 min: (240/60)^0.5 = 2 log10 (Mafart et al. 2002 definition, from memory).
@@ -263,7 +264,7 @@ TEST_CASE("history without exact evaluation is interpolated / with a warning") {
 
 TEST_CASE("cooking table on a history") {
   const CookingTables tabs =
-      parse_cooking_tables(test::read_source_file("products/cooking-tables.toml"), "cooking-tables.toml");
+      io::parse_cooking_tables(test::read_source_file("products/cooking-tables.toml"), "cooking-tables.toml");
   const History h = make();  // reaches 72 C, above the 158 F (70.0 C) instant row (REFERENCES 1.4)
   const CookingCheck c = check_cooking_table(h, tabs.at("fsis-appendix-a-6.5-log", "t"));
   CHECK(c.met);

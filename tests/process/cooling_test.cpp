@@ -4,6 +4,7 @@
 #include <cmath>
 #include <vector>
 
+#include "coldcore/io/libraries.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/process/cooling.hpp"
 #include "lethality/lethality_support.hpp"
@@ -14,7 +15,7 @@ namespace {
 
 const RuleLibrary& rules() {
   static const RuleLibrary lib =
-      parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
+      io::parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
   return lib;
 }
 
@@ -209,7 +210,7 @@ within_h = 1
 source = "s"
 status = "confirmed"
 )";
-  CHECK_THROWS_WITH_AS(parse_cooling_rules(bad, "r.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_cooling_rules(bad, "r.toml"),
                        "r.toml: rule[1].step[1]: to = 30 C: must be below from = 20 C", InputError);
   const char* typo = R"(
 [[rule]]
@@ -218,7 +219,7 @@ name = "x"
 source = "s"
 status = "confirmd"
 )";
-  CHECK_THROWS_WITH_AS(parse_cooling_rules(typo, "r.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_cooling_rules(typo, "r.toml"),
                        "r.toml: rule[1].status = \"confirmd\": must be \"confirmed\", \"derived\" or \"from memory\"",
                        InputError);
 }

@@ -4,6 +4,7 @@
 #include <string>
 #include <vector>
 
+#include "coldcore/io/libraries.hpp"
 #include "../lethality/lethality_support.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
@@ -12,8 +13,8 @@
 namespace coldcore::test {
 
 struct Libs {
-  OrganismLibrary organisms = parse_organisms(read_source_file("products/organisms.toml"), "organisms.toml");
-  RuleLibrary rules = parse_cooling_rules(read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
+  OrganismLibrary organisms = io::parse_organisms(read_source_file("products/organisms.toml"), "organisms.toml");
+  RuleLibrary rules = io::parse_cooling_rules(read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
   process::Libraries get() const { return {&organisms, &rules}; }
 };
 

@@ -6,6 +6,7 @@
 
 #include <string>
 
+#include "coldcore/io/libraries.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/process/cooling.hpp"
 #include "coldcore/report/temperature_text.hpp"
@@ -14,7 +15,7 @@
 using namespace coldcore;
 
 TEST_CASE("issue 16: the Food Code rule shows its limits as written / in either unit") {
-  const RuleLibrary lib = parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "r.toml");
+  const RuleLibrary lib = io::parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "r.toml");
   const CoolingRule& rule = lib.at("two-stage-6h", "test");
   REQUIRE(rule.steps.size() == 2);
   const CoolingStep& s1 = rule.steps[0];
@@ -36,13 +37,13 @@ TEST_CASE("issue 16: a limit written in both units must be one limit") {
       "schema = 1\n[[rule]]\nkey = \"k\"\nname = \"n\"\nsource = \"s\"\nstatus = \"confirmed\"\n"
       "[[rule.step]]\nto_C = 5\nwithin_h = 4\nsource = \"s\"\nstatus = \"confirmed\"\n";
   // 57 °C is 134.6 °F: within the 0.5 °C such codes round to.
-  CHECK_NOTHROW(parse_cooling_rules(head + "from_C = 57\nfrom_F = 135\n", "r.toml"));
+  CHECK_NOTHROW(io::parse_cooling_rules(head + "from_C = 57\nfrom_F = 135\n", "r.toml"));
   // 135 °F written beside 75 °C is a typo, not a rounding.
-  CHECK_THROWS_WITH_AS(parse_cooling_rules(head + "from_C = 75\nfrom_F = 135\n", "r.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_cooling_rules(head + "from_C = 75\nfrom_F = 135\n", "r.toml"),
                        "r.toml: rule[1].step[1]: from_C = 75 and from_F = 135 (57.22222222 C) disagree: the two must be "
                        "the same limit within 0.5 C",
                        InputError);
-  CHECK_THROWS_WITH_AS(parse_cooling_rules(head, "r.toml"),
+  CHECK_THROWS_WITH_AS(io::parse_cooling_rules(head, "r.toml"),
                        "r.toml: rule[1].step[1]: give from_C, from_F, or both as the rule's source writes them",
                        InputError);
 }

@@ -2,6 +2,7 @@
 // verbatim copy of the 1999 table): 140 °F (60.0 °C) must be held 12 min.
 #include <doctest/doctest.h>
 
+#include "coldcore/io/libraries.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/process/assessment.hpp"
 #include "lethality/lethality_support.hpp"
@@ -11,9 +12,9 @@ using namespace coldcore;
 namespace {
 
 struct Libraries {
-  OrganismLibrary organisms = parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
-  RuleLibrary rules = parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
-  CookingTables tables = parse_cooking_tables(test::read_source_file("products/cooking-tables.toml"), "cooking-tables.toml");
+  OrganismLibrary organisms = io::parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
+  RuleLibrary rules = io::parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
+  CookingTables tables = io::parse_cooking_tables(test::read_source_file("products/cooking-tables.toml"), "cooking-tables.toml");
 };
 
 const Libraries& libs() {

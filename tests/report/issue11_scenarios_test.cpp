@@ -14,6 +14,7 @@
 #include <optional>
 #include <sstream>
 
+#include "coldcore/io/libraries.hpp"
 #include "support/xml_check.hpp"
 
 #include "coldcore/io/product_file.hpp"
@@ -37,9 +38,9 @@ struct Built {
 // As `coldcore run` builds it (src/cli/run.cpp), sampled every `step_s`.
 Built build(double step_s) {
   static const OrganismLibrary orgs =
-      parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
+      io::parse_organisms(test::read_source_file("products/organisms.toml"), "organisms.toml");
   static const RuleLibrary rules =
-      parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
+      io::parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
   const io::ProductFile file =
       io::load_product(std::string(COLDCORE_SOURCE_DIR) + "/tests/cli/media-split/chill-credited.toml");
   Built b;

@@ -13,6 +13,7 @@
 #include <string>
 #include <vector>
 
+#include "coldcore/io/libraries.hpp"
 #include "coldcore/process/inverse.hpp"
 #include "coldcore/process/assessment.hpp"
 #include "coldcore/report/temperature_text.hpp"
@@ -225,7 +226,7 @@ TEST_CASE("issue 11: cooling times a few ulp around the limit are never met") {
     CAPTURE(within);
     char buf[64];
     std::snprintf(buf, sizeof buf, "%.17g", within);
-    const RuleLibrary lib = parse_cooling_rules(
+    const RuleLibrary lib = io::parse_cooling_rules(
         std::string("schema = 1\n[[rule]]\nkey = \"t\"\nname = \"test\"\nsource = \"invented\"\nstatus = \"derived\"\n"
                     "[[rule.step]]\nfrom_C = 57\nto_C = 21\nwithin_s = ") +
             buf + "\nsource = \"invented\"\nstatus = \"derived\"\n",
@@ -289,7 +290,7 @@ TEST_CASE("issue 11: a cooking table met by exactly its hold time is a tie") {
   // FSIS Appendix A 7-log table (products/cooking-tables.toml, REFERENCES 1.4), lowest row: a log
   // held exactly at that row's temperature for exactly its hold gives equivalence 1.
   const CookingTables tables =
-      parse_cooking_tables(test::read_source_file("products/cooking-tables.toml"), "cooking-tables.toml");
+      io::parse_cooking_tables(test::read_source_file("products/cooking-tables.toml"), "cooking-tables.toml");
   const CookingTable& table = tables.at("fsis-appendix-a-7-log", "test");
   const CookingRow& row = table.rows.front();
   Target t;

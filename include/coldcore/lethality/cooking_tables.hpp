@@ -44,14 +44,6 @@ struct CookingTables {
   const CookingTable& at(std::string_view key, std::string_view place) const;
 };
 
-/// Parses cooking-tables.toml (schema 1):
-///   [[table]] key, name, source, status, note?, log_reduction?
-///             rows = [ { temp_F = 130, temp_C = 54.4, hold_min = 112 }, { ..., hold_s = 169 },
-///                      { temp_F = 158, temp_C = 70.0, hold_s = 0, note = "instant" } ]
-/// Checks: rows strictly ascending in temperature, holds >= 0, printed °C within 0.5 °C of the
-/// printed °F, unknown keys.
-CookingTables parse_cooking_tables(std::string_view toml_text, std::string_view origin);
-
 struct CookingCheck {
   std::string table_key, source;
   double fraction = 0;                 ///< Φ; +inf when an instant row was reached

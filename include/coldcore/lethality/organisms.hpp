@@ -69,9 +69,4 @@ struct OrganismLibrary {
   const Organism& at(std::string_view key, std::string_view place) const;
 };
 
-/// Parses organisms.toml text. Checks: unique keys, z > 0, D > 0, valid_min < valid_max,
-/// reference inside the valid range, split_C and z_below_C together, weibull δ > 0 and p > 0,
-/// unknown keys (with "did you mean"), every quantity sourced with a known status.
-OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view origin);
-
 }  // namespace coldcore

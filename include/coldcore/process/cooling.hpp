@@ -28,43 +28,9 @@
 #include <string_view>
 #include <vector>
 
+#include "coldcore/model/cooling_rules.hpp"
+
 namespace coldcore {
-
-struct CoolingStep {
-  std::string label;       ///< free text from the file, or "<from> -> <to>" with temperature tokens
-                           ///< (model/temperature_token.hpp); `from_label` words the start
-  double from_C = 0;
-  double to_C = 0;         ///< < from_C
-  /// The limits as the rule writes them (temperature tokens): a limit written in both units
-  /// shows each as written ("135 °F", not the 134.6 °F that 57 °C converts to).
-  std::string from_text, to_text;
-  std::optional<double> from_written_F, to_written_F;  ///< the °F values, when the rule writes them
-  double within_s = 0;     ///< > 0
-  bool advisory = false;
-  std::string source, status;
-};
-
-struct CoolingRule {
-  std::string key, name, source, status, note;
-  std::vector<CoolingStep> steps;
-  std::optional<double> chill_start_within_s;  ///< chilling must begin within this after the cook
-  std::string chill_start_source;
-};
-
-struct RuleLibrary {
-  std::vector<CoolingRule> rules;
-  std::string origin;
-  const CoolingRule* find(std::string_view key) const;
-  /// Else InputError "<place>: rule = "<key>": not in <origin>; did you mean '<nearest>'?".
-  const CoolingRule& at(std::string_view key, std::string_view place) const;
-};
-
-/// Parses cooling-rules.toml (schema 1):
-///   [[rule]] key, name, source, status, note?, chill_start_within_min?, chill_start_source?
-///   [[rule.step]] from_C | from_F, to_C | to_F, within_h | within_min | within_s, advisory?,
-///                 source, status
-/// °F values are converted exactly ((F − 32)/1.8).
-RuleLibrary parse_cooling_rules(std::string_view toml_text, std::string_view origin);
 
 /// Extra facts the temperature record cannot show.
 struct CoolingContext {

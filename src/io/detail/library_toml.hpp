@@ -1,6 +1,7 @@
 #pragma once
 // Private TOML reading helpers for the data libraries (organisms, cooling rules, cooking
-// tables): unknown-key "did you mean", sourced quantities { value, source, status }.
+// tables): unknown-key "did you mean", sourced quantities { value, source, status }. The
+// product file reads through io/detail/fields.hpp, whose keys carry unit suffixes.
 #include <initializer_list>
 #include <string>
 #include <string_view>
@@ -8,15 +9,10 @@
 #include <toml++/toml.h>
 
 #include "coldcore/lethality/organisms.hpp"
-#include "coldcore/suggest.hpp"
 
 #include "coldcore/model/limits.hpp"
 
-namespace coldcore::detail {
-
-/// The nearest of `choices` to `word` by coldcore::did_you_mean (coldcore/suggest.hpp), else "".
-std::string nearest(std::string_view word, std::initializer_list<std::string_view> choices);
-std::string nearest(std::string_view word, const std::vector<std::string>& choices);
+namespace coldcore::io::detail {
 
 /// Parses TOML text; a syntax error becomes InputError "<origin>:<line>:<col>: <description>".
 toml::table parse_toml(std::string_view text, std::string_view origin);
@@ -48,4 +44,4 @@ void check_status(const std::string& status, std::string_view origin, std::strin
 void require_in(double v, const limits::Range& r, std::string_view origin, const std::string& where,
                 const char* unit);
 
-}  // namespace coldcore::detail
+}  // namespace coldcore::io::detail

@@ -1,4 +1,4 @@
-#include "lethality/detail/toml_read.hpp"
+#include "io/detail/library_toml.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -6,17 +6,10 @@
 #include <vector>
 
 #include "coldcore/error.hpp"
-#include "lethality/detail/text.hpp"
+#include "coldcore/number_text.hpp"
+#include "coldcore/suggest.hpp"
 
-namespace coldcore::detail {
-
-std::string nearest(std::string_view word, std::initializer_list<std::string_view> choices) {
-  return did_you_mean(word, choices).value_or("");
-}
-
-std::string nearest(std::string_view word, const std::vector<std::string>& choices) {
-  return did_you_mean(word, choices).value_or("");
-}
+namespace coldcore::io::detail {
 
 toml::table parse_toml(std::string_view text, std::string_view origin) {
   try {
@@ -36,7 +29,7 @@ void check_keys(const toml::table& t, std::initializer_list<std::string_view> al
     if (std::find(allowed.begin(), allowed.end(), key) != allowed.end()) continue;
     std::string msg = std::string(origin) + ": unknown key '" + std::string(key) + "' in [" +
                       std::string(place) + "]";
-    const std::string near = nearest(key, allowed);
+    const std::string near = did_you_mean(key, allowed).value_or("");
     if (!near.empty()) msg += "; did you mean '" + near + "'?";
     throw InputError(msg);
   }
@@ -62,7 +55,7 @@ double get_number(const toml::table& t, std::string_view key, std::string_view o
   const std::string where = std::string(origin) + ": " + std::string(place) + "." + std::string(key);
   if (!n) throw InputError(where + ": missing");
   if (auto d = n->value<double>()) {
-    if (!std::isfinite(*d)) throw InputError(where + " = " + num(*d) + ": must be finite");
+    if (!std::isfinite(*d)) throw InputError(where + " = " + number_text(*d) + ": must be finite");
     return *d;
   }
   throw InputError(where + ": must be a number");
@@ -98,8 +91,8 @@ Sourced get_sourced(const toml::table& t, std::string_view key, std::string_view
 void require_in(double v, const limits::Range& r, std::string_view origin, const std::string& where,
                 const char* unit) {
   if (!r.contains(v))
-    throw InputError(std::string(origin) + ": " + where + " = " + num(v) + ": must be from " + num(r.low) + " to " +
-                     num(r.high) + " " + unit);
+    throw InputError(std::string(origin) + ": " + where + " = " + number_text(v) + ": must be from " + number_text(r.low) + " to " +
+                     number_text(r.high) + " " + unit);
 }
 
-}  // namespace coldcore::detail
+}  // namespace coldcore::io::detail
