@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "conduction/detail/history_engine.hpp"
+#include "conduction/detail/lanes.hpp"
 
 namespace coldcore::detail {
 
@@ -52,8 +53,8 @@ void Engine::advance(const Basis& B, ModalState& st, double dt, double slope) co
   for (std::size_t k = 0; k < K; ++k) {
     const double x = -lam[k] * dt;
     const double e = std::exp(x);
-    const double g = -std::expm1(x) / lam[k];
-    a[k] = a[k] * e - b[k] * slope * g;
+    const double bg = b[k] * (-std::expm1(x) / lam[k]);  // as fill_cache forms it
+    a[k] = stepped_amplitude(a[k], e, slope, bg);
     wp[k] *= e;
     wc[k] *= e;
   }
@@ -63,7 +64,6 @@ void Engine::fill_cache(const Basis& B, double dt, StepCache& c) const {
   if (c.dt == dt && c.basis == &B) return;  // a regular log: every step after the first hits
   const std::size_t K = B.lambda.size();
   c.e.resize(K);  // (truncates old padding; it is restored below)
-  c.g.resize(K);
   c.bg.resize(K);
   if (B.axes.size() > 1) {
     // A product mode decays as the product of its axis modes, e^{−(λi+λj+λk)dt}, so K
@@ -83,15 +83,13 @@ void Engine::fill_cache(const Basis& B, double dt, StepCache& c) const {
       const double x = B.lambda[k] * dt;
       const double one_minus_e = x > 0.5 ? 1.0 - e : -std::expm1(-x);
       c.e[k] = e;
-      c.g[k] = one_minus_e / B.lambda[k];
       c.bg[k] = one_minus_e * B.b_over_lambda[k];
     }
   } else {
     for (std::size_t k = 0; k < K; ++k) {
       const double x = -B.lambda[k] * dt;
       c.e[k] = std::exp(x);
-      c.g[k] = -std::expm1(x) / B.lambda[k];
-      c.bg[k] = B.b[k] * c.g[k];
+      c.bg[k] = B.b[k] * (-std::expm1(x) / B.lambda[k]);
     }
   }
   const std::size_t Kp = padded_modes(K);
@@ -116,11 +114,10 @@ void Engine::advance(const Basis& B, ModalState& st, double dt, double slope, St
   double* wp = st.w_prev.data();
   double* wc = st.w_cur.data();
   const double* e = c.e.data();
-  const double* g = c.g.data();
-  const double* b = B.b.data();
+  const double* bg = c.bg.data();
 #pragma omp simd
   for (std::size_t k = 0; k < K; ++k) {
-    a[k] = a[k] * e[k] - b[k] * slope * g[k];
+    a[k] = stepped_amplitude(a[k], e[k], slope, bg[k]);
     wp[k] *= e[k];
     wc[k] *= e[k];
   }

@@ -100,7 +100,7 @@ struct StageModel {
 struct StepCache {
   double dt = -1;
   const Basis* basis = nullptr;
-  std::vector<double> e, g, bg;  // bg = b·g; e and bg padded with zeros to padded_modes(K)
+  std::vector<double> e, bg;  // bg = b(1 − e)/λ; both padded with zeros to padded_modes(K)
   std::vector<double> bl, vs, vm;  // the basis' b/λ, surface and mean values, padded likewise
   std::vector<double> axis_e[3];  // products: per-axis exponentials e^{−λ_n dt}
 };

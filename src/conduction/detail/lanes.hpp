@@ -58,6 +58,14 @@ using LaneIndex = long long __attribute__((vector_size(32)));
   if (n > 3) p[3] = v[3];
 }
 
+/// One mode's amplitude over one step at medium slope s: a·e − s·bg (e = e^{−λΔ},
+/// bg = b(1 − e)/λ). The one stepping formula: the step kernel applies it to four lanes and
+/// Engine::advance to single modes, so the paths give the same bits.
+template <class T>
+[[gnu::always_inline]] inline T stepped_amplitude(T a, T e, T slope, T bg) {
+  return a * e - slope * bg;
+}
+
 /// One pass over the K modes of a step: the event's slope change ds enters w_cur (a, w_prev, w_cur
 /// are the modal state), then all three decay over the step (e = e^{−λΔ}, bg = b(1 − e)/λ) and the
 /// sums Σ(a − w_prev − w_cur), Σ a·vs, Σ a·vm are taken. With Store, the state after the event
@@ -93,7 +101,7 @@ template <bool Store>
         store_tail(ck + 2 * K + k, wce, K - k);
       }
     }
-    const Lanes ak = ak0 * ek - slv * load4(bg + k);
+    const Lanes ak = stepped_amplitude(ak0, ek, slv, load4(bg + k));
     const Lanes wck = wce * ek;
     const Lanes wpk = wpk0 * ek;
     store4(a + k, ak);
