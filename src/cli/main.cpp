@@ -8,10 +8,27 @@
 #include "cli/verbs.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/io/quantity.hpp"
+#include "coldcore/report/format.hpp"
 #include "coldcore/report/temperature_text.hpp"
 #include "coldcore/version.hpp"
 
 namespace {
+
+// The unit errors are shown in: the chosen verb's --units once the command line is parsed, so a
+// message about a temperature reads in the unit the user asked for.
+coldcore::TempUnit error_unit = coldcore::TempUnit::C;
+
+void take_error_unit(const CLI::App& app) {
+  for (const CLI::App* verb : app.get_subcommands()) {
+    const CLI::Option* units = verb->get_option_no_throw("--units");
+    if (units == nullptr || units->count() == 0) continue;
+    try {
+      error_unit = coldcore::parse_temp_unit(units->as<std::string>());
+    } catch (const coldcore::Error&) {
+      // the verb refuses the value itself, naming it; its message stays in C
+    }
+  }
+}
 
 int real_main(int argc, char** argv) {
   using namespace coldcore::cli;
@@ -45,6 +62,7 @@ int real_main(int argc, char** argv) {
     const int code = app.exit(e);
     return code == 0 ? 0 : kBadInput;
   }
+  take_error_unit(app);
   if (!ctx.run) return kBadInput;
   return ctx.run(std::cout, std::cerr);
 }
@@ -55,13 +73,13 @@ int main(int argc, char** argv) {
   try {
     return real_main(argc, argv);
   } catch (const coldcore::InputError& e) {
-    std::cerr << "coldcore: " << coldcore::render_temperatures(e.what(), coldcore::TempUnit::C) << "\n";
+    std::cerr << "coldcore: " << coldcore::render_temperatures(e.what(), error_unit) << "\n";
     return coldcore::cli::kBadInput;
   } catch (const coldcore::NoSolution& e) {
-    std::cerr << "coldcore: no solution: " << coldcore::render_temperatures(e.what(), coldcore::TempUnit::C) << "\n";
+    std::cerr << "coldcore: no solution: " << coldcore::render_temperatures(e.what(), error_unit) << "\n";
     return coldcore::cli::kNotDemonstrated;
   } catch (const coldcore::Error& e) {
-    std::cerr << "coldcore: " << coldcore::render_temperatures(e.what(), coldcore::TempUnit::C) << "\n";
+    std::cerr << "coldcore: " << coldcore::render_temperatures(e.what(), error_unit) << "\n";
     return coldcore::cli::kBadInput;
   } catch (const std::exception& e) {
     std::cerr << "coldcore: internal error: " << e.what() << "\n";

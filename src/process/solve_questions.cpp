@@ -93,6 +93,21 @@ void round_and_verify(SolveResult& res, const Setup& st, const Libraries& libs) 
 
 namespace detail {
 
+namespace {
+
+/// The solved-for parameter with its unit, for messages: "14400 s", "85 mm", a temperature token.
+std::string parameter_text(Question q, double x) {
+  switch (q) {
+    case Question::hold_time:
+    case Question::chill_time: return num(x) + " s";
+    case Question::max_size: return num(x * 1000) + " mm";
+    case Question::min_medium: return temp_token(x);
+  }
+  return num(x);
+}
+
+}  // namespace
+
 SolveResult run_question(Question q, const Setup& st, const Scenario& s, const Libraries& libs) {
   SolveResult res;
   res.question = q;
@@ -106,13 +121,13 @@ SolveResult run_question(Question q, const Setup& st, const Scenario& s, const L
     // Say why: the verdicts at the bound and, where it applies, the physical limit.
     const double bound = st.ro.expand ? st.ro.limit : (st.side == FeasibleSide::above ? st.hi : st.lo);
     const Evaluation e = evaluate(st.apply(bound), libs, st.considered, search_history_options());
-    std::string why = st.why_none + ": at the bound " + num(bound) + " " + shortfalls(e, st.considered);
+    std::string why = st.why_none + ": at the bound " + parameter_text(q, bound) + ", " + shortfalls(e, st.considered);
     if (st.stage >= 0) why += physical_reason(s, e, st.stage, st.considered);
     throw NoSolution(why);
   }
   res.answer = res.root.x;
   if (res.root.met_at_bound)
-    res.notes.push_back("every target is already met at the bound " + num(res.root.x) +
+    res.notes.push_back("every target is already met at the bound " + parameter_text(q, res.root.x) +
                         " of the search; the answer is that bound");
   round_and_verify(res, st, libs);
   return res;

@@ -60,6 +60,12 @@ cli_expect(solve_medium_sausage 0 ARGS solve products/chicken-sausage-log.toml -
 cli_expect(solve_no_solution 1 ARGS solve tests/cli/inverse/cold-medium.toml --for hold-time --max-hold-h 4
            STDERR_HAS "coldcore: no solution: no hold time of stage \"cook\" up to 4 h"
                       "so the centre can never reach it")
+# Errors speak the unit asked for: the same refusal with --units F (70 C = 158 F, 75 C = 167 F), and
+# the bound with its unit.
+cli_expect(solve_no_solution_in_F 1 ARGS solve tests/cli/inverse/cold-medium.toml --for hold-time --max-hold-h 4
+           --units F
+           STDERR_HAS "at the bound 14400 s, core 75 not demonstrated"
+                      "the stage's medium (at most 158 °F) is not above core 75's 167 °F")
 cli_expect(solve_bad_question 2 ARGS solve products/kofta-balls.toml --for cook-time
            STDERR_HAS "--for = cook-time: must be hold-time, chill-time, max-size or min-medium")
 cli_expect(solve_bad_stage 2 ARGS solve products/kofta-balls.toml --for hold-time --stage oven
