@@ -26,13 +26,7 @@ const MediumType& medium_at(const MediaLibrary& library, std::string_view key, s
 
 MediaLibrary parse_media(std::string_view text, std::string_view origin_sv) {
   const std::string origin(origin_sv);
-  toml::table doc;
-  try {
-    doc = toml::parse(text, origin_sv);
-  } catch (const toml::parse_error& e) {
-    throw InputError(origin + ":" + std::to_string(e.source().begin.line) + ":" +
-                     std::to_string(e.source().begin.column) + ": not valid TOML: " + std::string(e.description()));
-  }
+  const toml::table doc = detail::parse_toml(text, origin);
   using detail::plain;
   detail::Fields root(doc, origin, "", {plain("schema"), plain("media")});
   const toml::node* schema = root.node("schema");
