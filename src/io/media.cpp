@@ -7,6 +7,7 @@
 #include "coldcore/error.hpp"
 #include "coldcore/io/quantity.hpp"
 #include "io/detail/fields.hpp"
+#include "io/detail/sourced.hpp"
 #include "io/detail/text.hpp"
 
 namespace coldcore::io {
@@ -62,9 +63,7 @@ MediaLibrary parse_media(std::string_view text, std::string_view origin_sv) {
     m.h_max_W_m2K = h("h_max_W_m2K");
     if (m.h_max_W_m2K < m.h_min_W_m2K) f.fail("h_max_W_m2K", "must be >= h_min_W_m2K (" + detail::format_number(m.h_min_W_m2K) + ")");
     m.source = str("source");
-    m.status = str("status");
-    if (m.status != "confirmed" && m.status != "from memory" && m.status != "derived")
-      f.fail("status", "must be \"confirmed\", \"from memory\" or \"derived\"");
+    m.status = detail::source_status(f);
     lib.media.push_back(std::move(m));
   }
   if (lib.media.empty()) root.fail("media", "must hold at least one [media.<key>] table");
