@@ -2,134 +2,116 @@
 #include <cmath>
 #include <set>
 #include <string>
+#include <utility>
 
-#include "coldcore/error.hpp"
 #include "coldcore/io/libraries.hpp"
 #include "coldcore/model/limits.hpp"
 #include "coldcore/model/temperature_token.hpp"
 #include "coldcore/number_text.hpp"
-#include "io/detail/library_toml.hpp"
+#include "io/detail/fields.hpp"
+#include "io/detail/sourced.hpp"
 
 namespace coldcore::io {
 
 namespace {
 
+using detail::Fields;
+using detail::plain_keys;
+
 /// A step's limit in °C, and its label token. A limit may be written in °C, in °F, or in both
 /// when the rule's source states both (a code's "57 °C (135 °F)"): the °C value is then the one
 /// computed with, each unit is shown as written, and the two must agree within 0.5 °C (the
 /// rounding such codes use) so that a typo is caught.
-double temperature(const toml::table& t, const std::string& stem, std::string_view origin,
-                   const std::string& place, std::string* label, std::optional<double>* written_F) {
-  const bool c = t.contains(stem + "_C"), f = t.contains(stem + "_F");
-  if (!c && !f)
-    throw InputError(std::string(origin) + ": " + place + ": give " + stem + "_C, " + stem + "_F, or both as the rule's source writes them");
-  const double v_C = c ? detail::get_number(t, stem + "_C", origin, place) : 0.0;
-  const double v_F = f ? detail::get_number(t, stem + "_F", origin, place) : 0.0;
-  const double v = c ? v_C : (v_F - 32.0) / 1.8;
-  detail::require_in(v, limits::temperature_C, origin, place + "." + stem + " (in C)", "C");
-  if (c && f && std::abs((v_F - 32.0) / 1.8 - v_C) > 0.5)
-    throw InputError(std::string(origin) + ": " + place + ": " + stem + "_C = " + number_text(v_C) + " and " + stem +
-                     "_F = " + number_text(v_F) + " (" + number_text((v_F - 32.0) / 1.8) +
-                     " C) disagree: the two must be the same limit within 0.5 C");
-  if (f) *written_F = v_F;
+double temperature(const Fields& s, const std::string& stem, std::string* label, std::optional<double>* written_F) {
+  const std::optional<double> c = s.number(stem + "_C"), f = s.number(stem + "_F");
+  if (!c && !f) s.fail_at("", "give " + stem + "_C, " + stem + "_F, or both as the rule's source writes them");
+  const double v = c ? *c : (*f - 32.0) / 1.8;
+  s.require_value_range(stem + " (in C)", v, limits::temperature_C, "C");
+  if (c && f && std::abs((*f - 32.0) / 1.8 - *c) > 0.5)
+    s.fail_at("", stem + "_C = " + number_text(*c) + " and " + stem + "_F = " + number_text(*f) + " (" +
+                      number_text((*f - 32.0) / 1.8) + " C) disagree: the two must be the same limit within 0.5 C");
+  if (f) *written_F = *f;
   if (label)
-    *label = c && f ? temp_token_written(number_text(v_C), number_text(v_F), v)
+    *label = c && f ? temp_token_written(number_text(*c), number_text(*f), v)
                     : temp_token_text(number_text(std::round(v * 10) / 10), v);
   return v;
 }
 
-double duration_s(const toml::table& t, const std::string& stem, std::string_view origin,
-                  const std::string& place) {
+double duration_s(const Fields& s, const std::string& stem) {
   int n = 0;
   double v = 0;
   std::string key;
   for (auto [suffix, scale] : {std::pair{"_s", 1.0}, std::pair{"_min", 60.0}, std::pair{"_h", 3600.0}}) {
-    if (t.contains(stem + suffix)) {
+    if (auto written = s.number(stem + suffix)) {
       ++n;
       key = stem + suffix;
-      v = detail::get_number(t, key, origin, place) * scale;
+      v = *written * scale;
     }
   }
-  if (n != 1)
-    throw InputError(std::string(origin) + ": " + place + ": give exactly one of " + stem +
-                     "_s, " + stem + "_min or " + stem + "_h");
-  if (!(v > 0))
-    throw InputError(std::string(origin) + ": " + place + "." + key + " = " + number_text(v) +
-                     ": must be > 0");
-  detail::require_in(v, limits::duration_s, origin, place + "." + stem + " (in s)", "s");
+  if (n != 1) s.fail_at("", "give exactly one of " + stem + "_s, " + stem + "_min or " + stem + "_h");
+  if (!(v > 0)) s.fail(key, "must be > 0");
+  s.require_value_range(stem + " (in s)", v, limits::duration_s, "s");
   return v;
+}
+
+CoolingStep read_step(const Fields& s) {
+  CoolingStep st;
+  st.from_C = temperature(s, "from", &st.from_text, &st.from_written_F);
+  st.to_C = temperature(s, "to", &st.to_text, &st.to_written_F);
+  if (!(st.to_C < st.from_C))
+    s.fail_at("", "to = " + number_text(st.to_C) + " C: must be below from = " + number_text(st.from_C) + " C");
+  st.within_s = duration_s(s, "within");
+  if (const toml::node* a = s.node("advisory")) {
+    if (!a->is_boolean()) s.fail("advisory", "must be true or false");
+    st.advisory = a->as_boolean()->get();
+  }
+  st.source = s.required_string("source", "the code or guide the step is taken from");
+  st.status = detail::source_status(s);
+  st.label = s.string("label").value_or("");
+  // from_label words the start ("ambient") and keeps the end a temperature (shown in --units)
+  const std::string from_label = s.string("from_label").value_or("");
+  if (st.label.empty()) st.label = (from_label.empty() ? st.from_text : from_label) + " -> " + st.to_text;
+  return st;
+}
+
+CoolingRule read_rule(const Fields& f, std::set<std::string>& seen) {
+  CoolingRule r;
+  r.key = f.required_string("key", "the rule's key, in double quotes (targets name it)");
+  if (!seen.insert(r.key).second) f.fail("key", "duplicate key");
+  r.name = f.required_string("name", "a name for reports, in double quotes");
+  r.source = f.required_string("source", "the code or guide the rule is taken from");
+  r.status = detail::source_status(f);
+  r.note = f.string("note").value_or("");
+  if (auto m = f.number("chill_start_within_min")) {
+    if (!(*m > 0)) f.fail("chill_start_within_min", "must be > 0");
+    r.chill_start_within_s = *m * 60.0;
+    r.chill_start_source =
+        f.required_string("chill_start_source", "the code or guide the chill-start limit is taken from");
+  }
+  const toml::array& steps = f.tables("step", "[[rule.step]] tables");
+  if (steps.empty()) f.fail("step", "must be one or more [[rule.step]] tables");
+  for (std::size_t j = 0; j < steps.size(); ++j)
+    r.steps.push_back(read_step(f.nested("step[" + std::to_string(j + 1) + "]", *steps.get(j)->as_table(),
+                                         plain_keys({"from_C", "from_F", "to_C", "to_F", "within_s", "within_min",
+                                                     "within_h", "advisory", "source", "status", "label",
+                                                     "from_label"}))));
+  return r;
 }
 
 }  // namespace
 
 RuleLibrary parse_cooling_rules(std::string_view toml_text, std::string_view origin) {
-  const toml::table root = detail::parse_toml(toml_text, origin);
-  detail::check_keys(root, {"schema", "rule"}, origin, "top level");
+  const toml::table doc = detail::parse_toml(toml_text, std::string(origin));
+  const Fields root(doc, std::string(origin), "", plain_keys({"schema", "rule"}));
   RuleLibrary lib;
   lib.origin = std::string(origin);
-  const toml::array* arr = root["rule"].as_array();
-  if (!arr) throw InputError(std::string(origin) + ": rule: missing ([[rule]] tables)");
+  const toml::array& rules = root.tables("rule", "[[rule]] tables");
   std::set<std::string> seen;
-  for (std::size_t i = 0; i < arr->size(); ++i) {
-    const toml::table* t = (*arr)[i].as_table();
-    const std::string place = "rule[" + std::to_string(i + 1) + "]";
-    if (!t) throw InputError(std::string(origin) + ": " + place + ": must be a table");
-    detail::check_keys(*t,
-                       {"key", "name", "source", "status", "note", "step", "chill_start_within_min",
-                        "chill_start_source"},
-                       origin, place);
-    CoolingRule r;
-    r.key = detail::get_string(*t, "key", origin, place);
-    if (!seen.insert(r.key).second)
-      throw InputError(std::string(origin) + ": " + place + ".key = \"" + r.key + "\": duplicate key");
-    r.name = detail::get_string(*t, "name", origin, place);
-    r.source = detail::get_string(*t, "source", origin, place);
-    r.status = detail::get_string(*t, "status", origin, place);
-    detail::check_status(r.status, origin, place);
-    r.note = detail::get_string(*t, "note", origin, place, false);
-    if (t->contains("chill_start_within_min")) {
-      const double m = detail::get_number(*t, "chill_start_within_min", origin, place);
-      if (!(m > 0))
-        throw InputError(std::string(origin) + ": " + place + ".chill_start_within_min = " +
-                         number_text(m) + ": must be > 0");
-      r.chill_start_within_s = m * 60.0;
-      r.chill_start_source = detail::get_string(*t, "chill_start_source", origin, place);
-    }
-    const toml::array* steps = (*t)["step"].as_array();
-    if (!steps || steps->empty())
-      throw InputError(std::string(origin) + ": " + place + ".step: missing ([[rule.step]] tables)");
-    for (std::size_t j = 0; j < steps->size(); ++j) {
-      const toml::table* s = (*steps)[j].as_table();
-      const std::string sp = place + ".step[" + std::to_string(j + 1) + "]";
-      if (!s) throw InputError(std::string(origin) + ": " + sp + ": must be a table");
-      detail::check_keys(*s,
-                         {"from_C", "from_F", "to_C", "to_F", "within_s", "within_min", "within_h",
-                          "advisory", "source", "status", "label", "from_label"},
-                         origin, sp);
-      CoolingStep st;
-      st.from_C = temperature(*s, "from", origin, sp, &st.from_text, &st.from_written_F);
-      st.to_C = temperature(*s, "to", origin, sp, &st.to_text, &st.to_written_F);
-      if (!(st.to_C < st.from_C))
-        throw InputError(std::string(origin) + ": " + sp + ": to = " + number_text(st.to_C) +
-                         " C: must be below from = " + number_text(st.from_C) + " C");
-      st.within_s = duration_s(*s, "within", origin, sp);
-      if (s->contains("advisory")) {
-        auto a = (*s)["advisory"].value<bool>();
-        if (!a) throw InputError(std::string(origin) + ": " + sp + ".advisory: must be true or false");
-        st.advisory = *a;
-      }
-      st.source = detail::get_string(*s, "source", origin, sp);
-      st.status = detail::get_string(*s, "status", origin, sp);
-      detail::check_status(st.status, origin, sp);
-      st.label = detail::get_string(*s, "label", origin, sp, false);
-      // from_label words the start ("ambient") and keeps the end a temperature (shown in --units)
-      const std::string from_label = detail::get_string(*s, "from_label", origin, sp, false);
-      if (st.label.empty())
-        st.label = (from_label.empty() ? st.from_text : from_label) + " -> " + st.to_text;
-      r.steps.push_back(st);
-    }
-    lib.rules.push_back(std::move(r));
-  }
+  for (std::size_t i = 0; i < rules.size(); ++i)
+    lib.rules.push_back(read_rule(root.nested("rule[" + std::to_string(i + 1) + "]", *rules.get(i)->as_table(),
+                                              plain_keys({"key", "name", "source", "status", "note", "step",
+                                                          "chill_start_within_min", "chill_start_source"})),
+                                  seen));
   return lib;
 }
 

@@ -8,6 +8,8 @@
 #include <sstream>
 
 #include "coldcore/error.hpp"
+#include "coldcore/number_text.hpp"
+#include "coldcore/suggest.hpp"
 #include "io/detail/text.hpp"
 
 namespace coldcore::io::detail {
@@ -87,14 +89,6 @@ std::string range_text(const limits::Range& r, std::optional<Quantity> q, std::s
   return "from " + tidy(lo) + " to " + tidy(hi) + (unit.empty() ? "" : " ") + std::string(unit_text(unit));
 }
 
-void Fields::require_range(std::string_view key, double si, const limits::Range& r, std::optional<Quantity> q,
-                           std::string_view unit, std::string_view why) const {
-  if (r.contains(si)) return;
-  std::string need = "must be " + range_text(r, q, unit);
-  if (!why.empty()) need += " (" + std::string(why) + ")";
-  fail(key, need);
-}
-
 std::string spellings(std::string_view base, Quantity q) {
   std::string out;
   const auto units = unit_suffixes(q);
@@ -103,6 +97,15 @@ std::string spellings(std::string_view base, Quantity q) {
     out += std::string(base) + "_" + std::string(units[i]);
   }
   return out;
+}
+
+toml::table parse_toml(std::string_view text, const std::string& origin) {
+  try {
+    return toml::parse(text, origin);
+  } catch (const toml::parse_error& e) {
+    throw InputError(origin + ":" + std::to_string(e.source().begin.line) + ":" +
+                     std::to_string(e.source().begin.column) + ": not valid TOML: " + std::string(e.description()));
+  }
 }
 
 std::string format_value(const toml::node& n) {
@@ -201,6 +204,20 @@ void Fields::missing(std::string_view key, const std::string& requirement) const
   throw InputError(origin_ + ": " + key_path(key) + ": missing: " + requirement);
 }
 
+void Fields::fail_value(std::string_view what, double value, const std::string& requirement) const {
+  // number_text, not format_value: a converted value would show its last-bit noise.
+  throw InputError(origin_ + ": " + key_path(what) + " = " + number_text(value) + ": " + requirement);
+}
+
+void Fields::fail_at(std::string_view where, const std::string& problem) const {
+  const std::string place = where.empty() ? path_ : key_path(where);
+  throw InputError(origin_ + ": " + (place.empty() ? "" : place + ": ") + problem);
+}
+
+Fields Fields::nested(std::string_view where, const toml::table& t, std::vector<KeySpec> specs) const {
+  return Fields(t, origin_, key_path(where), std::move(specs));
+}
+
 const toml::node* Fields::node(std::string_view plain_key) const { return table_.get(plain_key); }
 
 std::optional<Found> Fields::find(std::string_view base) const {
@@ -218,39 +235,6 @@ std::optional<Found> Fields::find(std::string_view base) const {
       if (auto units = medium_units(suffix)) return Found{key, units->second, units->first, &v};
   }
   return std::nullopt;
-}
-
-std::optional<std::string> Fields::string(std::string_view key) const {
-  const toml::node* n = node(key);
-  if (n == nullptr) return std::nullopt;
-  if (auto s = n->as_string()) return s->get();
-  fail(key, "must be a string, in double quotes");
-}
-
-double Fields::number_of(std::string_view key, const toml::node& n, bool allow_inf,
-                         std::string_view what) const {
-  double v = 0;
-  if (auto i = n.as_integer()) {
-    v = static_cast<double>(i->get());
-  } else if (auto f = n.as_floating_point()) {
-    v = f->get();
-  } else {
-    fail(key, what.empty() ? std::string("must be a number") : "must be a number (" + std::string(what) + ")");
-  }
-  if (std::isnan(v) || (!allow_inf && std::isinf(v))) fail(key, "must be a finite number");
-  return v;
-}
-
-std::optional<double> Fields::quantity_si(std::string_view base, Found* found) const {
-  auto f = find(base);
-  if (!f) return std::nullopt;
-  const KeySpec* spec = nullptr;
-  for (const auto& s : specs_)
-    if (s.name == base) spec = &s;
-  const std::string what = std::string(quantity_name(spec->quantity)) + " in " + f->unit;
-  const double raw = number_of(f->key, *f->node, false, what);
-  if (found != nullptr) *found = *f;
-  return *to_si(spec->quantity, raw, f->unit);
 }
 
 }  // namespace coldcore::io::detail

@@ -7,6 +7,7 @@
 #include "coldcore/error.hpp"
 #include "coldcore/io/quantity.hpp"
 #include "io/detail/fields.hpp"
+#include "io/detail/sourced.hpp"
 #include "io/detail/text.hpp"
 
 namespace coldcore::io {
@@ -26,13 +27,7 @@ const MediumType& medium_at(const MediaLibrary& library, std::string_view key, s
 
 MediaLibrary parse_media(std::string_view text, std::string_view origin_sv) {
   const std::string origin(origin_sv);
-  toml::table doc;
-  try {
-    doc = toml::parse(text, origin_sv);
-  } catch (const toml::parse_error& e) {
-    throw InputError(origin + ":" + std::to_string(e.source().begin.line) + ":" +
-                     std::to_string(e.source().begin.column) + ": not valid TOML: " + std::string(e.description()));
-  }
+  const toml::table doc = detail::parse_toml(text, origin);
   using detail::plain;
   detail::Fields root(doc, origin, "", {plain("schema"), plain("media")});
   const toml::node* schema = root.node("schema");
@@ -68,9 +63,7 @@ MediaLibrary parse_media(std::string_view text, std::string_view origin_sv) {
     m.h_max_W_m2K = h("h_max_W_m2K");
     if (m.h_max_W_m2K < m.h_min_W_m2K) f.fail("h_max_W_m2K", "must be >= h_min_W_m2K (" + detail::format_number(m.h_min_W_m2K) + ")");
     m.source = str("source");
-    m.status = str("status");
-    if (m.status != "confirmed" && m.status != "from memory" && m.status != "derived")
-      f.fail("status", "must be \"confirmed\", \"from memory\" or \"derived\"");
+    m.status = detail::source_status(f);
     lib.media.push_back(std::move(m));
   }
   if (lib.media.empty()) root.fail("media", "must hold at least one [media.<key>] table");

@@ -3,169 +3,159 @@
 #include <set>
 #include <string>
 
-#include "coldcore/error.hpp"
 #include "coldcore/io/libraries.hpp"
 #include "coldcore/model/limits.hpp"
 #include "coldcore/number_text.hpp"
-#include "io/detail/library_toml.hpp"
+#include "io/detail/fields.hpp"
+#include "io/detail/sourced.hpp"
 
 namespace coldcore::io {
 
 namespace {
 
+using detail::Fields;
+using detail::plain_keys;
+using detail::sourced;
+
 // Weibull shape p: published fits lie roughly within 0.2-5 (from memory); 0.05-20 only stops garbage.
 constexpr limits::Range kWeibullShape{0.05, 20.0};
 
-
-// Reads a sourced time given as <stem>_s or <stem>_min (exactly one of them).
-std::optional<Sourced> sourced_time(const toml::table& t, const std::string& stem,
-                                    std::string_view origin, const std::string& place) {
-  const bool s = t.contains(stem + "_s"), m = t.contains(stem + "_min");
-  if (s && m)
-    throw InputError(std::string(origin) + ": " + place + ": give " + stem + "_s or " + stem +
-                     "_min, not both");
-  if (s) return detail::get_sourced(t, stem + "_s", origin, place, 1.0);
-  if (m) return detail::get_sourced(t, stem + "_min", origin, place, 60.0);
+// Reads a sourced time given as <stem>_s or <stem>_min (exactly one of them), in s.
+std::optional<Sourced> sourced_time(const Fields& f, const std::string& stem) {
+  const bool s = f.node(stem + "_s") != nullptr, m = f.node(stem + "_min") != nullptr;
+  if (s && m) f.fail_at("", "give " + stem + "_s or " + stem + "_min, not both");
+  if (s) return sourced(f, stem + "_s", 1.0);
+  if (m) return sourced(f, stem + "_min", 60.0);
   return std::nullopt;
 }
 
-void require_positive(const Sourced& v, std::string_view origin, const std::string& where) {
-  if (!(v.value > 0))
-    throw InputError(std::string(origin) + ": " + where + " = " + number_text(v.value) +
-                     ": must be > 0");
+// A rate parameter: > 0 (a zero or negative one has no meaning) and within `r`, in SI `unit`.
+void require_positive_in(const Fields& f, const std::string& what, const Sourced& v, const limits::Range& r,
+                         std::string_view unit) {
+  if (!(v.value > 0)) f.fail_value(what, v.value, "must be > 0");
+  f.require_value_range(what, v.value, r, unit);
 }
 
+Weibull read_weibull(const Fields& w, Organism& o) {
+  auto delta = sourced_time(w, "delta_ref");
+  if (!delta) w.missing("delta_ref_min", "the Weibull scale at the reference temperature (delta_ref_s or delta_ref_min)");
+  require_positive_in(w, "delta_ref", *delta, limits::duration_s, "s");
+  const Sourced p = sourced(w, "p");
+  require_positive_in(w, "p", p, kWeibullShape, "(dimensionless)");
+  o.values.emplace_back("weibull.delta_ref_s", *delta);
+  o.values.emplace_back("weibull.p", p);
+  return Weibull{delta->value, p.value};
+}
+
+EquivalenceTable read_equivalence(const Fields& e) {
+  EquivalenceTable eq;
+  eq.source = e.required_string("source", "the publication the table is taken from");
+  eq.status = detail::source_status(e);
+  eq.note = e.string("note").value_or("");
+  eq.F_ref_s = 60.0 * e.required_number("F_ref_min", "the reference process's F-value in min");
+  e.require_value_range("F_ref_min (in s)", eq.F_ref_s, limits::duration_s, "s");
+  const toml::node* rows_node = e.node("rows_min");
+  if (rows_node == nullptr) e.missing("rows_min", "[[temp_C, time_min], ...]");
+  const toml::array* rows = rows_node->as_array();
+  if (rows == nullptr) e.fail("rows_min", "must be [[temp_C, time_min], ...]");
+  for (std::size_t r = 0; r < rows->size(); ++r) {
+    const toml::array* row = (*rows)[r].as_array();
+    const auto T = row && row->size() == 2 ? (*row)[0].value<double>() : std::nullopt;
+    const auto m = row && row->size() == 2 ? (*row)[1].value<double>() : std::nullopt;
+    if (!T || !m || !(*m > 0) || !limits::temperature_C.contains(*T) || !limits::duration_s.contains(*m * 60.0))
+      e.fail_at("rows_min[" + std::to_string(r + 1) + "]",
+                "must be [temp_C, time_min] with temp_C from " + number_text(limits::temperature_C.low) + " to " +
+                    number_text(limits::temperature_C.high) + " and time_min > 0, at most a year");
+    eq.rows.push_back({*T, *m * 60.0});
+  }
+  return eq;
+}
+
+Organism read_organism(const Fields& f, std::set<std::string>& seen) {
+  Organism o;
+  Kinetics& k = o.kinetics;
+  k.key = f.required_string("key", "the organism's key, in double quotes (targets name it)");
+  if (k.key.empty()) f.fail("key", "must not be empty");
+  if (!seen.insert(k.key).second) f.fail("key", "duplicate key");
+  k.name = f.required_string("name", "a name for reports, in double quotes");
+  o.kind = f.required_string("kind", "\"vegetative\", \"spore\" or \"quality\"");
+  if (o.kind != "vegetative" && o.kind != "spore" && o.kind != "quality")
+    f.fail("kind", "must be \"vegetative\", \"spore\" or \"quality\"");
+  auto add = [&](const std::string& key, const Sourced& v) { o.values.emplace_back(key, v); };
+  const Sourced ref = sourced(f, "reference_C");
+  f.require_value_range("reference_C", ref.value, limits::temperature_C, "C");
+  add("reference_C", ref);
+  k.reference_C = ref.value;
+  const Sourced z = sourced(f, "z_C");
+  require_positive_in(f, "z_C", z, limits::z_C, "C");
+  add("z_C", z);
+  k.z_C = z.value;
+  const bool has_z_below = f.node("z_below_C") != nullptr;
+  if (has_z_below != (f.node("split_C") != nullptr)) f.fail_at("", "z_below_C and split_C must be given together");
+  if (has_z_below) {
+    const Sourced zb = sourced(f, "z_below_C");
+    require_positive_in(f, "z_below_C", zb, limits::z_C, "C");
+    const Sourced sp = sourced(f, "split_C");
+    f.require_value_range("split_C", sp.value, limits::temperature_C, "C");
+    add("z_below_C", zb);
+    add("split_C", sp);
+    k.z_below_C = zb.value;
+    k.split_C = sp.value;
+  }
+  if (auto d = sourced_time(f, "D_ref")) {
+    require_positive_in(f, "D_ref", *d, limits::duration_s, "s");
+    add("D_ref_s", *d);
+    k.D_ref_s = d->value;
+  }
+  const Sourced vmin = sourced(f, "valid_min_C");
+  const Sourced vmax = sourced(f, "valid_max_C");
+  f.require_value_range("valid_min_C", vmin.value, limits::temperature_C, "C");
+  f.require_value_range("valid_max_C", vmax.value, limits::temperature_C, "C");
+  if (!(vmin.value < vmax.value))
+    f.fail_value("valid_min_C", vmin.value, "must be < valid_max_C = " + number_text(vmax.value));
+  if (k.reference_C < vmin.value || k.reference_C > vmax.value)
+    f.fail_value("reference_C", k.reference_C,
+                 "must lie in the valid range [" + number_text(vmin.value) + ", " + number_text(vmax.value) + "]");
+  add("valid_min_C", vmin);
+  add("valid_max_C", vmax);
+  k.valid_min_C = vmin.value;
+  k.valid_max_C = vmax.value;
+  if (const toml::node* w = f.node("weibull")) {
+    if (!w->is_table()) f.fail("weibull", "must be a table { delta_ref_s|delta_ref_min = ..., p = ... }");
+    k.weibull = read_weibull(f.nested("weibull", *w->as_table(), plain_keys({"delta_ref_s", "delta_ref_min", "p"})), o);
+  }
+  if (const toml::node* e = f.node("equivalence")) {
+    if (!e->is_table()) f.fail("equivalence", "must be a table { source, status, F_ref_min, rows_min }");
+    o.equivalence = read_equivalence(
+        f.nested("equivalence", *e->as_table(), plain_keys({"source", "status", "note", "F_ref_min", "rows_min"})));
+  }
+  // The organism's source line: each value's source once, in the order read.
+  k.source.clear();
+  for (const auto& [key, v] : o.values) {
+    if (k.source.find(v.source) == std::string::npos) {
+      if (!k.source.empty()) k.source += "; ";
+      k.source += v.source;
+    }
+  }
+  return o;
+}
 
 }  // namespace
 
 OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view origin) {
-  const toml::table root = detail::parse_toml(toml_text, origin);
-  detail::check_keys(root, {"schema", "organism"}, origin, "top level");
+  const toml::table doc = detail::parse_toml(toml_text, std::string(origin));
+  const Fields root(doc, std::string(origin), "", plain_keys({"schema", "organism"}));
+  if (auto schema = root.number("schema"); schema && *schema != 1) root.fail("schema", "must be 1");
   OrganismLibrary lib;
   lib.origin = std::string(origin);
-  if (root.contains("schema") && detail::get_number(root, "schema", origin, "top level") != 1)
-    throw InputError(std::string(origin) + ": schema = " +
-                     number_text(detail::get_number(root, "schema", origin, "top level")) +
-                     ": must be 1");
-  const toml::array* arr = root["organism"].as_array();
-  if (!arr) throw InputError(std::string(origin) + ": organism: missing ([[organism]] tables)");
+  const toml::array& organisms = root.tables("organism", "[[organism]] tables");
   std::set<std::string> seen;
-  for (std::size_t i = 0; i < arr->size(); ++i) {
-    const toml::table* t = (*arr)[i].as_table();
-    const std::string place = "organism[" + std::to_string(i + 1) + "]";
-    if (!t) throw InputError(std::string(origin) + ": " + place + ": must be a table");
-    detail::check_keys(*t,
-                       {"key", "name", "kind", "reference_C", "z_C", "z_below_C", "split_C",
-                        "D_ref_s", "D_ref_min", "valid_min_C", "valid_max_C", "weibull",
-                        "equivalence", "note"},
-                       origin, place);
-    Organism o;
-    Kinetics& k = o.kinetics;
-    k.key = detail::get_string(*t, "key", origin, place);
-    if (k.key.empty()) throw InputError(std::string(origin) + ": " + place + ".key = \"\": must not be empty");
-    if (!seen.insert(k.key).second)
-      throw InputError(std::string(origin) + ": " + place + ".key = \"" + k.key +
-                       "\": duplicate key");
-    k.name = detail::get_string(*t, "name", origin, place);
-    o.kind = detail::get_string(*t, "kind", origin, place);
-    if (o.kind != "vegetative" && o.kind != "spore" && o.kind != "quality")
-      throw InputError(std::string(origin) + ": " + place + ".kind = \"" + o.kind +
-                       "\": must be \"vegetative\", \"spore\" or \"quality\"");
-    auto add = [&](const std::string& key, const Sourced& v) { o.values.emplace_back(key, v); };
-    const Sourced ref = detail::get_sourced(*t, "reference_C", origin, place);
-    detail::require_in(ref.value, limits::temperature_C, origin, place + ".reference_C", "C");
-    add("reference_C", ref);
-    k.reference_C = ref.value;
-    const Sourced z = detail::get_sourced(*t, "z_C", origin, place);
-    require_positive(z, origin, place + ".z_C");
-    detail::require_in(z.value, limits::z_C, origin, place + ".z_C", "C");
-    add("z_C", z);
-    k.z_C = z.value;
-    if (t->contains("z_below_C") != t->contains("split_C"))
-      throw InputError(std::string(origin) + ": " + place +
-                       ": z_below_C and split_C must be given together");
-    if (t->contains("z_below_C")) {
-      const Sourced zb = detail::get_sourced(*t, "z_below_C", origin, place);
-      require_positive(zb, origin, place + ".z_below_C");
-      detail::require_in(zb.value, limits::z_C, origin, place + ".z_below_C", "C");
-      const Sourced sp = detail::get_sourced(*t, "split_C", origin, place);
-      detail::require_in(sp.value, limits::temperature_C, origin, place + ".split_C", "C");
-      add("z_below_C", zb);
-      add("split_C", sp);
-      k.z_below_C = zb.value;
-      k.split_C = sp.value;
-    }
-    if (auto d = sourced_time(*t, "D_ref", origin, place)) {
-      require_positive(*d, origin, place + ".D_ref");
-      detail::require_in(d->value, limits::duration_s, origin, place + ".D_ref", "s");
-      add("D_ref_s", *d);
-      k.D_ref_s = d->value;
-    }
-    const Sourced vmin = detail::get_sourced(*t, "valid_min_C", origin, place);
-    const Sourced vmax = detail::get_sourced(*t, "valid_max_C", origin, place);
-    detail::require_in(vmin.value, limits::temperature_C, origin, place + ".valid_min_C", "C");
-    detail::require_in(vmax.value, limits::temperature_C, origin, place + ".valid_max_C", "C");
-    if (!(vmin.value < vmax.value))
-      throw InputError(std::string(origin) + ": " + place + ".valid_min_C = " +
-                       number_text(vmin.value) + ": must be < valid_max_C = " +
-                       number_text(vmax.value));
-    if (k.reference_C < vmin.value || k.reference_C > vmax.value)
-      throw InputError(std::string(origin) + ": " + place + ".reference_C = " +
-                       number_text(k.reference_C) + ": must lie in the valid range [" +
-                       number_text(vmin.value) + ", " + number_text(vmax.value) + "]");
-    add("valid_min_C", vmin);
-    add("valid_max_C", vmax);
-    k.valid_min_C = vmin.value;
-    k.valid_max_C = vmax.value;
-    if (const toml::table* w = (*t)["weibull"].as_table()) {
-      const std::string wp = place + ".weibull";
-      detail::check_keys(*w, {"delta_ref_s", "delta_ref_min", "p"}, origin, wp);
-      auto delta = sourced_time(*w, "delta_ref", origin, wp);
-      if (!delta) throw InputError(std::string(origin) + ": " + wp + ".delta_ref_min: missing");
-      require_positive(*delta, origin, wp + ".delta_ref");
-      detail::require_in(delta->value, limits::duration_s, origin, wp + ".delta_ref", "s");
-      const Sourced p = detail::get_sourced(*w, "p", origin, wp);
-      require_positive(p, origin, wp + ".p");
-      detail::require_in(p.value, kWeibullShape, origin, wp + ".p", "(dimensionless)");
-      add("weibull.delta_ref_s", *delta);
-      add("weibull.p", p);
-      k.weibull = Weibull{delta->value, p.value};
-    } else if (t->contains("weibull")) {
-      throw InputError(std::string(origin) + ": " + place + ".weibull: must be a table");
-    }
-    if (const toml::table* e = (*t)["equivalence"].as_table()) {
-      const std::string ep = place + ".equivalence";
-      detail::check_keys(*e, {"source", "status", "note", "F_ref_min", "rows_min"}, origin, ep);
-      EquivalenceTable eq;
-      eq.source = detail::get_string(*e, "source", origin, ep);
-      eq.status = detail::get_string(*e, "status", origin, ep);
-      detail::check_status(eq.status, origin, ep);
-      eq.note = detail::get_string(*e, "note", origin, ep, false);
-      eq.F_ref_s = 60.0 * detail::get_number(*e, "F_ref_min", origin, ep);
-      detail::require_in(eq.F_ref_s, limits::duration_s, origin, ep + ".F_ref_min (in s)", "s");
-      const toml::array* rows = (*e)["rows_min"].as_array();
-      if (!rows) throw InputError(std::string(origin) + ": " + ep + ".rows_min: missing");
-      for (std::size_t r = 0; r < rows->size(); ++r) {
-        const toml::array* row = (*rows)[r].as_array();
-        const auto T = row && row->size() == 2 ? (*row)[0].value<double>() : std::nullopt;
-        const auto m = row && row->size() == 2 ? (*row)[1].value<double>() : std::nullopt;
-        if (!T || !m || !(*m > 0) || !limits::temperature_C.contains(*T) ||
-            !limits::duration_s.contains(*m * 60.0))
-          throw InputError(std::string(origin) + ": " + ep + ".rows_min[" + std::to_string(r + 1) +
-                           "]: must be [temp_C, time_min] with temp_C from " + number_text(limits::temperature_C.low) +
-                           " to " + number_text(limits::temperature_C.high) + " and time_min > 0, at most a year");
-        eq.rows.push_back({*T, *m * 60.0});
-      }
-      o.equivalence = eq;
-    }
-    k.source.clear();
-    for (const auto& [key, v] : o.values) {
-      if (k.source.find(v.source) == std::string::npos) {
-        if (!k.source.empty()) k.source += "; ";
-        k.source += v.source;
-      }
-    }
-    lib.organisms.push_back(std::move(o));
+  for (std::size_t i = 0; i < organisms.size(); ++i) {
+    const Fields f = root.nested("organism[" + std::to_string(i + 1) + "]", *organisms.get(i)->as_table(),
+                                 plain_keys({"key", "name", "kind", "reference_C", "z_C", "z_below_C", "split_C",
+                                             "D_ref_s", "D_ref_min", "valid_min_C", "valid_max_C", "weibull",
+                                             "equivalence", "note"}));
+    lib.organisms.push_back(read_organism(f, seen));
   }
   return lib;
 }

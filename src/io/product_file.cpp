@@ -260,13 +260,7 @@ Product parse_product_table(const toml::table& t, const std::string& origin, std
 ProductFile parse_product(std::string_view toml_text, std::string_view origin_sv,
                           const std::filesystem::path& base_dir, const LogReader& read_log) {
   const std::string origin(origin_sv);
-  toml::table doc;
-  try {
-    doc = toml::parse(toml_text, origin_sv);
-  } catch (const toml::parse_error& e) {
-    throw InputError(origin + ":" + std::to_string(e.source().begin.line) + ":" +
-                     std::to_string(e.source().begin.column) + ": not valid TOML: " + std::string(e.description()));
-  }
+  const toml::table doc = detail::parse_toml(toml_text, origin);
 
   ProductFile out;
   out.origin = origin;

@@ -6,27 +6,16 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/integrate.hpp"
+#include "coldcore/model/find_by_key.hpp"
 #include "lethality/detail/crossing.hpp"
 #include "lethality/detail/text.hpp"
-#include "coldcore/suggest.hpp"
 
 namespace coldcore {
 
-const CookingTable* CookingTables::find(std::string_view key) const {
-  for (const auto& t : tables)
-    if (t.key == key) return &t;
-  return nullptr;
-}
+const CookingTable* CookingTables::find(std::string_view key) const { return find_by_key(tables, key); }
 
 const CookingTable& CookingTables::at(std::string_view key, std::string_view place) const {
-  if (const CookingTable* t = find(key)) return *t;
-  std::vector<std::string> keys;
-  for (const auto& t : tables) keys.push_back(t.key);
-  std::string msg = std::string(place) + ": table = \"" + std::string(key) + "\": not in " +
-                    (origin.empty() ? std::string("the cooking tables") : origin);
-  const std::string near = did_you_mean(key, keys).value_or("");
-  if (!near.empty()) msg += "; did you mean '" + near + "'?";
-  throw InputError(msg);
+  return at_by_key(tables, key, place, "table", origin.empty() ? "the cooking tables" : origin);
 }
 
 namespace {

@@ -1,11 +1,6 @@
 #include "coldcore/lethality/organisms.hpp"
 
-#include <set>
-
-#include "coldcore/error.hpp"
-#include "coldcore/model/limits.hpp"
-#include "lethality/detail/text.hpp"
-#include "coldcore/suggest.hpp"
+#include "coldcore/model/find_by_key.hpp"
 
 namespace coldcore {
 
@@ -15,21 +10,19 @@ bool Organism::has_unconfirmed() const {
   return false;
 }
 
+namespace {
+
+const std::string& organism_key(const Organism& o) { return o.kinetics.key; }
+
+}  // namespace
+
 const Organism* OrganismLibrary::find(std::string_view key) const {
-  for (const auto& o : organisms)
-    if (o.kinetics.key == key) return &o;
-  return nullptr;
+  return find_by_key(organisms, key, organism_key);
 }
 
 const Organism& OrganismLibrary::at(std::string_view key, std::string_view place) const {
-  if (const Organism* o = find(key)) return *o;
-  std::vector<std::string> keys;
-  for (const auto& o : organisms) keys.push_back(o.kinetics.key);
-  std::string msg = std::string(place) + ": organism = \"" + std::string(key) + "\": not in " +
-                    (origin.empty() ? std::string("the organism library") : origin);
-  const std::string near = did_you_mean(key, keys).value_or("");
-  if (!near.empty()) msg += "; did you mean '" + near + "'?";
-  throw InputError(msg);
+  return at_by_key(organisms, key, place, "organism", origin.empty() ? "the organism library" : origin,
+                   organism_key);
 }
 
 }  // namespace coldcore

@@ -224,7 +224,7 @@ kind = "spore"
 refrence_C = 3
 )";
   CHECK_THROWS_WITH_AS(io::parse_organisms(typo, "o.toml"),
-                       "o.toml: unknown key 'refrence_C' in [organism[1]]; did you mean 'reference_C'?",
+                       "o.toml: organism[1].refrence_C = 3: unknown key; did you mean 'reference_C'?",
                        InputError);
   const char* unsourced = R"(
 [[organism]]
@@ -234,7 +234,7 @@ kind = "spore"
 reference_C = 100
 )";
   CHECK_THROWS_WITH_AS(io::parse_organisms(unsourced, "o.toml"),
-                       "o.toml: organism[1].reference_C: must be { value = <number>, source = \"...\", status = \"...\" }",
+                       "o.toml: organism[1].reference_C = 100: must be { value = <number>, source = \"...\", status = \"...\" }",
                        InputError);
 }
 
