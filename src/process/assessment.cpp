@@ -237,6 +237,7 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
         ctx.cook_end_s = opts.cook_end_s;
         ctx.chill_start_s = opts.chill_start_s;
         ctx.unrecorded_s = gaps_of_log(times_s, opts.max_gap_s);
+        ctx.where = "probe";  // a measured log: what it shows is where the probe was
         const CoolingCheck c = check_cooling(times_s, temps_C, rule, ctx, origin);
         cooling_result(r, c, rule, crossing_error(curve.temp_C_at, 0.0, curve.start(), curve.end()));
         break;

@@ -1,5 +1,4 @@
 #include "coldcore/process/cooling.hpp"
-#include "coldcore/model/temperature_token.hpp"
 
 #include <cmath>
 #include <set>
@@ -7,17 +6,15 @@
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/integrate.hpp"
 #include "lethality/detail/crossing.hpp"
-#include "lethality/detail/text.hpp"
 
 namespace coldcore {
 
 namespace {
 
-std::string minutes(double s) { return detail::num(s / 60.0) + " min"; }
-
 CoolingCheck check_curve(const detail::Curve& c, const CoolingRule& rule, const CoolingContext& ctx) {
   CoolingCheck out;
   out.rule_key = rule.key;
+  out.subject = ctx.where;
   bool all = true;
   for (const CoolingStep& st : rule.steps) {
     CoolingStepResult r;
@@ -27,13 +24,15 @@ CoolingCheck check_curve(const detail::Curve& c, const CoolingRule& rule, const 
       const auto [max_T, max_at] = c.max_on_grid();
       if (max_T <= st.from_C) {
         start = max_at;
-        r.notes.push_back(ctx.where + " never exceeds " + temp_token(st.from_C, 10) +
-                          " in the record; the clock starts at its highest temperature (" +
-                          temp_token(max_T, 10) + " at " + minutes(max_at - c.start()) +
-                          ") and any earlier time above it is not counted");
+        CoolingNote n{CoolingNoteKind::never_above_start};
+        n.step = out.steps.size();
+        n.peak_C = max_T;
+        n.at_s = max_at - c.start();
+        r.notes.push_back(n);
       } else {
-        r.notes.push_back(ctx.where + " is still above " + temp_token(st.from_C, 10) +
-                          " at the end of the record: the step's clock never started");
+        CoolingNote n{CoolingNoteKind::above_start_at_end};
+        n.step = out.steps.size();
+        r.notes.push_back(n);
       }
     }
     if (start) {
@@ -42,29 +41,39 @@ CoolingCheck check_curve(const detail::Curve& c, const CoolingRule& rule, const 
       // issue 11: an unrecorded interval counts against the rule.
       for (const auto& [a, b] : ctx.unrecorded_s) {
         if (*start > a && *start < b) {
-          r.notes.push_back("the clock would start inside a gap in the record (" + minutes(a - c.start()) + " to " +
-                            minutes(b - c.start()) + "): it is taken to start at the gap's start");
+          CoolingNote n{CoolingNoteKind::start_in_gap};
+          n.step = out.steps.size();
+          n.gap_from_s = a - c.start();
+          n.gap_to_s = b - c.start();
+          r.notes.push_back(n);
           start = a;
         }
         if (r.end_s && *r.end_s > a && *r.end_s < b) {
-          r.notes.push_back(temp_token(st.to_C, 10) + " is reached inside a gap in the record (" +
-                            minutes(a - c.start()) + " to " + minutes(b - c.start()) +
-                            "): it is taken as reached at the gap's end, the first reading after it");
+          CoolingNote n{CoolingNoteKind::end_in_gap};
+          n.step = out.steps.size();
+          n.gap_from_s = a - c.start();
+          n.gap_to_s = b - c.start();
+          r.notes.push_back(n);
           r.end_s = b;
         }
       }
       r.start_s = start;
       r.elapsed_s = (r.reached ? *r.end_s : c.end()) - *start;
       r.margin_s = st.within_s - r.elapsed_s;
-      if (!r.reached)
-        r.notes.push_back(ctx.where + " did not reach " + temp_token(st.to_C, 10) +
-                          " within the record (" + minutes(r.elapsed_s) + " after the clock start)");
+      if (!r.reached) {
+        CoolingNote n{CoolingNoteKind::end_not_reached};
+        n.step = out.steps.size();
+        n.at_s = r.elapsed_s;
+        r.notes.push_back(n);
+      }
       // Re-heating above from_C after the clock started: the clock is not restarted.
       const double stop = r.reached ? *r.end_s : c.end();
       for (const auto& [a, b] : c.intervals_at_or_above(st.from_C, *start)) {
         if (a > *start + 1e-6 && a < stop && c.temp_C_at(0.5 * (a + b)) > st.from_C) {
-          r.notes.push_back(ctx.where + " rose above " + temp_token(st.from_C, 10) + " again at " +
-                            minutes(a - c.start()) + "; the clock was not restarted");
+          CoolingNote n{CoolingNoteKind::rose_again};
+          n.step = out.steps.size();
+          n.at_s = a - c.start();
+          r.notes.push_back(n);
           break;
         }
       }
@@ -72,9 +81,12 @@ CoolingCheck check_curve(const detail::Curve& c, const CoolingRule& rule, const 
     }
     if (!r.reached) r.temp_at_record_end_C = c.temp_C_at(c.end());
     if (st.advisory) {
-      if (!r.passed)
-        out.notes.push_back("flag: " + st.label + " took longer than " + minutes(st.within_s) +
-                            " (or was not reached): " + st.source);
+      if (!r.passed) {
+        CoolingNote n{CoolingNoteKind::advisory_exceeded};
+        n.step = out.steps.size();
+        n.limit_s = st.within_s;
+        out.notes.push_back(n);
+      }
     } else if (!r.passed) {
       all = false;
     }
@@ -86,15 +98,16 @@ CoolingCheck check_curve(const detail::Curve& c, const CoolingRule& rule, const 
       out.chill_delay_margin_s = *rule.chill_start_within_s - *out.chill_delay_s;
       if (!(*out.chill_delay_margin_s > 0)) {
         all = false;
-        out.notes.push_back("chilling began " + minutes(*out.chill_delay_s) +
-                            " after the cook; the rule requires within " +
-                            minutes(*rule.chill_start_within_s));
+        CoolingNote n{CoolingNoteKind::chill_start_late};
+        n.at_s = *out.chill_delay_s;
+        n.limit_s = *rule.chill_start_within_s;
+        out.notes.push_back(n);
       }
     } else {
       all = false;
-      out.notes.push_back("the time from the end of the cook to the start of chilling is not known: "
-                          "the rule's condition (within " + minutes(*rule.chill_start_within_s) +
-                          ") is not demonstrated");
+      CoolingNote n{CoolingNoteKind::chill_start_unknown};
+      n.limit_s = *rule.chill_start_within_s;
+      out.notes.push_back(n);
     }
   }
   out.passed = all;

@@ -99,8 +99,8 @@ namespace {
 std::string parameter_text(Question q, double x) {
   switch (q) {
     case Question::hold_time:
-    case Question::chill_time: return num(x) + " s";
-    case Question::max_size: return num(x * 1000) + " mm";
+    case Question::chill_time: return num(x).append(" s");  // (append: GCC 12's false -Wrestrict on +)
+    case Question::max_size: return num(x * 1000).append(" mm");
     case Question::min_medium: return temp_token(x);
   }
   return num(x);
@@ -189,7 +189,7 @@ SolveResult hold_time(const Scenario& s, const Libraries& libs, const SolveOptio
   SolveResult r = run_question(Question::hold_time, st, s, libs);
   r.stage = s.stages[k].name;
   r.quantity = "duration";
-  r.unit = "s";
+  r.unit = std::string(1, 's');  // (a one-character literal trips GCC 12's false -Wrestrict here)
   r.nominal = nominal;
   if (s.stages[k].end.kind != StageEndKind::duration)
     r.assumptions.push_back("stage \"" + r.stage + "\" ends by a temperature condition in the file; for this question "

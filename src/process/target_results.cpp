@@ -125,9 +125,6 @@ void cooling_result(TargetResult& r, const CoolingCheck& c, const CoolingRule& r
       binding_err = e;
     }
   }
-  for (const auto& s : c.steps)
-    for (const auto& n : s.notes) r.notes.push_back(s.step.label + ": " + n);
-  for (const auto& n : c.notes) r.notes.push_back(n);
   const bool steps_ok = binding && binding->reached && binding_margin > binding_err;
   const bool condition_row =
       rule.chill_start_within_s && (!binding || steps_ok) &&

@@ -10,6 +10,7 @@
 #include "coldcore/error.hpp"
 #include "coldcore/model/limits.hpp"
 #include "coldcore/report/cautions.hpp"
+#include "coldcore/report/cooling_notes.hpp"
 #include "coldcore/report/history_notes.hpp"
 #include "rich_page.hpp"
 
@@ -289,9 +290,9 @@ VerdictRow verdict_row(const TargetResult& t) {
       }
       if (st.step.advisory) line += " [advisory]";
       v.details.push_back(line);
-      for (const auto& n : st.notes) v.details.push_back(n);
+      for (const auto& n : st.notes) v.details.push_back(cooling_note_text(n, *t.cooling));
     }
-    for (const auto& n : t.cooling->notes) v.details.push_back(n);
+    for (const auto& n : t.cooling->notes) v.details.push_back(cooling_note_text(n, *t.cooling));
   }
   if (t.cooking) {
     if (t.cooking->instant_reached_s)

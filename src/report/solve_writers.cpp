@@ -2,6 +2,7 @@
 #include <optional>
 #include <ostream>
 
+#include "coldcore/report/cooling_notes.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
 #include "coldcore/report/json_contract.hpp"
@@ -70,7 +71,9 @@ void write_target_json(JsonWriter& w, const TargetResult& t) {
     w.key("F_min").value(t.F_s / 60.0);
     w.key("F_required_min").value(t.F_required_s / 60.0);
   }
-  w.key("notes").value(t.notes);
+  std::vector<std::string> notes = t.cooling ? cooling_note_texts(*t.cooling) : std::vector<std::string>{};
+  notes.insert(notes.end(), t.notes.begin(), t.notes.end());
+  w.key("notes").value(notes);
   if (t.cooling) write_cooling_steps_json(w, *t.cooling);
   w.end_object();
 }

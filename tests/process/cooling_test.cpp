@@ -157,13 +157,20 @@ TEST_CASE("FSIS Appendix B checker / REFERENCES 7 item 19") {
   c2 = run(p2slow, "fsis-stabilization-option-2", ctx);
   CHECK(c2.passed);
   REQUIRE(c2.notes.size() == 1);
-  CHECK(c2.notes[0].find("flag:") == 0);
+  CHECK(c2.notes[0].kind == CoolingNoteKind::advisory_exceeded);
+  CHECK(c2.notes[0].step == 1);  // the rule's advisory 120 -> 80 F step
+  CHECK(c2.steps.at(1).step.advisory);
   // Chilling started 100 min after the cook: fails; unknown start: not demonstrated.
   ctx.chill_start_s = 100 * 60;
-  CHECK_FALSE(run(p2, "fsis-stabilization-option-2", ctx).passed);
+  const CoolingCheck late = run(p2, "fsis-stabilization-option-2", ctx);
+  CHECK_FALSE(late.passed);
+  REQUIRE_FALSE(late.notes.empty());
+  CHECK(late.notes.back().kind == CoolingNoteKind::chill_start_late);
+  CHECK(late.notes.back().at_s == 100 * 60.0);
+  CHECK(late.notes.back().limit_s == 90 * 60.0);  // FSIS option 2: chilling begun within 90 min
   const CoolingCheck unknown = run(p2, "fsis-stabilization-option-2");
   CHECK_FALSE(unknown.passed);
-  CHECK(unknown.notes.back().find("not known") != std::string::npos);
+  CHECK(unknown.notes.back().kind == CoolingNoteKind::chill_start_unknown);
 }
 
 TEST_CASE("clock edge cases: record starting below / never reaching / reheating") {
@@ -171,7 +178,10 @@ TEST_CASE("clock edge cases: record starting below / never reaching / reheating"
   below.at(0, 50).at(60, 20).at(300, 4);
   CoolingCheck c = run(below, "two-stage-6h");
   CHECK(c.steps[0].start_s.value() == 0);
-  CHECK(c.steps[0].notes.size() == 1);
+  REQUIRE(c.steps[0].notes.size() == 1);
+  CHECK(c.steps[0].notes[0].kind == CoolingNoteKind::never_above_start);
+  CHECK(c.steps[0].notes[0].peak_C == 50);
+  CHECK(c.steps[0].notes[0].at_s == 0);
   // Heated only to 50 C, then cooled: the clock starts at the peak, not at the record's start.
   Log warm;
   warm.at(0, 4).at(30, 50).at(60, 40).at(150, 21).at(300, 4);
@@ -184,16 +194,22 @@ TEST_CASE("clock edge cases: record starting below / never reaching / reheating"
   c = run(stuck, "two-stage-6h");
   CHECK_FALSE(c.passed);
   CHECK_FALSE(c.steps[0].reached);
+  REQUIRE_FALSE(c.steps[0].notes.empty());
+  CHECK(c.steps[0].notes.back().kind == CoolingNoteKind::end_not_reached);
   Log hot;
   hot.at(0, 80).at(100, 70);
   c = run(hot, "two-stage-6h");
   CHECK_FALSE(c.steps[0].start_s.has_value());
   CHECK_FALSE(c.passed);
+  REQUIRE(c.steps[0].notes.size() == 1);
+  CHECK(c.steps[0].notes[0].kind == CoolingNoteKind::above_start_at_end);
   Log reheat;
   reheat.at(0, 70).at(10, 50).at(20, 60).at(60, 21).at(300, 4);
   c = run(reheat, "two-stage-6h");
   CHECK(c.steps[0].start_s.value() < 600);
-  CHECK(c.steps[0].notes.size() == 1);
+  REQUIRE(c.steps[0].notes.size() == 1);
+  CHECK(c.steps[0].notes[0].kind == CoolingNoteKind::rose_again);
+  CHECK(c.steps[0].notes[0].at_s == doctest::Approx(17 * 60.0));  // 50 -> 60 C over 10-20 min crosses 57 C at 17
 }
 
 TEST_CASE("cooling-rule file errors name the place") {

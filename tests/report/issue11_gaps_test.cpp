@@ -11,6 +11,7 @@
 #include <limits>
 #include <vector>
 
+#include "coldcore/report/cooling_notes.hpp"
 #include "coldcore/io/logger_csv.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/scenario.hpp"
@@ -92,7 +93,8 @@ TEST_CASE("issue 11: a cooling step completed inside a log gap counts only from 
   CHECK(s1.elapsed_s == doctest::Approx(99 * 60.0).epsilon(1e-9));
   CHECK(r.margin == doctest::Approx(21 * 60.0).epsilon(1e-9));  // 120 - 99 min, the binding step
   bool said = false;
-  for (const auto& n : r.notes) said = said || n.find("is reached inside a gap in the record") != std::string::npos;
+  for (const auto& n : cooling_note_texts(*r.cooling))
+    said = said || n.find("is reached inside a gap in the record") != std::string::npos;
   CHECK(said);
   // Without the gap limit the same log passes the step at 98 min (72 min after its start).
   const ProbeAssessment pp = cooling_line_with_gap(95, 125, std::numeric_limits<double>::infinity());

@@ -43,6 +43,30 @@ struct CoolingContext {
   std::vector<std::array<double, 2>> unrecorded_s;
 };
 
+/// What a cooling check has to say beyond its numbers; report words it (report/cooling_notes.hpp).
+enum class CoolingNoteKind {
+  never_above_start,   ///< the record never exceeds from_C: clock from its peak (peak_C at at_s)
+  above_start_at_end,  ///< still above from_C at the end: the clock never started
+  start_in_gap,        ///< the clock would start in the gap [gap_from_s, gap_to_s]: taken at its start
+  end_in_gap,          ///< to_C is reached in the gap [gap_from_s, gap_to_s]: taken at its end
+  end_not_reached,     ///< to_C not reached in the record; at_s = elapsed since the clock start
+  rose_again,          ///< rose above from_C again at at_s; the clock was not restarted
+  advisory_exceeded,   ///< rule note: the advisory step `step` took longer than its limit
+  chill_start_late,    ///< rule note: chilling began at_s after the cook; limit_s allowed
+  chill_start_unknown, ///< rule note: cook end or chill start unknown; limit_s allowed
+};
+
+/// One note with its values: times in s from the record's start unless said otherwise,
+/// temperatures in °C. The step's own temperatures are in CoolingStepResult::step.
+struct CoolingNote {
+  CoolingNoteKind kind = CoolingNoteKind::never_above_start;
+  double at_s = 0;
+  double peak_C = 0;
+  double gap_from_s = 0, gap_to_s = 0;
+  double limit_s = 0;
+  std::size_t step = 0;  ///< the step (index into CoolingCheck::steps) the note concerns
+};
+
 struct CoolingStepResult {
   CoolingStep step;
   std::optional<double> start_s;   ///< clock start
@@ -53,7 +77,7 @@ struct CoolingStepResult {
   bool passed = false;             ///< reached && margin > 0 (advisory steps: not exceeded)
   /// Temperature at the end of the record, when to_C was not reached (or the clock never started).
   std::optional<double> temp_at_record_end_C;
-  std::vector<std::string> notes;
+  std::vector<CoolingNote> notes;
 };
 
 struct CoolingCheck {
@@ -62,7 +86,8 @@ struct CoolingCheck {
   std::optional<double> chill_delay_s;   ///< chill_start − cook_end when both known
   std::optional<double> chill_delay_margin_s;
   bool passed = false;                   ///< every non-advisory step passed and the chill-start condition met
-  std::vector<std::string> notes;        ///< flags (advisory steps exceeded, missing context)
+  std::vector<CoolingNote> notes;        ///< flags (advisory steps exceeded, missing context)
+  std::string subject = "cold spot";     ///< CoolingContext::where: what the temperatures are of
 };
 
 /// Checks a measured log (linear between rows). REQUIRES: times strictly increasing (else InputError).
