@@ -147,7 +147,7 @@ void cooling_result(TargetResult& r, const CoolingCheck& c, const CoolingRule& r
     r.margin = *c.chill_delay_margin_s;
     r.margin_uncertainty = 0;  // both times are given or are stage boundaries, not crossings
     r.achieved_text = minutes_up(r.achieved);
-    decide(r, kMin);
+    decide(r, kShownMin);
     return;
   }
   if (!binding) {  // only advisory steps: nothing to demonstrate
@@ -167,7 +167,7 @@ void cooling_result(TargetResult& r, const CoolingCheck& c, const CoolingRule& r
   r.required_text = minutes_down(r.required) + " (step " + s.step.label + ")";
   if (s.reached) {
     r.achieved_text = minutes_up(r.achieved);
-    decide(r, kMin);
+    decide(r, kShownMin);
     if (r.verdict == Verdict::met && !c.passed) {  // cannot happen: every step and condition passed
       r.verdict = Verdict::not_demonstrated;
       r.verdict_text = "not demonstrated (see notes)";

@@ -45,37 +45,6 @@ bool ProbeAssessment::all_met() const {
 
 namespace assessing {
 
-std::string shown(double value, int significant, bool up) {
-  if (!std::isfinite(value)) return value > 0 ? "inf" : (value < 0 ? "-inf" : "nan");
-  if (value == 0) return "0";
-  const int e = static_cast<int>(std::floor(std::log10(std::abs(value))));
-  const int decimals = std::max(0, significant - 1 - e);
-  const double scale = std::pow(10.0, significant - 1 - e);
-  // Allowance for binary representation error (documented in the header).
-  const double x = value * scale;
-  const double nudge = 1e-12 * std::abs(x);
-  const double r = up ? std::ceil(x - nudge) : std::floor(x + nudge);
-  char buf[64];
-  std::snprintf(buf, sizeof buf, "%.*f", decimals, r / scale);
-  return buf;
-}
-
-}  // namespace assessing
-
-std::string shown_down(double value, int significant) { return shown(value, significant, false); }
-std::string shown_up(double value, int significant) { return shown(value, significant, true); }
-
-std::string shown_log_reduction(double logs, double required_logs) {
-  const double n = std::max(kMeaningfulLogReduction, std::ceil(required_logs));
-  if (logs > n) return "more than " + detail::num(n) + " log10";
-  return shown_down(logs) + " log10";
-}
-
-namespace assessing {
-
-std::string minutes_down(double s) { return shown_down(s / 60.0) + " min"; }
-std::string minutes_up(double s) { return shown_up(s / 60.0) + " min"; }
-
 // ---- Error bounds of a margin (issue 11: "met" on a margin of rounding noise) ----
 
 
@@ -109,14 +78,6 @@ double f_relative_error_of_temperature(const Kinetics& k, double tol_K) {
   double z = k.z_C;
   if (k.z_below_C && *k.z_below_C > 0) z = std::min(z, *k.z_below_C);
   return z > 0 ? std::expm1(std::log(10.0) * tol_K / z) : 0.0;
-}
-
-std::string signed_small(double v, const ShownUnit& u) {
-  // Built by appending: GCC 12's -Wrestrict misreads the "+" + std::string chain here.
-  std::string s(v > 0 ? "+" : "-");
-  s += v > 0 ? shown_down(v * u.scale, 2) : shown_up(-v * u.scale, 2);
-  s += u.suffix;
-  return s;
 }
 
 // The verdict and the margin and verdict texts from r.margin and r.margin_uncertainty (every
@@ -162,7 +123,7 @@ void finish(TargetResult& r, bool log_units) {
     r.required_text = minutes_up(r.required);
     r.achieved_text = minutes_down(r.achieved);
   }
-  decide(r, log_units ? kLog : kMin);
+  decide(r, log_units ? kShownLog : kShownMin);
 }
 
 // Log reductions beyond N = max(15, the requirement rounded up) are not a result. Why 15: D- and

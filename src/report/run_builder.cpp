@@ -247,8 +247,6 @@ namespace coldcore {
 
 namespace {
 
-std::string minutes_down(double seconds) { return shown_down(seconds / 60.0) + " min"; }
-std::string minutes_up(double seconds) { return shown_up(seconds / 60.0) + " min"; }
 
 }  // namespace
 

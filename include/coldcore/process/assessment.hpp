@@ -27,6 +27,7 @@
 #include "coldcore/lethality/kinetics.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
+#include "coldcore/process/shown_values.hpp"
 #include "coldcore/model/targets.hpp"
 
 namespace coldcore {
@@ -65,10 +66,6 @@ struct AssessOptions {
   std::vector<std::array<double, 2>> unrecorded_s;
 };
 
-/// Log reductions above this are not shown as a count (assessment.cpp says why): the text shows
-/// "more than N log10" with the credited F; the raw number stays in TargetResult::achieved.
-/// N = max(kMeaningfulLogReduction, the target's own requirement rounded up).
-inline constexpr double kMeaningfulLogReduction = 15;
 
 struct StageLethality {
   std::string stage;
@@ -165,13 +162,5 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
                                  const std::vector<Target>& targets, const OrganismLibrary& organisms,
                                  const RuleLibrary& rules, const AssessOptions& opts = {},
                                  std::string_view origin = "log");
-
-/// A log reduction as shown anywhere: "6.00 log10" rounded down, or "more than N log10" beyond
-/// N = max(kMeaningfulLogReduction, ceil(required_logs)) (the count is then no result).
-std::string shown_log_reduction(double logs, double required_logs = 0);
-
-/// Rounding used for shown values: 3 significant figures, toward −∞ (down) or +∞ (up).
-std::string shown_down(double value, int significant = 3);
-std::string shown_up(double value, int significant = 3);
 
 }  // namespace coldcore

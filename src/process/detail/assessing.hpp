@@ -19,19 +19,8 @@ namespace coldcore::assessing {
 
 inline constexpr double kEps = std::numeric_limits<double>::epsilon();
 
-/// How a kind's raw values are shown: scale to the shown unit and its suffix.
-struct ShownUnit {
-  double scale = 1;
-  std::string suffix;
-};
-inline const ShownUnit kLog{1.0, " log10"};
-inline const ShownUnit kMin{1.0 / 60.0, " min"};
-
-std::string shown(double value, int significant, bool up);
-std::string minutes_down(double s);
 /// The warning sentence for one finding of the log-sampling check (sampling_notes.cpp).
 std::string sampling_note_text(const SamplingNote& n);
-std::string minutes_up(double s);
 /// Rounding of the unit conversions behind a margin and of the subtraction: a tie inside it.
 double rounding_bound(double a, double b);
 /// Crossing-time error of detail::Curve::refine.
@@ -40,7 +29,6 @@ double refine_tol_s(double t);
 double crossing_uncertainty_s(const std::function<double(double)>& T, double t, double tol_K, double lo, double hi);
 /// Relative error of F on a history whose temperatures are accurate to tol_K.
 double f_relative_error_of_temperature(const Kinetics& k, double tol_K);
-std::string signed_small(double v, const ShownUnit& u);
 /// The verdict, margin and verdict texts from r.margin and r.margin_uncertainty.
 void decide(TargetResult& r, const ShownUnit& u);
 void finish(TargetResult& r, bool log_units);
