@@ -67,7 +67,7 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
           r.F_outside_range_s = outside_range(h, centre, res.k, r.credited_stages, opts.rel_tol);
         }
         r.unrecorded_s = opts.unrecorded_s;
-        gap_notes(r, opts.unrecorded_s, t0, "no lethality credited across");
+        gap_notes(r, opts.unrecorded_s, t0, Credit::lethality);
         // The quadrature stops when its error estimate is within rel_tol·F (integrate.hpp), so
         // rel_tol·F bounds it; taken as the bound (not the estimate itself, which jumps as the
         // adaptive mesh changes) so that the margin stays smooth in a solve's parameter.
@@ -76,14 +76,12 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         lethality_verdict(r, t, res, opts, place, F_err_s);
         provenance_notes(r, res);
         if (r.F_s > 0 && r.F_outside_range_s > opts.out_of_range_flag_fraction * r.F_s)
-          r.notes.push_back("flag: " + shown_up(100 * r.F_outside_range_s / r.F_s, 2) +
-                            " % of the credited F accrued outside the data's valid range " +
-                            temp_token(res.k.valid_min_C, 10) + " to " + temp_token(res.k.valid_max_C, 10));
+          r.notes.push_back(outside_range_note(r.F_outside_range_s / r.F_s, res.k));
         break;
       }
       case TargetKind::cooling_rule: {
         const CoolingRule& rule = rules.at(t.rule, place);
-        std::vector<std::string> ctx_notes;
+        std::vector<TargetNote> ctx_notes;
         CoolingContext ctx = infer_context(h, rule, opts, T_at, ctx_notes);
         ctx.where = t.at == "mean" ? "mass-average temperature" : "cold spot";
         ctx.unrecorded_s = opts.unrecorded_s;
@@ -104,7 +102,7 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
                                        ? check_cooking_table(h, table, t.at == "mean")
                                        : check_cooking_table(c.temp_C_at, c.knots, table, c.probes);
         cooking_result(r, check, cooking_uncertainty(c, table, check, tol_K));
-        gap_notes(r, opts.unrecorded_s, t0, "no time at temperature credited across");
+        gap_notes(r, opts.unrecorded_s, t0, Credit::time_at_temperature);
         break;
       }
       case TargetKind::centre_min_temperature: {
@@ -113,7 +111,7 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
         c.knots = knots(h, t0, t1);
         c.probes = probes_for(c.knots);
         min_temperature_result(r, t, c, crossing_error(T_at, tol_K, t0, t1), opts.unrecorded_s);
-        gap_notes(r, opts.unrecorded_s, t0, "no hold time credited across");
+        gap_notes(r, opts.unrecorded_s, t0, Credit::hold_time);
         break;
       }
     }
@@ -190,9 +188,7 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
         if (std::isfinite(opts.max_gap_s))  // issue 11: no lethality credited where nothing was recorded
           for (std::size_t g = 1; g < times_s.size(); ++g)
             if (times_s[g] - times_s[g - 1] > opts.max_gap_s)
-              r.notes.push_back("no lethality credited across the gap in the log from " + minutes_down(times_s[g - 1]) +
-                                " to " + minutes_down(times_s[g]) + " (longer than " + shown_down(opts.max_gap_s) +
-                                " s): the temperature meanwhile was not recorded");
+              r.notes.push_back(gap_note(Credit::lethality, times_s[g - 1], times_s[g], opts.max_gap_s));
         r.F_s = std::min({pl.F_trapezoid_s, pl.F_simpson_s, pl.F_linear_s});
         const double hi = std::max({pl.F_trapezoid_s, pl.F_simpson_s, pl.F_linear_s});
         if (r.F_s > 0 && hi - r.F_s > 0.01 * r.F_s)
@@ -201,7 +197,7 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
                                  " %; the smallest is used (the log may be too coarse)");
         for (const auto& n : tr.notes) out.warnings.push_back(r.name + ": " + sampling_note_text(n));
         if (!t.stages.empty())
-          r.notes.push_back("stages cannot be selected on a probe log: the whole log is credited");
+          r.notes.push_back({TargetNoteKind::stages_ignored_on_log});
         // Out-of-range share on the linear interpolant.
         if (res.organism) {
           double outside = 0;
@@ -218,10 +214,7 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
           outside += std::max(0.0, total - in_or_above);
           r.F_outside_range_s = outside;
           if (total > 0 && outside > opts.out_of_range_flag_fraction * total)
-            r.notes.push_back("flag: " + shown_up(100 * outside / total, 2) +
-                              " % of the credited F accrued outside the data's valid range " +
-                              temp_token(res.k.valid_min_C, 10) + " to " +
-                              temp_token(res.k.valid_max_C, 10));
+            r.notes.push_back(outside_range_note(outside / total, res.k));
         }
         // The log's rows are the data: the smallest of three exact rules on them is credited, so
         // the bound is the rounding of the sums (a few ulp per row).
@@ -254,7 +247,7 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
           add_gap_knots(c.knots, gaps);
           const CookingCheck check = check_cooking_table(c.temp_C_at, c.knots, table, c.probes);
           cooking_result(r, check, cooking_uncertainty(c, table, check, 0.0));
-          gap_notes(r, gaps, times_s.front(), "no time at temperature credited across");
+          gap_notes(r, gaps, times_s.front(), Credit::time_at_temperature);
         }
         break;
       }

@@ -149,10 +149,25 @@ void add_gap_knots(std::vector<double>& knots, const Gaps& gaps) {
   knots.erase(std::unique(knots.begin(), knots.end()), knots.end());
 }
 
-void gap_notes(TargetResult& r, const Gaps& gaps, double t0, const char* what) {
-  for (const auto& [a, b] : gaps)
-    r.notes.push_back(std::string(what) + " the gap in the log from " + minutes_down(a - t0) + " to " +
-                      minutes_down(b - t0) + ": the temperature meanwhile was not recorded");
+TargetNote gap_note(Credit what, double from_s, double to_s, double limit_s) {
+  TargetNote n{TargetNoteKind::gap_not_credited};
+  n.credits = what;
+  n.from_s = from_s;
+  n.to_s = to_s;
+  n.limit_s = limit_s;
+  return n;
+}
+
+void gap_notes(TargetResult& r, const Gaps& gaps, double t0, Credit what) {
+  for (const auto& [a, b] : gaps) r.notes.push_back(gap_note(what, a - t0, b - t0));
+}
+
+TargetNote outside_range_note(double share, const Kinetics& k) {
+  TargetNote n{TargetNoteKind::outside_valid_range};
+  n.value = share;
+  n.low_C = k.valid_min_C;
+  n.high_C = k.valid_max_C;
+  return n;
 }
 
 std::vector<int> credited(const Target& t, const History& h, const std::string& place) {

@@ -105,7 +105,11 @@ Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<
   for (const auto& g : groups)
     for (int t : g.targets)
       for (const auto& c : g.choices)
-        e.assessment.targets[static_cast<std::size_t>(t)].notes.push_back("h used: " + describe(s, c));
+      {
+        TargetNote n{TargetNoteKind::h_used};
+        n.subject = describe(s, c);
+        e.assessment.targets[static_cast<std::size_t>(t)].notes.push_back(std::move(n));
+      }
   e.all_met = e.assessment.all_met();
   double m = std::numeric_limits<double>::infinity();
   const auto& t = e.assessment.targets;

@@ -20,12 +20,18 @@ namespace assessing {
 
 void provenance_notes(TargetResult& r, const Resolved& res) {
   if (!res.organism) {
-    r.notes.push_back("kinetics given in the target: no valid temperature range is known for them");
+    r.notes.push_back({TargetNoteKind::kinetics_without_range});
     return;
   }
   for (const auto& [key, v] : res.organism->values)
     if (v.status == "from memory")
-      r.notes.push_back(key + " of " + res.k.key + " is from memory (unconfirmed): " + v.source);
+    {
+      TargetNote n{TargetNoteKind::value_from_memory};
+      n.key = key;
+      n.subject = res.k.key;
+      n.source = v.source;
+      r.notes.push_back(std::move(n));
+    }
 }
 
 // F credited outside the organism's valid range, over the credited stages.
@@ -70,9 +76,11 @@ void lethality_verdict(TargetResult& r, const Target& t, const Resolved& res, co
     };
     if (weibull) {
       r.F_required_s = k.weibull->delta_ref_s * std::pow(t.log_reduction, 1.0 / k.weibull->p);
-      r.notes.push_back("Weibull survival (delta = " + shown_down(k.weibull->delta_ref_s / 60) +
-                        " min at " + temp_token(k.reference_C, 10) + ", p = " +
-                        detail::num(k.weibull->p) + "): log10 reduction = (F/delta)^p");
+      TargetNote n{TargetNoteKind::weibull_survival};
+      n.value = k.weibull->delta_ref_s;
+      n.low_C = k.reference_C;
+      n.exponent = k.weibull->p;
+      r.notes.push_back(n);
     } else {
       r.F_required_s = t.log_reduction * *k.D_ref_s;
     }
@@ -288,7 +296,12 @@ void min_temperature_result(TargetResult& r, const Target& t, const detail::Curv
   r.margin = longest - t.hold_s;
   r.margin_uncertainty = longest_err;
   if (runs.empty())
-    r.notes.push_back(t.at + " never reached " + temp_token(t.min_temp_C, 10));
+  {
+    TargetNote n{TargetNoteKind::never_reached};
+    n.subject = t.at;
+    n.low_C = t.min_temp_C;
+    r.notes.push_back(std::move(n));
+  }
   r.source = "target";
   finish(r, false);
 }
@@ -304,7 +317,7 @@ CrossingError crossing_error(const std::function<double(double)>& T, double tol_
 
 // Context for rules with a chill-start condition, inferred from the stages (see AssessOptions).
 CoolingContext infer_context(const History& h, const CoolingRule& rule, const AssessOptions& o,
-                             const std::function<double(double)>& T, std::vector<std::string>& notes) {
+                             const std::function<double(double)>& T, std::vector<TargetNote>& notes) {
   CoolingContext ctx;
   ctx.cook_end_s = o.cook_end_s;
   ctx.chill_start_s = o.chill_start_s;
@@ -327,10 +340,13 @@ CoolingContext infer_context(const History& h, const CoolingRule& rule, const As
           }
         }
       }
-      if (ctx.cook_end_s && ctx.chill_start_s)
-        notes.push_back("chilling taken to start with stage '" + st.name + "' at " +
-                        minutes_down(*ctx.chill_start_s) + "; cook taken to end at " +
-                        minutes_down(*ctx.cook_end_s));
+      if (ctx.cook_end_s && ctx.chill_start_s) {
+        TargetNote n{TargetNoteKind::chill_start_inferred};
+        n.subject = st.name;
+        n.from_s = *ctx.cook_end_s;
+        n.to_s = *ctx.chill_start_s;
+        notes.push_back(std::move(n));
+      }
       break;
     }
     if (T(st.end_s) > hot || T(st.start_s) > hot) was_hot = true;

@@ -96,15 +96,13 @@ void decide(TargetResult& r, const ShownUnit& u) {
     r.margin_text = "0" + u.suffix;
     r.margin_shown = "exactly at the required value";
     r.verdict_text = "not demonstrated — exactly at the required value: not demonstrated by a positive margin";
-    r.notes.push_back("exactly at the required value: not demonstrated by a positive margin");
+    r.notes.push_back({TargetNoteKind::exactly_at_required});
   } else if (std::abs(r.margin) <= r.margin_uncertainty) {
     r.margin_text = "±" + shown_up(r.margin_uncertainty * u.scale, 2) + u.suffix;
     r.margin_shown = "within the numerical uncertainty (" + r.margin_text + ")";
     r.verdict_text = "not demonstrated — within the numerical uncertainty of the target (margin " +
                      signed_small(r.margin, u) + ", uncertainty " + r.margin_text + ")";
-    r.notes.push_back("within the numerical uncertainty of the target: the margin " + signed_small(r.margin, u) +
-                      " is inside the computation's error bound " + r.margin_text +
-                      " (integration error, temperature accuracy, crossing times, unit rounding)");
+    r.notes.push_back({TargetNoteKind::within_uncertainty});
   } else {
     r.margin_text = shown_up(-r.margin * u.scale) + u.suffix;
     r.verdict_text = "not demonstrated, shortfall " + r.margin_text;
@@ -141,11 +139,9 @@ void cap_log_reduction_text(TargetResult& r) {
     r.margin_text = "more than " + shown_down(n - r.required) + " log10";
     r.verdict_text = "met, margin " + r.margin_text;
   }
-  r.notes.push_back("log reductions above " + n_text +
-                    " are not shown as a count: kinetic data are fitted over at most about 9 log cycles "
-                    "and no target in common use asks more than 12 (the botulinum cook), so a larger count "
-                    "extrapolates the survivor curve past anything a validation could observe (common "
-                    "practice; the 9 cycles from memory); the credited F is the result");
+  TargetNote note{TargetNoteKind::log_reduction_capped};
+  note.value = n;
+  r.notes.push_back(note);
 }
 
 }  // namespace assessing

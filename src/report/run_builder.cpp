@@ -12,6 +12,7 @@
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/cooling_notes.hpp"
 #include "coldcore/report/history_notes.hpp"
+#include "coldcore/report/target_notes.hpp"
 #include "rich_page.hpp"
 
 namespace coldcore {
@@ -300,7 +301,7 @@ VerdictRow verdict_row(const TargetResult& t) {
                           " (met when above 1)");
   }
   if (t.reached_s) v.details.push_back("first reached at " + duration_text(*t.reached_s));
-  for (const auto& n : t.notes) v.details.push_back(n);
+  for (const auto& n : t.notes) v.details.push_back(target_note_text(n, t));
   if (!t.source.empty()) v.details.push_back("source: " + t.source);
   return v;
 }

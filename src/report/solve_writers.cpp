@@ -3,6 +3,7 @@
 #include <ostream>
 
 #include "coldcore/report/cooling_notes.hpp"
+#include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/json.hpp"
 #include "coldcore/report/json_contract.hpp"
@@ -72,7 +73,7 @@ void write_target_json(JsonWriter& w, const TargetResult& t) {
     w.key("F_required_min").value(t.F_required_s / 60.0);
   }
   std::vector<std::string> notes = t.cooling ? cooling_note_texts(*t.cooling) : std::vector<std::string>{};
-  notes.insert(notes.end(), t.notes.begin(), t.notes.end());
+  for (const auto& n : t.notes) notes.push_back(target_note_text(n, t));
   w.key("notes").value(notes);
   if (t.cooling) write_cooling_steps_json(w, *t.cooling);
   w.end_object();

@@ -78,12 +78,17 @@ TEST_CASE("log-reduction target: per-stage F / credited stages / margin and rang
   // F credited below 60 C (the data's range is 60-80 C): ramp 20->60 and chill 60->2, closed form.
   const double below = f_linear(1200.0 * 40 / 52, 20, 60, ref, z) + f_linear(3600.0 * 58 / 70, 60, 2, ref, z);
   CHECK(all.F_outside_range_s == doctest::Approx(below).epsilon(1e-5));
-  bool flagged = false;
-  for (const auto& n : all.notes)
-    flagged |= render_temperatures(n, TempUnit::C).find("outside the data's valid range 60 °C to 80 °C") != std::string::npos;
+  bool flagged = false, memory = false;
+  for (const auto& n : all.notes) {
+    if (n.kind == TargetNoteKind::outside_valid_range) {
+      flagged = true;
+      CHECK(n.low_C == 60);
+      CHECK(n.high_C == 80);
+      CHECK(n.value == doctest::Approx(below / all.F_s).epsilon(1e-5));
+    }
+    memory |= n.kind == TargetNoteKind::value_from_memory && n.key == "z_C" && n.subject == "listeria-monocytogenes";
+  }
   CHECK(flagged);
-  bool memory = false;
-  for (const auto& n : all.notes) memory |= n.find("z_C of listeria-monocytogenes is from memory") == 0;
   CHECK(memory);
   // Cumulative F at the stage boundary and the end.
   std::vector<double> times{0, 600, 1800, 5400};

@@ -73,7 +73,8 @@ TEST_CASE("h ends: a credited cooling stage splits lethality (high h) from the c
   CHECK(rule.verdict == lo.assessment.targets[1].verdict);
   // Which h was used and why is said per target and overall.
   bool said = false;
-  for (const auto& n : f.notes) said = said || n.find("h 60 W/m2K, the high end of 20-60") != std::string::npos;
+  for (const auto& n : f.notes)
+    said = said || (n.kind == TargetNoteKind::h_used && n.subject.find("h 60 W/m2K, the high end of 20-60") != std::string::npos);
   CHECK(said);
   CHECK(e.h_notes.size() == 2);
   std::vector<std::string> notes;

@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "coldcore/report/cooling_notes.hpp"
+#include "coldcore/report/target_notes.hpp"
 #include "coldcore/io/logger_csv.hpp"
 #include "coldcore/io/product_file.hpp"
 #include "coldcore/io/scenario.hpp"
@@ -73,7 +74,7 @@ TEST_CASE("issue 11: a gap in a product's medium log credits no lethality in run
   CHECK(f_gap.F_s == doctest::Approx(f_whole.F_s - F_unrecorded_s).epsilon(3e-4));
   CHECK(f_gap.F_s < f_whole.F_s);
   bool named = false;
-  for (const auto& n : f_gap.notes)
+  for (const auto& n : target_note_texts(f_gap))
     named = named || n == "no lethality credited across the gap in the log from 10.0 min to 25.0 min: the "
                          "temperature meanwhile was not recorded";
   CHECK(named);

@@ -82,6 +82,37 @@ struct StageLethality {
 ///  passed step; when every step passes, the tightest). required = its limit, achieved = its
 ///  elapsed time (a lower bound when never reached), margin = limit − elapsed, never positive for
 ///  a step never reached. When only the chill-start condition fails, that condition is the row.
+/// What an assessment has to say about a target beyond its numbers; report words it
+/// (report/target_notes.hpp). Times in s (gap times from the record's start), temperatures in °C.
+enum class TargetNoteKind {
+  kinetics_without_range,  ///< the target gives its own kinetics: no valid range is known
+  value_from_memory,       ///< `key` of organism `subject` is from memory; `source`
+  weibull_survival,        ///< Weibull model: value = δ at low_C (s), exponent = p
+  never_reached,           ///< `subject` (the point) never reached low_C
+  chill_start_inferred,    ///< chilling taken to start with stage `subject` at to_s; cook end at from_s
+  exactly_at_required,     ///< the margin is a tie: not demonstrated
+  within_uncertainty,      ///< |margin| is inside the error bound (TargetResult::margin_text)
+  log_reduction_capped,    ///< counts above value (log10) are not shown
+  outside_valid_range,     ///< value = share of the credited F outside [low_C, high_C]
+  gap_not_credited,        ///< nothing of `credits` credited from from_s to to_s (limit_s: the gap
+                           ///< limit when the log's own rows showed it; 0 otherwise)
+  stages_ignored_on_log,   ///< stage filters cannot apply to a probe log
+  h_used,                  ///< the heat transfer coefficient used: `subject` describes it
+};
+
+/// What a gap note says was not credited.
+enum class Credit { lethality, time_at_temperature, hold_time };
+
+struct TargetNote {
+  TargetNoteKind kind = TargetNoteKind::kinetics_without_range;
+  double value = 0;
+  double exponent = 0;
+  double low_C = 0, high_C = 0;
+  double from_s = 0, to_s = 0, limit_s = 0;
+  Credit credits = Credit::lethality;
+  std::string subject = {}, key = {}, source = {};
+};
+
 struct TargetResult {
   std::string name;              ///< target name, or organism key, or rule key
   std::string column;            ///< csv column "F_<name>_min" for lethality targets, else ""
@@ -114,7 +145,7 @@ struct TargetResult {
   std::optional<CookingCheck> cooking;
   // centre-min-temperature targets:
   std::optional<double> reached_s;   ///< first time the temperature was reached
-  std::vector<std::string> notes;    ///< flags and provenance remarks, one sentence each
+  std::vector<TargetNote> notes;     ///< flags and provenance remarks
   std::string source;                ///< data source(s) behind the verdict
 };
 

@@ -55,7 +55,12 @@ double f_recorded(const History& h, const std::function<double(double)>& T, doub
                   double rel_tol, const Gaps& gaps, double* error_estimate_s = nullptr);
 std::function<double(double)> recorded_only(const std::function<double(double)>& T, const Gaps& gaps);
 void add_gap_knots(std::vector<double>& knots, const Gaps& gaps);
-void gap_notes(TargetResult& r, const Gaps& gaps, double t0, const char* what);
+/// "nothing of `what` credited from from_s to to_s" (limit_s: the gap limit, 0 when not stated).
+TargetNote gap_note(Credit what, double from_s, double to_s, double limit_s = 0);
+/// A gap note per gap, times from t0.
+void gap_notes(TargetResult& r, const Gaps& gaps, double t0, Credit what);
+/// The flag for a share of the credited F outside the kinetics' valid range.
+TargetNote outside_range_note(double share, const Kinetics& k);
 std::vector<int> credited(const Target& t, const History& h, const std::string& place);
 
 // ---- one target's result (target_results.cpp) ----
@@ -76,6 +81,6 @@ void min_temperature_result(TargetResult& r, const Target& t, const detail::Curv
                             const Gaps& gaps = {});
 CrossingError crossing_error(const std::function<double(double)>& T, double tol_K, double lo, double hi);
 CoolingContext infer_context(const History& h, const CoolingRule& rule, const AssessOptions& o,
-                             const std::function<double(double)>& T, std::vector<std::string>& notes);
+                             const std::function<double(double)>& T, std::vector<TargetNote>& notes);
 
 }  // namespace coldcore::assessing

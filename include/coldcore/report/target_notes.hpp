@@ -1,0 +1,16 @@
+#pragma once
+/// A target's notes as sentences (temperatures as tokens, written in the chosen unit where the
+/// report is written, like every other note).
+#include <string>
+#include <vector>
+
+#include "coldcore/process/assessment.hpp"
+
+namespace coldcore {
+
+/// One note of `target`.
+std::string target_note_text(const TargetNote& note, const TargetResult& target);
+/// Every note of the target, in order.
+std::vector<std::string> target_note_texts(const TargetResult& target);
+
+}  // namespace coldcore
