@@ -22,7 +22,7 @@ Assessment assess(const History& h, const std::vector<Target>& targets, const Or
   Assessment out;
   if (h.samples.empty()) throw InputError(opts.origin + ": history: no samples to assess");
   if (!h.evaluate)
-    out.warnings.push_back("history has no exact evaluation: samples are interpolated linearly");
+    out.warnings.push_back({AssessmentWarningKind::interpolated_history});
   const auto centre = temp_function(h, false);
   const auto mean = temp_function(h, true);
   const double t0 = h.samples.front().time_s;
@@ -192,10 +192,8 @@ ProbeAssessment assess_probe_log(std::span<const double> times_s, std::span<cons
         r.F_s = std::min({pl.F_trapezoid_s, pl.F_simpson_s, pl.F_linear_s});
         const double hi = std::max({pl.F_trapezoid_s, pl.F_simpson_s, pl.F_linear_s});
         if (r.F_s > 0 && hi - r.F_s > 0.01 * r.F_s)
-          out.warnings.push_back(r.name + ": trapezoid, Simpson and linear-interpolation F differ by " +
-                                 shown_up(100 * (hi - r.F_s) / r.F_s, 2) +
-                                 " %; the smallest is used (the log may be too coarse)");
-        for (const auto& n : tr.notes) out.warnings.push_back(r.name + ": " + sampling_note_text(n));
+          out.warnings.push_back({AssessmentWarningKind::log_rules_disagree, r.name, (hi - r.F_s) / r.F_s});
+        for (const auto& n : tr.notes) out.warnings.push_back({AssessmentWarningKind::log_sampling, r.name, 0, n});
         if (!t.stages.empty())
           r.notes.push_back({TargetNoteKind::stages_ignored_on_log});
         // Out-of-range share on the linear interpolant.

@@ -56,7 +56,8 @@ std::vector<std::array<double, 2>> unrecorded_on(const History& h, const std::ve
   return out;
 }
 
-void push_unique(std::vector<std::string>& v, const std::string& x) {
+template <class T>
+void push_unique(std::vector<T>& v, const T& x) {
   if (std::find(v.begin(), v.end(), x) == v.end()) v.push_back(x);
 }
 

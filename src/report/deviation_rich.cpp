@@ -5,6 +5,7 @@
 #include <sstream>
 
 #include "coldcore/process/assessment.hpp"
+#include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/deviation_report.hpp"
 #include "coldcore/report/history_notes.hpp"
@@ -196,7 +197,7 @@ void closing_sections(RichDoc& d, const DeviationResult& r, const DeviationRecor
     const auto engine_notes = history_warnings(r.delivered->history);
     warns.insert(warns.end(), engine_notes.begin(), engine_notes.end());
   }
-  if (r.probe) warns.insert(warns.end(), r.probe->warnings.begin(), r.probe->warnings.end());
+  if (r.probe) for (const auto& w : r.probe->warnings) warns.push_back(assessment_warning_text(w));
   if (!warns.empty()) {
     d.section_begin("warnings", "Warnings");
     d.list(warns, true);

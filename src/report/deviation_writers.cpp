@@ -3,6 +3,7 @@
 #include <ostream>
 
 #include "coldcore/process/assessment.hpp"
+#include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/deviation_report.hpp"
 #include "coldcore/report/json.hpp"
@@ -231,7 +232,7 @@ static void write_deviation_text_unrendered(const DeviationResult& r, const Devi
     const auto engine_notes = history_warnings(r.delivered->history);
     warns.insert(warns.end(), engine_notes.begin(), engine_notes.end());
   }
-  if (r.probe) warns.insert(warns.end(), r.probe->warnings.begin(), r.probe->warnings.end());
+  if (r.probe) for (const auto& w : r.probe->warnings) warns.push_back(assessment_warning_text(w));
   if (!warns.empty()) {
     out << "\nWARNINGS\n";
     for (const auto& n : warns) out << "  ! " << n << "\n";
@@ -302,7 +303,7 @@ static void write_deviation_json_unrendered(const DeviationResult& r, const Devi
     w.key("targets").begin_array();
     for (const auto& t : r.probe->targets) write_target_json(w, t);
     w.end_array();
-    w.key("warnings").value(r.probe->warnings);
+    w.key("warnings").value(assessment_warning_texts(r.probe->warnings));
     w.end_object();
   }
   w.key("record").begin_object();

@@ -1,4 +1,5 @@
 // The report model of `coldcore probe`: measured data, named as such.
+#include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/probe_report.hpp"
 
 #include "coldcore/lethality/integrate.hpp"
@@ -102,7 +103,7 @@ RunReport build_probe_report(const TimeSeries& log, const ProbeAssessment& pa, c
     r.verdicts.push_back(v);
   }
   r.warnings = log.warnings;
-  r.warnings.insert(r.warnings.end(), pa.warnings.begin(), pa.warnings.end());
+  for (const auto& w : pa.warnings) r.warnings.push_back(assessment_warning_text(w));
   r.assumptions = {"The log is the temperature at the product's slowest-heating point; its placement and the probe's "
                    "calibration are the user's to verify.",
                    "Temperatures between logged rows are taken as linear in time.",

@@ -357,7 +357,7 @@ void add_assessment(RunReport& report, const std::vector<const History*>& histor
   for (const auto& target : targets)
     if (target.kind == TargetKind::centre_min_temperature)
       report.target_lines.push_back({target.at == "mean" ? "mean_C" : "centre_C", target.min_temp_C, ""});
-  report.warnings.insert(report.warnings.end(), assessment.warnings.begin(), assessment.warnings.end());
+  for (const auto& w : assessment.warnings) report.warnings.push_back(assessment_warning_text(w));
 }
 
 void add_fit_bound(RunReport& report, const std::vector<TargetResult>& at_bound, const Calibration& c) {

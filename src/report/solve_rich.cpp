@@ -4,6 +4,7 @@
 #include <cctype>
 #include <sstream>
 
+#include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/solve_report.hpp"
 #include "coldcore/report/history_notes.hpp"
@@ -156,7 +157,7 @@ void closing_sections(RichDoc& d, const SolveResult& r, const SolveReportContext
   const auto& ev = r.verification.eval;
   const auto engine_notes = history_warnings(ev.history);
   warns.insert(warns.end(), engine_notes.begin(), engine_notes.end());
-  warns.insert(warns.end(), ev.assessment.warnings.begin(), ev.assessment.warnings.end());
+  for (const auto& w : ev.assessment.warnings) warns.push_back(assessment_warning_text(w));
   if (!warns.empty()) {
     d.section_begin("warnings", "Warnings");
     d.list(warns, true);

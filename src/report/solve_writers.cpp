@@ -149,8 +149,7 @@ static void write_solve_text_unrendered(const SolveResult& r, const SolveReportC
   std::vector<std::string> warns = c.warnings;
   const auto engine_notes = history_warnings(r.verification.eval.history);
   warns.insert(warns.end(), engine_notes.begin(), engine_notes.end());
-  warns.insert(warns.end(), r.verification.eval.assessment.warnings.begin(),
-               r.verification.eval.assessment.warnings.end());
+  for (const auto& w : r.verification.eval.assessment.warnings) warns.push_back(assessment_warning_text(w));
   if (!warns.empty()) {
     out << "\nWARNINGS\n";
     for (const auto& n : warns) out << "  ! " << n << "\n";

@@ -6,6 +6,7 @@
 #include <cmath>
 #include <vector>
 
+#include "coldcore/report/target_notes.hpp"
 #include "coldcore/io/libraries.hpp"
 #include "coldcore/report/temperature_text.hpp"
 #include "coldcore/error.hpp"
@@ -279,7 +280,7 @@ TEST_CASE("cooking table on a history") {
   CHECK_FALSE(p.met);  // never reaches 74 C
 }
 
-// The log-sampling check returns numbers (lethality/integrate.hpp); the assessment words them.
+// The log-sampling check returns numbers (lethality/integrate.hpp); report words them.
 // Rules of the check as documented there: a gap is > 5 × the median interval and >= 60 s; a
 // coarse interval changes by more than z/10 and carries >= 1 % of F.
 TEST_CASE("probe log: a gap and a coarse interval are worded with their times and temperatures") {
@@ -290,7 +291,7 @@ TEST_CASE("probe log: a gap and a coarse interval are worded with their times an
   }
   const ProbeAssessment p = assess_probe_log(ts, Ts, {listeria(1)}, orgs(), rules());
   const auto has = [&](const std::string& text) {
-    for (const auto& w : p.warnings)
+    for (const auto& w : assessment_warning_texts(p.warnings))
       if (w.find(text) != std::string::npos) return true;
     return false;
   };

@@ -41,7 +41,7 @@ LethalityResult f_value(const std::function<double(double)>& temp_C_at,
 LethalityResult f_value(const std::function<double(double)>& temp_C_at,
                         std::span<const double> breakpoints_s, const Kinetics& k, double rel_tol);
 
-/// What check_log_sampling found; the assessment words it (numbers only here).
+/// What check_log_sampling found; report words it (numbers only here).
 enum class SamplingNoteKind {
   too_few_rows,  ///< fewer than 3 rows: `count` rows
   gap,           ///< an interval from `from_s` to `to_s`, against the log's `median_interval_s`
@@ -56,6 +56,7 @@ struct SamplingNote {
   double from_C = 0, to_C = 0;     ///< its end temperatures (coarse)
   double median_interval_s = 0;    ///< the log's median interval (gap)
   std::size_t count = 0;           ///< rows (too_few_rows) or further intervals (more_*)
+  bool operator==(const SamplingNote&) const = default;
 };
 
 /// Result of integrating a measured log.

@@ -24,6 +24,7 @@
 
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/lethality/cooking_tables.hpp"
+#include "coldcore/lethality/integrate.hpp"
 #include "coldcore/lethality/kinetics.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
@@ -149,9 +150,24 @@ struct TargetResult {
   std::string source;                ///< data source(s) behind the verdict
 };
 
+/// An assessment-wide finding; report words it (report/target_notes.hpp).
+enum class AssessmentWarningKind {
+  interpolated_history,  ///< the history has no exact evaluation: samples interpolated linearly
+  log_rules_disagree,    ///< `target`: the three rules on a probe log differ by value (a share)
+  log_sampling,          ///< `target`: what the log-sampling check found (`sampling`)
+};
+
+struct AssessmentWarning {
+  AssessmentWarningKind kind = AssessmentWarningKind::interpolated_history;
+  std::string target = {};
+  double value = 0;
+  SamplingNote sampling = {};
+  bool operator==(const AssessmentWarning&) const = default;
+};
+
 struct Assessment {
   std::vector<TargetResult> targets;
-  std::vector<std::string> warnings;  ///< assessment-wide (history warnings are not repeated)
+  std::vector<AssessmentWarning> warnings;  ///< assessment-wide (history warnings are not repeated)
   /// True when there is at least one target and every target is met.
   bool all_met() const;
 };
@@ -182,7 +198,7 @@ struct ProbeLethality {
 struct ProbeAssessment {
   std::vector<TargetResult> targets;    ///< as for assess(); lethality verdicts on the smallest F
   std::vector<ProbeLethality> lethality;  ///< the three F values per lethality target, in order
-  std::vector<std::string> warnings;    ///< sampling warnings, rule disagreement > 1 %
+  std::vector<AssessmentWarning> warnings;  ///< sampling warnings, rule disagreement > 1 %
   bool all_met() const;
 };
 

@@ -19,8 +19,6 @@ namespace coldcore::assessing {
 
 inline constexpr double kEps = std::numeric_limits<double>::epsilon();
 
-/// The warning sentence for one finding of the log-sampling check (sampling_notes.cpp).
-std::string sampling_note_text(const SamplingNote& n);
 /// Rounding of the unit conversions behind a margin and of the subtraction: a tie inside it.
 double rounding_bound(double a, double b);
 /// Crossing-time error of detail::Curve::refine.
