@@ -44,12 +44,7 @@ CookingRow read_row(const Fields& row) {
 
 CookingTable read_table(const Fields& f, std::set<std::string>& seen) {
   CookingTable tab;
-  tab.key = f.required_string("key", "the table's key, in double quotes (targets name it)");
-  if (!seen.insert(tab.key).second) f.fail("key", "duplicate key");
-  tab.name = f.required_string("name", "a name for reports, in double quotes");
-  tab.source = f.required_string("source", "the publication or code the table is taken from");
-  tab.status = detail::source_status(f);
-  tab.note = f.string("note").value_or("");
+  detail::read_heading(tab, f, seen, "the table", "the publication or code the table is taken from");
   tab.log_reduction = f.number("log_reduction");
   const std::string row_form = "{ temp_F = ..., temp_C = ..., hold_min|hold_s = ... }";
   const toml::array& rows = f.tables("rows", "[" + row_form + ", ...]");

@@ -76,12 +76,7 @@ CoolingStep read_step(const Fields& s) {
 
 CoolingRule read_rule(const Fields& f, std::set<std::string>& seen) {
   CoolingRule r;
-  r.key = f.required_string("key", "the rule's key, in double quotes (targets name it)");
-  if (!seen.insert(r.key).second) f.fail("key", "duplicate key");
-  r.name = f.required_string("name", "a name for reports, in double quotes");
-  r.source = f.required_string("source", "the code or guide the rule is taken from");
-  r.status = detail::source_status(f);
-  r.note = f.string("note").value_or("");
+  detail::read_heading(r, f, seen, "the rule", "the code or guide the rule is taken from");
   if (auto m = f.number("chill_start_within_min")) {
     if (!(*m > 0)) f.fail("chill_start_within_min", "must be > 0");
     r.chill_start_within_s = *m * 60.0;

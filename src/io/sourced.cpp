@@ -16,6 +16,18 @@ std::string source_status(const Fields& f) {
   return status;
 }
 
+EntryHeading entry_heading(const Fields& f, std::set<std::string>& seen, std::string_view thing,
+                           std::string_view source_is) {
+  EntryHeading h;
+  h.key = f.required_string("key", std::string(thing) + "'s key, in double quotes (targets name it)");
+  if (!seen.insert(h.key).second) f.fail("key", "duplicate key");
+  h.name = f.required_string("name", "a name for reports, in double quotes");
+  h.source = f.required_string("source", std::string(source_is));
+  h.status = source_status(f);
+  h.note = f.string("note").value_or("");
+  return h;
+}
+
 Sourced sourced(const Fields& f, std::string_view key, double scale) {
   const toml::node* n = f.node(key);
   if (n == nullptr) f.missing(key, std::string(kSourcedForm));

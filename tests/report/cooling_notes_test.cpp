@@ -6,26 +6,19 @@
 #include <string>
 #include <vector>
 
-#include "coldcore/io/libraries.hpp"
 #include "coldcore/process/cooling.hpp"
 #include "coldcore/report/cooling_notes.hpp"
 #include "coldcore/report/temperature_text.hpp"
-#include "lethality/lethality_support.hpp"
+#include "support/libraries.hpp"
 
 using namespace coldcore;
 
 namespace {
 
-const RuleLibrary& rules() {
-  static const RuleLibrary lib =
-      io::parse_cooling_rules(test::read_source_file("products/cooling-rules.toml"), "cooling-rules.toml");
-  return lib;
-}
-
 CoolingCheck check(std::vector<double> minutes, std::vector<double> temps_C, const char* rule,
                    const CoolingContext& ctx = {}) {
   for (double& m : minutes) m *= 60;
-  return check_cooling(minutes, temps_C, rules().at(rule, "test"), ctx);
+  return check_cooling(minutes, temps_C, test::project_rules().at(rule, "test"), ctx);
 }
 
 }  // namespace
