@@ -222,8 +222,7 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
                             " is deviated; the medium is linear between logged readings; readings more than " +
                             num(o.max_gap_s) + " s apart are a gap in the log");
     if (!by_duration && log_end + 1e-9 < sched_len)
-      r.notes.push_back("the medium log covers " + num(log_end) + " s of the stage's " + num(sched_len) +
-                        " s; its last reading is held to the end");
+      r.notes.push_back({ProcessNoteKind::medium_log_short, log_end, sched_len});
     double gap_total_s = 0;
     int gaps = 0;
     for (const auto& e : r.events)
@@ -232,11 +231,11 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
         ++gaps;
       }
     // A duration stage is split at its gaps; a condition-ended one carries them (without_gap_credit).
-    if (gaps > 0)
-      r.notes.push_back("lethality accrued in the " + std::to_string(gaps) + " gap(s) of the medium log (" +
-                        num(gap_total_s) + " s in all) is not credited, and a cooling-rule step that completes in "
-                        "one is taken to complete at its end: the medium meanwhile is unknown; the product's "
-                        "temperature is carried across them by linear interpolation of the medium");
+    if (gaps > 0) {
+      ProcessNote n{ProcessNoteKind::log_gaps_not_credited, gap_total_s};
+      n.count = static_cast<std::size_t>(gaps);
+      r.notes.push_back(n);
+    }
     r.delivered = evaluate(without_gap_credit(extended(s, k, *in.medium_log, r.delivered_stage_s, 0, 0), k, r.events), libs);
 
     // Extra hold at the scheduled medium temperature (from the end of the delivered stage) that
@@ -337,8 +336,7 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
   }
   r.all_met_delivered = r.delivered ? r.delivered->all_met : r.probe->all_met();
   if (r.delivered && r.probe && r.delivered->all_met != r.probe->all_met())
-    r.notes.push_back("the model with the logged medium and the measured probe log disagree on whether every target "
-                      "is met; the probe is a measurement at one point, the model assumes the cold spot");
+    r.notes.push_back({ProcessNoteKind::model_probe_disagree});
   return r;
 }
 

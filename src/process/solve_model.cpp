@@ -125,13 +125,17 @@ Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<
   return e;
 }
 
-void add_h_notes(const Evaluation& e, std::vector<std::string>& notes) {
-  if (e.h_scenarios.size() > 1)
-    push_unique(notes, "the targets need different ends of an h range, so they were evaluated on " +
-                           std::to_string(e.h_scenarios.size()) +
-                           " scenarios, each target on the one conservative for it; the result is the least "
-                           "favourable over them");
-  for (const auto& n : e.h_notes) push_unique(notes, "h per target: " + n);
+void add_h_notes(const Evaluation& e, std::vector<ProcessNote>& notes) {
+  if (e.h_scenarios.size() > 1) {
+    ProcessNote n{ProcessNoteKind::h_scenarios};
+    n.count = e.h_scenarios.size();
+    push_unique(notes, n);
+  }
+  for (const auto& h : e.h_notes) {
+    ProcessNote n{ProcessNoteKind::h_per_target};
+    n.subject = h;
+    push_unique(notes, n);
+  }
 }
 
 HistoryOptions search_history_options() {

@@ -70,8 +70,7 @@ void round_and_verify(SolveResult& res, const Setup& st, const Libraries& libs) 
   // A root within binary noise of a multiple rounds onto it; a tie is not "met", so step once.
   for (int k = 0; k < 3 && !res.verification.eval.considered_met; ++k) {
     res.rounded += sign * st.unit;
-    res.notes.push_back("the answer rounded to " + num(res.rounded - sign * st.unit) +
-                        " did not meet every target on re-run; one more unit taken");
+    res.notes.push_back({ProcessNoteKind::rounded_again, res.rounded - sign * st.unit});
     res.verification = check_at(st, libs, res.rounded);
   }
   if (!res.verification.eval.considered_met)
@@ -82,10 +81,9 @@ void round_and_verify(SolveResult& res, const Setup& st, const Libraries& libs) 
   if (less >= st.domain_lo && less <= st.domain_hi) {
     res.one_unit_less = check_at(st, libs, less);
     if (res.one_unit_less->eval.considered_met)
-      res.notes.push_back("one unit less (" + num(less) + ") also meets every target: the answer is limited by the "
-                          "search bound, not by the targets");
+      res.notes.push_back({ProcessNoteKind::one_unit_less_meets, less});
   } else {
-    res.notes.push_back("one unit less (" + num(less) + ") is outside the parameter's domain; not re-run");
+    res.notes.push_back({ProcessNoteKind::one_unit_less_outside, less});
   }
 }
 
@@ -127,8 +125,7 @@ SolveResult run_question(Question q, const Setup& st, const Scenario& s, const L
   }
   res.answer = res.root.x;
   if (res.root.met_at_bound)
-    res.notes.push_back("every target is already met at the bound " + parameter_text(q, res.root.x) +
-                        " of the search; the answer is that bound");
+    res.notes.push_back({ProcessNoteKind::met_at_bound, res.root.x});
   round_and_verify(res, st, libs);
   return res;
 }
@@ -290,14 +287,20 @@ SolveResult chill_time(const Scenario& s, const Libraries& libs, const SolveOpti
     res.end_reached_at_less = reached(res.rounded - o.unit_s);
   }
   res.considered = {point + " at or below " + temp_token(end_C, 4)};
-  res.notes.push_back("the " + point + " reaches " + temp_token(end_C, 4) + " after " + num(res.answer, 7) +
-                      " s of the stage; at the rounded duration it is " + temp_token(where(res.rounded), 6));
-  if (res.one_unit_less)
-    res.notes.push_back("one unit less (" + num(res.rounded - o.unit_s) + " s) leaves the " + point + " at " +
-                        temp_token(where(res.rounded - o.unit_s), 6) +
-                        (*res.end_reached_at_less ? ", below the end temperature"
-                                                  : ", not below the end temperature by more than the model's "
-                                                    "temperature accuracy (" + num(tol_K) + " K)"));
+  ProcessNote end_note{ProcessNoteKind::chill_end_reached, res.answer};
+  end_note.temp_C = end_C;
+  end_note.other_C = where(res.rounded);
+  end_note.subject = point;
+  res.notes.push_back(end_note);
+  if (res.one_unit_less) {
+    ProcessNote less{ProcessNoteKind::chill_one_unit_less, res.rounded - o.unit_s};
+    less.temp_C = end_C;
+    less.other_C = where(res.rounded - o.unit_s);
+    less.reached = *res.end_reached_at_less;
+    less.tol_K = tol_K;
+    less.subject = point;
+    res.notes.push_back(less);
+  }
   res.assumptions.push_back("chill-time answers the end temperature; the cooling rules are checked on the re-run "
                             "and reported as they come out, met or not");
   return res;
@@ -318,7 +321,7 @@ SolveResult solve(Question q, const Scenario& s, const Libraries& libs, const So
   }
   add_h_notes(r.verification.eval, r.notes);
   if (q == Question::chill_time && !s.per_target_h.empty())
-    r.notes.push_back("the end temperature is reached with every h range at its low end (slower cooling)");
+    r.notes.push_back({ProcessNoteKind::chill_h_low_end});
   return r;
 }
 

@@ -5,6 +5,7 @@
 #include <sstream>
 
 #include "coldcore/process/assessment.hpp"
+#include "coldcore/report/process_notes.hpp"
 #include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/deviation_report.hpp"
@@ -181,7 +182,7 @@ void conservative_section(RichDoc& d, const DeviationResult& nominal, const Devi
 void notes_section(RichDoc& d, const DeviationResult& r) {
   if (r.notes.empty()) return;
   d.section_begin("notes", "Notes");
-  d.list(r.notes);
+  d.list(deviation_note_texts(r.notes));
   d.section_end();
 }
 

@@ -3,6 +3,7 @@
 #include <ostream>
 
 #include "coldcore/process/assessment.hpp"
+#include "coldcore/report/process_notes.hpp"
 #include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/deviation_report.hpp"
@@ -68,13 +69,13 @@ void text_conservative(const process::ConservativeDeviation& c, const DeviationR
   }
   out << "  driven by: " << c.driven_by << "\n";
   // Only what the nominal record does not already say.
-  const auto fresh = [](const std::vector<std::string>& v, const std::vector<std::string>& nominal_v) {
-    std::vector<std::string> out_v;
+  const auto fresh = []<class T>(const std::vector<T>& v, const std::vector<T>& nominal_v) {
+    std::vector<T> out_v;
     for (const auto& x : v)
       if (std::find(nominal_v.begin(), nominal_v.end(), x) == nominal_v.end()) out_v.push_back(x);
     return out_v;
   };
-  for (const auto& n : fresh(r.notes, nominal.notes)) out << "  - " << n << "\n";
+  for (const auto& n : deviation_note_texts(fresh(r.notes, nominal.notes))) out << "  - " << n << "\n";
   for (const auto& n : fresh(r.assumptions, nominal.assumptions)) out << "  - assumption: " << n << "\n";
 }
 
@@ -133,7 +134,7 @@ void json_conservative(JsonWriter& w, const process::ConservativeDeviation& c, T
   }
   w.end_array();
   w.key("driven_by").value(c.driven_by);
-  w.key("notes").value(r.notes);
+  w.key("notes").value(deviation_note_texts(r.notes));
   w.key("assumptions").value(r.assumptions);
   w.end_object();
 }
@@ -224,7 +225,7 @@ static void write_deviation_text_unrendered(const DeviationResult& r, const Devi
   }
   if (!r.notes.empty()) {
     out << "\nNOTES\n";
-    for (const auto& n : r.notes) out << "  - " << n << "\n";
+    for (const auto& n : deviation_note_texts(r.notes)) out << "  - " << n << "\n";
   }
   if (i.conservative) text_conservative(*i.conservative, r, out, u);
   std::vector<std::string> warns = i.warnings;
@@ -318,7 +319,7 @@ static void write_deviation_json_unrendered(const DeviationResult& r, const Devi
   w.end_object();
   if (i.conservative) json_conservative(w, *i.conservative, u);
   w.key("disposition").value(disposition_statement());
-  w.key("notes").value(r.notes);
+  w.key("notes").value(deviation_note_texts(r.notes));
   w.key("assumptions").value(r.assumptions);
   w.key("warnings").value(i.warnings);
   w.key("provenance");
@@ -364,7 +365,7 @@ static void write_deviation_csv_unrendered(const DeviationResult& r, const Devia
   for (const auto& kv : i.provenance) out << "# " << kv.key << ": " << kv.value << "\n";
   out << "# extra_hold_s: " << (r.extra_hold_s ? JsonWriter::number(*r.extra_hold_s) : "none: " + r.extra_hold_note) << "\n";
   for (const auto& n : r.assumptions) out << "# assumption: " << n << "\n";
-  for (const auto& n : r.notes) out << "# note: " << n << "\n";
+  for (const auto& n : deviation_note_texts(r.notes)) out << "# note: " << n << "\n";
   out << "# reviewer name: \n# review date: \n# decision: \n";
   const auto* cons = i.conservative;
   if (cons) {
@@ -379,7 +380,7 @@ static void write_deviation_csv_unrendered(const DeviationResult& r, const Devia
       out << "# conservative alone: " << a.label << "; least margin " << JsonWriter::number(a.least_margin)
           << "; extra_hold_s " << (a.extra_hold_s ? JsonWriter::number(*a.extra_hold_s) : "none") << "\n";
     out << "# conservative driven by: " << cons->driven_by << "\n";
-    for (const auto& n : cons->result.notes) out << "# conservative note: " << n << "\n";
+    for (const auto& n : deviation_note_texts(cons->result.notes)) out << "# conservative note: " << n << "\n";
   }
   out << "target,kind,scheduled_F_min,delivered_F_min,scheduled_log_reduction,delivered_log_reduction,verdict"
       << (cons ? ",case" : "") << ",met\n";

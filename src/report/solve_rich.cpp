@@ -4,6 +4,7 @@
 #include <cctype>
 #include <sstream>
 
+#include "coldcore/report/process_notes.hpp"
 #include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/solve_report.hpp"
@@ -150,7 +151,7 @@ void conservative_section(RichDoc& d, const SolveResult& r, const SolveReportCon
 void closing_sections(RichDoc& d, const SolveResult& r, const SolveReportContext& c) {
   if (!r.notes.empty()) {
     d.section_begin("notes", "Notes");
-    d.list(r.notes);
+    d.list(solve_note_texts(r));
     d.section_end();
   }
   std::vector<std::string> warns = c.warnings;

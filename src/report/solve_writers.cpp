@@ -2,6 +2,7 @@
 #include <optional>
 #include <ostream>
 
+#include "coldcore/report/process_notes.hpp"
 #include "coldcore/report/cooling_notes.hpp"
 #include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/cautions.hpp"
@@ -128,7 +129,7 @@ static void write_solve_text_unrendered(const SolveResult& r, const SolveReportC
   }
   if (!r.notes.empty()) {
     out << "\nNOTES\n";
-    for (const auto& n : r.notes) out << "  - " << n << "\n";
+    for (const auto& n : solve_note_texts(r)) out << "  - " << n << "\n";
   }
   if (c.conservative) {
     const auto& cs = *c.conservative;
@@ -240,7 +241,7 @@ static void write_solve_json_unrendered(const SolveResult& r, const SolveReportC
   }
   w.key("considered_targets").value(r.considered);
   w.key("root_evaluations").value(r.root.evaluations);
-  w.key("notes").value(r.notes);
+  w.key("notes").value(solve_note_texts(r));
   w.key("assumptions").value(r.assumptions);
   w.key("warnings").value(c.warnings);
   w.key("provenance");
@@ -265,7 +266,7 @@ static void write_solve_csv_unrendered(const SolveResult& r, const SolveReportCo
   out << "# rounded_" << r.unit << " (to use): " << JsonWriter::number(r.rounded) << "\n";
   if (c.at_fit_bound)
     out << "# at_fit_bound rounded_" << r.unit << ": " << JsonWriter::number(c.at_fit_bound->rounded) << "\n";
-  for (const auto& n : r.notes) out << "# note: " << n << "\n";
+  for (const auto& n : solve_note_texts(r)) out << "# note: " << n << "\n";
   for (const auto& n : r.assumptions) out << "# assumption: " << n << "\n";
   for (const auto& n : c.warnings) out << "# warning: " << n << "\n";
   if (c.conservative) {

@@ -191,7 +191,8 @@ TEST_CASE("issue 11: a gap in the medium log credits no lethality - the interpol
   const double bound_s = 300.0 * std::pow(10.0, (96.0 - 70.0) / 7.5);
   CHECK(r.targets[0].delivered_F_s > interpolated.targets[0].delivered_F_s - bound_s);
   bool named = false;
-  for (const auto& n : r.notes) named = named || n.find("gap(s) of the medium log (300 s in all) is not credited") != std::string::npos;
+  for (const auto& n : r.notes)
+    named = named || (n.kind == process::ProcessNoteKind::log_gaps_not_credited && n.count == 1 && n.value == 300);
   CHECK(named);
 }
 

@@ -77,9 +77,10 @@ TEST_CASE("h ends: a credited cooling stage splits lethality (high h) from the c
     said = said || (n.kind == TargetNoteKind::h_used && n.subject.find("h 60 W/m2K, the high end of 20-60") != std::string::npos);
   CHECK(said);
   CHECK(e.h_notes.size() == 2);
-  std::vector<std::string> notes;
+  std::vector<process::ProcessNote> notes;
   process::add_h_notes(e, notes);
-  CHECK(notes.front().find("evaluated on 2 scenarios") != std::string::npos);
+  CHECK(notes.front().kind == process::ProcessNoteKind::h_scenarios);
+  CHECK(notes.front().count == 2);
 }
 
 TEST_CASE("h ends: when the lethality target credits the cook only / one scenario at the low end serves all") {
@@ -116,7 +117,7 @@ TEST_CASE("h ends: solve hold-time over two scenarios needs the high-end chill's
   CHECK(split.answer == doctest::Approx(hi.answer).epsilon(1e-5));
   CHECK(split.answer > lo.answer);
   bool said = false;
-  for (const auto& n : split.notes) said = said || n.find("least favourable") != std::string::npos;
+  for (const auto& n : split.notes) said = said || n.kind == process::ProcessNoteKind::h_scenarios;
   CHECK(said);
 }
 

@@ -21,6 +21,13 @@ using namespace coldcore::testing;
 
 namespace {
 
+// A note whose words are free text (the h choice described is the one such kind).
+process::ProcessNote free_note(std::string text) {
+  process::ProcessNote n{process::ProcessNoteKind::h_per_target};
+  n.subject = std::move(text);
+  return n;
+}
+
 TargetResult target(const std::string& name, bool met, double margin, const std::string& margin_text) {
   TargetResult t;
   t.name = name;
@@ -57,7 +64,7 @@ process::SolveResult solve_result() {
   less.eval.assessment.targets = {target("F70 <cook>", false, -31.2, "0.52 min")};
   r.one_unit_less = less;
   r.considered = {"F70 <cook>"};
-  r.notes = {"a note with *stars* & <angle brackets>"};
+  r.notes = {free_note("a note with *stars* & <angle brackets>")};
   r.assumptions = {"an assumption"};
   return r;
 }
@@ -106,7 +113,7 @@ process::DeviationResult deviation_result() {
   less.value = 300;
   less.eval.assessment.targets = {target("F0", false, -3, "0.05 min")};
   r.restored_one_unit_less = less;
-  r.notes = {"a note"};
+  r.notes = {free_note("a note")};
   r.assumptions = {"the medium is linear between logged readings"};
   return r;
 }
@@ -347,9 +354,9 @@ TEST_CASE("the committed example solve and deviation reports are well-formed and
 // deviation writer in the display unit (63 °C = 145.4 °F by the scale's definition).
 TEST_CASE("solve and deviation writers render temperature tokens themselves - no token bytes leave the API") {
   process::SolveResult s = solve_result();
-  s.notes.push_back("held above " + temp_token(63));
+  s.notes.push_back(free_note("held above " + temp_token(63)));
   process::DeviationResult d = deviation_result();
-  d.notes.push_back("held above " + temp_token(63));
+  d.notes.push_back(free_note("held above " + temp_token(63)));
   const RunReport plot = sample_report();
   for (TempUnit u : {TempUnit::C, TempUnit::F}) {
     CAPTURE(static_cast<int>(u));

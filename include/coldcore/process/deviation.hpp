@@ -99,7 +99,7 @@ struct DeviationResult {
   std::optional<Check> restored;               ///< re-run with the rounded extension
   std::optional<Check> restored_one_unit_less; ///< one unit less (must not restore, when > 0)
   std::string extra_hold_note;                 ///< why there is none, when there is none
-  std::vector<std::string> notes;
+  std::vector<ProcessNote> notes;
   std::vector<std::string> assumptions;
 };
 

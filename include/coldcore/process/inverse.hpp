@@ -27,6 +27,7 @@
 #include <string>
 #include <vector>
 
+#include "coldcore/process/process_notes.hpp"
 #include "coldcore/conduction/history.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
@@ -79,7 +80,7 @@ Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<
 
 /// Adds to `notes` (once each) which h every per-target-range stage took and, when the targets
 /// were split over h scenarios, that the result is the least favourable over them.
-void add_h_notes(const Evaluation& e, std::vector<std::string>& notes);
+void add_h_notes(const Evaluation& e, std::vector<ProcessNote>& notes);
 
 /// Engine options used while SEARCHING (root-finder trials, stage classification, bracket
 /// guesses): tol_K 1e-3 K, sample_tol_K 0.05 K — a brick costs far less at these. Answers are
@@ -131,7 +132,7 @@ struct SolveResult {
   std::optional<Check> one_unit_less;  ///< re-run one unit on the unsafe side (if inside the domain)
   RootResult root;
   std::vector<std::string> considered;  ///< names of the targets the answer is solved for
-  std::vector<std::string> notes;
+  std::vector<ProcessNote> notes;
   std::vector<std::string> assumptions;
   // chill-time only: the end temperature and where it is taken, and the temperature there at
   // the rounded duration and one unit less (reached only when strictly below end_C).
