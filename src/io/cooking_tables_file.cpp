@@ -47,11 +47,9 @@ CookingTable read_table(const Fields& f, std::set<std::string>& seen) {
   detail::read_heading(tab, f, seen, "the table", "the publication or code the table is taken from");
   tab.log_reduction = f.number("log_reduction");
   const std::string row_form = "{ temp_F = ..., temp_C = ..., hold_min|hold_s = ... }";
-  const toml::array& rows = f.tables("rows", "[" + row_form + ", ...]");
+  const auto rows = f.entries("rows", "[" + row_form + ", ...]", plain_keys({"temp_F", "temp_C", "hold_s", "hold_min", "note"}));
   if (rows.empty()) f.fail("rows", "must hold at least one row " + row_form);
-  for (std::size_t r = 0; r < rows.size(); ++r) {
-    const Fields row = f.nested("rows[" + std::to_string(r + 1) + "]", *rows.get(r)->as_table(),
-                                plain_keys({"temp_F", "temp_C", "hold_s", "hold_min", "note"}));
+  for (const Fields& row : rows) {
     const CookingRow cr = read_row(row);
     if (!tab.rows.empty() && !(cr.temp_C > tab.rows.back().temp_C))
       row.fail_at("", "temperature " + number_text(cr.temp_C) + " C: must be above the previous row's " +
@@ -68,13 +66,10 @@ CookingTables parse_cooking_tables(std::string_view toml_text, std::string_view 
   const Fields root(doc, std::string(origin), "", plain_keys({"schema", "table"}));
   CookingTables out;
   out.origin = std::string(origin);
-  const toml::array& tables = root.tables("table", "[[table]] tables");
   std::set<std::string> seen;
-  for (std::size_t i = 0; i < tables.size(); ++i) {
-    const Fields f = root.nested("table[" + std::to_string(i + 1) + "]", *tables.get(i)->as_table(),
-                                 plain_keys({"key", "name", "source", "status", "note", "log_reduction", "rows"}));
+  for (const Fields& f : root.entries("table", "[[table]] tables",
+                                      plain_keys({"key", "name", "source", "status", "note", "log_reduction", "rows"})))
     out.tables.push_back(read_table(f, seen));
-  }
   return out;
 }
 

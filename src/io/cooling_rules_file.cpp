@@ -83,13 +83,11 @@ CoolingRule read_rule(const Fields& f, std::set<std::string>& seen) {
     r.chill_start_source =
         f.required_string("chill_start_source", "the code or guide the chill-start limit is taken from");
   }
-  const toml::array& steps = f.tables("step", "[[rule.step]] tables");
+  const auto steps = f.entries("step", "[[rule.step]] tables",
+                               plain_keys({"from_C", "from_F", "to_C", "to_F", "within_s", "within_min", "within_h",
+                                           "advisory", "source", "status", "label", "from_label"}));
   if (steps.empty()) f.fail("step", "must be one or more [[rule.step]] tables");
-  for (std::size_t j = 0; j < steps.size(); ++j)
-    r.steps.push_back(read_step(f.nested("step[" + std::to_string(j + 1) + "]", *steps.get(j)->as_table(),
-                                         plain_keys({"from_C", "from_F", "to_C", "to_F", "within_s", "within_min",
-                                                     "within_h", "advisory", "source", "status", "label",
-                                                     "from_label"}))));
+  for (const Fields& s : steps) r.steps.push_back(read_step(s));
   return r;
 }
 
@@ -100,13 +98,11 @@ RuleLibrary parse_cooling_rules(std::string_view toml_text, std::string_view ori
   const Fields root(doc, std::string(origin), "", plain_keys({"schema", "rule"}));
   RuleLibrary lib;
   lib.origin = std::string(origin);
-  const toml::array& rules = root.tables("rule", "[[rule]] tables");
   std::set<std::string> seen;
-  for (std::size_t i = 0; i < rules.size(); ++i)
-    lib.rules.push_back(read_rule(root.nested("rule[" + std::to_string(i + 1) + "]", *rules.get(i)->as_table(),
-                                              plain_keys({"key", "name", "source", "status", "note", "step",
-                                                          "chill_start_within_min", "chill_start_source"})),
-                                  seen));
+  for (const Fields& f : root.entries("rule", "[[rule]] tables",
+                                      plain_keys({"key", "name", "source", "status", "note", "step",
+                                                  "chill_start_within_min", "chill_start_source"})))
+    lib.rules.push_back(read_rule(f, seen));
   return lib;
 }
 

@@ -218,6 +218,16 @@ Fields Fields::nested(std::string_view where, const toml::table& t, std::vector<
   return Fields(t, origin_, key_path(where), std::move(specs));
 }
 
+std::vector<Fields> Fields::entries(std::string_view key, const std::string& requirement,
+                                    const std::vector<KeySpec>& specs) const {
+  const toml::array& a = tables(key, requirement);
+  std::vector<Fields> out;
+  out.reserve(a.size());
+  for (std::size_t i = 0; i < a.size(); ++i)
+    out.push_back(nested(std::string(key) + "[" + std::to_string(i + 1) + "]", *a.get(i)->as_table(), specs));
+  return out;
+}
+
 const toml::node* Fields::node(std::string_view plain_key) const { return table_.get(plain_key); }
 
 std::optional<Found> Fields::find(std::string_view base) const {

@@ -148,15 +148,12 @@ OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view ori
   if (auto schema = root.number("schema"); schema && *schema != 1) root.fail("schema", "must be 1");
   OrganismLibrary lib;
   lib.origin = std::string(origin);
-  const toml::array& organisms = root.tables("organism", "[[organism]] tables");
   std::set<std::string> seen;
-  for (std::size_t i = 0; i < organisms.size(); ++i) {
-    const Fields f = root.nested("organism[" + std::to_string(i + 1) + "]", *organisms.get(i)->as_table(),
-                                 plain_keys({"key", "name", "kind", "reference_C", "z_C", "z_below_C", "split_C",
-                                             "D_ref_s", "D_ref_min", "valid_min_C", "valid_max_C", "weibull",
-                                             "equivalence", "note"}));
+  for (const Fields& f : root.entries("organism", "[[organism]] tables",
+                                      plain_keys({"key", "name", "kind", "reference_C", "z_C", "z_below_C", "split_C",
+                                                  "D_ref_s", "D_ref_min", "valid_min_C", "valid_max_C", "weibull",
+                                                  "equivalence", "note"})))
     lib.organisms.push_back(read_organism(f, seen));
-  }
   return lib;
 }
 

@@ -108,6 +108,10 @@ class Fields {
   const toml::table& table() const { return table_; }
   /// Checked access to `t`, a table inside this one at `where` ("weibull", "step[2]").
   Fields nested(std::string_view where, const toml::table& t, std::vector<KeySpec> specs) const;
+  /// The tables of the array of tables `key` (see tables()), each as Fields at "<key>[i]",
+  /// counted from 1 as a reader counts them, with the accepted keys `specs`.
+  std::vector<Fields> entries(std::string_view key, const std::string& requirement,
+                              const std::vector<KeySpec>& specs) const;
 
  private:
   const toml::table& table_;
