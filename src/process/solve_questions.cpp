@@ -89,11 +89,6 @@ void round_and_verify(SolveResult& res, const Setup& st, const Libraries& libs) 
 
 }  // namespace
 
-namespace detail {
-
-namespace {
-
-/// The solved-for parameter with its unit, for messages: "14400 s", "85 mm", a temperature token.
 std::string parameter_text(Question q, double x) {
   switch (q) {
     case Question::hold_time:
@@ -104,7 +99,7 @@ std::string parameter_text(Question q, double x) {
   return num(x);
 }
 
-}  // namespace
+namespace detail {
 
 SolveResult run_question(Question q, const Setup& st, const Scenario& s, const Libraries& libs) {
   SolveResult res;

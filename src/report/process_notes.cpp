@@ -12,13 +12,6 @@ namespace {
 
 std::string num(double v, int significant = 10) { return number_text(v, significant); }
 
-/// A value of the solved-for parameter with its unit: "840 s", "38 mm", a temperature.
-std::string parameter_text(const process::SolveResult& r, double v) {
-  if (r.unit == "s") return num(v).append(" s");
-  if (r.unit == "m") return num(v * 1000).append(" mm");
-  return temp_token(v);
-}
-
 std::string common_note_text(const ProcessNote& n) {
   switch (n.kind) {
     case ProcessNoteKind::h_scenarios:
@@ -47,15 +40,15 @@ std::string common_note_text(const ProcessNote& n) {
 std::string solve_note_text(const ProcessNote& n, const process::SolveResult& r) {
   switch (n.kind) {
     case ProcessNoteKind::rounded_again:
-      return "the answer rounded to " + parameter_text(r, n.value) +
+      return "the answer rounded to " + process::parameter_text(r.question, n.value) +
              " did not meet every target on re-run; one more unit taken";
     case ProcessNoteKind::one_unit_less_meets:
-      return "one unit less (" + parameter_text(r, n.value) +
+      return "one unit less (" + process::parameter_text(r.question, n.value) +
              ") also meets every target: the answer is limited by the search bound, not by the targets";
     case ProcessNoteKind::one_unit_less_outside:
-      return "one unit less (" + parameter_text(r, n.value) + ") is outside the parameter's domain; not re-run";
+      return "one unit less (" + process::parameter_text(r.question, n.value) + ") is outside the parameter's domain; not re-run";
     case ProcessNoteKind::met_at_bound:
-      return "every target is already met at the bound " + parameter_text(r, n.value) +
+      return "every target is already met at the bound " + process::parameter_text(r.question, n.value) +
              " of the search; the answer is that bound";
     case ProcessNoteKind::chill_end_reached:
       return "the " + n.subject + " reaches " + temp_token(n.temp_C, 4) + " after " + num(n.value, 7) +

@@ -13,17 +13,17 @@ using process::ProcessNoteKind;
 
 TEST_CASE("a solve note names the parameter with its unit") {
   process::SolveResult hold;
-  hold.unit = "s";
+  hold.question = process::Question::hold_time;
   hold.notes = {{ProcessNoteKind::one_unit_less_meets, 780}};
   CHECK(solve_note_texts(hold).at(0) ==
         "one unit less (780 s) also meets every target: the answer is limited by the search bound, not by the targets");
   process::SolveResult size;
-  size.unit = "m";
+  size.question = process::Question::max_size;
   size.notes = {{ProcessNoteKind::one_unit_less_outside, 0.038}};
   CHECK(solve_note_texts(size).at(0) == "one unit less (38 mm) is outside the parameter's domain; not re-run");
   // 72.5 C = 162.5 F (F = 1.8 C + 32).
   process::SolveResult medium;
-  medium.unit = "C";
+  medium.question = process::Question::min_medium;
   medium.notes = {{ProcessNoteKind::met_at_bound, 72.5}};
   CHECK(render_temperatures(solve_note_texts(medium).at(0), TempUnit::F) ==
         "every target is already met at the bound 162.5 °F of the search; the answer is that bound");

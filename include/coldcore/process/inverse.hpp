@@ -97,6 +97,9 @@ int stage_index(const Scenario& s, const std::string& name, const std::string& p
 
 enum class Question { hold_time, chill_time, max_size, min_medium };
 const char* to_string(Question q);  ///< "hold-time" | "chill-time" | "max-size" | "min-medium"
+/// A value of the parameter question q solves for, with its unit: "840 s", "38 mm", or a
+/// temperature token (model/temperature_token.hpp). For messages and notes.
+std::string parameter_text(Question q, double x);
 
 /// Options of the inverse questions. Defaults in brackets.
 struct SolveOptions {
