@@ -1,5 +1,4 @@
 #include "coldcore/process/assessment.hpp"
-#include "coldcore/model/temperature_token.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -8,8 +7,6 @@
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/integrate.hpp"
 #include "lethality/detail/crossing.hpp"
-#include "lethality/detail/text.hpp"
-#include "coldcore/suggest.hpp"
 #include "process/detail/assessing.hpp"
 
 

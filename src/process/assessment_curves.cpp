@@ -7,7 +7,6 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/integrate.hpp"
-#include "coldcore/model/temperature_token.hpp"
 #include "lethality/detail/crossing.hpp"
 #include "lethality/detail/text.hpp"
 #include "coldcore/suggest.hpp"

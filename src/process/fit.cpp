@@ -11,7 +11,7 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/model/limits.hpp"
-#include "detail/parallel.hpp"
+#include "process/detail/parallel.hpp"
 #include "process/detail/fit_parts.hpp"
 
 namespace coldcore::process {

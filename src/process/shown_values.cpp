@@ -39,6 +39,12 @@ std::string shown_log_reduction(double logs, double required_logs) {
   return shown_down(logs) + " log10";
 }
 
+ShownUnit shown_unit(std::string_view unit) {
+  if (unit == "log10") return kShownLog;
+  if (unit == "min") return kShownMin;
+  return ShownUnit{1.0, ""};
+}
+
 std::string signed_small(double v, const ShownUnit& u) {
   // Built by appending: GCC 12's -Wrestrict misreads the "+" + std::string chain here.
   std::string s(v > 0 ? "+" : "-");

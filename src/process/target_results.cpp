@@ -155,7 +155,7 @@ void cooling_result(TargetResult& r, const CoolingCheck& c, const CoolingRule& r
     r.margin = *c.chill_delay_margin_s;
     r.margin_uncertainty = 0;  // both times are given or are stage boundaries, not crossings
     r.achieved_text = minutes_up(r.achieved);
-    decide(r, kShownMin);
+    decide(r);
     return;
   }
   if (!binding) {  // only advisory steps: nothing to demonstrate
@@ -175,7 +175,7 @@ void cooling_result(TargetResult& r, const CoolingCheck& c, const CoolingRule& r
   r.required_text = minutes_down(r.required) + " (step " + s.step.label + ")";
   if (s.reached) {
     r.achieved_text = minutes_up(r.achieved);
-    decide(r, kShownMin);
+    decide(r);
     if (r.verdict == Verdict::met && !c.passed) {  // cannot happen: every step and condition passed
       r.verdict = Verdict::not_demonstrated;
       r.verdict_text = "not demonstrated (see notes)";
@@ -225,7 +225,7 @@ void cooking_result(TargetResult& r, const CookingCheck& c, double fraction_unce
   }
   r.achieved_text = "equivalence " + shown_down(c.fraction);
   r.margin_uncertainty = fraction_uncertainty;
-  decide(r, ShownUnit{1.0, ""});
+  decide(r);
   if (!c.met) r.verdict = Verdict::not_demonstrated;
   if (r.verdict == Verdict::met || r.margin_shown.empty())
     r.verdict_text = std::string(to_string(r.verdict)) + ", equivalent-time fraction " + r.achieved_text;

@@ -7,10 +7,7 @@
 
 #include "coldcore/error.hpp"
 #include "coldcore/lethality/integrate.hpp"
-#include "coldcore/model/temperature_token.hpp"
 #include "lethality/detail/crossing.hpp"
-#include "lethality/detail/text.hpp"
-#include "coldcore/suggest.hpp"
 
 namespace coldcore {
 
@@ -83,7 +80,8 @@ double f_relative_error_of_temperature(const Kinetics& k, double tol_K) {
 // The verdict and the margin and verdict texts from r.margin and r.margin_uncertainty (every
 // error term but rounding, which is added here). "met" needs margin > margin_uncertainty; a tie
 // (|margin| within rounding) and a margin inside the bound are named as such, never "shortfall 0".
-void decide(TargetResult& r, const ShownUnit& u) {
+void decide(TargetResult& r) {
+  const ShownUnit u = shown_unit(r.unit);
   const double tie = rounding_bound(r.required, r.achieved);
   r.margin_uncertainty = std::max(0.0, r.margin_uncertainty) + tie;
   r.verdict = r.margin > r.margin_uncertainty ? Verdict::met : Verdict::not_demonstrated;
@@ -121,7 +119,7 @@ void finish(TargetResult& r, bool log_units) {
     r.required_text = minutes_up(r.required);
     r.achieved_text = minutes_down(r.achieved);
   }
-  decide(r, log_units ? kShownLog : kShownMin);
+  decide(r);
 }
 
 // Log reductions beyond N = max(15, the requirement rounded up) are not a result. Why 15: D- and
@@ -133,7 +131,6 @@ void finish(TargetResult& r, bool log_units) {
 void cap_log_reduction_text(TargetResult& r) {
   const double n = std::max(kMeaningfulLogReduction, std::ceil(r.required));
   if (!(r.achieved > n)) return;
-  const std::string n_text = detail::num(n);
   r.achieved_text = shown_log_reduction(r.achieved, r.required) + " (credited F " + minutes_down(r.F_s) + ")";
   if (r.verdict == Verdict::met) {
     r.margin_text = "more than " + shown_down(n - r.required) + " log10";

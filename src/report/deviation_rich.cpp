@@ -24,7 +24,6 @@ using process::Check;
 using process::DeviationResult;
 
 std::string temp(double c, TempUnit u) { return fixed(display_temp(c, u), 2) + " " + std::string(unit_symbol(u)); }
-std::string min_down(double s) { return shown_down(s / 60.0) + " min"; }
 std::string logs_down(const std::optional<double>& v) { return v ? shown_log_reduction(*v) : "-"; }
 std::string at_time(double s) { return duration_text(s) + " (" + fixed(s, 0) + " s)"; }
 
@@ -89,7 +88,7 @@ void comparison_section(RichDoc& d, const DeviationResult& r) {
   std::vector<bool> met;
   for (const auto& tg : r.targets) {
     t.push_back({tg.name + " (" + std::string(to_string(tg.kind)) + ")",
-                 tg.lethality ? min_down(tg.scheduled_F_s) + " → " + min_down(tg.delivered_F_s) : "-",
+                 tg.lethality ? minutes_down(tg.scheduled_F_s) + " → " + minutes_down(tg.delivered_F_s) : "-",
                  tg.scheduled_logs || tg.delivered_logs
                      ? logs_down(tg.scheduled_logs) + " → " + logs_down(tg.delivered_logs)
                      : "-",
@@ -154,8 +153,8 @@ void conservative_section(RichDoc& d, const DeviationResult& nominal, const Devi
     const auto& tg = r.targets[k];
     const bool nom = k < nominal.targets.size() && nominal.targets[k].lethality;
     t.push_back({tg.name + " (" + std::string(to_string(tg.kind)) + ")",
-                 tg.lethality ? min_down(tg.scheduled_F_s) + " → " + min_down(tg.delivered_F_s) : "-",
-                 nom ? min_down(nominal.targets[k].delivered_F_s) : "-", detail::margin_cell(tg.delivered),
+                 tg.lethality ? minutes_down(tg.scheduled_F_s) + " → " + minutes_down(tg.delivered_F_s) : "-",
+                 nom ? minutes_down(nominal.targets[k].delivered_F_s) : "-", detail::margin_cell(tg.delivered),
                  std::string(verdict_word(tg.verdict == Verdict::met))});
     met.push_back(tg.verdict == Verdict::met);
   }

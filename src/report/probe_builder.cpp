@@ -85,7 +85,7 @@ RunReport build_probe_report(const TimeSeries& log, const ProbeAssessment& pa, c
         r.delivered.push_back(delivered_row(t, v));
         continue;  // no verdict row, no required line
       }
-      r.target_lines.push_back({col, t.F_required_s / 60.0, "required " + t.name + " " + shown_up(t.F_required_s / 60.0) + " min"});
+      r.target_lines.push_back({col, t.F_required_s / 60.0, "required " + t.name + " " + minutes_up(t.F_required_s)});
     }
     if (t.cooling) {
       int n = 0;

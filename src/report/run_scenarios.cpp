@@ -89,7 +89,7 @@ void add_scenarios(RunReport& report, const process::Evaluation& e, const Produc
         v.history.columns.push_back({t.column, false});
         for (std::size_t k = 0; k < v.history.rows.size(); ++k) v.history.rows[k].push_back(f[k] / 60.0);
         v.target_lines.push_back({t.column, t.F_required_s / 60.0,
-                                  "required " + t.name + " " + shown_up(t.F_required_s / 60.0) + " min"});
+                                  "required " + t.name + " " + minutes_up(t.F_required_s)});
       }
       if (t.cooling) {
         int n = 0;

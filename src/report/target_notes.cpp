@@ -17,13 +17,6 @@ const char* credited_text(Credit c) {
   return "nothing credited across";
 }
 
-// The unit the verdict showed the margin in (process/target_verdict.cpp decides with the same).
-ShownUnit shown_unit_of(const TargetResult& t) {
-  if (t.unit == "log10") return kShownLog;
-  if (t.unit == "min") return kShownMin;
-  return ShownUnit{1.0, ""};
-}
-
 }  // namespace
 
 std::string target_note_text(const TargetNote& n, const TargetResult& t) {
@@ -43,7 +36,7 @@ std::string target_note_text(const TargetNote& n, const TargetResult& t) {
       return "exactly at the required value: not demonstrated by a positive margin";
     case TargetNoteKind::within_uncertainty:
       return "within the numerical uncertainty of the target: the margin " +
-             signed_small(t.margin, shown_unit_of(t)) +
+             signed_small(t.margin, shown_unit(t.unit)) +
              " is inside the computation's error bound " + t.margin_text +
              " (integration error, temperature accuracy, crossing times, unit rounding)";
     case TargetNoteKind::log_reduction_capped:

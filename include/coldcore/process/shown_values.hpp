@@ -2,6 +2,7 @@
 /// How values are shown: rounded to the safe side, one helper for every layer. Lethality and
 /// margins are rounded down, requirements and times that must be held are rounded up.
 #include <string>
+#include <string_view>
 
 namespace coldcore {
 
@@ -30,6 +31,9 @@ struct ShownUnit {
 };
 inline const ShownUnit kShownLog{1.0, " log10"};
 inline const ShownUnit kShownMin{1.0 / 60.0, " min"};
+
+/// The shown unit of a TargetResult::unit: "log10", "min", else the bare number (fractions).
+ShownUnit shown_unit(std::string_view unit);
 
 /// A small signed amount, "+0.012 min" (positive rounded down) or "-0.013 min" (negative: its
 /// size rounded up), 2 significant figures.

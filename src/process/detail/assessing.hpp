@@ -27,8 +27,8 @@ double refine_tol_s(double t);
 double crossing_uncertainty_s(const std::function<double(double)>& T, double t, double tol_K, double lo, double hi);
 /// Relative error of F on a history whose temperatures are accurate to tol_K.
 double f_relative_error_of_temperature(const Kinetics& k, double tol_K);
-/// The verdict, margin and verdict texts from r.margin and r.margin_uncertainty.
-void decide(TargetResult& r, const ShownUnit& u);
+/// The verdict, margin and verdict texts from r.margin and r.margin_uncertainty, shown in r.unit.
+void decide(TargetResult& r);
 void finish(TargetResult& r, bool log_units);
 void cap_log_reduction_text(TargetResult& r);
 
