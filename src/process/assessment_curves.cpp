@@ -157,8 +157,10 @@ TargetNote gap_note(Credit what, double from_s, double to_s, double limit_s) {
   return n;
 }
 
-void gap_notes(TargetResult& r, const Gaps& gaps, double t0, Credit what) {
-  for (const auto& [a, b] : gaps) r.notes.push_back(gap_note(what, a - t0, b - t0));
+std::vector<TargetNote> gap_notes(const Gaps& gaps, double t0, Credit what) {
+  std::vector<TargetNote> out;
+  for (const auto& [a, b] : gaps) out.push_back(gap_note(what, a - t0, b - t0));
+  return out;
 }
 
 TargetNote outside_range_note(double share, const Kinetics& k) {

@@ -1,6 +1,6 @@
 #pragma once
-// The pieces the assessment is built from, shared by its source files (process/assessment.cpp,
-// target_verdict.cpp, assessment_curves.cpp, target_results.cpp, sampling_notes.cpp). Private to src/process/.
+// The pieces the assessment is built from, shared by its source files in src/process/
+// (assessment*.cpp, assess_targets.cpp, target_verdict.cpp, target_results.cpp). Private to src/process/.
 #include <array>
 #include <functional>
 #include <limits>
@@ -56,7 +56,7 @@ void add_gap_knots(std::vector<double>& knots, const Gaps& gaps);
 /// "nothing of `what` credited from from_s to to_s" (limit_s: the gap limit, 0 when not stated).
 TargetNote gap_note(Credit what, double from_s, double to_s, double limit_s = 0);
 /// A gap note per gap, times from t0.
-void gap_notes(TargetResult& r, const Gaps& gaps, double t0, Credit what);
+std::vector<TargetNote> gap_notes(const Gaps& gaps, double t0, Credit what);
 /// The flag for a share of the credited F outside the kinetics' valid range.
 TargetNote outside_range_note(double share, const Kinetics& k);
 std::vector<int> credited(const Target& t, const History& h, const std::string& place);
