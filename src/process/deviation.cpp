@@ -181,8 +181,7 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
   DeviationResult r;
   r.scheduled = evaluate(s, libs);
   add_h_notes(r.scheduled, r.notes);
-  r.assumptions.push_back("the scheduled process is the product file as written; the delivered one differs only "
-                          "where the logs say so");
+  r.assumptions.push_back({ProcessNoteKind::assumes_schedule_as_written});
   std::vector<int> considered;
   for (std::size_t i = 0; i < s.targets.size(); ++i)
     if (is_lethality(s.targets[i].kind) || s.targets[i].kind == TargetKind::centre_min_temperature ||
@@ -211,16 +210,13 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
     scan.tolerance_K = o.tolerance_K;
     scan.max_gap_s = o.max_gap_s;
     r.events = find_deviations(st.medium, *in.medium_log, scan);
-    r.assumptions.push_back(
-        "the medium log's first row is the start of stage \"" + st.name + "\"; " +
-        (by_duration ? "the stage lasts as long as the log (scheduled duration " + num(st.end.duration_s) + " s)"
-                     : std::string("the stage keeps its temperature condition as its end")) +
-        "; h and the other stages as scheduled");
-    r.assumptions.push_back(std::string("stage \"") + st.name + "\" " +
-                            (r.stage_heats ? "heats, so a reading colder" : "cools, so a reading warmer") +
-                            " than the schedule by more than " + temp_difference_token(o.tolerance_K) +
-                            " is deviated; the medium is linear between logged readings; readings more than " +
-                            num(o.max_gap_s) + " s apart are a gap in the log");
+    ProcessNote log_start = note_about(ProcessNoteKind::assumes_medium_log_starts, st.name, by_duration);
+    if (by_duration) log_start.value = st.end.duration_s;
+    r.assumptions.push_back(log_start);
+    ProcessNote threshold = note_about(ProcessNoteKind::assumes_deviation_threshold, st.name, r.stage_heats);
+    threshold.value = o.max_gap_s;
+    threshold.tol_K = o.tolerance_K;
+    r.assumptions.push_back(threshold);
     if (!by_duration && log_end + 1e-9 < sched_len)
       r.notes.push_back({ProcessNoteKind::medium_log_short, log_end, sched_len});
     double gap_total_s = 0;
@@ -309,8 +305,7 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
     ao.cooking_tables = libs.cooking;
     r.probe = assess_probe_log(in.probe_time_s, in.probe_temp_C, s.targets, *libs.organisms, *libs.rules, ao,
                                in.probe_origin);
-    r.assumptions.push_back("the probe log is the cold-spot temperature, time 0 at the start of the first stage; "
-                            "lethality from it uses the smallest of three integration rules");
+    r.assumptions.push_back({ProcessNoteKind::assumes_probe_is_cold_spot});
   }
 
   // Per-target comparison: delivered from the medium-log run when there is one, else the probe.

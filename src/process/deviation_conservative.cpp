@@ -75,8 +75,7 @@ ConservativeDeviation evaluate_deviation_conservative(const DeviationInput& in, 
       },
       threads);
   out.result = std::move(*results[0]);
-  out.result.assumptions.push_back("worst case of the file's ranges: every choice applied together to the scheduled "
-                                   "process, and the same medium log replayed on it");
+  out.result.assumptions.push_back({ProcessNoteKind::assumes_worst_case_replay});
   double worst_hold = -1, worst_margin = std::numeric_limits<double>::infinity();
   for (std::size_t k = 1; k <= choices.size(); ++k) {
     const DeviationResult& d = *results[k];

@@ -184,10 +184,8 @@ SolveResult hold_time(const Scenario& s, const Libraries& libs, const SolveOptio
   r.unit = std::string(1, 's');  // (a one-character literal trips GCC 12's false -Wrestrict here)
   r.nominal = nominal;
   if (s.stages[k].end.kind != StageEndKind::duration)
-    r.assumptions.push_back("stage \"" + r.stage + "\" ends by a temperature condition in the file; for this question "
-                            "it is given a fixed duration");
-  r.assumptions.push_back("solved for the lethality and minimum-temperature targets, each with its own stage credit; "
-                          "cooling rules are re-checked on the re-run only");
+    r.assumptions.push_back(note_about(ProcessNoteKind::assumes_fixed_duration, r.stage));
+  r.assumptions.push_back({ProcessNoteKind::assumes_hold_time_targets});
   return r;
 }
 
@@ -296,8 +294,7 @@ SolveResult chill_time(const Scenario& s, const Libraries& libs, const SolveOpti
     less.subject = point;
     res.notes.push_back(less);
   }
-  res.assumptions.push_back("chill-time answers the end temperature; the cooling rules are checked on the re-run "
-                            "and reported as they come out, met or not");
+  res.assumptions.push_back({ProcessNoteKind::assumes_chill_end});
   return res;
 }
 

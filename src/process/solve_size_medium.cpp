@@ -72,16 +72,15 @@ SolveResult max_size(const Scenario& s, const Libraries& libs, const SolveOption
                   name + " down to " + num(st.lo * 1000) + " mm";
   }
   SolveResult r = run_question(Question::max_size, st, s, libs);
-  r.assumptions.push_back(nominal_met ? "searched from the nominal " + name + " upward; smaller sizes are not examined"
-                                      : "the nominal " + name + " does not meet every target; searched below it");
+  r.assumptions.push_back(note_about(ProcessNoteKind::assumes_size_search, name, nominal_met));
   r.quantity = name;
   r.unit = "m";
   r.nominal = nominal;
   if (s.product.shape == Shape::finite_cylinder)
-    r.assumptions.push_back("finite cylinder: the diameter is varied, the length kept as in the file");
+    r.assumptions.push_back({ProcessNoteKind::assumes_diameter_varied});
   if (s.product.shape == Shape::brick)
-    r.assumptions.push_back("brick: the smallest edge is varied, the other edges kept as in the file");
-  r.assumptions.push_back("the stages as scheduled (durations, or their temperature conditions and caps) are kept");
+    r.assumptions.push_back({ProcessNoteKind::assumes_smallest_edge_varied});
+  r.assumptions.push_back({ProcessNoteKind::assumes_stages_kept});
   return r;
 }
 
@@ -113,9 +112,10 @@ SolveResult min_medium(const Scenario& s, const Libraries& libs, const SolveOpti
   r.unit = std::string(1, 'C');  // (a one-character literal trips GCC 12's false -Wrestrict here)
   r.nominal = s.stages[k].medium.highest_C();
   if (s.stages[k].medium.points.size() > 1)
-    r.assumptions.push_back("stage \"" + r.stage + "\" has a medium profile in the file; for this question it is "
-                            "replaced by a constant medium (nominal shown is the profile's highest point)");
-  r.assumptions.push_back("the search starts at the initial product temperature (" + temp_token(st.lo, 4) + ")");
+    r.assumptions.push_back(note_about(ProcessNoteKind::assumes_constant_medium, r.stage));
+  ProcessNote from_initial{ProcessNoteKind::assumes_search_from_initial};
+  from_initial.temp_C = st.lo;
+  r.assumptions.push_back(from_initial);
   return r;
 }
 

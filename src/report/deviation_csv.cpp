@@ -57,7 +57,7 @@ static void write_deviation_csv_unrendered(const DeviationResult& r, const Devia
   if (!i.probe_log.empty()) out << "# probe log: " << i.probe_log << " (SHA-256 " << i.probe_log_sha256 << ")\n";
   for (const auto& kv : i.provenance) out << "# " << kv.key << ": " << kv.value << "\n";
   out << "# extra_hold_s: " << (r.extra_hold_s ? JsonWriter::number(*r.extra_hold_s) : "none: " + r.extra_hold_note) << "\n";
-  for (const auto& n : r.assumptions) out << "# assumption: " << n << "\n";
+  for (const auto& n : assumption_texts(r.assumptions)) out << "# assumption: " << n << "\n";
   for (const auto& n : deviation_note_texts(r.notes)) out << "# note: " << n << "\n";
   out << "# reviewer name: \n# review date: \n# decision: \n";
   const auto* cons = i.conservative;

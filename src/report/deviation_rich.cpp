@@ -75,7 +75,7 @@ void record_section(RichDoc& d, const DeviationResult& r, const DeviationRecordI
   d.key_value(kv);
   if (!r.assumptions.empty()) {
     d.paragraph("Assumptions of this record:");
-    d.list(r.assumptions);
+    d.list(assumption_texts(r.assumptions));
   }
   d.section_end();
 }

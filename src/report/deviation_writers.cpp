@@ -72,7 +72,7 @@ void text_conservative(const process::ConservativeDeviation& c, const DeviationR
     return out_v;
   };
   for (const auto& n : deviation_note_texts(fresh(r.notes, nominal.notes))) out << "  - " << n << "\n";
-  for (const auto& n : fresh(r.assumptions, nominal.assumptions)) out << "  - assumption: " << n << "\n";
+  for (const auto& n : assumption_texts(fresh(r.assumptions, nominal.assumptions))) out << "  - assumption: " << n << "\n";
 }
 
 /// Per target scheduled against delivered, then the extra hold: the same keys for the nominal
@@ -131,7 +131,7 @@ void json_conservative(JsonWriter& w, const process::ConservativeDeviation& c, T
   w.end_array();
   w.key("driven_by").value(c.driven_by);
   w.key("notes").value(deviation_note_texts(r.notes));
-  w.key("assumptions").value(r.assumptions);
+  w.key("assumptions").value(assumption_texts(r.assumptions));
   w.end_object();
 }
 
@@ -235,7 +235,7 @@ static void write_deviation_text_unrendered(const DeviationResult& r, const Devi
     for (const auto& n : warns) out << "  ! " << n << "\n";
   }
   out << "\nASSUMPTIONS\n";
-  for (const auto& n : r.assumptions) out << "  - " << n << "\n";
+  for (const auto& n : assumption_texts(r.assumptions)) out << "  - " << n << "\n";
   out << "\nDISPOSITION\n  " << disposition_statement() << "\n\n";
   write_sign_off_text(out);
   out << "CAUTIONS\n";
@@ -316,7 +316,7 @@ static void write_deviation_json_unrendered(const DeviationResult& r, const Devi
   if (i.conservative) json_conservative(w, *i.conservative, u);
   w.key("disposition").value(disposition_statement());
   w.key("notes").value(deviation_note_texts(r.notes));
-  w.key("assumptions").value(r.assumptions);
+  w.key("assumptions").value(assumption_texts(r.assumptions));
   w.key("warnings").value(i.warnings);
   w.key("provenance");
   write_labelled_object(w, i.provenance);

@@ -166,7 +166,7 @@ void closing_sections(RichDoc& d, const SolveResult& r, const SolveReportContext
   }
   if (!r.assumptions.empty()) {
     d.section_begin("assumptions", "Assumptions");
-    d.list(r.assumptions);
+    d.list(assumption_texts(r.assumptions));
     d.section_end();
   }
   if (!c.provenance.empty()) {

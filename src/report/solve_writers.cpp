@@ -156,7 +156,7 @@ static void write_solve_text_unrendered(const SolveResult& r, const SolveReportC
     for (const auto& n : warns) out << "  ! " << n << "\n";
   }
   out << "\nASSUMPTIONS\n";
-  for (const auto& n : r.assumptions) out << "  - " << n << "\n";
+  for (const auto& n : assumption_texts(r.assumptions)) out << "  - " << n << "\n";
   out << "\nPROVENANCE\n";
   for (const auto& kv : c.provenance) out << "  " << kv.key << ": " << kv.value << "\n";
   out << "\n";
@@ -242,7 +242,7 @@ static void write_solve_json_unrendered(const SolveResult& r, const SolveReportC
   w.key("considered_targets").value(r.considered);
   w.key("root_evaluations").value(r.root.evaluations);
   w.key("notes").value(solve_note_texts(r));
-  w.key("assumptions").value(r.assumptions);
+  w.key("assumptions").value(assumption_texts(r.assumptions));
   w.key("warnings").value(c.warnings);
   w.key("provenance");
   write_labelled_object(w, c.provenance);
@@ -267,7 +267,7 @@ static void write_solve_csv_unrendered(const SolveResult& r, const SolveReportCo
   if (c.at_fit_bound)
     out << "# at_fit_bound rounded_" << r.unit << ": " << JsonWriter::number(c.at_fit_bound->rounded) << "\n";
   for (const auto& n : solve_note_texts(r)) out << "# note: " << n << "\n";
-  for (const auto& n : r.assumptions) out << "# assumption: " << n << "\n";
+  for (const auto& n : assumption_texts(r.assumptions)) out << "# assumption: " << n << "\n";
   for (const auto& n : c.warnings) out << "# warning: " << n << "\n";
   if (c.conservative) {
     const auto& cs = *c.conservative;

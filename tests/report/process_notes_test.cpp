@@ -35,3 +35,21 @@ TEST_CASE("a deviation note counts the gaps of the medium log and their length")
   CHECK(deviation_note_text(gaps).find("lethality accrued in the 2 gap(s) of the medium log (300 s in all) is not "
                                        "credited") == 0);
 }
+
+TEST_CASE("assumptions are numbers too: report words them in the report's unit") {
+  // 4 C = 39.2 F; a 2 K difference is 3.6 F (F = 1.8 C + 32).
+  ProcessNote from_initial{ProcessNoteKind::assumes_search_from_initial};
+  from_initial.temp_C = 4;
+  CHECK(render_temperatures(assumption_text(from_initial), TempUnit::F) ==
+        "the search starts at the initial product temperature (39.2 °F)");
+  ProcessNote threshold = process::note_about(ProcessNoteKind::assumes_deviation_threshold, "cook", false);
+  threshold.tol_K = 2;
+  threshold.value = 120;
+  CHECK(render_temperatures(assumption_text(threshold), TempUnit::F) ==
+        "stage \"cook\" cools, so a reading warmer than the schedule by more than 3.6 °F is deviated; the medium is "
+        "linear between logged readings; readings more than 120 s apart are a gap in the log");
+  const auto searched = assumption_texts({process::note_about(ProcessNoteKind::assumes_size_search, "diameter", true),
+                                          process::note_about(ProcessNoteKind::assumes_size_search, "diameter")});
+  CHECK(searched.at(0) == "searched from the nominal diameter upward; smaller sizes are not examined");
+  CHECK(searched.at(1) == "the nominal diameter does not meet every target; searched below it");
+}

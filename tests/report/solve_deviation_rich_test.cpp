@@ -65,7 +65,7 @@ process::SolveResult solve_result() {
   r.one_unit_less = less;
   r.considered = {"F70 <cook>"};
   r.notes = {free_note("a note with *stars* & <angle brackets>")};
-  r.assumptions = {"an assumption"};
+  r.assumptions = {{process::ProcessNoteKind::assumes_stages_kept}};
   return r;
 }
 
@@ -114,7 +114,11 @@ process::DeviationResult deviation_result() {
   less.eval.assessment.targets = {target("F0", false, -3, "0.05 min")};
   r.restored_one_unit_less = less;
   r.notes = {free_note("a note")};
-  r.assumptions = {"the medium is linear between logged readings"};
+  process::ProcessNote threshold =
+      process::note_about(process::ProcessNoteKind::assumes_deviation_threshold, "retort", true);
+  threshold.value = 120;
+  threshold.tol_K = 1;
+  r.assumptions = {threshold};
   return r;
 }
 

@@ -100,7 +100,7 @@ struct DeviationResult {
   std::optional<Check> restored_one_unit_less; ///< one unit less (must not restore, when > 0)
   std::string extra_hold_note;                 ///< why there is none, when there is none
   std::vector<ProcessNote> notes;
-  std::vector<std::string> assumptions;
+  std::vector<ProcessNote> assumptions;  ///< the assumes_* kinds; report words them
 };
 
 /// Evaluates a deviation. REQUIRES: medium_log (with a valid stage) or a probe log (or both).

@@ -136,7 +136,7 @@ struct SolveResult {
   RootResult root;
   std::vector<std::string> considered;  ///< names of the targets the answer is solved for
   std::vector<ProcessNote> notes;
-  std::vector<std::string> assumptions;
+  std::vector<ProcessNote> assumptions;  ///< the assumes_* kinds; report words them
   // chill-time only: the end temperature and where it is taken, and the temperature there at
   // the rounded duration and one unit less (reached only when strictly below end_C).
   std::optional<double> end_C;

@@ -3,6 +3,7 @@
 /// (report/process_notes.hpp). Values are in the answer's SI unit (s, m or °C) unless said.
 #include <cstddef>
 #include <string>
+#include <utility>
 
 namespace coldcore::process {
 
@@ -20,6 +21,25 @@ enum class ProcessNoteKind {
   medium_log_short,       ///< the medium log covers `value` s of the stage's `other` s
   log_gaps_not_credited,  ///< `count` gaps of the medium log, `value` s in all, are not credited
   model_probe_disagree,   ///< the model and the probe log disagree on whether every target is met
+
+  // What an answer assumes (SolveResult::assumptions, DeviationResult::assumptions):
+  assumes_schedule_as_written,   ///< deviation: the delivered process differs only where the logs say
+  assumes_medium_log_starts,     ///< the medium log starts stage `subject`; `reached`: it lasts as long as
+                                 ///< the log (scheduled duration `value` s), else keeps its end condition
+  assumes_deviation_threshold,   ///< stage `subject` heats (`reached`) or cools; deviated beyond `tol_K`;
+                                 ///< readings more than `value` s apart are a gap
+  assumes_probe_is_cold_spot,    ///< the probe log is the cold spot, on the first stage's clock
+  assumes_worst_case_replay,     ///< deviation --conservative: every choice together, the log replayed
+  assumes_fixed_duration,        ///< stage `subject` ends by a temperature; here it has a fixed duration
+  assumes_hold_time_targets,     ///< hold-time: lethality and minimum-temperature targets; rules re-checked
+  assumes_chill_end,             ///< chill-time answers the end temperature; rules as they come out
+  assumes_size_search,           ///< searched `subject` (the size) from the nominal up when `reached`
+                                 ///< (the nominal meets every target), else below it
+  assumes_diameter_varied,       ///< finite cylinder: the diameter varies, the length is kept
+  assumes_smallest_edge_varied,  ///< brick: the smallest edge varies, the other edges are kept
+  assumes_stages_kept,           ///< the stages as scheduled are kept
+  assumes_constant_medium,       ///< stage `subject`'s medium profile replaced by a constant medium
+  assumes_search_from_initial,   ///< the medium search starts at the initial temperature temp_C
 };
 
 struct ProcessNote {
@@ -31,5 +51,13 @@ struct ProcessNote {
   std::string subject = {};
   bool operator==(const ProcessNote&) const = default;
 };
+
+/// A note about `subject` (a stage's or a size's name), with its yes/no in `reached`.
+inline ProcessNote note_about(ProcessNoteKind kind, std::string subject, bool reached = false) {
+  ProcessNote n{kind};
+  n.subject = std::move(subject);
+  n.reached = reached;
+  return n;
+}
 
 }  // namespace coldcore::process
