@@ -11,7 +11,6 @@ namespace coldcore::process {
 namespace {
 
 using detail::is_lethality;
-using detail::num;
 
 bool credits(const Target& t, const std::string& stage) {
   return t.stages.empty() || std::find(t.stages.begin(), t.stages.end(), stage) != t.stages.end();
@@ -28,27 +27,23 @@ HChoice choose(const Scenario& s, std::size_t i, const Target* t) {
   const StageHRange& r = *s.per_target_h[i];
   HChoice c;
   c.stage = i;
-  const auto low = [&](std::string why) { c.end = HEnd::low; c.h_W_m2K = r.low_W_m2K; c.why = std::move(why); };
-  const auto high = [&](std::string why) { c.end = HEnd::high; c.h_W_m2K = r.high_W_m2K; c.why = std::move(why); };
+  c.stage_name = s.stages[i].name;
+  c.low_W_m2K = r.low_W_m2K;
+  c.high_W_m2K = r.high_W_m2K;
+  c.range_label = r.label;
+  const auto low = [&](HReason why) { c.end = HEnd::low; c.h_W_m2K = r.low_W_m2K; c.why = why; };
+  const auto high = [&](HReason why) { c.end = HEnd::high; c.h_W_m2K = r.high_W_m2K; c.why = why; };
   if (heating_stage(s, i)) {
-    if (t != nullptr && t->kind == TargetKind::cooling_rule)
-      low("a heating stage; the cooling rule is timed in the cooling stages and the low end is kept for it");
-    else
-      low("slower heating, conservative for lethality and minimum temperatures");
+    low(t != nullptr && t->kind == TargetKind::cooling_rule ? HReason::heating_kept_for_rule : HReason::heating_slower);
     return c;
   }
-  if (t == nullptr || t->kind == TargetKind::cooling_rule) {
-    low("slower cooling, conservative for a cooling rule");
-  } else if (is_lethality(t->kind)) {
-    if (credits_from(s, *t, i))
-      high("a cooling stage credited by this lethality target: faster cooling, less lethality accrues, "
-           "conservative for it");
-    else
-      low("a cooling stage this lethality target does not credit (nor any stage after it): its h does not "
-          "change the target");
-  } else {
-    high("a cooling stage: faster cooling shortens the time at or above the temperature, conservative for it");
-  }
+  if (t == nullptr || t->kind == TargetKind::cooling_rule)
+    low(HReason::cooling_slower_for_rule);
+  else if (is_lethality(t->kind))
+    if (credits_from(s, *t, i)) high(HReason::cooling_credited_faster);
+    else low(HReason::cooling_not_credited);
+  else
+    high(HReason::cooling_faster_for_hold);
   return c;
 }
 
@@ -93,13 +88,6 @@ Scenario apply_h_choices(const Scenario& s, const std::vector<HChoice>& choices)
   for (const auto& ch : choices) c.stages.at(ch.stage).h_W_m2K = ch.h_W_m2K;
   c.per_target_h.clear();
   return c;
-}
-
-std::string describe(const Scenario& s, const HChoice& c) {
-  const StageHRange& r = *s.per_target_h.at(c.stage);
-  return "stage \"" + s.stages.at(c.stage).name + "\": h " + num(c.h_W_m2K) + " W/m2K, the " +
-         (c.end == HEnd::low ? "low" : "high") + " end of " + num(r.low_W_m2K) + "-" + num(r.high_W_m2K) +
-         (r.label.empty() ? "" : " (" + r.label + ")") + ": " + c.why;
 }
 
 }  // namespace coldcore::process

@@ -37,11 +37,12 @@ double target_margin(const TargetResult& r) {
 
 namespace {
 
-std::string target_names(const Scenario& s, const std::vector<int>& idx) {
-  if (idx.size() == s.targets.size()) return "every target";
-  std::string out;
-  for (int i : idx) out += (out.empty() ? "" : ", ") + ("\"" + s.targets[static_cast<std::size_t>(i)].name + "\"");
-  return out.empty() ? "no target" : out;
+HUse h_use(const Scenario& s, const HChoice& c, const std::vector<int>& targets) {
+  HUse u{c};
+  u.every_target = targets.size() == s.targets.size();
+  if (!u.every_target)
+    for (int i : targets) u.targets.push_back(s.targets[static_cast<std::size_t>(i)].name);
+  return u;
 }
 
 // Stage::medium_gaps_s on the history's clock, cut to each stage as it ran (issue 11: what was
@@ -73,7 +74,7 @@ Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<
   ao.cooking_tables = libs.cooking;
   const std::vector<TargetGroup> groups = group_targets_by_h(s);
   for (const auto& g : groups)
-    for (const auto& c : g.choices) e.h_notes.push_back(describe(s, c) + "; used for " + target_names(s, g.targets));
+    for (const auto& c : g.choices) e.h_uses.push_back(h_use(s, c, g.targets));
   if (groups.size() == 1) {
     if (groups[0].choices.empty()) {
       e.history = simulate(s.product, s.stages, hopts);
@@ -108,7 +109,7 @@ Evaluation evaluate(const Scenario& s, const Libraries& libs, const std::vector<
       for (const auto& c : g.choices)
       {
         TargetNote n{TargetNoteKind::h_used};
-        n.subject = describe(s, c);
+        n.h_choice = c;
         e.assessment.targets[static_cast<std::size_t>(t)].notes.push_back(std::move(n));
       }
   e.all_met = e.assessment.all_met();
@@ -131,9 +132,9 @@ void add_h_notes(const Evaluation& e, std::vector<ProcessNote>& notes) {
     n.count = e.h_scenarios.size();
     push_unique(notes, n);
   }
-  for (const auto& h : e.h_notes) {
+  for (const auto& h : e.h_uses) {
     ProcessNote n{ProcessNoteKind::h_per_target};
-    n.subject = h;
+    n.h_use = h;
     push_unique(notes, n);
   }
 }

@@ -74,7 +74,7 @@ SolveResult max_size(const Scenario& s, const Libraries& libs, const SolveOption
   SolveResult r = run_question(Question::max_size, st, s, libs);
   r.assumptions.push_back(note_about(ProcessNoteKind::assumes_size_search, name, nominal_met));
   r.quantity = name;
-  r.unit = "m";
+  r.unit = std::string(1, 'm');  // (a one-character literal trips GCC 12's false -Wrestrict here)
   r.nominal = nominal;
   if (s.product.shape == Shape::finite_cylinder)
     r.assumptions.push_back({ProcessNoteKind::assumes_diameter_varied});

@@ -2,6 +2,7 @@
 
 #include "coldcore/model/temperature_token.hpp"
 #include "coldcore/number_text.hpp"
+#include "coldcore/report/h_choice_text.hpp"
 
 namespace coldcore {
 
@@ -17,7 +18,7 @@ std::string common_note_text(const ProcessNote& n) {
     case ProcessNoteKind::h_scenarios:
       return "the targets need different ends of an h range, so they were evaluated on " + std::to_string(n.count) +
              " scenarios, each target on the one conservative for it; the result is the least favourable over them";
-    case ProcessNoteKind::h_per_target: return "h per target: " + n.subject;
+    case ProcessNoteKind::h_per_target: return "h per target: " + h_use_text(n.h_use);
     case ProcessNoteKind::medium_log_short:
       return "the medium log covers " + num(n.value) + " s of the stage's " + num(n.other) +
              " s; its last reading is held to the end";

@@ -11,6 +11,7 @@
 #include "coldcore/model/limits.hpp"
 #include "coldcore/report/cautions.hpp"
 #include "coldcore/report/cooling_notes.hpp"
+#include "coldcore/report/h_choice_text.hpp"
 #include "coldcore/report/history_notes.hpp"
 #include "coldcore/report/target_notes.hpp"
 #include "rich_page.hpp"
@@ -318,7 +319,7 @@ void add_h_assumptions(RunReport& report, const process::Evaluation& e) {
         std::to_string(e.h_scenarios.size()) +
         " scenarios, each target on the one conservative for it; every verdict names its scenario, and the "
         "report shows each scenario's history.");
-  for (const auto& n : e.h_notes) report.assumptions.push_back("h per target: " + n + ".");
+  for (const auto& u : e.h_uses) report.assumptions.push_back("h per target: " + h_use_text(u) + ".");
 }
 
 void add_assessment(RunReport& report, const std::vector<const History*>& history_of, const Assessment& assessment,

@@ -2,6 +2,7 @@
 
 #include "coldcore/model/temperature_token.hpp"
 #include "coldcore/number_text.hpp"
+#include "coldcore/report/h_choice_text.hpp"
 #include "coldcore/process/shown_values.hpp"
 
 namespace coldcore {
@@ -54,7 +55,7 @@ std::string target_note_text(const TargetNote& n, const TargetResult& t) {
              ": the temperature meanwhile was not recorded";
     case TargetNoteKind::stages_ignored_on_log:
       return "stages cannot be selected on a probe log: the whole log is credited";
-    case TargetNoteKind::h_used: return "h used: " + n.subject;
+    case TargetNoteKind::h_used: return "h used: " + h_choice_text(n.h_choice);
   }
   return {};
 }

@@ -5,6 +5,7 @@
 #include "coldcore/process/conservative.hpp"
 #include "coldcore/process/h_ends.hpp"
 #include "coldcore/process/inverse.hpp"
+#include "coldcore/report/h_choice_text.hpp"
 #include "inverse_support.hpp"
 
 using namespace coldcore;
@@ -74,9 +75,12 @@ TEST_CASE("h ends: a credited cooling stage splits lethality (high h) from the c
   // Which h was used and why is said per target and overall.
   bool said = false;
   for (const auto& n : f.notes)
-    said = said || (n.kind == TargetNoteKind::h_used && n.subject.find("h 60 W/m2K, the high end of 20-60") != std::string::npos);
+    said = said || (n.kind == TargetNoteKind::h_used && n.h_choice.end == process::HEnd::high &&
+                    n.h_choice.h_W_m2K == 60 && n.h_choice.low_W_m2K == 20 && n.h_choice.high_W_m2K == 60 &&
+                    n.h_choice.why == process::HReason::cooling_credited_faster);
   CHECK(said);
-  CHECK(e.h_notes.size() == 2);
+  REQUIRE(e.h_uses.size() == 2);
+  CHECK(h_use_text(e.h_uses[0]).find("h 60 W/m2K, the high end of 20-60") != std::string::npos);
   std::vector<process::ProcessNote> notes;
   process::add_h_notes(e, notes);
   CHECK(notes.front().kind == process::ProcessNoteKind::h_scenarios);

@@ -21,10 +21,11 @@ using namespace coldcore::testing;
 
 namespace {
 
-// A note whose words are free text (the h choice described is the one such kind).
+// A note that carries free text: the h choice's note names the targets it served as the file
+// names them.
 process::ProcessNote free_note(std::string text) {
   process::ProcessNote n{process::ProcessNoteKind::h_per_target};
-  n.subject = std::move(text);
+  n.h_use.targets = {std::move(text)};
   return n;
 }
 

@@ -28,6 +28,7 @@
 #include "coldcore/lethality/kinetics.hpp"
 #include "coldcore/lethality/organisms.hpp"
 #include "coldcore/process/cooling.hpp"
+#include "coldcore/process/h_choice.hpp"
 #include "coldcore/process/shown_values.hpp"
 #include "coldcore/model/targets.hpp"
 
@@ -98,7 +99,7 @@ enum class TargetNoteKind {
   gap_not_credited,        ///< nothing of `credits` credited from from_s to to_s (limit_s: the gap
                            ///< limit when the log's own rows showed it; 0 otherwise)
   stages_ignored_on_log,   ///< stage filters cannot apply to a probe log
-  h_used,                  ///< the heat transfer coefficient used: `subject` describes it
+  h_used,                  ///< the heat transfer coefficient used: `h_choice`
 };
 
 /// What a gap note says was not credited.
@@ -112,6 +113,7 @@ struct TargetNote {
   double from_s = 0, to_s = 0, limit_s = 0;
   Credit credits = Credit::lethality;
   std::string subject = {}, key = {}, source = {};
+  process::HChoice h_choice = {};
 };
 
 struct TargetResult {

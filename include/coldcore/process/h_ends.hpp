@@ -34,21 +34,13 @@
 #include "coldcore/model/scenario.hpp"
 #include "coldcore/model/stages.hpp"
 #include "coldcore/model/targets.hpp"
+#include "coldcore/process/h_choice.hpp"
 
 namespace coldcore::process {
 
 using coldcore::Scenario;  // model/scenario.hpp
 using coldcore::StageHRange;
 
-enum class HEnd { low, high };
-
-/// The h one stage takes for a group of targets, and why (one sentence).
-struct HChoice {
-  std::size_t stage = 0;
-  HEnd end = HEnd::low;
-  double h_W_m2K = 0;
-  std::string why;
-};
 
 struct TargetGroup {
   std::vector<int> targets;      ///< indices into Scenario::targets (empty only when there are none)
@@ -67,8 +59,5 @@ std::vector<TargetGroup> group_targets_by_h(const Scenario& s);
 
 /// A copy of s with the group's h set on its stages and no per-target ranges left.
 Scenario apply_h_choices(const Scenario& s, const std::vector<HChoice>& choices);
-
-/// "stage "chill": h 60 W/m2K, the high end of 15-60 (medium_type = ...): <why>".
-std::string describe(const Scenario& s, const HChoice& c);
 
 }  // namespace coldcore::process

@@ -67,7 +67,7 @@ struct Evaluation {
   std::vector<HScenarioRun> h_scenarios;
   std::vector<int> target_scenario;
   /// Which h each per-target-range stage took, for which targets and why (also when not split).
-  std::vector<std::string> h_notes;
+  std::vector<HUse> h_uses;
 };
 
 /// Margin of one target result as described above.

@@ -5,6 +5,8 @@
 #include <string>
 #include <utility>
 
+#include "coldcore/process/h_choice.hpp"
+
 namespace coldcore::process {
 
 enum class ProcessNoteKind {
@@ -17,7 +19,7 @@ enum class ProcessNoteKind {
                           ///< temp_C, or not by more than `tol_K`
   chill_h_low_end,        ///< the end temperature is reached with every h range at its low end
   h_scenarios,            ///< the targets were evaluated on `count` h scenarios
-  h_per_target,           ///< `subject` describes the h a stage took and for which targets
+  h_per_target,           ///< `h_use`: the h a stage took and for which targets
   medium_log_short,       ///< the medium log covers `value` s of the stage's `other` s
   log_gaps_not_credited,  ///< `count` gaps of the medium log, `value` s in all, are not credited
   model_probe_disagree,   ///< the model and the probe log disagree on whether every target is met
@@ -49,6 +51,7 @@ struct ProcessNote {
   bool reached = false;
   std::size_t count = 0;
   std::string subject = {};
+  HUse h_use = {};
   bool operator==(const ProcessNote&) const = default;
 };
 
