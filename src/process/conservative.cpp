@@ -1,7 +1,5 @@
 #include "coldcore/process/conservative.hpp"
 
-#include "coldcore/model/temperature_token.hpp"
-
 #include <cmath>
 #include <sstream>
 
@@ -14,7 +12,6 @@ namespace coldcore::process {
 
 namespace {
 
-using detail::num;
 
 bool heating_question(Question q, const Scenario& s) {
   switch (q) {
@@ -36,21 +33,20 @@ std::vector<RangeChoice> worst_case_choices(const Scenario& s, const Ranges& r, 
   if (sizes) {
     if (r.diameter_m) {
       const double v = (*r.diameter_m)[1];
-      c.push_back({"diameter " + num(v * 1000) + " mm (largest)", [v](Scenario& x) { x.product.dims.diameter_m = v; }});
+      c.push_back({{RangeFactor::diameter, v}, [v](Scenario& x) { x.product.dims.diameter_m = v; }});
     }
     if (r.length_m) {
       const double v = (*r.length_m)[1];
-      c.push_back({"length " + num(v * 1000) + " mm (largest)", [v](Scenario& x) { x.product.dims.length_m = v; }});
+      c.push_back({{RangeFactor::length, v}, [v](Scenario& x) { x.product.dims.length_m = v; }});
     }
     if (r.thickness_m) {
       const double v = (*r.thickness_m)[1];
-      c.push_back({"thickness " + num(v * 1000) + " mm (largest)", [v](Scenario& x) { x.product.dims.thickness_m = v; }});
+      c.push_back({{RangeFactor::thickness, v}, [v](Scenario& x) { x.product.dims.thickness_m = v; }});
     }
   }
   if (r.conductivity_W_mK) {
     const double v = (*r.conductivity_W_mK)[0];
-    c.push_back({"conductivity " + num(v) + " W/mK (lowest)",
-                 [v](Scenario& x) { x.product.properties.conductivity_W_mK = v; }});
+    c.push_back({{RangeFactor::conductivity, v}, [v](Scenario& x) { x.product.properties.conductivity_W_mK = v; }});
   }
   for (std::size_t i = 0; i < r.stage_h_W_m2K.size() && i < s.stages.size(); ++i) {
     if (!r.stage_h_W_m2K[i] || s.stages[i].h_infinite) continue;
@@ -68,16 +64,15 @@ std::vector<RangeChoice> worst_case_choices(const Scenario& s, const Ranges& r, 
     for (std::size_t t = 0; t < s.targets.size(); ++t)
       for (const auto& ch : h_choices_for(probe, static_cast<int>(t)))
         any_high = any_high || (ch.stage == i && ch.end == HEnd::high);
-    const std::string label = any_high ? "stage \"" + s.stages[i].name + "\" h " + num(lo) + "-" + num(hi) +
-                                             " W/m2K at the conservative end per target (high where a credited "
-                                             "cooling stage, low otherwise)"
-                                       : "stage \"" + s.stages[i].name + "\" h " + num(lo) + " W/m2K (lowest)";
-    c.push_back({label, apply});
+    RangeSetting h{RangeFactor::stage_h, lo, hi, any_high};
+    h.stage = s.stages[i].name;
+    c.push_back({h, apply});
   }
   if (r.initial_C) {
     const double v = heating ? (*r.initial_C)[0] : (*r.initial_C)[1];
-    c.push_back({"initial " + temp_token(v) + " (" + (heating ? "coldest, for heating" : "warmest, for chilling") + ")",
-                 [v](Scenario& x) { x.product.initial_C = v; }});
+    RangeSetting initial{RangeFactor::initial, v};
+    initial.heating = heating;
+    c.push_back({initial, [v](Scenario& x) { x.product.initial_C = v; }});
   }
   return c;
 }
@@ -97,7 +92,7 @@ ConservativeSolve solve_conservative(Question q, const Scenario& s, const Ranges
   ConservativeSolve out;
   Scenario all = s;
   for (const auto& c : choices) {
-    out.choices.push_back(c.label);
+    out.choices.push_back(c.setting);
     c.apply(all);
   }
   // Slot 0: every choice together; slot k: choice k alone. The solves are independent, so they
@@ -123,17 +118,18 @@ ConservativeSolve solve_conservative(Question q, const Scenario& s, const Ranges
   double worst = smaller_worse ? 1e300 : -1e300;
   for (std::size_t k = 1; k <= choices.size(); ++k) {
     ChoiceAnswer a;
-    a.label = choices[k - 1].label;
+    a.choice = choices[k - 1].setting;
     if (answers[k]) {
       a.rounded = answers[k]->rounded;
       const bool w = smaller_worse ? *a.rounded < worst : *a.rounded > worst;
-      if (w && out.driven_by.find("no solution") == std::string::npos) {
+      if (w && !out.driven_by_no_solution) {
         worst = *a.rounded;
-        out.driven_by = a.label;
+        out.driven_by = k - 1;
       }
     } else {
       a.no_solution = no_solution[k];
-      out.driven_by = a.label + " (no solution with it alone)";
+      out.driven_by = k - 1;
+      out.driven_by_no_solution = true;
     }
     out.alone.push_back(std::move(a));
   }

@@ -269,13 +269,11 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
       }
       return h;
     };
-    const std::string no_hold = "no extension of stage \"" + st.name + "\" at " + temp_token(r.extension_medium_C, 5) +
-                                " up to " + num(o.max_extra_s / 3600.0) + " h restores every lethality target";
+    r.extension_search_s = o.max_extra_s;
     if (!by_duration) {
-      r.extra_hold_note = "stage \"" + st.name + "\" ends by a temperature condition, not a duration; no extension "
-                          "is computed";
+      r.extra_hold_none = NoHoldReason::stage_ends_by_condition;
     } else if (considered.empty()) {
-      r.extra_hold_note = "no lethality or minimum-temperature target to restore";
+      r.extra_hold_none = NoHoldReason::no_target_to_restore;
     } else {
       try {
         Hold h = solve_hold(*in.medium_log, r.delivered_stage_s);
@@ -284,7 +282,7 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
         r.restored = std::move(h.restored);
         r.restored_one_unit_less = std::move(h.one_less);
       } catch (const NoSolution&) {
-        r.extra_hold_note = no_hold;
+        r.extra_hold_none = NoHoldReason::no_extension_restores;
       }
       // A hold extension already given: what the log cut at the scheduled end would have needed.
       if (log_end > st.end.duration_s) {
@@ -292,7 +290,7 @@ DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& li
         try {
           r.extension_needed_s = solve_hold(cut_at(*in.medium_log, st.end.duration_s), st.end.duration_s).rounded_s;
         } catch (const NoSolution&) {
-          r.extension_needed_note = no_hold;
+          r.extension_needed_none = NoHoldReason::no_extension_restores;
         }
       }
     }

@@ -8,6 +8,7 @@
 #include "coldcore/report/format.hpp"
 #include "coldcore/report/deviation_report.hpp"
 #include "coldcore/report/json.hpp"
+#include "coldcore/report/conservative_text.hpp"
 #include "coldcore/report/process_notes.hpp"
 #include "coldcore/report/temperature_text.hpp"
 #include "coldcore/report/verdict_summary.hpp"
@@ -50,29 +51,30 @@ static void write_deviation_csv_unrendered(const DeviationResult& r, const Devia
     }
     if (r.extension_given_s)
       out << "# extension_given_s: " << JsonWriter::number(*r.extension_given_s) << "; extension_needed_s: "
-          << (r.extension_needed_s ? JsonWriter::number(*r.extension_needed_s) : "none: " + r.extension_needed_note)
+          << (r.extension_needed_s ? JsonWriter::number(*r.extension_needed_s) : "none: " + no_hold_text(r.extension_needed_none, r))
           << "\n";
     out << "# medium log: " << i.medium_log << " (SHA-256 " << i.medium_log_sha256 << ")\n";
   }
   if (!i.probe_log.empty()) out << "# probe log: " << i.probe_log << " (SHA-256 " << i.probe_log_sha256 << ")\n";
   for (const auto& kv : i.provenance) out << "# " << kv.key << ": " << kv.value << "\n";
-  out << "# extra_hold_s: " << (r.extra_hold_s ? JsonWriter::number(*r.extra_hold_s) : "none: " + r.extra_hold_note) << "\n";
+  out << "# extra_hold_s: " << (r.extra_hold_s ? JsonWriter::number(*r.extra_hold_s) : "none: " + no_hold_text(r.extra_hold_none, r)) << "\n";
   for (const auto& n : assumption_texts(r.assumptions)) out << "# assumption: " << n << "\n";
   for (const auto& n : deviation_note_texts(r.notes)) out << "# note: " << n << "\n";
   out << "# reviewer name: \n# review date: \n# decision: \n";
   const auto* cons = i.conservative;
   if (cons) {
-    for (const auto& ch : cons->choices) out << "# conservative choice: " << ch << "\n";
-    if (!cons->initial_reason.empty()) out << "# conservative initial temperature: " << cons->initial_reason << "\n";
+    for (const auto& ch : range_setting_texts(cons->choices)) out << "# conservative choice: " << ch << "\n";
+    if (const std::string why = initial_choice_text(cons->initial); !why.empty())
+      out << "# conservative initial temperature: " << why << "\n";
     out << "# conservative extra_hold_s: "
         << (cons->result.extra_hold_s ? JsonWriter::number(*cons->result.extra_hold_s)
-                                      : "none: " + cons->result.extra_hold_note)
+                                      : "none: " + no_hold_text(cons->result.extra_hold_none, cons->result))
         << "\n";
     out << "# conservative all met as delivered: " << (cons->result.all_met_delivered ? "yes" : "no") << "\n";
     for (const auto& a : cons->alone)
-      out << "# conservative alone: " << a.label << "; least margin " << JsonWriter::number(a.least_margin)
+      out << "# conservative alone: " << range_setting_text(a.choice) << "; least margin " << JsonWriter::number(a.least_margin)
           << "; extra_hold_s " << (a.extra_hold_s ? JsonWriter::number(*a.extra_hold_s) : "none") << "\n";
-    out << "# conservative driven by: " << cons->driven_by << "\n";
+    out << "# conservative driven by: " << driven_by_text(*cons) << "\n";
     for (const auto& n : deviation_note_texts(cons->result.notes)) out << "# conservative note: " << n << "\n";
   }
   out << "target,kind,scheduled_F_min,delivered_F_min,scheduled_log_reduction,delivered_log_reduction,verdict"

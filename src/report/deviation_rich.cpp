@@ -5,6 +5,7 @@
 #include <sstream>
 
 #include "coldcore/process/assessment.hpp"
+#include "coldcore/report/conservative_text.hpp"
 #include "coldcore/report/process_notes.hpp"
 #include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/cautions.hpp"
@@ -57,7 +58,7 @@ void record_section(RichDoc& d, const DeviationResult& r, const DeviationRecordI
     if (r.extension_given_s)
       kv.push_back({"hold extension",
                     "the log runs " + at_time(*r.extension_given_s) + " past the scheduled end, credited as delivered; " +
-                        (!r.extension_needed_s ? "the extension needed is not known: " + r.extension_needed_note
+                        (!r.extension_needed_s ? "the extension needed is not known: " + no_hold_text(r.extension_needed_none, r)
                          : *r.extension_needed_s == 0
                              ? std::string("none of it was needed")
                              : at_time(*r.extension_needed_s) + " at the scheduled medium was needed")});
@@ -128,7 +129,9 @@ void extra_hold_section(RichDoc& d, const DeviationResult& r, TempUnit u) {
       check_table(d, *r.restored_one_unit_less);
     }
   } else {
-    d.paragraph("None computed: " + (r.extra_hold_note.empty() ? std::string("no deviated stage") : r.extra_hold_note));
+    d.paragraph("None computed: " + (r.extra_hold_none == process::NoHoldReason::none
+                                         ? std::string("no deviated stage")
+                                         : no_hold_text(r.extra_hold_none, r)));
   }
   d.section_end();
 }
@@ -144,8 +147,8 @@ void conservative_section(RichDoc& d, const DeviationResult& nominal, const Devi
   const DeviationResult& r = c.result;
   d.section_begin("conservative", "Conservative evaluation (documented worst case of the file's ranges)");
   d.paragraph("Choices applied together:");
-  d.list(c.choices);
-  if (!c.initial_reason.empty()) d.paragraph("Initial temperature: " + c.initial_reason + ".");
+  d.list(range_setting_texts(c.choices));
+  if (const std::string why = initial_choice_text(c.initial); !why.empty()) d.paragraph("Initial temperature: " + why + ".");
   TextTable t = {{"target", "F scheduled → delivered (worst case)", "nominal delivered F", "delivered margin",
                   "verdict as delivered (worst case)"}};
   std::vector<bool> met;
@@ -162,7 +165,9 @@ void conservative_section(RichDoc& d, const DeviationResult& nominal, const Devi
   std::string hold;
   if (r.extra_hold_s && *r.extra_hold_s == 0) hold = "none needed";
   else if (r.extra_hold_s) hold = at_time(*r.extra_hold_s);
-  else hold = "none computed" + (r.extra_hold_note.empty() ? std::string() : ": " + r.extra_hold_note);
+  else hold = "none computed" + (r.extra_hold_none == process::NoHoldReason::none
+                                     ? std::string()
+                                     : ": " + no_hold_text(r.extra_hold_none, r));
   d.paragraph("Every target met as delivered, worst case: " + std::string(r.all_met_delivered ? "yes" : "NO") +
               ". Additional time at the scheduled medium (" + temp(r.extension_medium_C, u) + "), worst case: " + hold +
               ".");
@@ -171,10 +176,10 @@ void conservative_section(RichDoc& d, const DeviationResult& nominal, const Devi
     std::string extra = "none computed";
     if (a.extra_hold_s && *a.extra_hold_s == 0) extra = "none needed";
     else if (a.extra_hold_s) extra = at_time(*a.extra_hold_s);
-    alone.push_back({a.label, a.all_met_delivered ? "met" : "not demonstrated", fixed(a.least_margin, 4), extra});
+    alone.push_back({range_setting_text(a.choice), a.all_met_delivered ? "met" : "not demonstrated", fixed(a.least_margin, 4), extra});
   }
   d.table(alone);
-  d.statement("Driven by: " + c.driven_by + ".");
+  d.statement("Driven by: " + driven_by_text(c) + ".");
   d.section_end();
 }
 

@@ -3,6 +3,7 @@
 #include <ostream>
 
 #include "coldcore/process/assessment.hpp"
+#include "coldcore/report/conservative_text.hpp"
 #include "coldcore/report/process_notes.hpp"
 #include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/cautions.hpp"
@@ -31,16 +32,17 @@ void json_opt(JsonWriter& w, const char* k, const std::optional<double>& v) {
 std::string hold_text(const DeviationResult& d) {
   if (d.extra_hold_s && *d.extra_hold_s == 0) return "none needed";
   if (d.extra_hold_s) return duration_text(*d.extra_hold_s) + " (" + fixed(*d.extra_hold_s, 0) + " s)";
-  return "none computed: " + d.extra_hold_note;
+  return "none computed: " + no_hold_text(d.extra_hold_none, d);
 }
 
 void text_conservative(const process::ConservativeDeviation& c, const DeviationResult& nominal, std::ostream& out,
                        TempUnit u) {
   const DeviationResult& r = c.result;
   out << "\nCONSERVATIVE (documented worst case of the file's ranges, model with the logged medium)\n  choices:";
-  for (const auto& ch : c.choices) out << " " << ch << ";";
+  for (const auto& ch : range_setting_texts(c.choices)) out << " " << ch << ";";
   out << "\n";
-  if (!c.initial_reason.empty()) out << "  initial temperature: " << c.initial_reason << "\n";
+  if (const std::string why = initial_choice_text(c.initial); !why.empty())
+    out << "  initial temperature: " << why << "\n";
   for (std::size_t k = 0; k < r.targets.size(); ++k) {
     const DeviationTarget& t = r.targets[k];
     out << "  " << t.name << " (" << to_string(t.kind) << ")\n";
@@ -56,14 +58,14 @@ void text_conservative(const process::ConservativeDeviation& c, const DeviationR
   out << "  additional time at the scheduled medium (" << temp(r.extension_medium_C, u) << "), worst case: "
       << hold_text(r) << "\n";
   for (const auto& a : c.alone) {
-    out << "  alone: " << a.label << " -> delivered " << (a.all_met_delivered ? "met" : "NOT met") << ", least margin "
+    out << "  alone: " << range_setting_text(a.choice) << " -> delivered " << (a.all_met_delivered ? "met" : "NOT met") << ", least margin "
         << fixed(a.least_margin, 4) << ", additional time ";
     if (a.extra_hold_s && *a.extra_hold_s == 0) out << "none needed";
     else if (a.extra_hold_s) out << fixed(*a.extra_hold_s, 0) << " s";
     else out << "none computed";
     out << "\n";
   }
-  out << "  driven by: " << c.driven_by << "\n";
+  out << "  driven by: " << driven_by_text(c) << "\n";
   // Only what the nominal record does not already say.
   const auto fresh = []<class T>(const std::vector<T>& v, const std::vector<T>& nominal_v) {
     std::vector<T> out_v;
@@ -109,27 +111,29 @@ void json_targets_and_hold(JsonWriter& w, const DeviationResult& r, TempUnit u) 
   json_opt(w, "extra_hold_s", r.extra_hold_s);
   json_opt(w, "extra_hold_unrounded_s", r.extra_hold_unrounded_s);
   w.key("extension_medium_" + std::string(unit_suffix(u))).value(display_temp(r.extension_medium_C, u));
-  if (!r.extra_hold_note.empty()) w.key("extra_hold_note").value(r.extra_hold_note);
+  if (r.extra_hold_none != process::NoHoldReason::none)
+    w.key("extra_hold_note").value(no_hold_text(r.extra_hold_none, r));
 }
 
 void json_conservative(JsonWriter& w, const process::ConservativeDeviation& c, TempUnit u) {
   const DeviationResult& r = c.result;
   w.key("conservative").begin_object();
-  w.key("choices").value(c.choices);
-  w.key("initial_reason").value(c.initial_reason);
+  w.key("choices").value(range_setting_texts(c.choices));
+  w.key("initial_reason").value(initial_choice_text(c.initial));
   json_targets_and_hold(w, r, u);
   w.key("alone").begin_array();
   for (const auto& a : c.alone) {
     w.begin_object();
-    w.key("choice").value(a.label);
+    w.key("choice").value(range_setting_text(a.choice));
     w.key("all_met_delivered").value(a.all_met_delivered);
     w.key("least_margin").value(a.least_margin);
     json_opt(w, "extra_hold_s", a.extra_hold_s);
-    if (!a.extra_hold_note.empty()) w.key("extra_hold_note").value(a.extra_hold_note);
+    if (a.extra_hold_none != process::NoHoldReason::none)
+      w.key("extra_hold_note").value(no_hold_text(a.extra_hold_none, r));
     w.end_object();
   }
   w.end_array();
-  w.key("driven_by").value(c.driven_by);
+  w.key("driven_by").value(driven_by_text(c));
   w.key("notes").value(deviation_note_texts(r.notes));
   w.key("assumptions").value(assumption_texts(r.assumptions));
   w.end_object();
@@ -174,7 +178,7 @@ static void write_deviation_text_unrendered(const DeviationResult& r, const Devi
                                                  fixed(*r.extension_needed_s, 0) + " s) at the scheduled medium was needed")
             << "\n";
       else
-        out << "the extension needed is not known: " << r.extension_needed_note << "\n";
+        out << "the extension needed is not known: " << no_hold_text(r.extension_needed_none, r) << "\n";
     }
     out << "  medium log:          " << i.medium_log << "\n  medium log SHA-256:  " << i.medium_log_sha256 << "\n";
   }
@@ -216,8 +220,8 @@ static void write_deviation_text_unrendered(const DeviationResult& r, const Devi
       for (const auto& t : r.restored_one_unit_less->eval.assessment.targets) out << " " << t.name << " " << t.verdict_text << ";";
       out << "\n";
     }
-  } else if (!r.extra_hold_note.empty()) {
-    out << "  additional time: none computed: " << r.extra_hold_note << "\n";
+  } else if (r.extra_hold_none != process::NoHoldReason::none) {
+    out << "  additional time: none computed: " << no_hold_text(r.extra_hold_none, r) << "\n";
   }
   if (!r.notes.empty()) {
     out << "\nNOTES\n";
@@ -280,7 +284,8 @@ static void write_deviation_json_unrendered(const DeviationResult& r, const Devi
   w.key("deviation_times_from").value("the start of the deviated stage");
   json_opt(w, "extension_given_s", r.extension_given_s);
   json_opt(w, "extension_needed_s", r.extension_needed_s);
-  if (!r.extension_needed_note.empty()) w.key("extension_needed_note").value(r.extension_needed_note);
+  if (r.extension_needed_none != process::NoHoldReason::none)
+    w.key("extension_needed_note").value(no_hold_text(r.extension_needed_none, r));
   json_targets_and_hold(w, r, u);
   w.key("restored");
   if (r.restored) {

@@ -4,6 +4,7 @@
 #include <cctype>
 #include <sstream>
 
+#include "coldcore/report/conservative_text.hpp"
 #include "coldcore/report/process_notes.hpp"
 #include "coldcore/report/target_notes.hpp"
 #include "coldcore/report/cautions.hpp"
@@ -127,23 +128,23 @@ void conservative_section(RichDoc& d, const SolveResult& r, const SolveReportCon
   const auto& cs = *c.conservative;
   d.section_begin("conservative", "Conservative: documented worst case of the file's ranges");
   d.paragraph("Choices applied together:");
-  d.list(cs.choices);
+  d.list(range_setting_texts(cs.choices));
   if (cs.result) {
     d.statement("Worst case: use " + detail::solve_shown(r, cs.result->rounded, u) + " (nominal: " +
                 detail::solve_shown(r, r.rounded, u) + ").");
     d.key_value({{"worst-case answer, unrounded", detail::solve_shown_raw(r, cs.result->answer, u)},
                  {"worst-case answer to use", detail::solve_shown(r, cs.result->rounded, u)},
                  {"nominal answer to use", detail::solve_shown(r, r.rounded, u)},
-                 {"driven by", cs.driven_by}});
+                 {"driven by", driven_by_text(cs)}});
     d.paragraph("Forward re-run of the worst case at " + detail::solve_shown(r, cs.result->rounded, u) + ":");
     check_table(d, cs.result->verification);
   } else {
     d.statement("Worst case: no solution: " + cs.no_solution);
-    d.key_value({{"driven by", cs.driven_by}});
+    d.key_value({{"driven by", driven_by_text(cs)}});
   }
   TextTable t = {{"choice alone", "answer to use"}};
   for (const auto& a : cs.alone)
-    t.push_back({a.label, a.rounded ? detail::solve_shown(r, *a.rounded, u) : "no solution: " + a.no_solution});
+    t.push_back({range_setting_text(a.choice), a.rounded ? detail::solve_shown(r, *a.rounded, u) : "no solution: " + a.no_solution});
   d.table(t);
   d.section_end();
 }

@@ -2,6 +2,7 @@
 #include <optional>
 #include <ostream>
 
+#include "coldcore/report/conservative_text.hpp"
 #include "coldcore/report/process_notes.hpp"
 #include "coldcore/report/cooling_notes.hpp"
 #include "coldcore/report/target_notes.hpp"
@@ -134,7 +135,7 @@ static void write_solve_text_unrendered(const SolveResult& r, const SolveReportC
   if (c.conservative) {
     const auto& cs = *c.conservative;
     out << "\nCONSERVATIVE (documented worst case of the file's ranges)\n  choices:";
-    for (const auto& ch : cs.choices) out << " " << ch << ";";
+    for (const auto& ch : range_setting_texts(cs.choices)) out << " " << ch << ";";
     out << "\n";
     if (cs.result) {
       out << "  answer:           " << shown_raw(r, cs.result->answer, u) << " (unrounded)\n";
@@ -144,8 +145,8 @@ static void write_solve_text_unrendered(const SolveResult& r, const SolveReportC
       out << "  no solution: " << cs.no_solution << "\n";
     }
     for (const auto& a : cs.alone)
-      out << "  alone: " << a.label << " -> " << (a.rounded ? shown(r, *a.rounded, u) : "no solution") << "\n";
-    out << "  driven by: " << cs.driven_by << "\n";
+      out << "  alone: " << range_setting_text(a.choice) << " -> " << (a.rounded ? shown(r, *a.rounded, u) : "no solution") << "\n";
+    out << "  driven by: " << driven_by_text(cs) << "\n";
   }
   std::vector<std::string> warns = c.warnings;
   const auto engine_notes = history_warnings(r.verification.eval.history);
@@ -216,7 +217,7 @@ static void write_solve_json_unrendered(const SolveResult& r, const SolveReportC
   if (c.conservative) {
     const auto& cs = *c.conservative;
     w.key("conservative").begin_object();
-    w.key("choices").value(cs.choices);
+    w.key("choices").value(range_setting_texts(cs.choices));
     if (cs.result) {
       w.key("answer_" + r.unit).value(cs.result->answer);
       w.key("rounded_" + r.unit).value(cs.result->rounded);
@@ -229,14 +230,14 @@ static void write_solve_json_unrendered(const SolveResult& r, const SolveReportC
     w.key("alone").begin_array();
     for (const auto& a : cs.alone) {
       w.begin_object();
-      w.key("choice").value(a.label);
+      w.key("choice").value(range_setting_text(a.choice));
       w.key("rounded_" + r.unit);
       if (a.rounded) w.value(*a.rounded); else w.null();
       if (!a.no_solution.empty()) w.key("no_solution").value(a.no_solution);
       w.end_object();
     }
     w.end_array();
-    w.key("driven_by").value(cs.driven_by);
+    w.key("driven_by").value(driven_by_text(cs));
     w.end_object();
   }
   w.key("considered_targets").value(r.considered);
@@ -271,10 +272,10 @@ static void write_solve_csv_unrendered(const SolveResult& r, const SolveReportCo
   for (const auto& n : c.warnings) out << "# warning: " << n << "\n";
   if (c.conservative) {
     const auto& cs = *c.conservative;
-    for (const auto& ch : cs.choices) out << "# conservative choice: " << ch << "\n";
+    for (const auto& ch : range_setting_texts(cs.choices)) out << "# conservative choice: " << ch << "\n";
     out << "# conservative rounded_" << r.unit << ": "
         << (cs.result ? JsonWriter::number(cs.result->rounded) : "no solution: " + cs.no_solution) << "\n";
-    out << "# conservative driven by: " << cs.driven_by << "\n";
+    out << "# conservative driven by: " << driven_by_text(cs) << "\n";
   }
   if (r.end_C) {  // chill-time: the end condition of the answer and of both re-runs
     out << "# end: " << r.end_point << " below " << JsonWriter::number(*r.end_C) << " C by more than "

@@ -1,6 +1,7 @@
 // deviation --conservative: the worst case of the ranges beside the nominal deviation.
 #include <doctest/doctest.h>
 
+#include "coldcore/report/conservative_text.hpp"
 #include "coldcore/report/temperature_text.hpp"
 #include "coldcore/error.hpp"
 #include "coldcore/process/deviation_conservative.hpp"
@@ -52,8 +53,9 @@ TEST_CASE("deviation --conservative: worst-case delivered F below the nominal / 
   REQUIRE(c.result.extra_hold_s);
   CHECK(*c.result.extra_hold_s >= *nominal.extra_hold_s);
   // the deviated stage heats: the coldest start (2 C) is the one taken
-  CHECK(render_temperatures(c.choices[2], TempUnit::C) == "initial 2 °C (coldest, for heating)");
-  CHECK(c.initial_reason.find("heats") != std::string::npos);
+  CHECK(render_temperatures(range_setting_text(c.choices[2]), TempUnit::C) == "initial 2 °C (coldest, for heating)");
+  CHECK(c.initial.reason == process::InitialChoiceReason::deviated_stage_heats);
+  CHECK(initial_choice_text(c.initial).find("heats") != std::string::npos);
   // The worst case is the scenario with every choice applied by hand (independent of the choice code).
   auto by_hand = in;
   by_hand.scheduled.product.dims.diameter_m = 0.040;
@@ -64,13 +66,14 @@ TEST_CASE("deviation --conservative: worst-case delivered F below the nominal / 
   // The driver is one of the choices, and needs the largest extra hold of them alone.
   REQUIRE(c.alone.size() == 3);
   double largest = -1;
-  std::string largest_label;
-  for (const auto& a : c.alone) {
+  std::size_t largest_at = 0;
+  for (std::size_t k = 0; k < c.alone.size(); ++k) {
+    const auto& a = c.alone[k];
     REQUIRE(a.extra_hold_s);
     CHECK(*a.extra_hold_s <= *c.result.extra_hold_s);  // each alone needs no more than all together
-    if (*a.extra_hold_s > largest) { largest = *a.extra_hold_s; largest_label = a.label; }
+    if (*a.extra_hold_s > largest) { largest = *a.extra_hold_s; largest_at = k; }
   }
-  CHECK(c.driven_by == largest_label);
+  CHECK(c.driven_by == largest_at);
 }
 
 TEST_CASE("deviation --conservative: a log identical to the schedule reproduces the worst-case schedule") {
@@ -92,11 +95,13 @@ TEST_CASE("deviation --conservative: a deviated cooling stage with a cooling rul
   in.scheduled = test::dip_sphere({rule});
   in.stage = 1;
   in.medium_log = log_of({{0, -2}, {3600, -2}});
-  std::string why;
+  process::InitialChoice why;
   const auto ch = process::deviation_worst_case_choices(in, ranges(), &why);
   REQUIRE_FALSE(ch.empty());
-  CHECK(render_temperatures(ch.back().label, TempUnit::C) == "initial 6 °C (warmest, for chilling)");  // a warmer start cools later
-  CHECK(why.find("cools and a cooling rule") != std::string::npos);
+  CHECK(render_temperatures(range_setting_text(ch.back().setting), TempUnit::C) ==
+        "initial 6 °C (warmest, for chilling)");  // a warmer start cools later
+  CHECK(why.reason == process::InitialChoiceReason::cools_with_rule);
+  CHECK(initial_choice_text(why).find("cools and a cooling rule") != std::string::npos);
 }
 
 TEST_CASE("deviation --conservative: refused without a range that applies / or with a probe log only") {

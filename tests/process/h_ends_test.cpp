@@ -5,6 +5,7 @@
 #include "coldcore/process/conservative.hpp"
 #include "coldcore/process/h_ends.hpp"
 #include "coldcore/process/inverse.hpp"
+#include "coldcore/report/conservative_text.hpp"
 #include "coldcore/report/h_choice_text.hpp"
 #include "inverse_support.hpp"
 
@@ -148,7 +149,9 @@ TEST_CASE("solve --conservative: an h_range on a credited chill is taken at its 
   r.stage_h_W_m2K = {std::nullopt, std::array<double, 2>{20.0, 60.0}};
   const auto c = process::solve_conservative(process::Question::hold_time, s, r, libs.get());
   REQUIRE(c.choices.size() == 1);
-  CHECK(c.choices[0].find("at the conservative end per target") != std::string::npos);
+  CHECK(c.choices[0].factor == process::RangeFactor::stage_h);
+  CHECK(c.choices[0].per_target);  // at the conservative end per target
+  CHECK(range_setting_text(c.choices[0]).find("at the conservative end per target") != std::string::npos);
   REQUIRE(c.result);
   // common practice: the high h cools faster, less lethality in the credited chill: a longer cook
   auto hi = s;

@@ -232,21 +232,25 @@ TEST_CASE("solve md: tables / escaped text / plots as well-formed standalone SVG
 TEST_CASE("solve html: the conservative section lists choices / the worst case / each choice alone / the driver") {
   const RunReport plot = sample_report();
   process::ConservativeSolve cs;
-  cs.choices = {"diameter 44 mm (largest)", "h 80 W/m2K (lowest)"};
+  process::RangeSetting diameter{process::RangeFactor::diameter, 0.044};
+  process::RangeSetting h{process::RangeFactor::stage_h, 80};
+  h.stage = "cook";
+  cs.choices = {diameter, h};
   cs.result = solve_result();
   cs.result->rounded = 75.0;
-  cs.alone = {{"diameter 44 mm (largest)", 73.0, ""}, {"h 80 W/m2K (lowest)", std::nullopt, "no medium up to 200 C"}};
-  cs.driven_by = "h 80 W/m2K (lowest)";
+  cs.alone = {{diameter, 73.0, ""}, {h, std::nullopt, "no medium up to 200 C"}};
+  cs.driven_by = 1;
+  cs.driven_by_no_solution = true;
   SolveReportContext c = solve_context(&plot);
   c.conservative = &cs;
   std::ostringstream o;
   write_solve_html(solve_result(), c, o, TempUnit::C);
-  const std::string h = o.str();
-  CHECK(xml_problem(after_doctype(h)) == "");
+  const std::string html = o.str();
+  CHECK(xml_problem(after_doctype(html)) == "");
   for (const char* s : {"id=\"conservative\"", "<li>diameter 44 mm (largest)</li>", "Worst case: use 75.00 °C",
-                        "<td>driven by</td><td>h 80 W/m2K (lowest)</td>", "<td>73.00 °C</td>",
-                        "no solution: no medium up to 200 C"})
-    CHECK_MESSAGE(h.find(s) != std::string::npos, s);
+                        "<td>driven by</td><td>stage &quot;cook&quot; h 80 W/m2K (lowest) (no solution with it alone)</td>",
+                        "<td>73.00 °C</td>", "no solution: no medium up to 200 C"})
+    CHECK_MESSAGE(html.find(s) != std::string::npos, s);
   CHECK(solve_html(&plot).find("id=\"conservative\"") == std::string::npos);
 }
 

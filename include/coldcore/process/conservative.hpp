@@ -23,9 +23,23 @@ namespace coldcore::process {
 
 using coldcore::Ranges;  // model/scenario.hpp
 
-/// One worst-case choice: what it sets and to what.
+/// What a worst-case choice sets and to what, as numbers (report words it: "diameter 44 mm
+/// (largest)", "initial 2 °C (coldest, for heating)").
+enum class RangeFactor { diameter, length, thickness, conductivity, stage_h, initial };
+
+struct RangeSetting {
+  RangeFactor factor = RangeFactor::diameter;
+  double value = 0;         ///< m (sizes), W/mK, W/m2K (stage_h: the range's low end) or °C
+  double high = 0;          ///< stage_h with per_target: the range's high end (W/m2K)
+  bool per_target = false;  ///< stage_h: at the end conservative for each target, not the low end
+  bool heating = true;      ///< initial: the coldest start (heating) or the warmest (chilling)
+  std::string stage = {};   ///< stage_h: the stage's name
+  bool operator==(const RangeSetting&) const = default;
+};
+
+/// One worst-case choice: what it sets, and how.
 struct RangeChoice {
-  std::string label;   ///< e.g. "diameter 44 mm (largest)"
+  RangeSetting setting;
   std::function<void(Scenario&)> apply;
 };
 
@@ -36,17 +50,20 @@ std::vector<RangeChoice> worst_case_choices(Question q, const Scenario& s, const
 std::vector<RangeChoice> worst_case_choices(const Scenario& s, const Ranges& r, bool heating, bool sizes);
 
 struct ChoiceAnswer {
-  std::string label;
+  RangeSetting choice;
   std::optional<double> rounded;  ///< nullopt when that choice alone has no solution
   std::string no_solution;        ///< its reason then
 };
 
 struct ConservativeSolve {
-  std::vector<std::string> choices;       ///< labels of every applied choice
+  std::vector<RangeSetting> choices;      ///< every applied choice
   std::optional<SolveResult> result;      ///< all choices together (nullopt: no solution)
   std::string no_solution;                ///< reason when result is empty
   std::vector<ChoiceAnswer> alone;        ///< each choice alone
-  std::string driven_by;                  ///< label of the least favourable single choice
+  /// Index into `alone` of the least favourable single choice (none without choices); a choice
+  /// with no solution alone drives it over any choice that has one.
+  std::optional<std::size_t> driven_by;
+  bool driven_by_no_solution = false;
 };
 
 /// Solves q with every worst-case choice applied, and with each alone. Throws InputError when no

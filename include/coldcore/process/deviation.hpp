@@ -75,6 +75,14 @@ struct DeviationInput {
   std::string probe_origin = "probe log";
 };
 
+/// Why a deviation has no extra hold (report words it).
+enum class NoHoldReason {
+  none,                     ///< there is one (or nothing was asked)
+  stage_ends_by_condition,  ///< the deviated stage ends by a temperature condition, not a duration
+  no_target_to_restore,     ///< no lethality or minimum-temperature target
+  no_extension_restores,    ///< no extension at extension_medium_C up to extension_search_s restores them
+};
+
 struct DeviationResult {
   Evaluation scheduled;
   std::optional<Evaluation> delivered;         ///< with the logged medium
@@ -86,9 +94,9 @@ struct DeviationResult {
   double delivered_stage_s = 0;                ///< delivered length (the log's length for a duration stage)
   /// The log ran past the scheduled end (a hold extension given): how long, and the extension
   /// at the scheduled medium the solver finds for the log cut at the scheduled end (what was
-  /// needed), rounded UP to unit_s; empty when none was found (extension_needed_note says why).
+  /// needed), rounded UP to unit_s; empty when none was found (extension_needed_none says why).
   std::optional<double> extension_given_s, extension_needed_s;
-  std::string extension_needed_note;
+  NoHoldReason extension_needed_none = NoHoldReason::none;
   std::string stage;                           ///< name of the deviated stage ("" for a probe only)
   double stage_start_s = 0;                    ///< in the scheduled history
   bool all_met_delivered = false;
@@ -96,9 +104,10 @@ struct DeviationResult {
   /// minimum-temperature target: unrounded and rounded UP to unit_s; 0 when already met.
   std::optional<double> extra_hold_unrounded_s, extra_hold_s;
   double extension_medium_C = 0;
+  double extension_search_s = 0;               ///< the longest extension searched (max_extra_s)
   std::optional<Check> restored;               ///< re-run with the rounded extension
   std::optional<Check> restored_one_unit_less; ///< one unit less (must not restore, when > 0)
-  std::string extra_hold_note;                 ///< why there is none, when there is none
+  NoHoldReason extra_hold_none = NoHoldReason::none;  ///< why there is none, when there is none
   std::vector<ProcessNote> notes;
   std::vector<ProcessNote> assumptions;  ///< the assumes_* kinds; report words them
 };
@@ -106,7 +115,7 @@ struct DeviationResult {
 /// Evaluates a deviation. REQUIRES: medium_log (with a valid stage) or a probe log (or both).
 /// Throws InputError (nothing to evaluate, bad stage), NoSolution is NOT thrown for the extra hold:
 /// when no extension up to max_extra_s restores the targets, extra_hold_* stay empty and
-/// extra_hold_note says why.
+/// extra_hold_none says why.
 DeviationResult evaluate_deviation(const DeviationInput& in, const Libraries& libs, const DeviationOptions& o = {});
 
 /// The departures alone (exposed for tests): readings of `log` against `schedule`, in time order

@@ -28,24 +28,38 @@ namespace coldcore::process {
 
 /// One worst-case choice applied alone.
 struct DeviationChoiceResult {
-  std::string label;
+  RangeSetting choice;
   bool all_met_delivered = false;
   double least_margin = 0;             ///< min over targets of target_margin(delivered)
-  std::optional<double> extra_hold_s;  ///< rounded up; empty: none computed (extra_hold_note says why)
-  std::string extra_hold_note;
+  std::optional<double> extra_hold_s;  ///< rounded up; empty: none computed (extra_hold_none says why)
+  NoHoldReason extra_hold_none = NoHoldReason::none;
 };
 
 /// The conservative part of a deviation record, kept apart from the nominal DeviationResult.
-struct ConservativeDeviation {
-  std::vector<std::string> choices;    ///< labels of every applied choice
-  std::string initial_reason;          ///< why the coldest or warmest start ("" without an initial range)
-  DeviationResult result;              ///< every choice together
-  std::vector<DeviationChoiceResult> alone;
-  std::string driven_by;               ///< label of the driving choice
+/// Why the coldest or the warmest start was taken (report words it).
+enum class InitialChoiceReason {
+  none,                  ///< no initial-temperature range
+  deviated_stage_heats,  ///< a colder start delivers less lethality
+  cools_without_rule,    ///< no cooling rule: the coldest start is conservative for the other targets
+  cools_with_rule,       ///< a cooling rule among the targets: a warmer start cools later
 };
 
-/// Worst-case choices of a deviation (above). `reason` receives the initial-temperature reason.
-std::vector<RangeChoice> deviation_worst_case_choices(const DeviationInput& in, const Ranges& r, std::string* reason = nullptr);
+struct InitialChoice {
+  InitialChoiceReason reason = InitialChoiceReason::none;
+  std::optional<std::string> deviated_stage;  ///< its name; empty without a (valid) deviated stage
+};
+
+struct ConservativeDeviation {
+  std::vector<RangeSetting> choices;   ///< every applied choice
+  InitialChoice initial;               ///< why the coldest or warmest start
+  DeviationResult result;              ///< every choice together
+  std::vector<DeviationChoiceResult> alone;
+  std::optional<std::size_t> driven_by;  ///< index into `alone` of the driving choice
+};
+
+/// Worst-case choices of a deviation (above). `initial` receives why the initial temperature's end.
+std::vector<RangeChoice> deviation_worst_case_choices(const DeviationInput& in, const Ranges& r,
+                                                      InitialChoice* initial = nullptr);
 
 /// Evaluates the deviation under the worst case and each choice alone.
 /// Throws InputError when there is no medium log (a probe log alone does not depend on ranges) or
