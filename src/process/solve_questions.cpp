@@ -279,7 +279,6 @@ SolveResult chill_time(const Scenario& s, const Libraries& libs, const SolveOpti
     res.end_at_less_C = where(res.rounded - o.unit_s);
     res.end_reached_at_less = reached(res.rounded - o.unit_s);
   }
-  res.considered = {point + " at or below " + temp_token(end_C, 4)};
   ProcessNote end_note{ProcessNoteKind::chill_end_reached, res.answer};
   end_note.temp_C = end_C;
   end_note.other_C = where(res.rounded);

@@ -85,6 +85,11 @@ std::string assumption_text(const ProcessNote& n) {
   }
 }
 
+std::vector<std::string> solved_for_texts(const process::SolveResult& r) {
+  if (r.end_C) return {r.end_point + " at or below " + temp_token(*r.end_C, 4)};
+  return r.considered;
+}
+
 std::vector<std::string> assumption_texts(const std::vector<ProcessNote>& assumptions) {
   std::vector<std::string> out;
   for (const auto& n : assumptions) out.push_back(assumption_text(n));

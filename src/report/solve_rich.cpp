@@ -64,7 +64,7 @@ void question_section(RichDoc& d, const SolveResult& r, const SolveReportContext
   if (!r.stage.empty()) kv.push_back({"stage changed", r.stage});
   kv.push_back({"quantity", r.quantity});
   kv.push_back({"scheduled value", detail::solve_shown(r, r.nominal, u)});
-  kv.push_back({"solved for", joined(r.considered)});
+  kv.push_back({"solved for", joined(solved_for_texts(r))});
   if (r.end_C) kv.push_back({"end temperature (" + r.end_point + ")", fixed(display_temp(*r.end_C, u), 2) + " " +
                                                                         std::string(unit_symbol(u))});
   d.key_value(kv);

@@ -115,7 +115,8 @@ static void write_solve_text_unrendered(const SolveResult& r, const SolveReportC
   out << "  use:              " << shown(r, r.rounded, u) << "  (" << detail::solve_rounding_text(r, u) << ")\n";
   if (c.at_fit_bound) out << "  fit bound:        " << fit_bound_sentence(r, *c.at_fit_bound, u) << "\n";
   out << "  solved for:       ";
-  for (std::size_t i = 0; i < r.considered.size(); ++i) out << (i ? ", " : "") << r.considered[i];
+  const auto solved_for = solved_for_texts(r);
+  for (std::size_t i = 0; i < solved_for.size(); ++i) out << (i ? ", " : "") << solved_for[i];
   out << "\n\nVERIFICATION (forward re-run)\n";
   text_check(out, r, r.verification, "  at ", u);
   if (r.end_C)
@@ -240,7 +241,7 @@ static void write_solve_json_unrendered(const SolveResult& r, const SolveReportC
     w.key("driven_by").value(driven_by_text(cs));
     w.end_object();
   }
-  w.key("considered_targets").value(r.considered);
+  w.key("considered_targets").value(solved_for_texts(r));
   w.key("root_evaluations").value(r.root.evaluations);
   w.key("notes").value(solve_note_texts(r));
   w.key("assumptions").value(assumption_texts(r.assumptions));

@@ -53,3 +53,15 @@ TEST_CASE("assumptions are numbers too: report words them in the report's unit")
   CHECK(searched.at(0) == "searched from the nominal diameter upward; smaller sizes are not examined");
   CHECK(searched.at(1) == "the nominal diameter does not meet every target; searched below it");
 }
+
+TEST_CASE("chill-time is solved for its end condition, worded in the report's unit") {
+  process::SolveResult chill;
+  chill.question = process::Question::chill_time;
+  chill.end_C = 5;
+  chill.end_point = "centre";
+  // 5 C = 41 F (F = 1.8 C + 32).
+  CHECK(render_temperatures(solved_for_texts(chill).at(0), TempUnit::F) == "centre at or below 41 °F");
+  process::SolveResult hold;
+  hold.considered = {"F70"};
+  CHECK(solved_for_texts(hold) == std::vector<std::string>{"F70"});
+}

@@ -134,7 +134,9 @@ struct SolveResult {
   Check verification;          ///< forward re-run at `rounded`
   std::optional<Check> one_unit_less;  ///< re-run one unit on the unsafe side (if inside the domain)
   RootResult root;
-  std::vector<std::string> considered;  ///< names of the targets the answer is solved for
+  /// Names of the targets the answer is solved for; empty for chill-time, which is solved for its
+  /// end condition (end_point at or below end_C; report/process_notes.hpp: solved_for_texts).
+  std::vector<std::string> considered;
   std::vector<ProcessNote> notes;
   std::vector<ProcessNote> assumptions;  ///< the assumes_* kinds; report words them
   // chill-time only: the end temperature and where it is taken, and the temperature there at

@@ -17,6 +17,9 @@ std::vector<std::string> solve_note_texts(const process::SolveResult& solve);
 std::string deviation_note_text(const process::ProcessNote& note);
 std::vector<std::string> deviation_note_texts(const std::vector<process::ProcessNote>& notes);
 
+/// What the answer is solved for: the targets' names, or chill-time's end condition.
+std::vector<std::string> solved_for_texts(const process::SolveResult& solve);
+
 /// What a solve or a deviation assumes (the assumes_* kinds), as sentences.
 std::string assumption_text(const process::ProcessNote& assumption);
 std::vector<std::string> assumption_texts(const std::vector<process::ProcessNote>& assumptions);
