@@ -49,6 +49,21 @@ Target listeria(double logs, std::vector<std::string> stages = {}) {
   return t;
 }
 
+// The cook-chill as a probe log: a row every 10 s, so every corner is a row.
+void cook_chill_rows(std::vector<double>& ts, std::vector<double>& Ts) {
+  for (double t = 0; t <= 5400; t += 10) {
+    ts.push_back(t);
+    Ts.push_back(cook_chill(t));
+  }
+}
+
+Target two_stage_rule() {
+  Target cool;
+  cool.kind = TargetKind::cooling_rule;
+  cool.rule = "two-stage-6h";
+  return cool;
+}
+
 }  // namespace
 
 TEST_CASE("log-reduction target: per-stage F / credited stages / margin and range flag") {
@@ -192,13 +207,8 @@ TEST_CASE("assessment errors name the target") {
 
 TEST_CASE("probe log: three rules / verdict on the smallest / rule check on the same log") {
   std::vector<double> ts, Ts;
-  for (double t = 0; t <= 5400; t += 10) {
-    ts.push_back(t);
-    Ts.push_back(cook_chill(t));
-  }
-  Target cool;
-  cool.kind = TargetKind::cooling_rule;
-  cool.rule = "two-stage-6h";
+  cook_chill_rows(ts, Ts);
+  const Target cool = two_stage_rule();
   const ProbeAssessment p = assess_probe_log(ts, Ts, {listeria(6), cool}, orgs(), rules());
   REQUIRE(p.lethality.size() == 1);
   const double exact = f_linear(1200, 20, 72, 70, 7.5) + 600 * std::pow(10, 2 / 7.5) + f_linear(3600, 72, 2, 70, 7.5);
@@ -305,13 +315,8 @@ TEST_CASE("probe log: a gap and a coarse interval are worded with their times an
 // target reads the same numbers (the closed forms above), and the notes come in the same order.
 TEST_CASE("one curve: a probe log and a history through the same corners agree on every target kind") {
   std::vector<double> ts, Ts;
-  for (double t = 0; t <= 5400; t += 10) {
-    ts.push_back(t);
-    Ts.push_back(cook_chill(t));
-  }
-  Target cool;
-  cool.kind = TargetKind::cooling_rule;
-  cool.rule = "two-stage-6h";
+  cook_chill_rows(ts, Ts);
+  const Target cool = two_stage_rule();
   Target hold;
   hold.kind = TargetKind::centre_min_temperature;
   hold.min_temp_C = 70;
