@@ -64,6 +64,7 @@ CookingTable read_table(const Fields& f, std::set<std::string>& seen) {
 CookingTables parse_cooking_tables(std::string_view toml_text, std::string_view origin) {
   const toml::table doc = detail::parse_toml(toml_text, std::string(origin));
   const Fields root(doc, std::string(origin), "", plain_keys({"schema", "table"}));
+  root.require_schema_1(false);  // custom tables written without one are accepted
   CookingTables out;
   out.origin = std::string(origin);
   std::set<std::string> seen;

@@ -96,6 +96,7 @@ CoolingRule read_rule(const Fields& f, std::set<std::string>& seen) {
 RuleLibrary parse_cooling_rules(std::string_view toml_text, std::string_view origin) {
   const toml::table doc = detail::parse_toml(toml_text, std::string(origin));
   const Fields root(doc, std::string(origin), "", plain_keys({"schema", "rule"}));
+  root.require_schema_1(false);  // custom rules written without one are accepted
   RuleLibrary lib;
   lib.origin = std::string(origin);
   std::set<std::string> seen;

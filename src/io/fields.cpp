@@ -230,6 +230,15 @@ std::vector<Fields> Fields::entries(std::string_view key, const std::string& req
 
 const toml::node* Fields::node(std::string_view plain_key) const { return table_.get(plain_key); }
 
+void Fields::require_schema_1(bool required) const {
+  const toml::node* schema = node("schema");
+  if (schema == nullptr) {
+    if (required) missing("schema", "must be 1");
+    return;
+  }
+  if (!schema->is_integer() || schema->as_integer()->get() != 1) fail("schema", "must be 1");
+}
+
 std::optional<Found> Fields::find(std::string_view base) const {
   const KeySpec* spec = nullptr;
   for (const auto& s : specs_)

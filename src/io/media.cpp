@@ -30,9 +30,7 @@ MediaLibrary parse_media(std::string_view text, std::string_view origin_sv) {
   const toml::table doc = detail::parse_toml(text, origin);
   using detail::plain;
   detail::Fields root(doc, origin, "", {plain("schema"), plain("media")});
-  const toml::node* schema = root.node("schema");
-  if (schema == nullptr) root.missing("schema", "must be 1");
-  if (!schema->is_integer() || schema->as_integer()->get() != 1) root.fail("schema", "must be 1");
+  root.require_schema_1(true);
   const toml::node* media = root.node("media");
   if (media == nullptr || !media->is_table()) root.missing("media", "[media.<key>] tables");
   MediaLibrary lib;

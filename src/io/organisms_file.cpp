@@ -145,7 +145,7 @@ Organism read_organism(const Fields& f, std::set<std::string>& seen) {
 OrganismLibrary parse_organisms(std::string_view toml_text, std::string_view origin) {
   const toml::table doc = detail::parse_toml(toml_text, std::string(origin));
   const Fields root(doc, std::string(origin), "", plain_keys({"schema", "organism"}));
-  if (auto schema = root.number("schema"); schema && *schema != 1) root.fail("schema", "must be 1");
+  root.require_schema_1(false);  // custom organisms written without one are accepted
   OrganismLibrary lib;
   lib.origin = std::string(origin);
   std::set<std::string> seen;

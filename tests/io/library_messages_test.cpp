@@ -44,3 +44,17 @@ TEST_CASE("library readers: one status check for every library") {
                        "m.toml: media.x.status = \"sure\": must be \"confirmed\", \"derived\" or \"from memory\"",
                        InputError);
 }
+
+// A library of another schema would be read with the wrong meaning; one check for every library
+// (a custom organism, rule or table file may leave the schema out; the media file must give it).
+TEST_CASE("library readers: one schema check for every library") {
+  CHECK_THROWS_WITH_AS(io::parse_organisms("schema = 2\n", "o.toml"), "o.toml: schema = 2: must be 1", InputError);
+  CHECK_THROWS_WITH_AS(io::parse_cooling_rules("schema = \"1\"\n", "r.toml"), "r.toml: schema = \"1\": must be 1",
+                       InputError);
+  CHECK_THROWS_WITH_AS(io::parse_cooking_tables("schema = 1.5\n", "c.toml"), "c.toml: schema = 1.5: must be 1",
+                       InputError);
+  CHECK_THROWS_WITH_AS(io::parse_media("[media.x]\n", "m.toml"), "m.toml: schema: missing: must be 1", InputError);
+  // schema 1 passes: what is missing next is the rules themselves
+  CHECK_THROWS_WITH_AS(io::parse_cooling_rules("schema = 1\n", "r.toml"), "r.toml: rule: missing: [[rule]] tables",
+                       InputError);
+}

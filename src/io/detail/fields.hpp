@@ -72,6 +72,9 @@ class Fields {
   [[noreturn]] void fail_at(std::string_view where, const std::string& problem) const;
 
   const toml::node* node(std::string_view plain_key) const;
+  /// A data library's `schema`: when given it must be the integer 1 (`schema = <v>: must be 1`);
+  /// `required`: missing is an error too.
+  void require_schema_1(bool required) const;
   /// The one spelling of a quantity or medium key present, if any.
   std::optional<Found> find(std::string_view base) const;
 
