@@ -20,10 +20,12 @@ const CookingTable& CookingTables::at(std::string_view key, std::string_view pla
 
 namespace {
 
+using Intervals = std::vector<std::pair<double, double>>;
+
 // Total time with T >= level.
-double time_at_or_above(const detail::Curve& c, double level) {
+double time_at_or_above(const Intervals& above) {
   double s = 0;
-  for (const auto& [a, b] : c.intervals_at_or_above(level, c.start())) s += b - a;
+  for (const auto& [a, b] : above) s += b - a;
   return s;
 }
 
@@ -32,10 +34,15 @@ CookingCheck check_curve(const detail::Curve& c, const CookingTable& table) {
   out.table_key = table.key;
   out.source = table.source;
   const std::size_t n = table.rows.size();
+  // One sampling of the curve, and each row's intervals found once (issue 13: every row used to
+  // scan the whole grid three times).
+  const detail::Curve::Sampled sampled = c.sample(c.start());
+  std::vector<Intervals> above_row(n);
+  for (std::size_t i = 0; i < n; ++i) above_row[i] = c.intervals_at_or_above(table.rows[i].temp_C, sampled);
   double phi = 0;
   for (std::size_t i = 0; i < n; ++i) {
     const CookingRow& row = table.rows[i];
-    const auto above = c.intervals_at_or_above(row.temp_C, c.start());
+    const Intervals& above = above_row[i];
     double longest = 0;
     for (const auto& [a, b] : above) longest = std::max(longest, b - a);
     out.longest_hold_s.push_back(longest);
@@ -46,8 +53,7 @@ CookingCheck check_curve(const detail::Curve& c, const CookingTable& table) {
       if (!above.empty() && !out.instant_reached_s) out.instant_reached_s = above.front().first;
       continue;
     }
-    const double in_band = time_at_or_above(c, row.temp_C) -
-                           (i + 1 < n ? time_at_or_above(c, table.rows[i + 1].temp_C) : 0.0);
+    const double in_band = time_at_or_above(above) - (i + 1 < n ? time_at_or_above(above_row[i + 1]) : 0.0);
     phi += in_band / row.hold_s;
   }
   const double inf = std::numeric_limits<double>::infinity();

@@ -46,10 +46,11 @@ double outside_range(const History& h, const std::function<double(double)>& T, c
     c.temp_C_at = T;
     c.knots = knots(h, st.start_s, st.end_s);
     c.probes = probes_for(c.knots);
-    for (const auto& [a, b] : c.intervals_at_or_above(k.valid_max_C, st.start_s))
+    const detail::Curve::Sampled sampled = c.sample(st.start_s);  // both levels read one sampling
+    for (const auto& [a, b] : c.intervals_at_or_above(k.valid_max_C, sampled))
       out += f_between(h, T, a, b, k, rel_tol);
     double in_or_above_min = 0;
-    for (const auto& [a, b] : c.intervals_at_or_above(k.valid_min_C, st.start_s))
+    for (const auto& [a, b] : c.intervals_at_or_above(k.valid_min_C, sampled))
       in_or_above_min += f_between(h, T, a, b, k, rel_tol);
     const double stage_F = f_between(h, T, st.start_s, st.end_s, k, rel_tol);
     out += std::max(0.0, stage_F - in_or_above_min);

@@ -69,12 +69,29 @@ struct Curve {
 
   /// Maximal intervals within [from, end] where T >= level, as (start, end) pairs.
   std::vector<std::pair<double, double>> intervals_at_or_above(double level, double from) const {
+    return intervals_at_or_above(level, sample(from));
+  }
+
+  /// The probe grid from `from` with the temperature at each of its times.
+  struct Sampled {
+    std::vector<double> t, T;
+  };
+  Sampled sample(double from) const {
+    Sampled s{grid(from), {}};
+    s.T.reserve(s.t.size());
+    for (double t : s.t) s.T.push_back(temp_C_at(t));
+    return s;
+  }
+
+  /// As above on a grid sampled once: several levels read one sampling (the curve is a pure
+  /// function of time, so the intervals are the same as sampling anew for each level).
+  std::vector<std::pair<double, double>> intervals_at_or_above(double level, const Sampled& s) const {
     std::vector<std::pair<double, double>> out;
-    const auto g = grid(from);
-    bool inside = temp_C_at(g[0]) >= level;
+    const auto& g = s.t;
+    bool inside = s.T[0] >= level;
     double begin = g[0];
     for (std::size_t i = 0; i + 1 < g.size(); ++i) {
-      const double Tb = temp_C_at(g[i + 1]);
+      const double Tb = s.T[i + 1];
       const bool now = Tb >= level;
       if (now == inside) continue;
       const double t = refine(g[i], g[i + 1], level);
