@@ -47,7 +47,11 @@ class HistoryCurve final : public AssessedCurve {
         if (sl.credited) e.F_s += sl.F_s;
         e.stages.push_back(sl);
       }
-      e.F_outside_range_s = outside_range(h_, centre_, res.k, e.credited_stages, o_.rel_tol);
+      // Without gaps a stage's F is f_between over the whole stage: outside_range reuses it.
+      std::vector<double> stage_F_s;
+      if (o_.unrecorded_s.empty())
+        for (const auto& sl : e.stages) stage_F_s.push_back(sl.F_s);
+      e.F_outside_range_s = outside_range(h_, centre_, res.k, e.credited_stages, o_.rel_tol, stage_F_s);
     }
     e.share_base_s = e.F_s;
     e.unrecorded_s = o_.unrecorded_s;

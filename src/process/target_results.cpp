@@ -36,23 +36,28 @@ void provenance_notes(TargetResult& r, const Resolved& res) {
 
 // F credited outside the organism's valid range, over the credited stages.
 double outside_range(const History& h, const std::function<double(double)>& T, const Kinetics& k,
-                     const std::vector<int>& stages, double rel_tol) {
+                     const std::vector<int>& stages, double rel_tol, std::span<const double> stage_F_s) {
   if (k.valid_min_C <= -1e299 && k.valid_max_C >= 1e299) return 0;
   double out = 0;
   for (int i : stages) {
     const auto& st = h.stages[static_cast<std::size_t>(i)];
     if (!(st.end_s > st.start_s)) continue;
+    // The stage's whole F is the same integral the caller already has: reuse it (the same call
+    // gives the same bits, so nothing changes but the time).
+    const bool known = static_cast<std::size_t>(i) < stage_F_s.size();
+    const auto F_of = [&](double a, double b) {
+      return known && a == st.start_s && b == st.end_s ? stage_F_s[static_cast<std::size_t>(i)]
+                                                       : f_between(h, T, a, b, k, rel_tol);
+    };
     detail::Curve c;
     c.temp_C_at = T;
     c.knots = knots(h, st.start_s, st.end_s);
     c.probes = probes_for(c.knots);
     const detail::Curve::Sampled sampled = c.sample(st.start_s);  // both levels read one sampling
-    for (const auto& [a, b] : c.intervals_at_or_above(k.valid_max_C, sampled))
-      out += f_between(h, T, a, b, k, rel_tol);
+    for (const auto& [a, b] : c.intervals_at_or_above(k.valid_max_C, sampled)) out += F_of(a, b);
     double in_or_above_min = 0;
-    for (const auto& [a, b] : c.intervals_at_or_above(k.valid_min_C, sampled))
-      in_or_above_min += f_between(h, T, a, b, k, rel_tol);
-    const double stage_F = f_between(h, T, st.start_s, st.end_s, k, rel_tol);
+    for (const auto& [a, b] : c.intervals_at_or_above(k.valid_min_C, sampled)) in_or_above_min += F_of(a, b);
+    const double stage_F = F_of(st.start_s, st.end_s);
     out += std::max(0.0, stage_F - in_or_above_min);
   }
   return out;

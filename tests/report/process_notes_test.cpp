@@ -54,7 +54,7 @@ TEST_CASE("assumptions are numbers too: report words them in the report's unit")
   CHECK(searched.at(1) == "the nominal diameter does not meet every target; searched below it");
 }
 
-TEST_CASE("chill-time is solved for its end condition, worded in the report's unit") {
+TEST_CASE("chill-time is solved for its end condition - worded in the report's unit") {
   process::SolveResult chill;
   chill.question = process::Question::chill_time;
   chill.end_C = 5;

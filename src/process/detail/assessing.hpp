@@ -66,8 +66,10 @@ std::vector<int> credited(const Target& t, const History& h, const std::string& 
 /// Error bound (s) of a crossing time on the checked curve; 0 for a time that is no crossing.
 using CrossingError = std::function<double(double time_s, double level_C)>;
 void provenance_notes(TargetResult& r, const Resolved& res);
+/// Credited F outside the kinetics' valid range. `stage_F_s`, when given, holds each stage's whole
+/// F as f_between computes it (indexed by stage), so that it is not integrated again.
 double outside_range(const History& h, const std::function<double(double)>& T, const Kinetics& k,
-                     const std::vector<int>& stages, double rel_tol);
+                     const std::vector<int>& stages, double rel_tol, std::span<const double> stage_F_s = {});
 void lethality_verdict(TargetResult& r, const Target& t, const Resolved& res, const AssessOptions& o,
                        const std::string& place, double F_uncertainty_s);
 std::string label_of(const Target& t);
