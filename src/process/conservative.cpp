@@ -12,7 +12,6 @@ namespace coldcore::process {
 
 namespace {
 
-
 bool heating_question(Question q, const Scenario& s) {
   switch (q) {
     case Question::hold_time:
